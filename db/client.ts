@@ -1,0 +1,55 @@
+import "server-only";
+import fs from "node:fs";
+import path from "node:path";
+import { PGlite } from "@electric-sql/pglite";
+import { drizzle as drizzlePglite } from "drizzle-orm/pglite";
+import { drizzle as drizzleNodePg } from "drizzle-orm/node-postgres";
+import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
+import pg from "pg";
+import { env } from "@/lib/env";
+import * as schema from "@/db/schema";
+
+export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
+
+type Holder = { db?: Database; close?: () => Promise<void> };
+const globalHolder = globalThis as unknown as { __plateroomDb?: Holder };
+const holder: Holder = (globalHolder.__plateroomDb ??= {});
+
+/**
+ * The one database handle of this process, opened on first use (never at import time, so
+ * `next build` does not open it). Kept on globalThis because two PGlite instances on one
+ * data folder corrupt each other, and HMR would otherwise create a second.
+ * With DATABASE_URL set the same schema runs on a PostgreSQL server instead.
+ */
+export function getDb(): Database {
+  if (!holder.db) openDefault();
+  return holder.db!;
+}
+
+function openDefault(): void {
+  if (env.DATABASE_URL) {
+    const pool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 10 });
+    holder.db = drizzleNodePg(pool, { schema }) as unknown as Database;
+    holder.close = () => pool.end();
+    return;
+  }
+  const dir = path.resolve(env.PLATEROOM_DATA_DIR, "pg");
+  fs.mkdirSync(dir, { recursive: true });
+  usePglite(new PGlite(dir));
+}
+
+/** Installs a PGlite instance as this process's database (tests load a migrated template). */
+export function usePglite(client: PGlite): Database {
+  holder.db = drizzlePglite(client, { schema }) as unknown as Database;
+  holder.close = () => client.close();
+  return holder.db;
+}
+
+export async function closeDb(): Promise<void> {
+  const close = holder.close;
+  holder.db = undefined;
+  holder.close = undefined;
+  if (close) await close();
+}
+
+export { schema };

@@ -1,0 +1,6 @@
+export * from "./people";
+export * from "./tags";
+export * from "./techniques";
+export * from "./stills";
+export * from "./shows";
+export * from "./mail";

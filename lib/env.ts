@@ -1,0 +1,41 @@
+import "server-only";
+import { z } from "zod";
+
+/**
+ * The only reader of process.env. Every variable has a working default for the demo;
+ * AUTH_SECRET is the exception in production (see lib/auth/secret.ts).
+ */
+const envSchema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  PORT: z.coerce.number().int().min(1).max(65535).default(3000),
+  PLATEROOM_DATA_DIR: z.string().min(1).default("./.data"),
+  PLATEROOM_UPLOADS_DIR: z.string().min(1).default("./uploads"),
+  DATABASE_URL: z.string().url().optional(),
+  SMTP_URL: z.string().default("smtp://127.0.0.1:2525"),
+  AUTH_SECRET: z.string().min(32, "AUTH_SECRET must be at least 32 characters").optional(),
+  /** Public address used in links inside mail. */
+  PLATEROOM_BASE_URL: z.string().url().optional(),
+  PLATEROOM_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(80 * 1024 * 1024),
+  PLATEROOM_MAIL_FROM: z.string().default("Plateroom <plateroom@kestrel.test>"),
+  PLATEROOM_DIGEST_HOUR: z.coerce.number().int().min(0).max(23).default(7),
+  /** Set by the demo and tests to start the in-process mail sender loop. */
+  PLATEROOM_MAIL_SENDER: z.enum(["on", "off"]).default("on"),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+function readEnv(): Env {
+  if (process.env.SKIP_ENV_VALIDATION) return envSchema.parse({});
+  const parsed = envSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ");
+    throw new Error(`Invalid configuration: ${problems}`);
+  }
+  return parsed.data;
+}
+
+export const env: Env = readEnv();
+
+export function baseUrl(): string {
+  return env.PLATEROOM_BASE_URL ?? `http://localhost:${env.PORT}`;
+}

@@ -1,0 +1,35 @@
+import { fileURLToPath } from "node:url";
+import { defineConfig } from "vitest/config";
+
+const root = fileURLToPath(new URL("./", import.meta.url));
+
+export default defineConfig({
+  resolve: {
+    alias: [
+      { find: /^server-only$/, replacement: `${root}tests/server-only.mock.ts` },
+      { find: /^@\//, replacement: root },
+    ],
+  },
+  test: {
+    environment: "node",
+    globalSetup: ["tests/global-setup.ts"],
+    testTimeout: 30_000,
+    hookTimeout: 120_000,
+    projects: [
+      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"] } },
+      {
+        extends: true,
+        test: { name: "integration", include: ["tests/integration/**/*.test.ts"], setupFiles: ["tests/integration/setup.ts"] },
+      },
+      {
+        extends: true,
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          fileParallelism: false,
+          testTimeout: 90_000,
+        },
+      },
+    ],
+  },
+});
