@@ -1,0 +1,16 @@
+import type { Permission } from "@/lib/auth/permissions";
+
+export type NavItem = { href: string; label: string; permission: Permission; badge?: "review" };
+
+/** The signed-in navigation; each entry shows only to people whose role has its permission. */
+export const NAV_ITEMS: NavItem[] = [
+  { href: "/", label: "Home", permission: "technique:read" },
+  { href: "/techniques", label: "Techniques", permission: "technique:read" },
+  { href: "/problems", label: "Problems", permission: "technique:read" },
+  { href: "/search", label: "Search", permission: "technique:read" },
+  { href: "/shows", label: "Shows", permission: "technique:read" },
+  { href: "/review", label: "Review", permission: "technique:review", badge: "review" },
+  { href: "/people", label: "People", permission: "people:manage" },
+  { href: "/mail", label: "Mail", permission: "mail:read-outbox" },
+  { href: "/settings", label: "Settings", permission: "token:manage" },
+];

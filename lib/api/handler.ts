@@ -1,0 +1,75 @@
+import "server-only";
+import { z } from "zod";
+import { AppError, validationError, type ErrorBody } from "@/lib/api/errors";
+
+type RouteContext<P> = { params: Promise<P> };
+type Handler<P> = (req: Request, ctx: RouteContext<P>) => Promise<Response>;
+
+/**
+ * Wraps a route handler so every failure leaves as the API error shape (shared/API.md):
+ * AppError with its status, anything else logged and answered with a generic 500.
+ * Never a stack trace, never an HTML error page.
+ */
+export function apiRoute<P = Record<string, never>>(handler: Handler<P>): Handler<P> {
+  return async (req, ctx) => {
+    try {
+      const res = await handler(req, ctx);
+      return withApiHeaders(res);
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}
+
+export function errorResponse(error: unknown): Response {
+  if (error instanceof AppError) {
+    if (error.cause) console.error(`[api] ${error.code}:`, error.cause);
+    return json(error.toBody(), error.status, error.code === "rate_limited" ? { "Retry-After": "60" } : undefined);
+  }
+  if (error instanceof z.ZodError) return json(validationError(error).toBody(), 400);
+  console.error("[api] unexpected error:", error);
+  return json(new AppError("internal").toBody(), 500);
+}
+
+function json(body: ErrorBody, status: number, extra?: Record<string, string>): Response {
+  return withApiHeaders(Response.json(body, { status, headers: extra }));
+}
+
+function withApiHeaders(res: Response): Response {
+  // API answers are per-person and often confidential: never cached by shared caches.
+  if (!res.headers.has("Cache-Control")) res.headers.set("Cache-Control", "private, no-store");
+  res.headers.set("X-Content-Type-Options", "nosniff");
+  return res;
+}
+
+/** Reads and validates a JSON body; malformed JSON and wrong shapes are 400 with field messages. */
+export async function parseJson<S extends z.ZodType>(req: Request, schema: S): Promise<z.infer<S>> {
+  const type = req.headers.get("content-type") ?? "";
+  if (type && !type.includes("json")) throw new AppError("unsupported_type", "Send JSON (Content-Type: application/json).");
+  let raw: unknown;
+  try {
+    const text = await req.text();
+    raw = text.length ? JSON.parse(text) : undefined;
+  } catch {
+    throw new AppError("validation_failed", "The body is not valid JSON.");
+  }
+  return parseWith(schema, raw);
+}
+
+export function parseWith<S extends z.ZodType>(schema: S, raw: unknown): z.infer<S> {
+  const result = schema.safeParse(raw);
+  if (!result.success) throw validationError(result.error);
+  return result.data;
+}
+
+/** Query-string parameters as a plain object for zod; repeated keys become arrays. */
+export function searchParamsOf(req: Request): Record<string, string | string[]> {
+  const out: Record<string, string | string[]> = {};
+  for (const [k, v] of new URL(req.url).searchParams) {
+    const prev = out[k];
+    out[k] = prev === undefined ? v : Array.isArray(prev) ? [...prev, v] : [prev, v];
+  }
+  return out;
+}
+
+export const uuidParam = z.string().uuid("Not a valid id.");

@@ -1,0 +1,60 @@
+"use server";
+
+import { AuthError } from "next-auth";
+import { headers } from "next/headers";
+import { redirect } from "next/navigation";
+import { auth, clientAddress, signIn, signOut } from "@/lib/auth";
+import { credentialsSchema, emailSchema } from "@/lib/auth/schemas";
+import { isSignInLimited } from "@/lib/people/sign-in";
+import { requestPasswordReset, setPasswordWithToken } from "@/lib/people/mutations";
+import { setPasswordSchema } from "@/lib/people/schemas";
+import { zodFields, isAppError } from "@/lib/api/errors";
+import { endAllSessions } from "@/lib/people/sign-in";
+
+export type FormState = { message?: string; fieldErrors?: Record<string, string>; ok?: boolean };
+
+/** One message for every failed sign-in, so nobody can learn which e-mail addresses exist. */
+export const GENERIC_SIGN_IN_FAILURE = "That e-mail and password do not match an active account.";
+
+export async function signInAction(_prev: FormState, form: FormData): Promise<FormState> {
+  const parsed = credentialsSchema.safeParse({ email: form.get("email"), password: form.get("password") });
+  if (!parsed.success) return { message: GENERIC_SIGN_IN_FAILURE };
+  if (await isSignInLimited(parsed.data.email, clientAddress(await headers()))) {
+    return { message: "Too many attempts. Please wait 15 minutes and try again." };
+  }
+  const next = String(form.get("next") ?? "/");
+  // Only same-site paths: an open redirect after sign-in would help phishing.
+  const redirectTo = next.startsWith("/") && !next.startsWith("//") ? next : "/";
+  try {
+    await signIn("credentials", { email: parsed.data.email, password: parsed.data.password, redirectTo });
+  } catch (error) {
+    if (error instanceof AuthError) return { message: GENERIC_SIGN_IN_FAILURE };
+    throw error;
+  }
+  return {};
+}
+
+export async function signOutAction(): Promise<void> {
+  const session = await auth();
+  if (session?.user?.id) await endAllSessions(session.user.id);
+  await signOut({ redirectTo: "/login" });
+}
+
+export async function setPasswordAction(_prev: FormState, form: FormData): Promise<FormState> {
+  const parsed = setPasswordSchema.safeParse({ token: form.get("token"), password: form.get("password"), confirm: form.get("confirm") });
+  if (!parsed.success) return { fieldErrors: zodFields(parsed.error) };
+  try {
+    await setPasswordWithToken(parsed.data.token, parsed.data.password);
+  } catch (error) {
+    if (isAppError(error)) return { message: error.message };
+    throw error;
+  }
+  redirect("/login?password=set");
+}
+
+export async function forgotPasswordAction(_prev: FormState, form: FormData): Promise<FormState> {
+  const parsed = emailSchema.safeParse(form.get("email"));
+  if (!parsed.success) return { fieldErrors: { email: "Enter a valid e-mail address." } };
+  await requestPasswordReset(parsed.data);
+  return { ok: true, message: "If that address has an account, a link to set a new password is on its way." };
+}

@@ -1,0 +1,31 @@
+import "server-only";
+import { hash, verify, Algorithm } from "@node-rs/argon2";
+
+/**
+ * argon2id with the OWASP Password Storage Cheat Sheet's first recommended setting:
+ * m = 19 MiB, t = 2, p = 1.
+ */
+export const PASSWORD_HASH_OPTIONS = {
+  algorithm: Algorithm.Argon2id,
+  memoryCost: 19 * 1024,
+  timeCost: 2,
+  parallelism: 1,
+} as const;
+
+export const MIN_PASSWORD_LENGTH = 10;
+
+export function hashPassword(password: string): Promise<string> {
+  return hash(password, PASSWORD_HASH_OPTIONS);
+}
+
+// Verified against when the e-mail is unknown, so both paths cost one argon2 verification.
+let dummyHash: Promise<string> | undefined;
+
+export async function verifyPassword(storedHash: string | null | undefined, password: string): Promise<boolean> {
+  if (!storedHash) {
+    dummyHash ??= hashPassword("plateroom-timing-equaliser");
+    await verify(await dummyHash, password).catch(() => false);
+    return false;
+  }
+  return verify(storedHash, password).catch(() => false);
+}

@@ -1,0 +1,2 @@
+export const THEME_COOKIE = "plateroom-theme";
+export type Theme = "dark" | "light";
