@@ -1,0 +1,38 @@
+import "server-only";
+
+import { createSearchIndex } from "./engine";
+import type { SearchDocument, SearchIndex } from "./types";
+
+export { createSearchIndex, FIELD_WEIGHTS } from "./engine";
+export { highlight, type HighlightSegment } from "./highlight";
+export type * from "./types";
+
+export type SearchIndexEntry = { techniqueId: string; published: SearchDocument | null; working: SearchDocument | null };
+export type ProcessSearchIndex = ReturnType<typeof createSearchIndex>;
+
+// One index per process; on globalThis so Next's dev reloads do not build a second one.
+const globalForSearch = globalThis as unknown as { plateroomSearchIndex?: ProcessSearchIndex };
+
+/**
+ * The process-wide index. Empty until `rebuildSearchIndex` has run; the DAL calls `upsert`/`remove`
+ * on it in every write that changes a technique (after the transaction commits).
+ */
+export function getSearchIndex(): SearchIndex {
+  globalForSearch.plateroomSearchIndex ??= createSearchIndex();
+  return globalForSearch.plateroomSearchIndex;
+}
+
+/**
+ * Build a fresh index from `loadAll()` and swap it in, so searches keep using the old one while
+ * loading. Returns the number of techniques indexed.
+ *
+ * Writes that land during the load may be missed by the fresh index; call this at start-up, before
+ * serving writes, or re-apply such writes afterwards.
+ */
+export async function rebuildSearchIndex(loadAll: () => Promise<SearchIndexEntry[]>): Promise<number> {
+  const rows = await loadAll();
+  const next = createSearchIndex();
+  next.load(rows);
+  globalForSearch.plateroomSearchIndex = next;
+  return next.size();
+}
