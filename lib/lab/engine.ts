@@ -1,0 +1,427 @@
+import "server-only";
+import sharp from "sharp";
+import {
+  CHANNEL_INDEX,
+  type LabFormat,
+  type LabSpace,
+  type RecipeStep,
+  type StepReport,
+} from "@/lib/lab/recipe";
+import { codeLut, quantise, quantiser } from "@/lib/lab/srgb";
+import {
+  blurPlane,
+  copyChannel,
+  extractChannel,
+  insertChannel,
+  matrixInPlace,
+  morphPlane,
+  rampPlane,
+} from "@/lib/lab/kernels";
+
+/*
+ * The still lab engine: decode with sharp (stored values, ICC ignored), run the recipe in
+ * float32 on reused buffers with no clipping between steps, quantise once at encoding.
+ * LAB-NOTES.md explains why per-pixel work is JS loops rather than libvips operations.
+ */
+
+/** Decoded stored codes, always RGB interleaved. */
+export type StillCodes = { width: number; height: number; bits: 8 | 16; codes: Uint8Array | Uint16Array };
+
+/** A read-only image the steps refer to: stored codes through a LUT, or plain floats (tests). */
+export type PixelSource =
+  | { kind: "codes"; codes: Uint8Array | Uint16Array; lut: Float32Array }
+  | { kind: "float"; data: Float32Array };
+
+export type LabState = {
+  width: number;
+  height: number;
+  /** Working image, interleaved RGB float. */
+  cur: Float32Array;
+  /** What the steps clean: the denoised plate when the recipe regrains, else the plate. */
+  base: PixelSource;
+  /** The plate as shot (with grain). */
+  plate: PixelSource;
+  matte: Float32Array | null;
+  /** Full-resolution pixels per working pixel (rects in steps are in full-res pixels). */
+  scale: number;
+  scratch: Float32Array[];
+};
+
+export type DenoisedLoader = (stillId: string) => Promise<Uint8Array>;
+
+export class LabInputError extends Error {
+  constructor(message: string, readonly stepIndex?: number) {
+    super(message);
+    this.name = "LabInputError";
+  }
+}
+
+export class LabAbortedError extends Error {
+  constructor() {
+    super("lab run aborted");
+    this.name = "LabAbortedError";
+  }
+}
+
+const CHUNK = 4096;
+
+/** Fills `out` (3 × count floats) with a source's RGB floats for pixels [start, start+count). */
+function readChunk(src: PixelSource, start: number, count: number, out: Float32Array): void {
+  const a = start * 3, b = a + count * 3;
+  if (src.kind === "float") {
+    out.set(src.data.subarray(a, b));
+    return;
+  }
+  const { codes, lut } = src;
+  for (let i = a, j = 0; i < b; i++, j++) out[j] = lut[codes[i]!]!;
+}
+
+/** Decodes stored codes as RGB; 16-bit stays 16-bit (sharp's own 8 → 16 scaling is not ×257). */
+export async function decodeStill(bytes: Uint8Array, width?: number): Promise<StillCodes & { sourceWidth: number; sourceHeight: number }> {
+  const meta = await sharp(bytes, { ignoreIcc: true }).metadata();
+  if (!meta.width || !meta.height) throw new LabInputError("not a decodable still");
+  const is16 = meta.depth === "ushort";
+  const grey = (meta.channels ?? 3) <= 2;
+  let pipe = sharp(bytes, { ignoreIcc: true, limitInputPixels: 8192 * 8192 });
+  if (width && width < meta.width) pipe = pipe.resize({ width });
+  let data: Buffer;
+  let info: sharp.OutputInfo;
+  if (is16) {
+    ({ data, info } = await pipe
+      .toColourspace(grey ? "grey16" : "rgb16")
+      .raw({ depth: "ushort" })
+      .toBuffer({ resolveWithObject: true }));
+  } else {
+    ({ data, info } = await pipe.raw().toBuffer({ resolveWithObject: true }));
+  }
+  const n = info.width * info.height;
+  const ch = info.channels;
+  const src: Uint8Array | Uint16Array = is16
+    ? new Uint16Array(data.buffer, data.byteOffset, data.length >> 1)
+    : new Uint8Array(data.buffer, data.byteOffset, data.length);
+  let codes: Uint8Array | Uint16Array = src;
+  if (ch !== 3) {
+    codes = is16 ? new Uint16Array(n * 3) : new Uint8Array(n * 3);
+    for (let p = 0, i = 0; p < n; p++, i += ch) {
+      const o = p * 3;
+      if (ch <= 2) {
+        const v = src[i]!;
+        codes[o] = v; codes[o + 1] = v; codes[o + 2] = v;
+      } else {
+        codes[o] = src[i]!; codes[o + 1] = src[i + 1]!; codes[o + 2] = src[i + 2]!;
+      }
+    }
+  }
+  return { width: info.width, height: info.height, bits: is16 ? 16 : 8, codes, sourceWidth: meta.width, sourceHeight: meta.height };
+}
+
+export function codesSource(still: StillCodes, space: LabSpace): PixelSource {
+  return { kind: "codes", codes: still.codes, lut: codeLut(still.bits, space === "linear") };
+}
+
+export function createLabState(opts: { width: number; height: number; plate: PixelSource; base?: PixelSource; scale?: number }): LabState {
+  const { width, height, plate } = opts;
+  const base = opts.base ?? plate;
+  const cur = new Float32Array(width * height * 3);
+  const buf = new Float32Array(CHUNK * 3);
+  for (let p = 0; p < width * height; p += CHUNK) {
+    const count = Math.min(CHUNK, width * height - p);
+    readChunk(base, p, count, buf);
+    cur.set(buf.subarray(0, count * 3), p * 3);
+  }
+  return { width, height, cur, base, plate, matte: null, scale: opts.scale ?? 1, scratch: [] };
+}
+
+function scratch(state: LabState, i: number): Float32Array {
+  while (state.scratch.length <= i) state.scratch.push(new Float32Array(state.width * state.height));
+  return state.scratch[i]!;
+}
+
+function levelStep(state: LabState, step: Extract<RecipeStep, { op: "level" }>, index: number): StepReport {
+  const { width, height, cur } = state;
+  const cx = CHANNEL_INDEX[step.channel], cy = CHANNEL_INDEX[step.ref];
+  let x0 = 0, y0 = 0, x1 = width, y1 = height;
+  if (step.rect) {
+    const s = state.scale;
+    x0 = Math.max(0, Math.floor(step.rect.x / s));
+    y0 = Math.max(0, Math.floor(step.rect.y / s));
+    x1 = Math.min(width, Math.max(x0 + 1, Math.ceil((step.rect.x + step.rect.w) / s)));
+    y1 = Math.min(height, Math.max(y0 + 1, Math.ceil((step.rect.y + step.rect.h) / s)));
+    if (x0 >= width || y0 >= height) throw new LabInputError(`step ${index}: rect lies outside the still`, index);
+  }
+  const rowBuf = new Float32Array((x1 - x0) * 3);
+  const count = (x1 - x0) * (y1 - y0);
+  // Two passes (means, then centred sums) in float64 so large frames do not cancel.
+  let sx = 0, sy = 0;
+  for (let y = y0; y < y1; y++) {
+    readChunk(state.base, y * width + x0, x1 - x0, rowBuf);
+    for (let x = x0, j = 0; x < x1; x++, j += 3) { sx += cur[(y * width + x) * 3 + cx]!; sy += rowBuf[j + cy]!; }
+  }
+  const mx = sx / count, my = sy / count;
+  let sxx = 0, sxy = 0, syy = 0, rxx = 0, rxy = 0, ryy = 0;
+  for (let y = y0; y < y1; y++) {
+    readChunk(state.base, y * width + x0, x1 - x0, rowBuf);
+    for (let x = x0, j = 0; x < x1; x++, j += 3) {
+      const xv = cur[(y * width + x) * 3 + cx]!, yv = rowBuf[j + cy]!;
+      const dx = xv - mx, dy = yv - my;
+      sxx += dx * dx; sxy += dx * dy; syy += dy * dy;
+      rxx += xv * xv; rxy += xv * yv; ryy += yv * yv;
+    }
+  }
+  let gain: number, offset: number, sse: number;
+  if (step.fit === "gain+offset") {
+    gain = sxx > 0 ? sxy / sxx : 0;
+    offset = my - gain * mx;
+    sse = syy - gain * sxy;
+  } else {
+    gain = rxx > 0 ? rxy / rxx : 0;
+    offset = 0;
+    sse = ryy - gain * rxy;
+  }
+  const n3 = cur.length;
+  for (let i = cx; i < n3; i += 3) cur[i] = gain * cur[i]! + offset;
+  return { index, op: "level", gain, offset, residual: Math.sqrt(Math.max(0, sse) / count), samples: count };
+}
+
+function matteStep(state: LabState, step: Extract<RecipeStep, { op: "matte" }>, index: number): StepReport {
+  const n = state.width * state.height;
+  const matte = state.matte ?? new Float32Array(n);
+  const w = typeof step.channel === "string"
+    ? ([0, 0, 0].map((_, i) => (i === CHANNEL_INDEX[step.channel as "r"] ? 1 : 0)) as number[])
+    : step.channel;
+  const w0 = w[0]!, w1 = w[1]!, w2 = w[2]!;
+  if (step.source === "current") {
+    const cur = state.cur;
+    for (let p = 0, i = 0; p < n; p++, i += 3) matte[p] = w0 * cur[i]! + w1 * cur[i + 1]! + w2 * cur[i + 2]!;
+  } else {
+    const buf = new Float32Array(CHUNK * 3);
+    for (let p = 0; p < n; p += CHUNK) {
+      const count = Math.min(CHUNK, n - p);
+      readChunk(state.base, p, count, buf);
+      for (let q = 0, j = 0; q < count; q++, j += 3) matte[p + q] = w0 * buf[j]! + w1 * buf[j + 1]! + w2 * buf[j + 2]!;
+    }
+  }
+  rampPlane(matte, step.black, step.white);
+  state.matte = matte;
+  let s = 0;
+  for (let p = 0; p < n; p++) s += matte[p]!;
+  return { index, op: "matte", coverage: s / n };
+}
+
+function mixStep(state: LabState, invert: boolean): void {
+  const { cur, width, height } = state;
+  const matte = state.matte!;
+  const n = width * height;
+  const buf = new Float32Array(CHUNK * 3);
+  for (let p = 0; p < n; p += CHUNK) {
+    const count = Math.min(CHUNK, n - p);
+    readChunk(state.base, p, count, buf);
+    for (let q = 0, j = 0, i = p * 3; q < count; q++, j += 3, i += 3) {
+      let m = matte[p + q]!;
+      if (invert) m = 1 - m;
+      const k = 1 - m;
+      cur[i] = cur[i]! * m + buf[j]! * k;
+      cur[i + 1] = cur[i + 1]! * m + buf[j + 1]! * k;
+      cur[i + 2] = cur[i + 2]! * m + buf[j + 2]! * k;
+    }
+  }
+}
+
+function grainStep(state: LabState): void {
+  const { cur, width, height } = state;
+  const n = width * height;
+  if (state.base === state.plate) return;
+  const a = new Float32Array(CHUNK * 3), b = new Float32Array(CHUNK * 3);
+  for (let p = 0; p < n; p += CHUNK) {
+    const count = Math.min(CHUNK, n - p);
+    readChunk(state.plate, p, count, a);
+    readChunk(state.base, p, count, b);
+    for (let j = 0, i = p * 3; j < count * 3; j++, i++) cur[i] = cur[i]! + (a[j]! - b[j]!);
+  }
+}
+
+function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" }>, index: number): StepReport {
+  const { cur, width, height } = state;
+  const n = width * height;
+  const w = scratch(state, 0), den = scratch(state, 1), num = scratch(state, 2), tmp = scratch(state, 3);
+  const matte = state.matte;
+  for (let p = 0; p < n; p++) {
+    let m = matte && step.weight !== "all" ? matte[p]! : 0;
+    m = m < 0 ? 0 : m > 1 ? 1 : m;
+    w[p] = step.weight === "inside" ? m : step.weight === "outside" ? 1 - m : 1;
+  }
+  den.set(w);
+  blurPlane(den, width, height, step.sigma, tmp);
+  let unfilled = 0;
+  for (let p = 0; p < n; p++) if (!(den[p]! > 1e-6)) unfilled++;
+  for (let c = 0; c < 3; c++) {
+    for (let p = 0, i = c; p < n; p++, i += 3) num[p] = cur[i]! * w[p]!;
+    blurPlane(num, width, height, step.sigma, tmp);
+    const target = step.color[c]!;
+    // Knutsson & Westin: screen estimate = blur(plate × w) / blur(w); where no screen was
+    // seen within reach the pixel is left as it is.
+    for (let p = 0, i = c; p < n; p++, i += 3) {
+      const d = den[p]!;
+      if (!(d > 1e-6)) continue;
+      const est = num[p]! / d;
+      if (est !== 0) cur[i] = (cur[i]! / est) * target;
+    }
+  }
+  return { index, op: "flatten", unfilled };
+}
+
+/** Runs one validated step on the state. */
+export function applyStep(state: LabState, step: RecipeStep, index: number): StepReport {
+  const { width, height, cur } = state;
+  switch (step.op) {
+    case "matrix":
+      matrixInPlace(cur, step.m, step.offset);
+      return { index, op: "matrix" };
+    case "copy":
+      copyChannel(cur, CHANNEL_INDEX[step.from], CHANNEL_INDEX[step.to]);
+      return { index, op: "copy" };
+    case "level":
+      return levelStep(state, step, index);
+    case "matte":
+      return matteStep(state, step, index);
+    case "grow":
+      if (!state.matte) throw new LabInputError(`step ${index}: grow needs a matte`, index);
+      morphPlane(state.matte, width, height, Math.round(step.px / state.scale));
+      return { index, op: "grow" };
+    case "soften": {
+      const sigma = step.sigma / state.scale;
+      if (step.target === "matte") {
+        if (!state.matte) throw new LabInputError(`step ${index}: soften needs a matte`, index);
+        blurPlane(state.matte, width, height, sigma, scratch(state, 0));
+      } else {
+        const plane = scratch(state, 1);
+        extractChannel(cur, CHANNEL_INDEX[step.target], plane);
+        blurPlane(plane, width, height, sigma, scratch(state, 0));
+        insertChannel(cur, CHANNEL_INDEX[step.target], plane);
+      }
+      return { index, op: "soften" };
+    }
+    case "mix":
+      if (!state.matte) throw new LabInputError(`step ${index}: mix needs a matte`, index);
+      mixStep(state, step.invert);
+      return { index, op: "mix" };
+    case "flatten":
+      return flattenStep(state, { ...step, sigma: step.sigma / state.scale }, index);
+    case "grain":
+      grainStep(state);
+      return { index, op: "grain" };
+  }
+}
+
+export const CONTENT_TYPES: Record<LabFormat, string> = { png16: "image/png", png: "image/png", webp: "image/webp" };
+
+/**
+ * Encodes the working image. `reuse` may be handed a 16-bit code buffer of the right size that
+ * is no longer needed (the plate's), so a 4K png16 render does not allocate another 53 MB.
+ */
+export async function encodeImage(cur: Float32Array, width: number, height: number, space: LabSpace, format: LabFormat,
+  reuse?: Uint16Array): Promise<Buffer> {
+  const linear = space === "linear";
+  const raw = { width, height, channels: 3 as const };
+  if (format === "png16") {
+    const out = reuse && reuse.length === cur.length ? reuse : new Uint16Array(cur.length);
+    quantise(cur, out, quantiser(16, linear));
+    // Level 1: ~5× faster than the default on 16-bit frames (LAB-NOTES.md), still lossless.
+    return sharp(out, { raw }).toColourspace("rgb16").png({ compressionLevel: 1 }).toBuffer();
+  }
+  const out = new Uint8Array(cur.length);
+  quantise(cur, out, quantiser(8, linear));
+  const img = sharp(out, { raw });
+  return format === "png"
+    ? img.png({ compressionLevel: 3 }).toBuffer()
+    : img.webp({ quality: 90, effort: 2 }).toBuffer();
+}
+
+export type LabProgress = { done: number; total: number; label: string };
+
+export type RunRecipeOptions = {
+  /** Encoded still (PNG, TIFF, JPEG, WebP …). */
+  still: Uint8Array;
+  steps: RecipeStep[];
+  space: LabSpace;
+  format: LabFormat;
+  /** Proxy render width; absent or ≥ the still's width = exact full resolution. */
+  width?: number;
+  /** Loads another still by id (the grain step's denoised plate). */
+  loadStill?: DenoisedLoader;
+  signal?: AbortSignal;
+  onProgress?: (p: LabProgress) => void;
+};
+
+export type RunRecipeResult = {
+  bytes: Buffer;
+  contentType: string;
+  width: number;
+  height: number;
+  sourceWidth: number;
+  sourceHeight: number;
+  reports: StepReport[];
+  timings: { decodeMs: number; stepsMs: number; encodeMs: number };
+};
+
+function checkAbort(signal?: AbortSignal): void {
+  if (signal?.aborted) throw new LabAbortedError();
+}
+
+/** Decodes, runs every step in float32, and encodes. Never writes to the still it was given. */
+export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult> {
+  const { steps, space, format, signal, onProgress } = opts;
+  const total = steps.length + 2;
+  const t0 = performance.now();
+  onProgress?.({ done: 0, total, label: "decode" });
+  const plateCodes = await decodeStill(opts.still, opts.width);
+  checkAbort(signal);
+  const plate = codesSource(plateCodes, space);
+  let base: PixelSource = plate;
+  const grainIndex = steps.findIndex((s) => s.op === "grain");
+  if (grainIndex >= 0) {
+    const step = steps[grainIndex] as Extract<RecipeStep, { op: "grain" }>;
+    if (!opts.loadStill) throw new LabInputError(`step ${grainIndex}: no loader for the denoised still`, grainIndex);
+    const bytes = await opts.loadStill(step.denoised);
+    const den = await decodeStill(bytes, opts.width);
+    if (den.width !== plateCodes.width || den.height !== plateCodes.height) {
+      throw new LabInputError(`step ${grainIndex}: the denoised still is not the plate's size`, grainIndex);
+    }
+    base = codesSource(den, space);
+    checkAbort(signal);
+  }
+  const state = createLabState({
+    width: plateCodes.width,
+    height: plateCodes.height,
+    plate,
+    base,
+    scale: plateCodes.sourceWidth / plateCodes.width,
+  });
+  const t1 = performance.now();
+  const reports: StepReport[] = [];
+  for (let i = 0; i < steps.length; i++) {
+    onProgress?.({ done: i + 1, total, label: steps[i]!.op });
+    reports.push(applyStep(state, steps[i]!, i));
+    checkAbort(signal);
+    // Let the event loop breathe between steps so timeouts and other requests get a turn.
+    await new Promise<void>((resolve) => setImmediate(resolve));
+  }
+  const t2 = performance.now();
+  onProgress?.({ done: total - 1, total, label: "encode" });
+  state.scratch = [];
+  state.matte = null;
+  const reuse = plateCodes.bits === 16 ? (plateCodes.codes as Uint16Array) : undefined;
+  const bytes = await encodeImage(state.cur, state.width, state.height, space, format, reuse);
+  const t3 = performance.now();
+  onProgress?.({ done: total, total, label: "done" });
+  return {
+    bytes,
+    contentType: CONTENT_TYPES[format],
+    width: state.width,
+    height: state.height,
+    sourceWidth: plateCodes.sourceWidth,
+    sourceHeight: plateCodes.sourceHeight,
+    reports,
+    timings: { decodeMs: t1 - t0, stepsMs: t2 - t1, encodeMs: t3 - t2 },
+  };
+}
