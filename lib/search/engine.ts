@@ -561,13 +561,13 @@ export function createSearchIndex(): SearchIndex & {
   function rankCandidates(ids: number[], words: QueryWord[], filters: Filters): Candidate[] {
     const n = words.filter((w) => w.expansions.length > 0).length;
     const houseHits = hitProblemTags(words, filters.tags);
+    // Most query words must match; relax one word at a time when nothing would be left. Retired
+    // techniques do not count when choosing the bar, since they are listed last anyway.
+    const live = ids.filter((id) => !(entries[id] as Entry).isRetired);
+    const basis = live.length > 0 ? live : ids;
     let required = n - Math.floor(n / 3);
-    let chosen: number[] = [];
-    while (required >= 1) {
-      chosen = ids.filter((id) => (cover[id] as number) >= required);
-      if (chosen.length > 0) break;
-      required--;
-    }
+    while (required > 1 && !basis.some((id) => (cover[id] as number) >= required)) required--;
+    const chosen = ids.filter((id) => (cover[id] as number) >= required);
     const cands: Candidate[] = chosen.map((id) => {
       const e = entries[id] as Entry;
       const coverage = (cover[id] as number) / Math.max(1, n);

@@ -1,0 +1,229 @@
+import { describe, expect, it } from "vitest";
+
+import { createSearchIndex } from "@/lib/search/engine";
+import type { SearchDocument, SearchOptions } from "@/lib/search/types";
+
+import { TAGS } from "./fixtures";
+
+// Ranking and visibility rules are Plateroom's own (issue 6, PRODUCT.md "Search"), not a published source.
+let n = 0;
+function doc(p: Partial<SearchDocument> & { slug: string; title: string }): SearchDocument {
+  n++;
+  return {
+    techniqueId: `t-${p.slug}`,
+    summary: "",
+    aliases: [],
+    tags: [],
+    parameterNames: [],
+    shotCodes: [],
+    bodyText: "",
+    status: "approved",
+    houseMethodFor: [],
+    updatedAt: `2026-03-${String(10 + (n % 18)).padStart(2, "0")}T09:00:00.000Z`,
+    ...p,
+  };
+}
+const pub = (d: SearchDocument) => ({ published: d, working: null });
+const slugs = (idx: ReturnType<typeof createSearchIndex>, q: string, o: Partial<SearchOptions> = {}) =>
+  idx.search(q, { audience: "published", ...o }).results.map((r) => r.slug);
+
+describe("status and house-method ordering", () => {
+  it("ranks an approved technique before an equally relevant draft or review (working audience)", () => {
+    const idx = createSearchIndex();
+    const body = "Clean the grain after keying the plate.";
+    idx.upsert("a", { published: null, working: doc({ slug: "draft-one", title: "Grain cleanup", bodyText: body, status: "draft" }) });
+    idx.upsert("b", { published: null, working: doc({ slug: "review-one", title: "Grain cleanup", bodyText: body, status: "in_review" }) });
+    idx.upsert("c", pub(doc({ slug: "approved-one", title: "Grain cleanup", bodyText: body })));
+    expect(idx.search("grain cleanup", { audience: "working" }).results.map((r) => r.slug)[0]).toBe("approved-one");
+  });
+
+  it("treats a technique with a pending edit as approved when ranking its working view", () => {
+    const idx = createSearchIndex();
+    const approved = doc({ slug: "edited", title: "Grain cleanup", summary: "first text" });
+    idx.upsert("a", { published: approved, working: { ...approved, summary: "edited text", status: "in_review" } });
+    idx.upsert("b", { published: null, working: doc({ slug: "new-draft", title: "Grain cleanup", status: "draft" }) });
+    expect(idx.search("grain cleanup", { audience: "working" }).results.map((r) => r.slug)).toEqual(["edited", "new-draft"]);
+  });
+
+  it("puts the department's method for the problem the query names first, and flags it", () => {
+    const idx = createSearchIndex();
+    idx.upsert("a", pub(doc({ slug: "wire-fancy", title: "Wire removal with offset frames", tags: [TAGS.wire], bodyText: "wire wire removal" })));
+    idx.upsert("b", pub(doc({ slug: "wire-house", title: "Wire removal", tags: [TAGS.wire], houseMethodFor: ["wire-rig"] })));
+    const res = idx.search("wire removal", { audience: "published" });
+    expect(res.results[0]?.slug).toBe("wire-house");
+    expect(res.results[0]?.isHouseMethod).toBe(true);
+    expect(res.results[1]?.isHouseMethod).toBe(false);
+  });
+
+  it("does not flag the house method when the search is about another problem", () => {
+    const idx = createSearchIndex();
+    idx.upsert("b", pub(doc({ slug: "wire-house", title: "Wire removal over grain", tags: [TAGS.wire, TAGS.grain], houseMethodFor: ["wire-rig"] })));
+    const res = idx.search("grain", { audience: "published" });
+    expect(res.results[0]?.isHouseMethod).toBe(false);
+    expect(res.results[0]?.houseMethodFor).toEqual(["wire-rig"]);
+    // A tag filter on the problem makes the search about it.
+    expect(idx.search("grain", { audience: "published", tags: ["wire-rig"] }).results[0]?.isHouseMethod).toBe(true);
+  });
+
+  it("hides retired techniques unless asked, and then lists them last", () => {
+    const idx = createSearchIndex();
+    idx.upsert("old", pub(doc({ slug: "old-way", title: "Dust busting dust busting", status: "retired" })));
+    idx.upsert("new", pub(doc({ slug: "new-way", title: "Dust cleanup" })));
+    expect(slugs(idx, "dust busting")).toEqual(["new-way"]);
+    expect(slugs(idx, "dust busting", { includeRetired: true })).toEqual(["new-way", "old-way"]);
+    expect(slugs(idx, "dust busting", { status: ["retired"] })).toEqual(["old-way"]);
+    expect(slugs(idx, "", { includeRetired: true })).toEqual(["new-way", "old-way"]);
+  });
+});
+
+describe("field weights", () => {
+  // Issue 6: title > aliases ≈ tags > summary > parameter names ≈ shot codes > body.
+  const fields: [string, Partial<SearchDocument>][] = [
+    ["title", { title: "Keyer cleanup" }],
+    ["aliases", { aliases: ["keyer cleanup"] }],
+    ["summary", { summary: "Keyer cleanup" }],
+    ["parameters", { parameterNames: ["keyerCleanup"] }],
+    ["body", { bodyText: "Keyer cleanup" }],
+  ];
+  it("orders the same words by the field they appear in", () => {
+    const idx = createSearchIndex();
+    for (const [field, p] of fields) idx.upsert(field, pub(doc({ slug: `in-${field}`, title: `Technique ${field}`, ...p })));
+    expect(slugs(idx, "keyer cleanup")).toEqual(fields.map(([f]) => `in-${f}`));
+  });
+
+  it("scores a tag-name match like an alias match and above the summary", () => {
+    const idx = createSearchIndex();
+    idx.upsert("t", pub(doc({ slug: "by-tag", title: "One", tags: [TAGS.reflections] })));
+    idx.upsert("s", pub(doc({ slug: "by-summary", title: "Two", summary: "reflections" })));
+    expect(slugs(idx, "reflections")).toEqual(["by-tag", "by-summary"]);
+  });
+
+  it("finds shot codes", () => {
+    const idx = createSearchIndex();
+    idx.upsert("s", pub(doc({ slug: "shot-user", title: "Some technique", shotCodes: ["SLM_040_0120"] })));
+    idx.upsert("o", pub(doc({ slug: "other", title: "Other", shotCodes: ["SLM_041_0120"] })));
+    expect(slugs(idx, "SLM_040_0120")[0]).toBe("shot-user");
+  });
+});
+
+describe("matches and snippets", () => {
+  const idx = createSearchIndex();
+  const body =
+    "Start by checking the plate for noise. ".repeat(6) + "Then take the tracking markers out with a matrix row and restore grain. " + "More notes follow here. ".repeat(8);
+  idx.upsert("m", pub(doc({ slug: "m", title: "Tracking marker removal", summary: "Markers on blue", bodyText: body, parameterNames: ["markerRow"], tags: [TAGS.markers] })));
+  const res = idx.search("trakcing markers", { audience: "published" });
+  const r = res.results[0];
+
+  it("gives ranges that cover exactly the matched words, typo-corrected ones included", () => {
+    const title = r?.matches.find((m) => m.field === "title");
+    expect(title?.ranges.map(([s, e]) => title.value.slice(s, e))).toEqual(["Tracking", "marker"]);
+    const summary = r?.matches.find((m) => m.field === "summary");
+    expect(summary?.ranges.map(([s, e]) => summary.value.slice(s, e))).toEqual(["Markers"]);
+    const params = r?.matches.find((m) => m.field === "parameters");
+    expect(params?.ranges.map(([s, e]) => params.value.slice(s, e))).toEqual(["marker"]);
+    const tagValues = r?.matches.filter((m) => m.field === "tags").map((m) => m.value);
+    expect(tagValues).toContain("Tracking markers");
+  });
+
+  it("cuts the snippet around the body match and gives ranges relative to it", () => {
+    expect(r?.snippet).toContain("tracking markers");
+    expect(r?.snippet.length).toBeLessThan(200);
+    expect(r?.snippet.startsWith("…")).toBe(true);
+    const bodyMatch = r?.matches.find((m) => m.field === "body");
+    expect(bodyMatch?.value).toBe(r?.snippet);
+    expect(bodyMatch?.ranges.map(([s, e]) => bodyMatch.value.slice(s, e))).toEqual(["tracking", "markers"]);
+  });
+
+  it("falls back to the summary start when the body has no match", () => {
+    const only = idx.search("blue", { audience: "published" }).results[0];
+    expect(only?.snippet).toBe("Markers on blue");
+    expect(only?.matches.some((m) => m.field === "body")).toBe(false);
+  });
+});
+
+describe("visibility", () => {
+  it("never shows a working-only draft to the published audience", () => {
+    const idx = createSearchIndex();
+    idx.upsert("d", { published: null, working: doc({ slug: "secret-draft", title: "Wire removal draft", status: "draft" }) });
+    expect(slugs(idx, "wire removal")).toEqual([]);
+    expect(idx.search("", { audience: "published" }).total).toBe(0);
+    expect(idx.suggestTitles("wire", "published")).toEqual([]);
+    expect(idx.search("wire removal", { audience: "working" }).results.map((r) => r.slug)).toEqual(["secret-draft"]);
+  });
+
+  it("shows artists the approved text and seniors the pending edit", () => {
+    const idx = createSearchIndex();
+    const approved = doc({ slug: "x", title: "Grain matching", summary: "approved words" });
+    idx.upsert("x", { published: approved, working: { ...approved, title: "Grain matching revised", summary: "pending phrasing", status: "in_review" } });
+    expect(slugs(idx, "pending phrasing")).toEqual([]);
+    expect(idx.search("approved words", { audience: "published" }).results[0]?.status).toBe("approved");
+    const working = idx.search("pending phrasing", { audience: "working" }).results;
+    expect(working.map((r) => [r.slug, r.status])).toEqual([["x", "in_review"]]);
+    expect(idx.search("approved words", { audience: "working" }).results).toEqual([]);
+  });
+
+  it("refuses a published view that is not approved or retired", () => {
+    const idx = createSearchIndex();
+    expect(() => idx.upsert("x", { published: doc({ slug: "x", title: "Bad", status: "draft" }), working: null })).toThrow(TypeError);
+  });
+
+  it("makes upserts and removals visible to the next search", () => {
+    const idx = createSearchIndex();
+    idx.upsert("x", pub(doc({ slug: "x", title: "Logo removal" })));
+    expect(slugs(idx, "logo")).toEqual(["x"]);
+    idx.upsert("x", pub(doc({ slug: "x", title: "Signage removal" })));
+    expect(slugs(idx, "logo")).toEqual([]);
+    expect(slugs(idx, "signage")).toEqual(["x"]);
+    // A brand-new word is corrected to at once: the vocabulary updates with the document.
+    expect(slugs(idx, "signag")).toEqual(["x"]);
+    idx.remove("x");
+    expect(slugs(idx, "signage")).toEqual([]);
+    expect(idx.size()).toBe(0);
+    expect(idx.search("signage", { audience: "published" }).corrected).toBeUndefined();
+  });
+});
+
+describe("filters, facets, recency, paging", () => {
+  const idx = createSearchIndex();
+  idx.upsert("1", pub(doc({ slug: "g1", title: "Marker cleanup", tags: [TAGS.markers, TAGS.green], updatedAt: "2026-01-01T00:00:00.000Z" })));
+  idx.upsert("2", pub(doc({ slug: "b1", title: "Marker cleanup blue", tags: [TAGS.markers, TAGS.blue], updatedAt: "2026-03-01T00:00:00.000Z" })));
+  idx.upsert("3", pub(doc({ slug: "b2", title: "Spill on blue", tags: [TAGS.spill, TAGS.blue], updatedAt: "2026-02-01T00:00:00.000Z" })));
+  idx.upsert("4", { published: null, working: doc({ slug: "w1", title: "Marker draft", tags: [TAGS.markers], status: "draft" }) });
+
+  it("counts facets over the matching techniques", () => {
+    const res = idx.search("marker", { audience: "working" });
+    expect(res.total).toBe(3);
+    expect(res.facets.problem).toEqual([{ slug: "tracking-markers", name: "Tracking markers", count: 3 }]);
+    expect(res.facets.plate).toEqual([
+      { slug: "blue-screen", name: "Blue screen", count: 1 },
+      { slug: "green-screen", name: "Green screen", count: 1 },
+    ]);
+    expect(res.facets.status).toEqual([
+      { status: "approved", count: 2 },
+      { status: "draft", count: 1 },
+    ]);
+  });
+
+  it("filters by tags (all of them) and status, keeping status facet counts unfiltered", () => {
+    expect(slugs(idx, "marker", { tags: ["blue-screen"] })).toEqual(["b1"]);
+    const drafts = idx.search("marker", { audience: "working", status: ["draft"] });
+    expect(drafts.results.map((r) => r.slug)).toEqual(["w1"]);
+    expect(drafts.facets.status).toEqual([
+      { status: "approved", count: 2 },
+      { status: "draft", count: 1 },
+    ]);
+  });
+
+  it("lists by recency for an empty query with filters, or on request", () => {
+    expect(slugs(idx, "", { tags: ["blue-screen"] })).toEqual(["b1", "b2"]);
+    expect(slugs(idx, "  ")).toEqual(["b1", "b2", "g1"]);
+    expect(slugs(idx, "marker", { sort: "recent" })).toEqual(["b1", "g1"]);
+  });
+
+  it("pages with offset and limit and reports the total", () => {
+    const page = idx.search("", { audience: "published", limit: 2, offset: 1 });
+    expect(page.total).toBe(3);
+    expect(page.results.map((r) => r.slug)).toEqual(["b2", "g1"]);
+    expect(page.tookMs).toBeGreaterThanOrEqual(0);
+  });
+});
