@@ -1,0 +1,173 @@
+import "server-only";
+import crypto from "node:crypto";
+import fs from "node:fs/promises";
+import path from "node:path";
+import type { AddressInfo } from "node:net";
+import { simpleParser, type AddressObject } from "mailparser";
+import { SMTPServer } from "smtp-server";
+import { env } from "@/lib/env";
+import type { InboxMessage } from "@/lib/mail/schemas";
+
+/** Where the demo's fake server keeps what it receives, and where the admin mail view reads it. */
+export function inboxDir(): string {
+  return path.resolve(env.PLATEROOM_DATA_DIR, "mail-inbox");
+}
+
+export type FakeSmtp = {
+  port: number;
+  host: string;
+  url: string;
+  storeDir: string;
+  /** Messages this instance received, oldest first. */
+  messages(): InboxMessage[];
+  /** Resolves when the next `n` messages (counted from now) have been stored. */
+  waitFor(n: number, timeoutMs?: number): Promise<void>;
+  stop(): Promise<void>;
+};
+
+/** Header values as they arrived (unfolded per RFC 5322 §2.2.3, from memory; encoded-words left as they are). */
+function rawHeaders(lines: ReadonlyArray<{ key: string; line: string }>): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const { key, line } of lines) {
+    const colon = line.indexOf(":");
+    const value = line
+      .slice(colon + 1)
+      .replace(/\r?\n[ \t]/g, " ")
+      .trim();
+    const k = key.toLowerCase();
+    out[k] = out[k] === undefined ? value : `${out[k]}, ${value}`;
+  }
+  return out;
+}
+
+function addressText(a: AddressObject | AddressObject[] | undefined): string {
+  if (!a) return "";
+  return (Array.isArray(a) ? a : [a]).map((x) => x.text).join(", ");
+}
+
+/**
+ * A local SMTP server for the demo and the tests: accepts any mail without auth or TLS and
+ * stores each message as `<id>.eml` (the raw bytes) plus `<id>.json` (parsed, see InboxMessage).
+ */
+export async function startFakeSmtp(opts: { port?: number; host?: string; storeDir: string; quiet?: boolean }): Promise<FakeSmtp> {
+  const host = opts.host ?? "127.0.0.1";
+  const storeDir = path.resolve(opts.storeDir);
+  await fs.mkdir(storeDir, { recursive: true });
+  const received: InboxMessage[] = [];
+  const waiters: { target: number; resolve: () => void }[] = [];
+  let seq = 0;
+
+  const store = async (raw: Buffer, envelope: InboxMessage["envelope"]): Promise<InboxMessage> => {
+    const parsed = await simpleParser(raw);
+    const receivedAt = new Date();
+    // Sortable by name: time first, then a counter and a random part for uniqueness.
+    const id = `${receivedAt.getTime().toString().padStart(14, "0")}-${String(++seq).padStart(6, "0")}-${crypto.randomBytes(4).toString("hex")}`;
+    const message: InboxMessage = {
+      id,
+      receivedAt: receivedAt.toISOString(),
+      envelope,
+      messageId: parsed.messageId ? `<${parsed.messageId.replace(/^<|>$/g, "")}>` : null,
+      date: parsed.date?.toISOString() ?? null,
+      from: addressText(parsed.from),
+      to: addressText(parsed.to),
+      subject: parsed.subject ?? "",
+      text: parsed.text ?? "",
+      html: typeof parsed.html === "string" ? parsed.html : null,
+      headers: rawHeaders(parsed.headerLines),
+    };
+    await fs.writeFile(path.join(storeDir, `${id}.eml`), raw);
+    await fs.writeFile(path.join(storeDir, `${id}.json`), JSON.stringify(message, null, 2));
+    return message;
+  };
+
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ["STARTTLS", "AUTH"],
+    banner: "Plateroom local mail catcher",
+    logger: false,
+    onData(stream, session, callback) {
+      const chunks: Buffer[] = [];
+      stream.on("data", (c: Buffer) => chunks.push(c));
+      stream.on("error", (err) => callback(err));
+      stream.on("end", () => {
+        const envelope = {
+          from: session.envelope.mailFrom ? session.envelope.mailFrom.address : null,
+          to: session.envelope.rcptTo.map((r) => r.address),
+        };
+        store(Buffer.concat(chunks), envelope).then(
+          (message) => {
+            received.push(message);
+            for (const w of waiters.filter((w) => received.length >= w.target)) {
+              waiters.splice(waiters.indexOf(w), 1);
+              w.resolve();
+            }
+            if (!opts.quiet) console.log(`[fake-smtp] ${message.to}: ${message.subject}`);
+            callback();
+          },
+          (err: unknown) => callback(err instanceof Error ? err : new Error(String(err))),
+        );
+      });
+    },
+  });
+
+  await new Promise<void>((resolve, reject) => {
+    server.once("error", reject);
+    server.listen(opts.port ?? 0, host, () => {
+      server.off("error", reject);
+      resolve();
+    });
+  });
+  server.on("error", (err) => console.error("[fake-smtp]", err));
+  const port = (server.server.address() as AddressInfo).port;
+
+  return {
+    port,
+    host,
+    url: `smtp://${host}:${port}`,
+    storeDir,
+    messages: () => [...received],
+    waitFor(n, timeoutMs = 10_000) {
+      const target = received.length + n;
+      if (n <= 0) return Promise.resolve();
+      return new Promise((resolve, reject) => {
+        const timer = setTimeout(() => reject(new Error(`fake SMTP: ${received.length}/${target} messages after ${timeoutMs} ms`)), timeoutMs);
+        waiters.push({ target, resolve: () => (clearTimeout(timer), resolve()) });
+      });
+    },
+    stop: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
+}
+
+/** What a fake server stored in `dir`, newest first; a missing folder is an empty inbox. */
+export async function readInbox(dir: string = inboxDir(), opts: { limit?: number } = {}): Promise<InboxMessage[]> {
+  let names: string[];
+  try {
+    names = await fs.readdir(dir);
+  } catch {
+    return [];
+  }
+  const files = names
+    .filter((n) => n.endsWith(".json"))
+    .sort()
+    .reverse()
+    .slice(0, opts.limit ?? 200);
+  const out: InboxMessage[] = [];
+  for (const file of files) {
+    try {
+      out.push(JSON.parse(await fs.readFile(path.join(dir, file), "utf8")) as InboxMessage);
+    } catch {
+      // A message still being written, or a stray file: skip it rather than fail the whole view.
+    }
+  }
+  return out;
+}
+
+/** The raw message exactly as received, for "download .eml". Ids are checked so no other file can be read. */
+export async function readInboxRaw(id: string, dir: string = inboxDir()): Promise<Buffer | null> {
+  if (!/^[0-9]{14}-[0-9]{6}-[0-9a-f]{8}$/.test(id)) return null;
+  try {
+    return await fs.readFile(path.join(dir, `${id}.eml`));
+  } catch {
+    return null;
+  }
+}
