@@ -1,0 +1,92 @@
+import "server-only";
+import { asc, eq, inArray } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { answers, questions, revisions, techniques, users } from "@/db/schema";
+import { AppError } from "@/lib/api/errors";
+import { assertCan, can } from "@/lib/auth/permissions";
+import type { SessionUser } from "@/lib/auth/roles";
+import { writeAudit } from "@/lib/audit/log";
+import { baseUrl } from "@/lib/env";
+import { notifyPerson } from "@/lib/mail/events";
+import type { TechniqueDocument } from "@/lib/techniques/document";
+import { documentToPlainText } from "@/lib/techniques/plain-text";
+import { requireVisibleTechnique } from "@/lib/techniques/queries";
+
+export type AnswerResponse = { id: string; author: { id: string; name: string } | null; body: TechniqueDocument; createdAt: string };
+export type QuestionResponse = AnswerResponse & { resolvedAt: string | null; answers: AnswerResponse[]; canAnswer: boolean; canResolve: boolean };
+
+/** Questions on a technique, oldest first, with what this person may do on each. */
+export async function listQuestions(user: SessionUser, slug: string): Promise<QuestionResponse[]> {
+  const { technique } = await requireVisibleTechnique(user, slug);
+  const db = getDb();
+  const qs = await db.select().from(questions).where(eq(questions.techniqueId, technique.id)).orderBy(asc(questions.createdAt));
+  const as = qs.length ? await db.select().from(answers).where(inArray(answers.questionId, qs.map((q) => q.id))).orderBy(asc(answers.createdAt)) : [];
+  const ids = [...new Set([...qs.map((q) => q.authorId), ...as.map((a) => a.authorId)].filter((x): x is string => Boolean(x)))];
+  const names = new Map((ids.length ? await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, ids)) : []).map((u) => [u.id, u]));
+  const resource = { techniqueAuthorId: technique.createdById };
+  return qs.map((q) => ({
+    id: q.id,
+    author: q.authorId ? (names.get(q.authorId) ?? null) : null,
+    body: q.body as TechniqueDocument,
+    createdAt: q.createdAt.toISOString(),
+    resolvedAt: q.resolvedAt?.toISOString() ?? null,
+    canAnswer: can(user, "question:answer", resource),
+    canResolve: can(user, "question:resolve", { ...resource, ownerId: q.authorId }),
+    answers: as
+      .filter((a) => a.questionId === q.id)
+      .map((a) => ({ id: a.id, author: a.authorId ? (names.get(a.authorId) ?? null) : null, body: a.body as TechniqueDocument, createdAt: a.createdAt.toISOString() })),
+  }));
+}
+
+
+export async function askQuestion(user: SessionUser, slug: string, body: TechniqueDocument): Promise<{ id: string }> {
+  assertCan(user, "question:ask");
+  const { technique } = await requireVisibleTechnique(user, slug);
+  return getDb().transaction(async (tx) => {
+    const [q] = await tx.insert(questions).values({ techniqueId: technique.id, authorId: user.id, body, bodyText: documentToPlainText(body) }).returning({ id: questions.id });
+    await writeAudit(tx, { actorId: user.id, action: "question.ask", targetType: "technique", targetId: technique.id, detail: { question: q!.id } });
+    return { id: q!.id };
+  });
+}
+
+async function loadQuestion(id: string) {
+  const [row] = await getDb()
+    .select({ q: questions, t: techniques })
+    .from(questions)
+    .innerJoin(techniques, eq(techniques.id, questions.techniqueId))
+    .where(eq(questions.id, id));
+  if (!row) throw new AppError("not_found", "No such question.");
+  return row;
+}
+
+/** The technique's author and leads answer; the asker hears about it. */
+export async function answerQuestion(user: SessionUser, questionId: string, body: TechniqueDocument): Promise<{ id: string }> {
+  const { q, t } = await loadQuestion(questionId);
+  assertCan(user, "question:answer", { techniqueAuthorId: t.createdById });
+  const revisionId = t.approvedRevisionId ?? t.latestRevisionId;
+  const [r] = revisionId ? await getDb().select({ title: revisions.title }).from(revisions).where(eq(revisions.id, revisionId)) : [];
+  return getDb().transaction(async (tx) => {
+    const [a] = await tx.insert(answers).values({ questionId, authorId: user.id, body, bodyText: documentToPlainText(body) }).returning({ id: answers.id });
+    if (q.authorId && q.authorId !== user.id) {
+      await notifyPerson(tx, {
+        kind: "question-answered",
+        actorId: user.id,
+        toUserId: q.authorId,
+        title: r?.title ?? t.slug,
+        link: `${baseUrl()}/techniques/${t.slug}#question-${q.id}`,
+        summary: documentToPlainText(body).slice(0, 300),
+      });
+    }
+    await writeAudit(tx, { actorId: user.id, action: "question.answer", targetType: "technique", targetId: t.id, detail: { question: questionId } });
+    return { id: a!.id };
+  });
+}
+
+export async function resolveQuestion(user: SessionUser, questionId: string): Promise<void> {
+  const { q, t } = await loadQuestion(questionId);
+  assertCan(user, "question:resolve", { ownerId: q.authorId, techniqueAuthorId: t.createdById });
+  await getDb().transaction(async (tx) => {
+    await tx.update(questions).set({ resolvedAt: new Date() }).where(eq(questions.id, questionId));
+    await writeAudit(tx, { actorId: user.id, action: "question.resolve", targetType: "technique", targetId: t.id, detail: { question: questionId } });
+  });
+}
