@@ -1,5 +1,5 @@
 import "server-only";
-import sharp from "sharp";
+import sharp, { type OutputInfo } from "sharp";
 import {
   CHANNEL_INDEX,
   type LabFormat,
@@ -8,6 +8,7 @@ import {
   type StepReport,
 } from "@/lib/lab/recipe";
 import { codeLut, quantise, quantiser } from "@/lib/lab/srgb";
+import { allocSimdRgb } from "@/lib/lab/simd";
 import {
   blurPlane,
   copyChannel,
@@ -85,7 +86,7 @@ export async function decodeStill(bytes: Uint8Array, width?: number): Promise<St
   let pipe = sharp(bytes, { ignoreIcc: true, limitInputPixels: 8192 * 8192 });
   if (width && width < meta.width) pipe = pipe.resize({ width });
   let data: Buffer;
-  let info: sharp.OutputInfo;
+  let info: OutputInfo;
   if (is16) {
     ({ data, info } = await pipe
       .toColourspace(grey ? "grey16" : "rgb16")
@@ -122,12 +123,11 @@ export function codesSource(still: StillCodes, space: LabSpace): PixelSource {
 export function createLabState(opts: { width: number; height: number; plate: PixelSource; base?: PixelSource; scale?: number }): LabState {
   const { width, height, plate } = opts;
   const base = opts.base ?? plate;
-  const cur = new Float32Array(width * height * 3);
-  const buf = new Float32Array(CHUNK * 3);
-  for (let p = 0; p < width * height; p += CHUNK) {
-    const count = Math.min(CHUNK, width * height - p);
-    readChunk(base, p, count, buf);
-    cur.set(buf.subarray(0, count * 3), p * 3);
+  const cur = allocSimdRgb(width * height * 3);
+  if (base.kind === "float") cur.set(base.data);
+  else {
+    const { codes, lut } = base;
+    for (let i = 0; i < cur.length; i++) cur[i] = lut[codes[i]!]!;
   }
   return { width, height, cur, base, plate, matte: null, scale: opts.scale ?? 1, scratch: [] };
 }
@@ -149,25 +149,33 @@ function levelStep(state: LabState, step: Extract<RecipeStep, { op: "level" }>, 
     y1 = Math.min(height, Math.max(y0 + 1, Math.ceil((step.rect.y + step.rect.h) / s)));
     if (x0 >= width || y0 >= height) throw new LabInputError(`step ${index}: rect lies outside the still`, index);
   }
-  const rowBuf = new Float32Array((x1 - x0) * 3);
   const count = (x1 - x0) * (y1 - y0);
-  // Two passes (means, then centred sums) in float64 so large frames do not cancel.
-  let sx = 0, sy = 0;
+  // One pass of sums shifted by the first sample (the shifted-data algorithm), in float64, so
+  // large frames with small spread do not cancel.
+  const base = state.base;
+  const at = (i: number): number => (base.kind === "float" ? base.data[i]! : base.lut[base.codes[i]!]!);
+  const kx = cur[(y0 * width + x0) * 3 + cx]!, ky = at((y0 * width + x0) * 3 + cy);
+  let sx = 0, sy = 0, sxx0 = 0, sxy0 = 0, syy0 = 0, rxx = 0, rxy = 0, ryy = 0;
   for (let y = y0; y < y1; y++) {
-    readChunk(state.base, y * width + x0, x1 - x0, rowBuf);
-    for (let x = x0, j = 0; x < x1; x++, j += 3) { sx += cur[(y * width + x) * 3 + cx]!; sy += rowBuf[j + cy]!; }
-  }
-  const mx = sx / count, my = sy / count;
-  let sxx = 0, sxy = 0, syy = 0, rxx = 0, rxy = 0, ryy = 0;
-  for (let y = y0; y < y1; y++) {
-    readChunk(state.base, y * width + x0, x1 - x0, rowBuf);
-    for (let x = x0, j = 0; x < x1; x++, j += 3) {
-      const xv = cur[(y * width + x) * 3 + cx]!, yv = rowBuf[j + cy]!;
-      const dx = xv - mx, dy = yv - my;
-      sxx += dx * dx; sxy += dx * dy; syy += dy * dy;
-      rxx += xv * xv; rxy += xv * yv; ryy += yv * yv;
+    const a = (y * width + x0) * 3, b = (y * width + x1) * 3;
+    if (base.kind === "float") {
+      const d = base.data;
+      for (let i = a; i < b; i += 3) {
+        const xv = cur[i + cx]!, yv = d[i + cy]!, dx = xv - kx, dy = yv - ky;
+        sx += dx; sy += dy; sxx0 += dx * dx; sxy0 += dx * dy; syy0 += dy * dy;
+        rxx += xv * xv; rxy += xv * yv; ryy += yv * yv;
+      }
+    } else {
+      const { codes, lut } = base;
+      for (let i = a; i < b; i += 3) {
+        const xv = cur[i + cx]!, yv = lut[codes[i + cy]!]!, dx = xv - kx, dy = yv - ky;
+        sx += dx; sy += dy; sxx0 += dx * dx; sxy0 += dx * dy; syy0 += dy * dy;
+        rxx += xv * xv; rxy += xv * yv; ryy += yv * yv;
+      }
     }
   }
+  const mx = kx + sx / count, my = ky + sy / count;
+  const sxx = sxx0 - (sx * sx) / count, sxy = sxy0 - (sx * sy) / count, syy = syy0 - (sy * sy) / count;
   let gain: number, offset: number, sse: number;
   if (step.fit === "gain+offset") {
     gain = sxx > 0 ? sxy / sxx : 0;
@@ -194,11 +202,15 @@ function matteStep(state: LabState, step: Extract<RecipeStep, { op: "matte" }>, 
     const cur = state.cur;
     for (let p = 0, i = 0; p < n; p++, i += 3) matte[p] = w0 * cur[i]! + w1 * cur[i + 1]! + w2 * cur[i + 2]!;
   } else {
-    const buf = new Float32Array(CHUNK * 3);
-    for (let p = 0; p < n; p += CHUNK) {
-      const count = Math.min(CHUNK, n - p);
-      readChunk(state.base, p, count, buf);
-      for (let q = 0, j = 0; q < count; q++, j += 3) matte[p + q] = w0 * buf[j]! + w1 * buf[j + 1]! + w2 * buf[j + 2]!;
+    const base = state.base;
+    if (base.kind === "float") {
+      const d = base.data;
+      for (let p = 0, i = 0; p < n; p++, i += 3) matte[p] = w0 * d[i]! + w1 * d[i + 1]! + w2 * d[i + 2]!;
+    } else {
+      const { codes, lut } = base;
+      for (let p = 0, i = 0; p < n; p++, i += 3) {
+        matte[p] = w0 * lut[codes[i]!]! + w1 * lut[codes[i + 1]!]! + w2 * lut[codes[i + 2]!]!;
+      }
     }
   }
   rampPlane(matte, step.black, step.white);
@@ -209,33 +221,46 @@ function matteStep(state: LabState, step: Extract<RecipeStep, { op: "matte" }>, 
 }
 
 function mixStep(state: LabState, invert: boolean): void {
-  const { cur, width, height } = state;
+  const { cur } = state;
   const matte = state.matte!;
-  const n = width * height;
-  const buf = new Float32Array(CHUNK * 3);
-  for (let p = 0; p < n; p += CHUNK) {
-    const count = Math.min(CHUNK, n - p);
-    readChunk(state.base, p, count, buf);
-    for (let q = 0, j = 0, i = p * 3; q < count; q++, j += 3, i += 3) {
-      let m = matte[p + q]!;
-      if (invert) m = 1 - m;
-      const k = 1 - m;
-      cur[i] = cur[i]! * m + buf[j]! * k;
-      cur[i + 1] = cur[i + 1]! * m + buf[j + 1]! * k;
-      cur[i + 2] = cur[i + 2]! * m + buf[j + 2]! * k;
+  const n3 = cur.length;
+  const base = state.base;
+  const codes = base.kind === "codes" ? base.codes : null;
+  const lut = base.kind === "codes" ? base.lut : null;
+  const data = base.kind === "float" ? base.data : null;
+  for (let i = 0, p = 0; i < n3; i += 3, p++) {
+    let m = matte[p]!;
+    if (invert) m = 1 - m;
+    if (m === 0) {
+      // Outside the matte the plate comes back untouched (the common case: skip the blend).
+      if (codes) { cur[i] = lut![codes[i]!]!; cur[i + 1] = lut![codes[i + 1]!]!; cur[i + 2] = lut![codes[i + 2]!]!; }
+      else { cur[i] = data![i]!; cur[i + 1] = data![i + 1]!; cur[i + 2] = data![i + 2]!; }
+      continue;
     }
+    const k = 1 - m;
+    const b0 = codes ? lut![codes[i]!]! : data![i]!, b1 = codes ? lut![codes[i + 1]!]! : data![i + 1]!, b2 = codes ? lut![codes[i + 2]!]! : data![i + 2]!;
+    cur[i] = cur[i]! * m + b0 * k;
+    cur[i + 1] = cur[i + 1]! * m + b1 * k;
+    cur[i + 2] = cur[i + 2]! * m + b2 * k;
   }
 }
 
 function grainStep(state: LabState): void {
-  const { cur, width, height } = state;
-  const n = width * height;
-  if (state.base === state.plate) return;
+  const { cur } = state;
+  const { plate, base } = state;
+  if (base === plate) return;
+  const n3 = cur.length;
+  if (plate.kind === "codes" && base.kind === "codes" && plate.lut === base.lut) {
+    const pc = plate.codes, bc = base.codes, lut = plate.lut;
+    for (let i = 0; i < n3; i++) cur[i] = cur[i]! + (lut[pc[i]!]! - lut[bc[i]!]!);
+    return;
+  }
   const a = new Float32Array(CHUNK * 3), b = new Float32Array(CHUNK * 3);
+  const n = n3 / 3;
   for (let p = 0; p < n; p += CHUNK) {
     const count = Math.min(CHUNK, n - p);
-    readChunk(state.plate, p, count, a);
-    readChunk(state.base, p, count, b);
+    readChunk(plate, p, count, a);
+    readChunk(base, p, count, b);
     for (let j = 0, i = p * 3; j < count * 3; j++, i++) cur[i] = cur[i]! + (a[j]! - b[j]!);
   }
 }

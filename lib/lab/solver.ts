@@ -17,7 +17,7 @@ export type SolveInput = { markers: readonly Rgb[]; screen: readonly Rgb[]; goal
 
 export function meanRgb(samples: readonly Rgb[]): [number, number, number] {
   const s: [number, number, number] = [0, 0, 0];
-  for (const v of samples) for (let i = 0; i < 3; i++) s[i] += v[i]! / samples.length;
+  for (const v of samples) for (let i = 0; i < 3; i++) s[i] = s[i]! + v[i]! / samples.length;
   return s;
 }
 

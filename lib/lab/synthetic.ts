@@ -193,7 +193,7 @@ export async function generateSyntheticPlate(opts: SyntheticOptions): Promise<Sy
   const mean = (b: Box): Rgb3 => {
     const s: Rgb3 = [0, 0, 0];
     for (let y = b.y; y < b.y + b.h; y++) for (let x = b.x; x < b.x + b.w; x++) {
-      for (let c = 0; c < 3; c++) s[c] += lut[den16[(y * W + x) * 3 + c]!]!;
+      for (let c = 0; c < 3; c++) s[c] = s[c]! + lut[den16[(y * W + x) * 3 + c]!]!;
     }
     return s.map((v) => v / (b.w * b.h)) as Rgb3;
   };

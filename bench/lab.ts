@@ -1,0 +1,181 @@
+/*
+ * Still lab benchmark (issue 5). Run: npx tsx bench/lab.ts   [--quick: 2K only]
+ * Every op alone and the full demo recipe at 2048×1080 and 4096×2160, each beside a plain float
+ * RGB copy of the same frame measured in the same run; proxy render; cached re-run; peak RSS of
+ * the 4K recipe measured in a child process. Writes the key "lab" of bench/results.json.
+ */
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+
+const here = fileURLToPath(import.meta.url);
+
+// lib/lab's server modules import "server-only"; outside Next that resolves through the
+// react-server export condition, so the script re-runs itself with it.
+if (!process.env.LAB_BENCH_INNER) {
+  const r = spawnSync(process.execPath, [...process.execArgv, "--conditions=react-server", here, ...process.argv.slice(2)], {
+    stdio: "inherit",
+    env: { ...process.env, LAB_BENCH_INNER: "1" },
+  });
+  process.exit(r.status ?? 1);
+}
+
+const { generateSyntheticPlate, demoCleanupRecipe } = await import("@/lib/lab/synthetic");
+const { applyStep, codesSource, createLabState, decodeStill, runRecipe } = await import("@/lib/lab/engine");
+const { createLabRunner } = await import("@/lib/lab/runner");
+const { recipeSchema } = await import("@/lib/lab/recipe");
+type RecipeStep = import("@/lib/lab/recipe").RecipeStep;
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[s.length >> 1]!;
+}
+
+async function time(reps: number, setup: () => void, fn: () => unknown): Promise<number> {
+  const ts: number[] = [];
+  for (let i = 0; i < reps; i++) {
+    setup();
+    const t = performance.now();
+    await fn();
+    ts.push(performance.now() - t);
+  }
+  return median(ts);
+}
+
+const args = process.argv.slice(2);
+
+if (args[0] === "--child-peak") {
+  // Child: one full exact recipe from files on disk; report the process's peak RSS.
+  const dir = args[1]!;
+  const plate = readFileSync(path.join(dir, "plate.png"));
+  const denoised = readFileSync(path.join(dir, "denoised.png"));
+  const steps = recipeSchema.parse(JSON.parse(readFileSync(path.join(dir, "recipe.json"), "utf8")));
+  const t = performance.now();
+  const r = await runRecipe({ still: plate, steps, space: "linear", format: "png16", loadStill: async () => denoised });
+  const ms = performance.now() - t;
+  process.stdout.write(JSON.stringify({ ms, timings: r.timings, maxRssMB: process.resourceUsage().maxRSS / 1024, bytes: r.bytes.length }));
+  process.exit(0);
+}
+
+const quick = args.includes("--quick");
+const sizes: [number, number][] = quick ? [[2048, 1080]] : [[2048, 1080], [4096, 2160]];
+const tmp = mkdtempSync(path.join(os.tmpdir(), "lab-bench-"));
+type Row = { size: string; op: string; ms: number; copyMs: number; ratio: number };
+const rows: Row[] = [];
+const results: Record<string, unknown> = { machine: { cpus: os.cpus().length, node: process.version }, sizes: {} };
+
+try {
+  for (const [W, H] of sizes) {
+    const key = `${W}x${H}`;
+    const reps = W > 3000 ? 3 : 5;
+    const syn = await generateSyntheticPlate({ width: W, height: H, compressionLevel: 1 });
+    const steps = recipeSchema.parse(
+      demoCleanupRecipe({ denoisedStillId: "denoised", width: W, screen: syn.screen, markerSamples: syn.markerSamples, screenSamples: syn.screenSamples, screenRect: syn.screenRect }),
+    );
+    const plateCodes = await decodeStill(syn.plate);
+    const denCodes = await decodeStill(syn.denoised);
+    const state = createLabState({ width: W, height: H, plate: codesSource(plateCodes, "linear"), base: codesSource(denCodes, "linear") });
+    const original = new Float32Array(state.cur);
+    const copyDst = new Float32Array(original.length);
+    const copyMs = await time(reps * 3, () => {}, () => copyDst.set(original));
+    const reset = (): void => state.cur.set(original);
+    const matteStep = steps.find((s) => s.op === "matte")!;
+    const withMatte = (): void => {
+      reset();
+      applyStep(state, matteStep, 0);
+    };
+    const rnd = (): number => Math.round((Math.random() * 2 - 1) * 1e3) / 1e3;
+    const ops: [string, () => void, RecipeStep][] = [
+      ["matrix (full 3×3 + offset)", reset, { op: "matrix", m: [[rnd(), rnd(), rnd()], [rnd(), rnd(), rnd()], [rnd(), rnd(), rnd()]], offset: [0.01, -0.02, 0.03] }],
+      ["matrix (one solved row)", reset, steps[0]!],
+      ["copy", reset, { op: "copy", from: "g", to: "r" }],
+      ["level (gain, rect)", reset, steps.find((s) => s.op === "level")!],
+      ["level (gain+offset, frame)", reset, { op: "level", channel: "r", ref: "r", fit: "gain+offset" }],
+      ["matte", reset, matteStep],
+      ["grow (demo)", withMatte, steps.find((s) => s.op === "grow")!],
+      ["grow 16 px", withMatte, { op: "grow", px: 16 }],
+      ["soften matte (demo)", withMatte, steps.find((s) => s.op === "soften")!],
+      ["soften channel σ=5", reset, { op: "soften", sigma: 5, target: "g" }],
+      ["mix", withMatte, { op: "mix", invert: false }],
+      ["flatten σ=40", withMatte, { op: "flatten", sigma: 40, color: [0.06, 0.42, 0.1], weight: "outside" }],
+      ["grain", reset, { op: "grain", denoised: "denoised" }],
+    ];
+    const opResults: Record<string, number> = {};
+    for (const [name, setup, step] of ops) {
+      const ms = await time(reps, setup, () => applyStep(state, step, 0));
+      opResults[name] = ms;
+      rows.push({ size: key, op: name, ms, copyMs, ratio: ms / copyMs });
+    }
+    state.scratch = [];
+    const stepsOnly = await time(reps, () => { reset(); state.matte = null; }, () => steps.forEach((s, i) => applyStep(state, s, i)));
+    rows.push({ size: key, op: "demo recipe, steps only", ms: stepsOnly, copyMs, ratio: stepsOnly / copyMs });
+    const loadStill = async (): Promise<Uint8Array> => syn.denoised;
+    const full = await time(W > 3000 ? 1 : 3, () => {}, () => runRecipe({ still: syn.plate, steps, space: "linear", format: "png16", loadStill }));
+    rows.push({ size: key, op: "demo recipe, exact png16 (decode+steps+encode)", ms: full, copyMs, ratio: full / copyMs });
+    const sizeResult: Record<string, unknown> = { copyMs, ops: opResults, recipeStepsMs: stepsOnly, recipeExactMs: full };
+
+    if (W === 2048) {
+      const proxy = await time(5, () => {}, () => runRecipe({ still: syn.plate, steps, space: "linear", format: "webp", width: 1024, loadStill }));
+      rows.push({ size: key, op: "proxy render 1024 px webp", ms: proxy, copyMs, ratio: proxy / copyMs });
+      const runner = createLabRunner({ cacheDir: path.join(tmp, "cache") });
+      const request = { still: "plate", space: "linear" as const, format: "png16" as const, steps };
+      const input = { stillBytes: syn.plate, stillSha256: "bench-plate", request, loadStill };
+      await runner.run(input);
+      const cached = await time(11, () => {}, () => runner.run(input));
+      const diskRunner = createLabRunner({ cacheDir: path.join(tmp, "cache") });
+      const tDisk = performance.now();
+      const disk = await diskRunner.run(input);
+      const diskMs = performance.now() - tDisk;
+      rows.push({ size: key, op: "cached re-run (memory)", ms: cached, copyMs, ratio: cached / copyMs });
+      rows.push({ size: key, op: `cached re-run (disk, ${disk.cached})`, ms: diskMs, copyMs, ratio: diskMs / copyMs });
+      Object.assign(sizeResult, { proxyMs: proxy, proxyOverExact: proxy / full, cachedMemoryMs: cached, cachedDiskMs: diskMs });
+    }
+    if (W === 4096) {
+      const dir = path.join(tmp, "peak");
+      rmSync(dir, { recursive: true, force: true });
+      (await import("node:fs")).mkdirSync(dir);
+      writeFileSync(path.join(dir, "plate.png"), syn.plate);
+      writeFileSync(path.join(dir, "denoised.png"), syn.denoised);
+      writeFileSync(path.join(dir, "recipe.json"), JSON.stringify(steps));
+      const child = spawnSync(process.execPath, [...process.execArgv, here, "--child-peak", dir], { env: process.env, encoding: "utf8", maxBuffer: 1 << 20 });
+      const peak = JSON.parse(child.stdout) as { ms: number; maxRssMB: number; timings: unknown };
+      rows.push({ size: key, op: "child: demo recipe exact (peak RSS in MB as ms column)", ms: peak.maxRssMB, copyMs, ratio: NaN });
+      Object.assign(sizeResult, { childRecipeMs: peak.ms, childTimings: peak.timings, peakRssMB: peak.maxRssMB });
+    }
+    (results.sizes as Record<string, unknown>)[key] = sizeResult;
+  }
+} finally {
+  rmSync(tmp, { recursive: true, force: true });
+}
+
+const s2 = (results.sizes as Record<string, Record<string, unknown>>)["2048x1080"]!;
+const s4 = (results.sizes as Record<string, Record<string, unknown>>)["4096x2160"];
+const ops2 = s2.ops as Record<string, number>;
+const copy2 = s2.copyMs as number;
+const targets = {
+  matrixFullOverCopy: { value: ops2["matrix (full 3×3 + offset)"]! / copy2, target: "≤ 2.5" },
+  matrixOneRowOverCopy: { value: ops2["matrix (one solved row)"]! / copy2, target: "≤ 2.5" },
+  recipeExact2kOverCopy: { value: (s2.recipeExactMs as number) / copy2, target: "≤ 120" },
+  recipeSteps2kOverCopy: { value: (s2.recipeStepsMs as number) / copy2, target: "(context)" },
+  proxyOverExact2k: { value: s2.proxyOverExact as number, target: "≤ 0.125" },
+  cachedRerunMs: { value: s2.cachedMemoryMs as number, target: "< 20" },
+  peak4kMB: { value: (s4?.peakRssMB as number | undefined) ?? NaN, target: "≤ 1024" },
+};
+results.targets = targets;
+results.at = new Date().toISOString();
+
+console.log("\nStill lab benchmark (median ms; ratio = op / float RGB copy of the same frame)\n");
+console.log(`${"size".padEnd(10)} ${"op".padEnd(52)} ${"ms".padStart(9)} ${"copy ms".padStart(8)} ${"ratio".padStart(7)}`);
+for (const r of rows) {
+  console.log(`${r.size.padEnd(10)} ${r.op.padEnd(52)} ${r.ms.toFixed(1).padStart(9)} ${r.copyMs.toFixed(2).padStart(8)} ${Number.isNaN(r.ratio) ? "".padStart(7) : r.ratio.toFixed(1).padStart(7)}`);
+}
+console.log("\nTargets");
+for (const [k, v] of Object.entries(targets)) console.log(`  ${k.padEnd(26)} ${v.value.toFixed(3).padStart(10)}   target ${v.target}`);
+
+const resultsPath = path.join(path.dirname(here), "results.json");
+const all = existsSync(resultsPath) ? (JSON.parse(readFileSync(resultsPath, "utf8")) as Record<string, unknown>) : {};
+all.lab = results;
+writeFileSync(resultsPath, `${JSON.stringify(all, null, 2)}\n`);
+console.log(`\nwrote ${path.relative(process.cwd(), resultsPath)} (key "lab")`);
