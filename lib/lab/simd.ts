@@ -27,7 +27,7 @@ function leb(n: number): number[] {
 
 const section = (id: number, body: number[]): number[] => [id, ...leb(body.length), ...body];
 
-function moduleBytes(): Uint8Array {
+function moduleBytes(): Uint8Array<ArrayBuffer> {
   const SIMD = 0xfd;
   const load = (offset: number): number[] => [SIMD, 0x00, 0x00, ...leb(offset)];
   const store = (offset: number): number[] => [SIMD, 0x0b, 0x00, ...leb(offset)];
