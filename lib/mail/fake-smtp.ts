@@ -49,7 +49,14 @@ function addressText(a: AddressObject | AddressObject[] | undefined): string {
  * A local SMTP server for the demo and the tests: accepts any mail without auth or TLS and
  * stores each message as `<id>.eml` (the raw bytes) plus `<id>.json` (parsed, see InboxMessage).
  */
-export async function startFakeSmtp(opts: { port?: number; host?: string; storeDir: string; quiet?: boolean }): Promise<FakeSmtp> {
+export async function startFakeSmtp(opts: {
+  port?: number;
+  host?: string;
+  storeDir: string;
+  quiet?: boolean;
+  /** For tests: an SMTP reply code (e.g. 550, 451) to refuse a recipient with, or null to accept. */
+  refuseRecipient?: (address: string) => number | null;
+}): Promise<FakeSmtp> {
   const host = opts.host ?? "127.0.0.1";
   const storeDir = path.resolve(opts.storeDir);
   await fs.mkdir(storeDir, { recursive: true });
@@ -85,6 +92,13 @@ export async function startFakeSmtp(opts: { port?: number; host?: string; storeD
     disabledCommands: ["STARTTLS", "AUTH"],
     banner: "Plateroom local mail catcher",
     logger: false,
+    onRcptTo(address, _session, callback) {
+      const code = opts.refuseRecipient?.(address.address) ?? null;
+      if (code === null) return callback();
+      const err = new Error(code >= 500 ? "Recipient refused by the local mail catcher" : "Try again later") as Error & { responseCode: number };
+      err.responseCode = code;
+      callback(err);
+    },
     onData(stream, session, callback) {
       const chunks: Buffer[] = [];
       stream.on("data", (c: Buffer) => chunks.push(c));
