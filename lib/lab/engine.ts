@@ -450,3 +450,12 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
     timings: { decodeMs: t1 - t0, stepsMs: t2 - t1, encodeMs: t3 - t2 },
   };
 }
+
+/** A still as interleaved RGB floats in the lab's working space (for plots and sample boxes). */
+export async function decodeStillFloat(bytes: Uint8Array, space: LabSpace, width?: number): Promise<{ width: number; height: number; data: Float32Array }> {
+  const still = await decodeStill(bytes, width);
+  const lut = codeLut(still.bits, space === "linear");
+  const data = new Float32Array(still.codes.length);
+  for (let i = 0; i < data.length; i++) data[i] = lut[still.codes[i]!]!;
+  return { width: still.width, height: still.height, data };
+}

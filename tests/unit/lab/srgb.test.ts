@@ -1,0 +1,48 @@
+import { describe, expect, it } from "vitest";
+import { codeLut, quantise, quantiser, srgbDecode, srgbEncode, srgbDecodeExt, srgbEncodeExt } from "@/lib/lab/srgb";
+
+describe("sRGB transfer (IEC 61966-2-1:1999)", () => {
+  it("decodes encoded 0.5 to linear 0.214041", () => {
+    // IEC 61966-2-1 decode: ((V + 0.055) / 1.055)^2.4 above 0.04045; value via REFERENCES.md
+    expect(srgbDecode(0.5)).toBeCloseTo(0.214041, 6);
+  });
+  it("encodes linear 0.18 to 0.461356", () => {
+    expect(srgbEncode(0.18)).toBeCloseTo(0.461356, 6);
+  });
+  it("uses the linear segment below the breakpoints (V/12.92, L·12.92)", () => {
+    expect(srgbDecode(0.04)).toBeCloseTo(0.04 / 12.92, 12);
+    expect(srgbEncode(0.003)).toBeCloseTo(0.003 * 12.92, 12);
+  });
+  it("round-trips within 1e-6", () => {
+    for (let i = 0; i <= 1000; i++) {
+      const v = i / 1000;
+      expect(Math.abs(srgbEncode(srgbDecode(v)) - v)).toBeLessThan(1e-6);
+      expect(Math.abs(srgbEncodeExt(srgbDecodeExt(-v)) + v)).toBeLessThan(1e-6);
+    }
+  });
+  it("decode tables equal the formula for every 8- and 16-bit code", () => {
+    for (const bits of [8, 16] as const) {
+      const lut = codeLut(bits, true), max = bits === 8 ? 255 : 65535;
+      for (let k = 0; k <= max; k += bits === 8 ? 1 : 7) expect(lut[k]).toBe(Math.fround(srgbDecode(k / max)));
+    }
+  });
+  it("quantising gives round(encode(x) · max), and 16-bit codes survive decode → quantise", () => {
+    const q = quantiser(16, true);
+    const xs = new Float32Array(20000);
+    for (let i = 0; i < xs.length; i++) xs[i] = Math.random();
+    const out = new Uint16Array(xs.length);
+    quantise(xs, out, q);
+    for (let i = 0; i < xs.length; i++) expect(out[i]).toBe(Math.round(srgbEncode(xs[i]!) * 65535));
+    const lut = codeLut(16, true);
+    const all = new Float32Array(65536);
+    for (let k = 0; k < 65536; k++) all[k] = lut[k]!;
+    const back = new Uint16Array(65536);
+    quantise(all, back, q);
+    for (let k = 0; k < 65536; k++) if (back[k] !== k) expect(back[k]).toBe(k);
+  });
+  it("clips only at quantisation: below 0 → 0, above 1 → max, NaN → 0", () => {
+    const out = new Uint8Array(4);
+    quantise(new Float32Array([-0.5, 1.5, NaN, 1]), out, quantiser(8, false));
+    expect([...out]).toEqual([0, 255, 0, 255]);
+  });
+});
