@@ -1,0 +1,16 @@
+import { apiRoute, parseWith, searchParamsOf, uuidParam } from "@/lib/api/handler";
+import { requireUser } from "@/lib/auth/session";
+import { readPixel } from "@/lib/stills/pixels";
+import { getStillForRead } from "@/lib/stills/queries";
+import { pixelQuerySchema, type PixelResponse } from "@/lib/stills/schemas";
+
+export const dynamic = "force-dynamic";
+export const runtime = "nodejs";
+
+export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
+  const user = await requireUser(req);
+  const id = parseWith(uuidParam, (await ctx.params).id);
+  const { x, y } = parseWith(pixelQuerySchema, searchParamsOf(req));
+  const still = await getStillForRead(user, id);
+  return Response.json((await readPixel(still, x, y)) satisfies PixelResponse);
+});

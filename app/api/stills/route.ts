@@ -1,0 +1,42 @@
+import fs from "node:fs/promises";
+import { z } from "zod";
+import { apiRoute, parseWith, searchParamsOf } from "@/lib/api/handler";
+import { requireUser } from "@/lib/auth/session";
+import { requireVisibleTechnique } from "@/lib/techniques/queries";
+import { createStill } from "@/lib/stills/mutations";
+import { listStillsForTechnique } from "@/lib/stills/queries";
+import type { StillCreatedResponse, StillResponse, StillOwner, StillRole } from "@/lib/stills/schemas";
+import { receiveStillUpload } from "@/lib/stills/upload";
+
+// Uploads are streamed from the request body; never prerendered or cached.
+export const dynamic = "force-dynamic";
+export const runtime = "nodejs";
+
+export const POST = apiRoute(async (req) => {
+  const user = await requireUser(req);
+  const { file, fields } = await receiveStillUpload(req);
+  try {
+    const created = await createStill(user, {
+      file,
+      alt: fields.alt ?? "",
+      caption: fields.caption,
+      credit: fields.credit,
+      technique: fields.technique,
+      role: fields.role as StillRole | undefined,
+      owner: fields.owner as StillOwner | undefined,
+    });
+    return Response.json(created satisfies StillCreatedResponse, { status: 201 });
+  } finally {
+    await fs.rm(file.path, { force: true });
+  }
+});
+
+const listQuery = z.object({ technique: z.string().min(1, "Name a technique.") });
+
+export const GET = apiRoute(async (req) => {
+  const user = await requireUser(req);
+  const q = parseWith(listQuery, searchParamsOf(req));
+  const { technique } = await requireVisibleTechnique(user, q.technique);
+  const items = await listStillsForTechnique(user, technique.id);
+  return Response.json({ items } satisfies { items: StillResponse[] });
+});
