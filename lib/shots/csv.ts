@@ -123,7 +123,7 @@ export function readShotCsv(text: string, mapping?: ColumnMapping | null): ReadS
   const headers = uniqueHeaders(headerRecord.cells.map((h) => h.trim()));
 
   const applied = mapping === undefined ? guessMapping(headers) : mapping;
-  if (applied === null) {
+  if (applied === null || !applied.code) {
     fileErrors.push("No column for the shot code was found; map one.");
   } else {
     for (const field of SHOT_FIELDS) {
