@@ -1,0 +1,136 @@
+import sharp from "sharp";
+import { describe, expect, it } from "vitest";
+import { blurPlane, morphPlane } from "@/lib/lab/kernels";
+
+function rand(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => ((a = (Math.imul(a, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+}
+
+/** sharp's accurate float blur of one plane, through LAB-NOTES.md's join pattern. */
+async function sharpFloatBlur(plane: Float32Array, width: number, height: number, sigma: number): Promise<Float32Array> {
+  const ones = new Float32Array(width * height).fill(1);
+  const out = await sharp(plane, { raw: { width, height, channels: 1 } })
+    .joinChannel(Buffer.from(ones.buffer), { raw: { width, height, channels: 1 } })
+    .blur({ sigma, precision: "float", minAmplitude: 0.001 })
+    .toColourspace("b-w")
+    .raw({ depth: "float" })
+    .toBuffer();
+  const f = new Float32Array(out.buffer, out.byteOffset, out.length / 4);
+  // b-w leaves [value, alpha-like band] or just value depending on band count: take band 0.
+  const bands = f.length / (width * height);
+  return bands === 1 ? f : f.filter((_, i) => i % bands === 0);
+}
+
+function testPlane(width: number, height: number, seed: number): Float32Array {
+  const r = rand(seed);
+  const p = new Float32Array(width * height);
+  // A matte-like plane: hard-edged blobs plus noise, values beyond 0..1 included.
+  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) {
+    const blob = ((x >> 4) + (y >> 3)) % 3 === 0 ? 1 : 0;
+    p[y * width + x] = blob + (r() - 0.5) * 0.4;
+  }
+  return p;
+}
+
+describe("Gaussian blur vs sharp/libvips accurate float blur (join pattern, LAB-NOTES.md)", () => {
+  // Compared away from the borders (libvips and we both extend edges, but by different means).
+  const cases: [number, number][] = [
+    [1.5, 1e-5], // exact sampled kernel, same truncation as libvips (measured: bit-identical)
+    [3, 1e-5],
+    [12, 5e-3], // reduced-resolution path (box-reduce, blur, bilinear): 5e-3 on unit-contrast edges (measured ~1e-3)
+  ];
+  for (const [sigma, tol] of cases) {
+    it(`σ = ${sigma} agrees within ${tol}`, async () => {
+      const w = 160, h = 120;
+      const p = testPlane(w, h, 11);
+      const ref = await sharpFloatBlur(p, w, h, sigma);
+      const ours = new Float32Array(p);
+      blurPlane(ours, w, h, sigma, new Float32Array(w * h));
+      const m = Math.ceil(sigma * 4);
+      let worst = 0;
+      for (let y = m; y < h - m; y++) for (let x = m; x < w - m; x++) worst = Math.max(worst, Math.abs(ours[y * w + x]! - ref[y * w + x]!));
+      expect(worst).toBeLessThan(tol);
+      // The comparison means something only if the blur changed the plane.
+      let moved = 0;
+      for (let i = 0; i < p.length; i++) moved = Math.max(moved, Math.abs(ref[i]! - p[i]!));
+      expect(moved).toBeGreaterThan(0.1);
+    });
+  }
+  it("keeps a constant plane constant (normalised kernel)", () => {
+    for (const sigma of [0.7, 4, 30]) {
+      const p = new Float32Array(90 * 70).fill(0.37);
+      blurPlane(p, 90, 70, sigma, new Float32Array(90 * 70));
+      for (const v of p) expect(v).toBeCloseTo(0.37, 6);
+    }
+  });
+});
+
+/** Running max/min over a (2r+1)² square, clipped to the frame: the definition (Serra 1982). */
+function bruteMorph(p: Float32Array, w: number, h: number, px: number): Float32Array {
+  const r = Math.abs(px), out = new Float32Array(w * h);
+  for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+    let m = px > 0 ? -Infinity : Infinity;
+    for (let yy = Math.max(0, y - r); yy <= Math.min(h - 1, y + r); yy++) {
+      for (let xx = Math.max(0, x - r); xx <= Math.min(w - 1, x + r); xx++) {
+        const v = p[yy * w + xx]!;
+        m = px > 0 ? Math.max(m, v) : Math.min(m, v);
+      }
+    }
+    out[y * w + x] = m;
+  }
+  return out;
+}
+
+describe("grow / shrink (grey-level dilation / erosion)", () => {
+  // Both code paths: direct running max (r ≤ 3) and van Herk / Gil–Werman (r > 3).
+  for (const px of [1, 2, -3, 4, -7, 12]) {
+    it(`equals the running max/min definition for ${px} px (Serra 1982)`, () => {
+      const w = 53, h = 41;
+      const p = testPlane(w, h, 100 + px);
+      const ours = new Float32Array(p);
+      morphPlane(ours, w, h, px);
+      expect(Array.from(ours)).toEqual(Array.from(bruteMorph(p, w, h, px)));
+    });
+  }
+
+  it("dilating a single pixel by r gives the (2r+1)² structuring element (Gonzalez & Woods)", () => {
+    const w = 21, h = 21, p = new Float32Array(w * h);
+    p[10 * w + 10] = 1;
+    morphPlane(p, w, h, 4);
+    for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+      expect(p[y * w + x]).toBe(Math.abs(x - 10) <= 4 && Math.abs(y - 10) <= 4 ? 1 : 0);
+    }
+  });
+
+  it("closing (dilate then erode) is idempotent (Serra 1982)", () => {
+    const w = 64, h = 48;
+    const close = (a: Float32Array): Float32Array => {
+      const b = new Float32Array(a);
+      morphPlane(b, w, h, 3);
+      morphPlane(b, w, h, -3);
+      return b;
+    };
+    const once = close(testPlane(w, h, 9));
+    expect(Array.from(close(once))).toEqual(Array.from(once));
+  });
+
+  // libvips morphology on binary 0/255 mattes; its sense is inverted for white-on-black
+  // (LAB-NOTES.md): sharp.erode(r) grows white by a (2r+1)² square, sharp.dilate(r) shrinks it.
+  for (const px of [2, -2, 5]) {
+    it(`agrees with libvips on a binary matte, ${px} px (away from the borders)`, async () => {
+      const w = 80, h = 60, r = rand(px + 50);
+      const bin = new Uint8Array(w * h);
+      for (let i = 0; i < 25; i++) {
+        const cx = Math.floor(r() * w), cy = Math.floor(r() * h), s = 1 + Math.floor(r() * 5);
+        for (let y = cy - s; y <= cy + s; y++) for (let x = cx - s; x <= cx + s; x++) if (x >= 0 && y >= 0 && x < w && y < h) bin[y * w + x] = 255;
+      }
+      const img = sharp(Buffer.from(bin), { raw: { width: w, height: h, channels: 1 } });
+      const ref = await (px > 0 ? img.erode(px) : img.dilate(-px)).toColourspace("b-w").raw().toBuffer();
+      const ours = Float32Array.from(bin, (v) => v / 255);
+      morphPlane(ours, w, h, px);
+      const m = Math.abs(px);
+      for (let y = m; y < h - m; y++) for (let x = m; x < w - m; x++) expect(ours[y * w + x]! * 255).toBe(ref[y * w + x]);
+    });
+  }
+});
