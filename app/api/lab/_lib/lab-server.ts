@@ -1,0 +1,104 @@
+import "server-only";
+import fs from "node:fs/promises";
+import path from "node:path";
+import { z } from "zod";
+import { AppError } from "@/lib/api/errors";
+import type { SessionUser } from "@/lib/auth/roles";
+import { env } from "@/lib/env";
+import { LabInputError } from "@/lib/lab/engine";
+import type { RecipeStep } from "@/lib/lab/recipe";
+import { LabBusyError, LabTimeoutError } from "@/lib/lab/runner";
+import { getStillForRead } from "@/lib/stills/queries";
+import { variantPath } from "@/lib/stills/storage";
+
+/*
+ * Glue between the lab routes and the stills/engine modules: who may read which still, where
+ * its original bytes are, and how the engine's typed errors become the API error shape.
+ */
+
+const uuid = z.string().uuid();
+
+export type LabStill = { id: string; sha256: string; width: number; height: number; bitDepth: number };
+
+/** The still if this person may read it; a malformed id is the same 404 as a missing one. */
+export async function readableStill(user: SessionUser, id: string, field = "still"): Promise<LabStill> {
+  if (!uuid.safeParse(id).success) throw new AppError("not_found", "No still at this address.", { fields: { [field]: "No such still." } });
+  const s = await getStillForRead(user, id);
+  return { id: s.id, sha256: s.sha256, width: s.width, height: s.height, bitDepth: s.bitDepth };
+}
+
+/** The original bytes exactly as uploaded (read-only: the lab never writes to a stored still). */
+export async function originalBytes(still: LabStill): Promise<Uint8Array> {
+  try {
+    return await fs.readFile(variantPath(still.sha256, "original"));
+  } catch (cause) {
+    throw new AppError("not_found", "The still's file is missing from storage.", { cause });
+  }
+}
+
+/**
+ * Checks every still the recipe refers to (the grain step's denoised plate) before the run, so
+ * a cached result never bypasses the check, and returns a loader for the engine.
+ */
+export async function denoisedLoader(user: SessionUser, steps: RecipeStep[]): Promise<(id: string) => Promise<Uint8Array>> {
+  const allowed = new Map<string, LabStill>();
+  for (const [i, step] of steps.entries()) {
+    if (step.op !== "grain") continue;
+    try {
+      allowed.set(step.denoised, await readableStill(user, step.denoised));
+    } catch (error) {
+      if (error instanceof AppError && error.code === "not_found") {
+        throw new AppError("validation_failed", `steps.${i}.denoised: no readable still with this id`, {
+          fields: { [`steps.${i}.denoised`]: "No still you can read has this id." },
+        });
+      }
+      throw error;
+    }
+  }
+  return async (id) => {
+    const s = allowed.get(id);
+    if (!s) throw new LabInputError("the denoised still was not checked");
+    return originalBytes(s);
+  };
+}
+
+export function labCacheDir(): string {
+  return path.resolve(env.PLATEROOM_DATA_DIR, "lab-cache");
+}
+
+/** Engine and runner errors as the API error shape; anything else is rethrown. */
+export function mapLabError(error: unknown): never {
+  if (error instanceof LabBusyError) throw new AppError("rate_limited", "The lab is busy. Try again in a moment.", { cause: error });
+  if (error instanceof LabTimeoutError) throw new AppError("unavailable", `${error.message}. Try a proxy render or a smaller region.`);
+  if (error instanceof LabInputError) {
+    const key = error.stepIndex === undefined ? "still" : `steps.${error.stepIndex}`;
+    throw new AppError("validation_failed", error.stepIndex === undefined ? error.message : `${key}: ${error.message}`, {
+      fields: { [key]: error.message },
+    });
+  }
+  throw error;
+}
+
+/** A small bound for the analysis routes, which decode and run outside the runner's own slots. */
+const slots = { active: 0, waiting: [] as (() => void)[] };
+const MAX_ACTIVE = 1;
+const MAX_WAITING = 4;
+
+export async function withAnalysisSlot<T>(work: () => Promise<T>): Promise<T> {
+  if (slots.active >= MAX_ACTIVE) {
+    if (slots.waiting.length >= MAX_WAITING) throw new AppError("rate_limited", "The lab is busy. Try again in a moment.");
+    await new Promise<void>((resolve) => slots.waiting.push(resolve));
+  } else slots.active++;
+  try {
+    return await work();
+  } finally {
+    const next = slots.waiting.shift();
+    if (next) next();
+    else slots.active--;
+  }
+}
+
+/** JSON for a header value: base64url, so any characters survive. */
+export function headerJson(value: unknown): string {
+  return Buffer.from(JSON.stringify(value), "utf8").toString("base64url");
+}
