@@ -225,13 +225,15 @@ const replacementTechnique = alias(techniques, "replacement");
 export async function getShotWithUses(actor: SessionUser, code: string): Promise<ShotDetailResponse> {
   assertCan(actor, "technique:read");
   const db = getDb();
-  const [row] = await db
+  const trimmed = code.trim();
+  // Codes are written in capitals; a typed lower-case code still finds its shot.
+  const found = await db
     .select({ shot: shots, show: shows })
     .from(shots)
     .innerJoin(shows, eq(shows.id, shots.showId))
-    .where(eq(shots.code, code.trim()))
-    .limit(1);
-  if (!row) throw new AppError("not_found", `No shot ${code}`);
+    .where(inArray(shots.code, [...new Set([trimmed, trimmed.toUpperCase()])]));
+  const row = found.find((r) => r.shot.code === trimmed) ?? found[0];
+  if (!row) throw new AppError("not_found", `No shot ${trimmed}`);
 
   const useRows = await db
     .select({ use: uses, technique: techniques, replacement: replacementTechnique, user: { id: users.id, name: users.name } })

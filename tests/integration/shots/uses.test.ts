@@ -202,6 +202,9 @@ describe("shot page and follow-up", () => {
       ["SLM_050_0010", 1, "clean"],
     ]);
 
+    const lower = await shotRoute.GET(request("GET", "/api/shots/slm_040_0130", { as: ann }), ctx({ code: "slm_040_0130" }));
+    expect(((await lower.json()) as ShotDetailResponse).code).toBe("SLM_040_0130");
+
     const unknown = await shotRoute.GET(request("GET", "/api/shots/SLM_040_9999", { as: ann }), ctx({ code: "SLM_040_9999" }));
     expect(unknown.status).toBe(404);
     expect(((await unknown.json()) as ErrorJson).error.message).toBe("No shot SLM_040_9999");
