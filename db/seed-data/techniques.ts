@@ -82,7 +82,7 @@ const markerChannelCleanup: DemoTechnique = {
     p("Example from a green screen with pink crosses. Solve your own."),
     codeBlock(
       [
-        "matrix  G' = 0.37·R + 0.81·G + 0.15·B    # marker and screen equal in G'",
+        "matrix  G' = 0.40·R + 0.90·G + 0.18·B    # marker = screen in G', screen level kept",
         "level   G' to plate G over clean screen",
         "copy    G' -> R and -> B, each levelled to the plate",
         "matte   M = 1.55·R - 0.39·G + 0.70·B     # marker 1, screen 0",
@@ -663,6 +663,51 @@ const signAndLogoRemoval: DemoTechnique = {
   ),
 };
 
+// ---------------------------------------------------------------------------------------------
+// Crew in shot
+// ---------------------------------------------------------------------------------------------
+
+const crewRemovalWithATemporalCleanPlate: DemoTechnique = {
+  key: "crew-removal-with-a-temporal-clean-plate",
+  title: "Crew removal with a temporal clean plate",
+  summary: "Build a clean background from the frames where the crew member or vehicle is elsewhere, align it to each frame, and put it back through a soft matte.",
+  aliases: ["remove person from background", "van removal", "crew in background", "clean plate from other frames", "people removal"],
+  tags: ["crew-in-shot", "sky"],
+  author: "maud.okonjo@kestrel.test",
+  lifecycle: "approved",
+  houseMethodFor: "crew-in-shot",
+  body: doc(
+    h2("Recognising the problem"),
+    p(
+      "A crew member, a parked van or a stand somewhere behind the action, usually small in frame and partly covered by the cast. If the unwanted thing moves during the shot, or the camera moves enough to see behind it, the background it hides is somewhere in the shot already. That is the case this page covers; a thing that never moves and is never seen past needs paint or a separate clean pass.",
+    ),
+    h2("Steps"),
+    ol(
+      "**Track the background** the unwanted thing sits on: a planar track for walls and ground, a camera solve for deep scenes.",
+      "**Align a run of frames** to the frame being fixed, using the track. Twenty to fifty frames either side is usually plenty.",
+      "**Take the median** of the aligned frames per pixel. Anything that moves through the background is outvoted, as long as each pixel is clear in more than half the frames.",
+      "**Match the light:** fit a gain and offset between the clean plate and the current frame over background near the repair, frame by frame, so clouds and flicker stay in step.",
+      "**Matte the removal** with a shape a few pixels larger than the thing, soft at the edge, and hold out the cast where they cross it.",
+      "**Mix** the clean plate through the matte and restore the grain.",
+    ),
+    h2("Parameter guidance"),
+    table(
+      ["Parameter", "Typical range", "Why"],
+      [
+        ["Frames in the median", "20–100, aligned", "More frames outvote slow movers; too many and the light drifts."],
+        ["Matte margin", "3–8 px", "Covers motion blur and the soft edge of the removed thing."],
+        ["Light match", "Gain + offset, per frame", "A clean plate from other frames is lit by other moments."],
+      ],
+    ),
+    works("The background is rigid (buildings, ground, a sea wall) and the thing to remove moves or is seen past during the shot."),
+    fails("The thing stays put for most of the shot: the median keeps it. Leaves, water and crowds in the background do not align and the median smears them; paint a single clean frame and track it on instead."),
+    caution("Shadows and reflections go with the thing. Remove the van's shadow on the road and its reflection in the wet tarmac too, or the audience sees what the van was doing."),
+  ),
+  uses: [
+    { shot: "SLM_010_0040", outcome: "touch-up", note: "Van behind the sea wall drove off at frame 1090; median of the later frames, the wet road needed a hand-painted fix for its reflection.", by: "lena.strandberg@kestrel.test" },
+  ],
+};
+
 /** In seeding order: a superseding technique comes before the one it supersedes. */
 export const DEMO_TECHNIQUES: readonly DemoTechnique[] = [
   markerChannelCleanup,
@@ -672,6 +717,7 @@ export const DEMO_TECHNIQUES: readonly DemoTechnique[] = [
   deadAndStuckPixelRepair,
   screenFlattening,
   grainRestoreAfterDenoise,
+  crewRemovalWithATemporalCleanPlate,
   boomShadowLift,
   crewReflections,
   signAndLogoRemoval,

@@ -10,6 +10,8 @@ import { createTechniqueSchema, updateTechniqueSchema } from "@/lib/techniques/s
 import { slugify } from "@/lib/techniques/slug";
 import { tagInputSchema } from "@/lib/tags/schemas";
 import { logUseSchema, shotRowSchema, showSchema } from "@/lib/shots/schemas";
+import { MARKER_COLOURS, SCREEN_COLOURS } from "@/lib/lab/synthetic";
+import { solveRow } from "@/lib/lab/solver";
 
 /*
  * The demo content must load through the same rules the app enforces on people's input:
@@ -213,5 +215,42 @@ describe("techniques", () => {
       expect(types).toContain('"table"');
       for (const kind of ["works", "fails", "caution"]) expect(types).toContain(`"kind":"${kind}"`);
     }
+  });
+});
+
+describe("the marker write-up's worked example", () => {
+  // The example rows in the body must really do what the text says on the demo plate's own
+  // colours (lib/lab/synthetic.ts): the hide row gives marker and screen the same value, the
+  // matte row maps marker to 1 and screen to 0. Tolerance: the body's own guidance, residual
+  // below 1% of the screen level. The rows are also the lab solver's answers, rounded.
+  const marker = DEMO_TECHNIQUES.find((t) => t.key === "marker-channel-cleanup")!;
+  const recipe = marker.body.content
+    .filter((n) => n.type === "codeBlock")
+    .map((n) => n.content?.map((c) => c.text).join("") ?? "")
+    .join("\n");
+  const num = String.raw`(-?\d+\.\d+)`;
+  const hide = new RegExp(String.raw`G' = ${num}·R \+ ${num}·G \+ ${num}·B`).exec(recipe);
+  const matte = new RegExp(String.raw`M = ${num}·R - ${num}·G \+ ${num}·B`).exec(recipe);
+  const dot = (a: readonly number[], c: readonly number[]) => a[0]! * c[0]! + a[1]! * c[1]! + a[2]! * c[2]!;
+  const screen = SCREEN_COLOURS.green;
+  const pink = MARKER_COLOURS[0];
+
+  it("hides the pink marker on the green screen and keeps the screen level", () => {
+    expect(hide).not.toBeNull();
+    const row = hide!.slice(1, 4).map(Number);
+    expect(Math.abs(dot(row, pink) - dot(row, screen))).toBeLessThan(0.01 * screen[1]);
+    expect(Math.abs(dot(row, screen) - screen[1])).toBeLessThan(0.01 * screen[1]);
+    const solved = solveRow({ markers: [pink], screen: [screen], goal: { kind: "hide", channel: "g" } }).row;
+    row.forEach((v, k) => expect(v).toBeCloseTo(solved[k]!, 2));
+  });
+
+  it("pulls a matte with marker near 1 and screen near 0", () => {
+    expect(matte).not.toBeNull();
+    const [r, g, bb] = matte!.slice(1, 4).map(Number) as [number, number, number];
+    const row = [r, -g, bb];
+    expect(dot(row, pink)).toBeCloseTo(1, 2);
+    expect(dot(row, screen)).toBeCloseTo(0, 2);
+    const solved = solveRow({ markers: [pink], screen: [screen], goal: { kind: "matte", channel: "r" } }).row;
+    row.forEach((v, k) => expect(v).toBeCloseTo(solved[k]!, 2));
   });
 });
