@@ -8,8 +8,10 @@
  * - Typo tolerance comes from correcting each query word against the corpus vocabulary (trigram
  *   candidates, then edit distance) and from prefix completion of partial words; the vocabulary is
  *   small, so this costs well under a millisecond.
- * - Scoring is BM25F-like (Robertson & Zaragoza 2009, "The Probabilistic Relevance Framework: BM25
- *   and Beyond"): field-weighted, length-normalised term frequency, saturated by k1, times IDF.
+ * - Scoring is BM25 per field (Robertson & Zaragoza 2009, "The Probabilistic Relevance Framework: BM25
+ *   and Beyond"): length-normalised term frequency saturated by k1 in each field, fields summed with
+ *   weights, times IDF. (Saturating the weighted sum, as BM25F does, flattened title matches to
+ *   nearly the weight of one body match in the benchmark corpus.)
  * - Highlight ranges come from the same tokenizer, so they mark exactly the words that matched.
  */
 import type {
@@ -373,7 +375,7 @@ export function createSearchIndex(): SearchIndex & {
 
   const df = (sid: number): number => (postings[sid] as Postings).n;
 
-  function prefixExpansions(word: string): Expansion[] {
+  function prefixExpansions(word: string, hasExact: boolean): Expansion[] {
     const vocab = sortedVocabulary();
     let lo = 0;
     let hi = vocab.length;
@@ -390,7 +392,8 @@ export function createSearchIndex(): SearchIndex & {
       if ((surfaceRefs[sfid] as number) <= 0 || w === word) continue;
       out.push({
         stemId: surfaceStem[sfid] as number,
-        weight: 0.55 + 0.35 * (word.length / w.length),
+        // A complete word is less likely to be the start of a longer one.
+        weight: hasExact ? 0.4 + 0.2 * (word.length / w.length) : 0.55 + 0.35 * (word.length / w.length),
         surface: w,
         kind: "prefix",
       });
@@ -433,10 +436,14 @@ export function createSearchIndex(): SearchIndex & {
     const out: Expansion[] = [];
     const exactStem = stemIds.get(stem(word));
     const hasExact = exactStem !== undefined && df(exactStem) > 0;
-    if (hasExact) out.push({ stemId: exactStem, weight: 1, surface: word, kind: "exact" });
+    const surface = surfaceIds.get(word);
+    const isKnownWord = surface !== undefined && (surfaceRefs[surface] as number) > 0;
+    // Meeting a corpus word only through the stemmer ("trakers" → "trak", like "trake") is weaker
+    // evidence than the word itself, so typo corrections compete with it.
+    if (hasExact) out.push({ stemId: exactStem, weight: isKnownWord ? 1 : 0.9, surface: word, kind: "exact" });
     if (/^[0-9]+$/.test(word)) return out;
-    if (word.length >= 3 && (allowPrefix || !hasExact)) out.push(...prefixExpansions(word));
-    if (!hasExact) out.push(...typoExpansions(word));
+    if (word.length >= 3 && (allowPrefix || !hasExact)) out.push(...prefixExpansions(word, hasExact));
+    if (!isKnownWord) out.push(...typoExpansions(word));
     // One entry per stem (best weight), then the strongest few: more only adds noise and time.
     const byStem = new Map<number, Expansion>();
     for (const e of out) {
@@ -502,22 +509,32 @@ export function createSearchIndex(): SearchIndex & {
     const weights = FIELD_WEIGHTS.map((w, f) => ((fieldMask >> f) & 1 ? w : 0));
     for (const word of words) {
       const wStamp = ++stampCounter;
+      // Corrections and completions of one query word share the IDF of its most common candidate, so
+      // a rare look-alike word (likely noise) does not outscore the common word the user meant. This is
+      // what Lucene's fuzzy queries do by default (TopTermsBlendedFreqScoringRewrite).
+      let maxDf = 0;
+      for (const ex of word.expansions) if (ex.kind !== "exact" || ex.weight < 1) maxDf = Math.max(maxDf, df(ex.stemId));
+      const blendedIdf = bm25Idf(liveDocs, maxDf);
       for (const ex of word.expansions) {
         const list = postings[ex.stemId] as Postings;
-        const idf = bm25Idf(liveDocs, list.n) * ex.weight;
+        const ownIdf = bm25Idf(liveDocs, list.n);
+        const idf = (ex.kind === "exact" && ex.weight === 1 ? ownIdf : Math.min(ownIdf, blendedIdf)) * ex.weight;
         const data = list.data;
         for (let k = 0; k < list.n; k++) {
           const id = data[k * 2] as number;
           let packed = data[k * 2 + 1] as number;
-          let tfw = 0;
+          // Saturate per field, then add the weighted fields: a word in the title and the aliases and
+          // the tags says "this is the topic" far more than the same word once in the body.
+          let sum = 0;
           for (let f = 0; packed !== 0; f++, packed >>>= 4) {
             const tf = packed & 15;
             if (tf === 0) continue;
             const b = FIELD_B[f] as number;
-            tfw += ((weights[f] as number) * tf) / (1 - b + (b * (lens[id * NF + f] as number)) / (avg[f] as number));
+            const norm = 1 - b + (b * (lens[id * NF + f] as number)) / (avg[f] as number);
+            sum += ((weights[f] as number) * tf * (K1 + 1)) / (tf + K1 * norm);
           }
-          if (tfw === 0) continue;
-          const s = (idf * tfw * (K1 + 1)) / (K1 + tfw);
+          if (sum === 0) continue;
+          const s = idf * sum;
           if (queryStamp[id] !== stampBase) {
             queryStamp[id] = stampBase;
             acc[id] = 0;
@@ -570,7 +587,8 @@ export function createSearchIndex(): SearchIndex & {
     const chosen = ids.filter((id) => (cover[id] as number) >= required);
     const cands: Candidate[] = chosen.map((id) => {
       const e = entries[id] as Entry;
-      const coverage = (cover[id] as number) / Math.max(1, n);
+      // Square root: matching every word helps, but not enough to beat strong title/alias matches of most words.
+      const coverage = Math.sqrt((cover[id] as number) / Math.max(1, n));
       const isHouseHit = e.isRankApproved && e.doc.houseMethodFor.some((slug) => houseHits.has(slug));
       return { id, score: (acc[id] as number) * coverage, group: 0, isHouseHit };
     });

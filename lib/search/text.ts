@@ -86,9 +86,9 @@ function undouble(w: string): string {
 }
 
 /**
- * A light, conservative suffix stripper: plurals, -ing, -ed, -er and a final -e, so that "markers",
- * "marker", "marking" and "tracker"/"tracking" meet. It is not the Porter stemmer; precision matters
- * less than recall here because ranking sorts out the rest.
+ * A light, conservative suffix stripper: plurals, -ing, -ed and a final -e, so that "markers"/"marker"
+ * and "tracking"/"tracks" meet. It is not the Porter stemmer. "-er" is kept on purpose: "trackers"
+ * (tracking markers) must not become "tracks" (footprints, tyre tracks).
  */
 export function stem(word: string): string {
   let w = word;
@@ -100,7 +100,6 @@ export function stem(word: string): string {
 
   if (w.endsWith("ing") && w.length > 5) w = undouble(w.slice(0, -3));
   else if (w.endsWith("ed") && w.length > 4) w = undouble(w.slice(0, -2));
-  else if (w.endsWith("er") && w.length > 5) w = undouble(w.slice(0, -2));
 
   if (w.endsWith("e") && w.length > 3) w = w.slice(0, -1);
   // Undouble once more so "matte", "mattes" and "matting" all meet at "mat".

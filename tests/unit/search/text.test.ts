@@ -61,7 +61,7 @@ describe("stem", () => {
   it.each([
     ["markers", "marker"],
     ["tracking", "track"],
-    ["tracker", "track"],
+    ["tracks", "track"],
     ["pixels", "pixel"],
     ["mattes", "matting"],
     ["denoising", "denoise"],
@@ -73,6 +73,8 @@ describe("stem", () => {
   it("keeps distinct trade words apart", () => {
     expect(stem("grain")).not.toBe(stem("green"));
     expect(stem("wire")).not.toBe(stem("wipe"));
+    // "trackers" are tracking markers, "tracks" are footprints or tyre tracks.
+    expect(stem("trackers")).not.toBe(stem("tracks"));
     expect(stem("040")).toBe("040");
   });
 });
