@@ -231,7 +231,7 @@ const wireRemovalByOffsetStrip: DemoTechnique = {
       "The background within a few wire-widths is smooth or only slowly changing, and the wire is thin, under about 6 px at 2K.",
     ),
     fails(
-      "The wire lies along an edge or crosses a silhouette: the shifted copy brings the edge with it and you get a doubled outline. Also fails on strong texture, where the averaged fill looks like a blurred stripe.",
+      "The wire lies along an edge or crosses the outline of the performer: the shifted copy brings the edge with it and you get a doubled outline. Also fails on strong texture, where the averaged fill looks like a blurred stripe.",
     ),
     caution(
       "Averaging two independent fills lowers grain by a factor of √2. To bring it back to the plate's level, add grain with a standard deviation of about 0.71 × the plate's (√(1 − ½)), or take the fill from one side only on very grainy plates.",
