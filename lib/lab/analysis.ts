@@ -40,7 +40,7 @@ export function lineProfile(img: FloatImage, p0: Point, p1: Point, samples?: num
 
 export type Histograms = { edges: number[]; r: number[]; g: number[]; b: number[]; below: number[]; above: number[] };
 
-/** Per-channel counts in `bins` equal bins over [lo, hi); values outside are counted apart. */
+/** Per-channel counts in `bins` equal bins over [lo, hi]; values outside are counted apart. */
 export function channelHistograms(img: FloatImage, bins = 256, lo = 0, hi = 1): Histograms {
   const counts = [new Float64Array(bins), new Float64Array(bins), new Float64Array(bins)];
   const below = [0, 0, 0], above = [0, 0, 0];
@@ -49,7 +49,8 @@ export function channelHistograms(img: FloatImage, bins = 256, lo = 0, hi = 1): 
   for (let i = 0; i < data.length; i += 3) {
     for (let c = 0; c < 3; c++) {
       const v = data[i + c]!;
-      const bin = Math.floor((v - lo) * k);
+      // The top edge belongs to the last bin, so a 0..1 image's white is not "above".
+      const bin = v === hi ? bins - 1 : Math.floor((v - lo) * k);
       if (bin < 0 || Number.isNaN(v)) below[c]!++;
       else if (bin >= bins) above[c]!++;
       else counts[c]![bin]!++;
