@@ -11,9 +11,8 @@ import { notifyPerson } from "@/lib/mail/events";
 import type { TechniqueDocument } from "@/lib/techniques/document";
 import { documentToPlainText } from "@/lib/techniques/plain-text";
 import { requireVisibleTechnique } from "@/lib/techniques/queries";
+import type { QuestionResponse } from "@/lib/questions/types";
 
-export type AnswerResponse = { id: string; author: { id: string; name: string } | null; body: TechniqueDocument; createdAt: string };
-export type QuestionResponse = AnswerResponse & { resolvedAt: string | null; answers: AnswerResponse[]; canAnswer: boolean; canResolve: boolean };
 
 /** Questions on a technique, oldest first, with what this person may do on each. */
 export async function listQuestions(user: SessionUser, slug: string): Promise<QuestionResponse[]> {

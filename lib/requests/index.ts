@@ -6,16 +6,8 @@ import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit/log";
+import type { TechniqueRequestResponse } from "@/lib/requests/types";
 
-export type TechniqueRequestResponse = {
-  id: string;
-  query: string;
-  note: string;
-  status: "open" | "claimed" | "resolved";
-  requester: { id: string; name: string } | null;
-  claimedBy: { id: string; name: string } | null;
-  createdAt: string;
-};
 
 /** "Nobody has written this up yet": a search turned into a request that seniors see. */
 export async function createRequest(user: SessionUser, input: { query: string; note: string }): Promise<{ id: string }> {

@@ -68,7 +68,9 @@ function revisionContent(input: CreateTechniqueInput | UpdateTechniqueInput) {
 }
 
 async function lockTechnique(tx: Tx, slug: string): Promise<Technique> {
-  const found = await findTechniqueBySlug(slug);
+  // Inside a transaction every read goes through tx: PGlite has one connection, so a read
+  // through getDb() would wait for this transaction forever.
+  const found = await findTechniqueBySlug(slug, tx);
   if (!found) throw new AppError("not_found", "No technique at this address.");
   const [t] = await tx.select().from(techniques).where(eq(techniques.id, found.technique.id)).for("update");
   if (!t) throw new AppError("not_found", "No technique at this address.");
@@ -246,7 +248,7 @@ export async function retireTechnique(actor: SessionUser, slug: string, input: R
     if (t.status === "retired") throw new AppError("conflict", "This technique is already retired.");
     let replacement: { id: string; slug: string; title: string } | null = null;
     if (input.supersededBy) {
-      const found = await findTechniqueBySlug(input.supersededBy);
+      const found = await findTechniqueBySlug(input.supersededBy, tx);
       if (!found || !found.technique.approvedRevisionId || found.technique.status !== "approved") {
         throw new AppError("validation_failed", "The replacement must be an approved technique.", { fields: { supersededBy: "Choose an approved technique." } });
       }
@@ -292,7 +294,7 @@ export async function setHouseMethod(actor: SessionUser, tagSlug: string, techni
       await writeAudit(tx, { actorId: actor.id, action: "tag.house-method.clear", targetType: "tag", targetId: tag.id });
       return [before?.techniqueId].filter((x): x is string => Boolean(x));
     }
-    const found = await findTechniqueBySlug(techniqueSlug);
+    const found = await findTechniqueBySlug(techniqueSlug, tx);
     if (!found || found.technique.status !== "approved" || !found.technique.approvedRevisionId) {
       throw new AppError("validation_failed", "Only an approved technique can be the department's method.", { fields: { technique: "Choose an approved technique." } });
     }

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Database } from "@/db/client";
 import { houseMethods, revisions, tags, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
@@ -45,8 +45,10 @@ function ref(map: Map<string, { id: string; name: string }>, id: string | null |
 }
 
 /** Finds a technique by its slug or by a slug it had before a rename. */
-export async function findTechniqueBySlug(slug: string): Promise<{ technique: Technique; renamedFrom: string | null } | null> {
-  const db = getDb();
+export async function findTechniqueBySlug(
+  slug: string,
+  db: Pick<Database, "select"> = getDb(),
+): Promise<{ technique: Technique; renamedFrom: string | null } | null> {
   const [direct] = await db.select().from(techniques).where(eq(techniques.slug, slug)).limit(1);
   if (direct) return { technique: direct, renamedFrom: null };
   const [old] = await db

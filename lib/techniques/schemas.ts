@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { techniqueDocumentSchema, type TechniqueDocument } from "@/lib/techniques/document";
-import { recipeStepSchema, type RecipeStep } from "@/lib/lab/recipe";
+import { recipeSchema, type RecipeStep } from "@/lib/lab/recipe";
 
 export const TECHNIQUE_STATUSES = ["draft", "in_review", "approved", "retired"] as const;
 export type TechniqueStatus = (typeof TECHNIQUE_STATUSES)[number];
@@ -17,8 +17,6 @@ export const slugSchema = z
   .min(1)
   .max(120)
   .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, "Not a valid slug.");
-
-export const recipeSchema = z.array(recipeStepSchema).max(64, "A recipe has at most 64 steps.");
 
 const techniqueFields = {
   title: z.string().trim().min(3, "Give the technique a title of at least 3 characters.").max(140),

@@ -1,0 +1,68 @@
+import type { Metadata } from "next";
+import { redirect } from "next/navigation";
+import { Card, CardTitle } from "@/components/ui/card";
+import { QuestionsSection } from "@/components/techniques/questions-section";
+import { RecipeCards } from "@/components/techniques/recipe-cards";
+import { RenderedBody } from "@/components/techniques/rendered-body";
+import { TechniqueActions } from "@/components/techniques/technique-actions";
+import { TechniqueBanners } from "@/components/techniques/technique-banners";
+import { TechniqueHeader } from "@/components/techniques/technique-header";
+import { TechniqueEvidence } from "@/components/techniques/technique-evidence";
+import { TechniqueShots } from "@/components/techniques/technique-shots";
+import { loadOrNotFound } from "@/lib/api/page-guards";
+import { requireUser } from "@/lib/auth/session";
+import { getTechnique } from "@/lib/techniques/queries";
+
+type Props = { params: Promise<{ slug: string }> };
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  return { title: (await params).slug.replace(/-/g, " ") };
+}
+
+export default async function TechniquePage({ params }: Props) {
+  const user = await requireUser();
+  const { slug } = await params;
+  const t = await loadOrNotFound(() => getTechnique(user, slug));
+  if (t.renamedFrom) redirect(`/techniques/${t.slug}`);
+  return (
+    <article className="space-y-6">
+      <TechniqueHeader t={t} />
+      <TechniqueBanners t={t} />
+      <TechniqueActions user={user} t={t} />
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
+        <div className="space-y-6">
+          <Card>
+            <RenderedBody doc={t.body} />
+          </Card>
+          <TechniqueEvidence user={user} technique={t} />
+          <Card>
+            <CardTitle>Parameters</CardTitle>
+            <RecipeCards recipe={t.recipe} />
+          </Card>
+          <TechniqueShots user={user} technique={t} />
+          <QuestionsSection slug={t.slug} canAsk />
+        </div>
+        <aside className="space-y-4" aria-label="About this technique">
+          <Card>
+            <CardTitle>Revision</CardTitle>
+            <dl className="space-y-1 text-sm">
+              <div className="flex justify-between gap-2">
+                <dt className="text-muted">Shown</dt>
+                <dd>{t.revision.number}</dd>
+              </div>
+              <div className="flex justify-between gap-2">
+                <dt className="text-muted">Approved</dt>
+                <dd>{t.approvedRevision ?? "—"}</dd>
+              </div>
+              <div className="flex justify-between gap-2">
+                <dt className="text-muted">Newest</dt>
+                <dd>{t.latestRevision}</dd>
+              </div>
+            </dl>
+            {t.revision.changeNote ? <p className="mt-2 text-sm text-muted">“{t.revision.changeNote}”</p> : null}
+          </Card>
+        </aside>
+      </div>
+    </article>
+  );
+}

@@ -1,0 +1,14 @@
+import { closeDb } from "@/db/client";
+import { runMigrations } from "@/db/migrate";
+import { seedDemo } from "@/db/seed";
+
+try {
+  await runMigrations();
+  await seedDemo();
+  console.log("Demo data ready.");
+} catch (error) {
+  console.error("Seeding failed:", error);
+  process.exitCode = 1;
+} finally {
+  await closeDb();
+}

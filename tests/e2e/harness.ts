@@ -1,0 +1,180 @@
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import crypto from "node:crypto";
+import fs from "node:fs";
+import net from "node:net";
+import os from "node:os";
+import path from "node:path";
+import { chromium, type Browser, type BrowserContext, type Locator, type Page } from "playwright-core";
+
+/**
+ * Drives the built app the way people use it: a production build on a free port with its own
+ * temporary data folder (a copy of a seeded template), the fake SMTP server beside it, and
+ * Debian's Chromium through playwright-core (never a browser download).
+ */
+const root = process.cwd();
+const bin = (name: string) => path.join(root, "node_modules", ".bin", name);
+export const CHROMIUM = "/usr/bin/chromium";
+export const DEMO_PASSWORD = "plateroom-demo";
+
+/** Browser tests run whenever Chromium is present; in CI its absence is a failure, not a skip. */
+export function hasChromium(): boolean {
+  if (fs.existsSync(CHROMIUM)) return true;
+  if (process.env.CI) throw new Error(`${CHROMIUM} is missing: CI must install Debian's chromium package (see .ci/run).`);
+  return false;
+}
+
+function newestMtime(paths: string[]): number {
+  let newest = 0;
+  const walk = (p: string) => {
+    if (!fs.existsSync(p)) return;
+    const st = fs.statSync(p);
+    if (st.isDirectory()) for (const e of fs.readdirSync(p)) walk(path.join(p, e));
+    else newest = Math.max(newest, st.mtimeMs);
+  };
+  paths.forEach((p) => walk(path.join(root, p)));
+  return newest;
+}
+
+function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): void {
+  const r = spawnSync(cmd, args, { cwd: root, env, encoding: "utf8", stdio: ["ignore", "pipe", "pipe"], maxBuffer: 64 * 1024 * 1024 });
+  if (r.status !== 0) throw new Error(`${path.basename(cmd)} ${args.join(" ")} failed (${r.status}):\n${r.stdout?.slice(-4000)}\n${r.stderr?.slice(-4000)}`);
+}
+
+const SOURCES = ["app", "components", "lib", "db", "public", "proxy.ts", "instrumentation.ts", "next.config.ts", "package-lock.json", "postcss.config.mjs"];
+
+function baseEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
+  const { NODE_OPTIONS: _n, VITEST: _v, VITEST_POOL_ID: _p, VITEST_WORKER_ID: _w, NODE_ENV: _e, ...rest } = process.env;
+  return { ...rest, NEXT_TELEMETRY_DISABLED: "1", ...extra } as NodeJS.ProcessEnv;
+}
+
+/** Builds the app when there is no build or a source is newer than it. */
+export function ensureBuild(): void {
+  const buildId = path.join(root, ".next", "BUILD_ID");
+  if (fs.existsSync(buildId) && fs.statSync(buildId).mtimeMs >= newestMtime(SOURCES)) return;
+  run(bin("next"), ["build"], baseEnv({ NODE_ENV: "production" }));
+}
+
+/** A migrated and seeded data folder, made once and reused while migrations and seed data stay the same. */
+export function seededTemplate(): { data: string; uploads: string } {
+  const stamp = crypto
+    .createHash("sha256")
+    .update(String(newestMtime(["db", "lib/lab/synthetic.ts"])))
+    .digest("hex")
+    .slice(0, 12);
+  const dir = path.join(root, "tests", ".tmp", `e2e-template-${stamp}`);
+  const data = path.join(dir, "data");
+  const uploads = path.join(dir, "uploads");
+  if (!fs.existsSync(path.join(dir, "ready"))) {
+    fs.rmSync(dir, { recursive: true, force: true });
+    const env = baseEnv({ PLATEROOM_DATA_DIR: data, PLATEROOM_UPLOADS_DIR: uploads });
+    run(bin("tsx"), ["-C", "react-server", "scripts/seed.ts"], env);
+    fs.writeFileSync(path.join(dir, "ready"), new Date().toISOString());
+  }
+  return { data, uploads };
+}
+
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once("error", reject);
+    s.listen(0, "127.0.0.1", () => {
+      const port = (s.address() as net.AddressInfo).port;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+async function waitFor(url: string, child: ChildProcess, log: () => string, timeoutMs = 90_000): Promise<void> {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    if (child.exitCode !== null) throw new Error(`The app exited (${child.exitCode}):\n${log()}`);
+    try {
+      const res = await fetch(url);
+      if (res.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`The app did not become healthy at ${url}:\n${log()}`);
+}
+
+export type RunningApp = { baseUrl: string; dataDir: string; uploadsDir: string; inboxDir: string; smtpPort: number; stop(): Promise<void> };
+
+/** Starts a fresh copy of the seeded app; each test file gets its own. */
+export async function startApp(): Promise<RunningApp> {
+  ensureBuild();
+  const template = seededTemplate();
+  const work = fs.mkdtempSync(path.join(os.tmpdir(), "plateroom-e2e-"));
+  const dataDir = path.join(work, "data");
+  const uploadsDir = path.join(work, "uploads");
+  fs.cpSync(template.data, dataDir, { recursive: true });
+  fs.cpSync(template.uploads, uploadsDir, { recursive: true });
+  const inboxDir = path.join(dataDir, "mail-inbox");
+  const [port, smtpPort] = [await freePort(), await freePort()];
+  const env = baseEnv({
+    NODE_ENV: "production",
+    PORT: String(port),
+    PLATEROOM_DATA_DIR: dataDir,
+    PLATEROOM_UPLOADS_DIR: uploadsDir,
+    AUTH_SECRET: crypto.randomBytes(32).toString("base64url"),
+    SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+    PLATEROOM_BASE_URL: `http://127.0.0.1:${port}`,
+  });
+  let output = "";
+  const smtp = spawn(bin("tsx"), ["-C", "react-server", "scripts/fake-smtp.ts", "--port", String(smtpPort), "--dir", inboxDir], { cwd: root, env });
+  const app = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env });
+  for (const child of [smtp, app]) {
+    child.stdout?.on("data", (d: Buffer) => (output += d.toString()));
+    child.stderr?.on("data", (d: Buffer) => (output += d.toString()));
+  }
+  const baseUrl = `http://127.0.0.1:${port}`;
+  await waitFor(`${baseUrl}/api/health`, app, () => output.slice(-6000));
+  return {
+    baseUrl,
+    dataDir,
+    uploadsDir,
+    inboxDir,
+    smtpPort,
+    async stop() {
+      for (const child of [app, smtp]) if (child.exitCode === null) child.kill("SIGTERM");
+      await new Promise((r) => setTimeout(r, 500));
+      fs.rmSync(work, { recursive: true, force: true });
+    },
+  };
+}
+
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: CHROMIUM,
+    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run", "--disable-quic"],
+  });
+}
+
+/** Signs in through the sign-in page, as a person would. */
+export async function signIn(browser: Browser, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1400, height: 900 } });
+  const page = await context.newPage();
+  await page.goto("/login");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith("/login"), { timeout: 30_000 });
+  return { context, page };
+}
+
+export const SCREENSHOT_DIR = path.join(root, "tests", ".tmp", "screenshots");
+export async function screenshot(page: Page, name: string): Promise<void> {
+  fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
+}
+
+/** Waits for the element to be visible; false (not a throw) when it never shows. */
+export async function isShown(locator: Locator, timeout = 10_000): Promise<boolean> {
+  try {
+    await locator.first().waitFor({ state: "visible", timeout });
+    return true;
+  } catch {
+    return false;
+  }
+}
