@@ -41,7 +41,8 @@ export type LinkMark = { type: "link"; attrs: { href: string } };
 export type DocumentMark = BoldMark | ItalicMark | CodeMark | LinkMark;
 
 export type TextNode = { type: "text"; text: string; marks?: DocumentMark[] };
-export type HardBreakNode = { type: "hardBreak" };
+/** Marks on a break come from the editor carrying the surrounding formatting across it. */
+export type HardBreakNode = { type: "hardBreak"; marks?: DocumentMark[] };
 export type InlineNode = TextNode | HardBreakNode;
 
 export type ParagraphNode = { type: "paragraph"; content?: InlineNode[] };
@@ -219,8 +220,10 @@ const MARK_ATTRS: Record<string, Record<string, z.ZodType>> = {
   link: {
     href: z
       .string()
-      .max(DOCUMENT_LIMITS.maxHrefLength)
-      .refine((h) => safeHref(h) !== null, "Links must be http, https, mailto or a relative path"),
+      .refine(
+        (h) => safeHref(h) !== null,
+        `Links must be http, https, mailto or a relative path, at most ${DOCUMENT_LIMITS.maxHrefLength} characters`,
+      ),
   },
 };
 
@@ -334,10 +337,13 @@ class DocumentChecker {
       } else {
         this.textChars += node.text.length;
       }
+    } else if (has(node, "text")) {
+      this.add([...path, "text"], `A "${type}" node cannot carry text`);
+    }
+    if (type === "text" || type === "hardBreak") {
       this.checkMarks(node.marks, path, parent !== "codeBlock");
-    } else {
-      if (has(node, "text")) this.add([...path, "text"], `A "${type}" node cannot carry text`);
-      if (has(node, "marks")) this.add([...path, "marks"], `A "${type}" node cannot carry marks`);
+    } else if (has(node, "marks")) {
+      this.add([...path, "marks"], `A "${type}" node cannot carry marks`);
     }
 
     const content = node.content;

@@ -107,7 +107,7 @@ class Renderer {
         wanted = marksOf(child);
       } else if (child.type === "hardBreak") {
         piece = "<br>";
-        wanted = open;
+        wanted = marksOf(child);
       } else {
         continue;
       }
