@@ -30,7 +30,6 @@ function formatMegabytes(bytes: number): string {
 /** The uploader's own file name, kept for the record only: no folders, no control characters. */
 export function cleanOriginalName(name: string | undefined): string {
   const base = path.basename((name ?? "").replace(/\\/g, "/"));
-  // eslint-disable-next-line no-control-regex
   return base.replace(/[\u0000-\u001f\u007f]/g, "").slice(0, 255);
 }
 

@@ -63,7 +63,7 @@ export function uploadRequest(
   headers: Record<string, string> = {},
 ): Request {
   const form = new FormData();
-  if (file) form.set("file", new Blob([file.bytes], { type: file.type ?? "application/octet-stream" }), file.name);
+  if (file) form.set("file", new Blob([new Uint8Array(file.bytes)], { type: file.type ?? "application/octet-stream" }), file.name);
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
   return new Request("http://plateroom.test/api/stills", { method: "POST", body: form, headers });
 }

@@ -1,0 +1,174 @@
+"use client";
+
+import { useRef, useSyncExternalStore, type KeyboardEvent, type PointerEvent, type RefObject } from "react";
+import type { CompareZoom } from "@/components/stills/compare-toolbar";
+import type { ProbePoint } from "@/lib/stills/probe";
+import { stillUrl, type StillResponse } from "@/lib/stills/schemas";
+import { cn } from "@/lib/utils";
+
+export type StageLayer = { still: StillResponse; label: "Before" | "After" };
+
+type Props = {
+  /** Bottom first; with a divider the second layer shows right of it. */
+  layers: StageLayer[];
+  zoom: CompareZoom;
+  filter?: string;
+  divider?: { position: number; onChange: (position: number) => void };
+  probe: ProbePoint | null;
+  onProbe: (point: ProbePoint) => void;
+  scrollRef?: RefObject<HTMLDivElement | null>;
+  onScroll?: () => void;
+};
+
+/** Originals browsers draw exactly (16-bit PNG included); TIFF falls back to the preview. */
+function sourceFor(still: StillResponse, zoom: CompareZoom): string {
+  return stillUrl(still.id, zoom === "actual" && still.format !== "tiff" ? "original" : "preview");
+}
+
+function subscribeToPixelRatio(onChange: () => void): () => void {
+  const query = window.matchMedia(`(resolution: ${window.devicePixelRatio}dppx)`);
+  query.addEventListener("change", onChange);
+  return () => query.removeEventListener("change", onChange);
+}
+
+const clamp = (v: number) => Math.min(100, Math.max(0, v));
+
+/** One viewport on the neutral grey surround: fit or 100 % with drag-panning, optional divider. */
+export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, scrollRef, onScroll }: Props) {
+  const base = layers[0]!.still;
+  const ownViewport = useRef<HTMLDivElement | null>(null);
+  const content = useRef<HTMLDivElement>(null);
+  const drag = useRef<{ kind: "pan" | "divider"; x: number; y: number; left: number; top: number } | null>(null);
+  // 100 % means one image pixel per device pixel, so CSS sizes divide by the pixel ratio.
+  const dpr = useSyncExternalStore(subscribeToPixelRatio, () => window.devicePixelRatio || 1, () => 1);
+
+  const relative = (e: PointerEvent): ProbePoint | null => {
+    const rect = content.current?.getBoundingClientRect();
+    if (!rect || !rect.width || !rect.height) return null;
+    return { u: (e.clientX - rect.left) / rect.width, v: (e.clientY - rect.top) / rect.height };
+  };
+
+  function onPointerDown(e: PointerEvent<HTMLDivElement>, kind: "pan" | "divider") {
+    if (e.button !== 0) return;
+    const el = ownViewport.current;
+    if (kind === "pan" && zoom !== "actual") {
+      if (!divider) return;
+      kind = "divider";
+    }
+    e.currentTarget.setPointerCapture(e.pointerId);
+    drag.current = { kind, x: e.clientX, y: e.clientY, left: el?.scrollLeft ?? 0, top: el?.scrollTop ?? 0 };
+    if (kind === "divider") moveDivider(e);
+    e.stopPropagation();
+  }
+
+  function moveDivider(e: PointerEvent) {
+    const p = relative(e);
+    if (p && divider) divider.onChange(clamp(Math.round(p.u * 1000) / 10));
+  }
+
+  function onPointerMove(e: PointerEvent<HTMLDivElement>) {
+    const d = drag.current;
+    if (d?.kind === "pan" && ownViewport.current) {
+      ownViewport.current.scrollLeft = d.left - (e.clientX - d.x);
+      ownViewport.current.scrollTop = d.top - (e.clientY - d.y);
+    } else if (d?.kind === "divider") moveDivider(e);
+    const p = relative(e);
+    if (p && p.u >= 0 && p.u < 1 && p.v >= 0 && p.v < 1) onProbe(p);
+  }
+
+  function onSliderKey(e: KeyboardEvent<HTMLDivElement>) {
+    if (!divider) return;
+    const step = e.shiftKey || e.key === "PageUp" || e.key === "PageDown" ? 10 : 1;
+    const next: Record<string, number> = {
+      ArrowLeft: divider.position - step,
+      ArrowDown: divider.position - step,
+      PageDown: divider.position - step,
+      ArrowRight: divider.position + step,
+      ArrowUp: divider.position + step,
+      PageUp: divider.position + step,
+      Home: 0,
+      End: 100,
+    };
+    if (e.key in next) {
+      e.preventDefault();
+      divider.onChange(clamp(next[e.key]!));
+    }
+  }
+
+  const actual = zoom === "actual";
+  const sizeStyle = actual
+    ? { width: base.width / dpr, height: base.height / dpr }
+    : { aspectRatio: `${base.width} / ${base.height}`, width: `min(100%, calc(70vh * ${base.width / base.height}))` };
+
+  return (
+    <div
+      ref={(el) => {
+        ownViewport.current = el;
+        if (scrollRef) scrollRef.current = el;
+      }}
+      onScroll={onScroll}
+      tabIndex={actual ? 0 : -1}
+      aria-label={actual ? "Still at 100 %, scroll or drag to pan" : undefined}
+      className={cn("relative flex bg-stage p-3", actual ? "h-[70vh] cursor-grab overflow-auto active:cursor-grabbing" : "justify-center")}
+    >
+      <div
+        ref={content}
+        className="relative m-auto shrink-0 touch-none select-none"
+        style={sizeStyle}
+        onPointerDown={(e) => onPointerDown(e, "pan")}
+        onPointerMove={onPointerMove}
+        onPointerUp={() => (drag.current = null)}
+        onPointerCancel={() => (drag.current = null)}
+      >
+        {layers.map((layer, i) => (
+          // eslint-disable-next-line @next/next/no-img-element -- private, per-user images from our API; no optimiser.
+          <img
+            key={layer.still.id + layer.label}
+            src={sourceFor(layer.still, zoom)}
+            alt={`${layer.label}: ${layer.still.alt}`}
+            draggable={false}
+            className="absolute inset-0 h-full w-full"
+            style={{
+              filter,
+              imageRendering: actual ? "pixelated" : undefined,
+              clipPath: divider && i === 1 ? `inset(0 0 0 ${divider.position}%)` : undefined,
+            }}
+          />
+        ))}
+        <span className="pointer-events-none absolute left-2 top-2 rounded bg-surface/80 px-1.5 py-0.5 text-xs">{layers[0]!.label}</span>
+        {layers[1] ? <span className="pointer-events-none absolute right-2 top-2 rounded bg-surface/80 px-1.5 py-0.5 text-xs">{layers[1].label}</span> : null}
+        {probe ? (
+          <span
+            aria-hidden="true"
+            className="pointer-events-none absolute outline outline-1 outline-accent"
+            style={{
+              left: `${(Math.floor(probe.u * base.width) / base.width) * 100}%`,
+              top: `${(Math.floor(probe.v * base.height) / base.height) * 100}%`,
+              width: `max(${100 / base.width}%, 3px)`,
+              height: `max(${100 / base.height}%, 3px)`,
+            }}
+          />
+        ) : null}
+        {divider ? (
+          <div
+            role="slider"
+            tabIndex={0}
+            aria-label="Divider between before and after"
+            aria-valuemin={0}
+            aria-valuemax={100}
+            aria-valuenow={divider.position}
+            aria-valuetext={`${divider.position} % before, ${Math.round((100 - divider.position) * 10) / 10} % after`}
+            aria-orientation="horizontal"
+            onKeyDown={onSliderKey}
+            onPointerDown={(e) => onPointerDown(e, "divider")}
+            className="absolute inset-y-0 z-10 -ml-3 flex w-6 cursor-ew-resize justify-center focus-visible:outline-2 focus-visible:outline-accent"
+            style={{ left: `${divider.position}%` }}
+          >
+            <span className="h-full w-0.5 bg-accent shadow" />
+            <span className="absolute top-1/2 -mt-3 h-6 w-6 rounded-full border-2 border-accent bg-surface" />
+          </div>
+        ) : null}
+      </div>
+    </div>
+  );
+}
