@@ -10,11 +10,10 @@ import { requestPasswordReset, setPasswordWithToken } from "@/lib/people/mutatio
 import { setPasswordSchema } from "@/lib/people/schemas";
 import { zodFields, isAppError } from "@/lib/api/errors";
 import { endAllSessions } from "@/lib/people/sign-in";
+import { GENERIC_SIGN_IN_FAILURE } from "@/lib/auth/messages";
 
 export type FormState = { message?: string; fieldErrors?: Record<string, string>; ok?: boolean };
 
-/** One message for every failed sign-in, so nobody can learn which e-mail addresses exist. */
-export const GENERIC_SIGN_IN_FAILURE = "That e-mail and password do not match an active account.";
 
 export async function signInAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = credentialsSchema.safeParse({ email: form.get("email"), password: form.get("password") });

@@ -19,7 +19,8 @@ class InvalidCredentials extends CredentialsSignin {
   code = "invalid_credentials";
 }
 
-const nextAuth = NextAuth({
+// The configuration is built on first use so `next build` never needs AUTH_SECRET.
+const nextAuth = NextAuth(() => ({
   ...authConfig,
   secret: authSecret(),
   providers: [
@@ -42,7 +43,7 @@ const nextAuth = NextAuth({
       if (sub) await endAllSessions(sub);
     },
   },
-});
+}));
 
 export const { handlers, signIn, signOut } = nextAuth;
 export const auth = cache(nextAuth.auth);

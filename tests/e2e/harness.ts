@@ -44,7 +44,7 @@ const SOURCES = ["app", "components", "lib", "db", "public", "proxy.ts", "instru
 
 function baseEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
   const { NODE_OPTIONS: _n, VITEST: _v, VITEST_POOL_ID: _p, VITEST_WORKER_ID: _w, NODE_ENV: _e, ...rest } = process.env;
-  return { ...rest, NEXT_TELEMETRY_DISABLED: "1", ...extra } as NodeJS.ProcessEnv;
+  return { ...rest, NEXT_TELEMETRY_DISABLED: "1", ...extra } as unknown as NodeJS.ProcessEnv;
 }
 
 /** Builds the app when there is no build or a source is newer than it. */
