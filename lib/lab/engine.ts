@@ -376,7 +376,26 @@ export type RunRecipeOptions = {
   loadStill?: DenoisedLoader;
   signal?: AbortSignal;
   onProgress?: (p: LabProgress) => void;
+  /**
+   * Decoded proxies kept between runs (interaction re-renders the same still at the same width).
+   * Keys: `plateKey` for the plate, `den:<still id>` for the denoised still, each with the width.
+   */
+  decodeCache?: DecodeCache;
+  plateKey?: string;
 };
+
+export type DecodedStill = StillCodes & { sourceWidth: number; sourceHeight: number };
+export type DecodeCache = { get(key: string): DecodedStill | undefined; set(key: string, value: DecodedStill): void };
+
+async function decodeCached(bytes: () => Promise<Uint8Array>, width: number | undefined, key: string | undefined, cache: DecodeCache | undefined): Promise<DecodedStill & { fromCache: boolean }> {
+  // Only proxies are kept: a full-resolution decode is as large as the render it feeds.
+  const k = cache && key && width ? `${key}@${width}` : null;
+  const hit = k ? cache!.get(k) : undefined;
+  if (hit) return { ...hit, fromCache: true };
+  const still = await decodeStill(await bytes(), width);
+  if (k) cache!.set(k, still);
+  return { ...still, fromCache: Boolean(k) };
+}
 
 export type RunRecipeResult = {
   bytes: Buffer;
@@ -399,16 +418,20 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
   const total = steps.length + 2;
   const t0 = performance.now();
   onProgress?.({ done: 0, total, label: "decode" });
-  const plateCodes = await decodeStill(opts.still, opts.width);
+  const grainIndex = steps.findIndex((s) => s.op === "grain");
+  const grainStepOf = grainIndex >= 0 ? (steps[grainIndex] as Extract<RecipeStep, { op: "grain" }>) : null;
+  if (grainStepOf && !opts.loadStill) throw new LabInputError(`step ${grainIndex}: no loader for the denoised still`, grainIndex);
+  // Both decodes at once: libvips decodes on its own threads.
+  const [plateCodes, den] = await Promise.all([
+    decodeCached(async () => opts.still, opts.width, opts.plateKey, opts.decodeCache),
+    grainStepOf
+      ? decodeCached(() => opts.loadStill!(grainStepOf.denoised), opts.width, `den:${grainStepOf.denoised}`, opts.decodeCache)
+      : null,
+  ]);
   checkAbort(signal);
   const plate = codesSource(plateCodes, space);
   let base: PixelSource = plate;
-  const grainIndex = steps.findIndex((s) => s.op === "grain");
-  if (grainIndex >= 0) {
-    const step = steps[grainIndex] as Extract<RecipeStep, { op: "grain" }>;
-    if (!opts.loadStill) throw new LabInputError(`step ${grainIndex}: no loader for the denoised still`, grainIndex);
-    const bytes = await opts.loadStill(step.denoised);
-    const den = await decodeStill(bytes, opts.width);
+  if (den) {
     if (den.width !== plateCodes.width || den.height !== plateCodes.height) {
       throw new LabInputError(`step ${grainIndex}: the denoised still is not the plate's size`, grainIndex);
     }
@@ -435,7 +458,7 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
   onProgress?.({ done: total - 1, total, label: "encode" });
   state.scratch = [];
   state.matte = null;
-  const reuse = plateCodes.bits === 16 ? (plateCodes.codes as Uint16Array) : undefined;
+  const reuse = plateCodes.bits === 16 && !plateCodes.fromCache ? (plateCodes.codes as Uint16Array) : undefined;
   const bytes = await encodeImage(state.cur, state.width, state.height, space, format, reuse);
   const t3 = performance.now();
   onProgress?.({ done: total, total, label: "done" });

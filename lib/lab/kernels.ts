@@ -101,13 +101,34 @@ function vanHerkRow(src: Float32Array, srcOff: number, stride: number, len: numb
   }
 }
 
+/*
+ * Marker mattes are mostly zero. A row of zeros stays zero under blur, dilation and erosion, and
+ * an output row whose whole window of input rows is zero is zero: such rows are skipped. This
+ * is exact for any plane, not only mattes.
+ */
+function zeroRowPrefix(plane: Float32Array, width: number, height: number): Int32Array {
+  // prefix[y] = number of non-zero rows among rows 0..y-1
+  const prefix = new Int32Array(height + 1);
+  for (let y = 0; y < height; y++) {
+    let nz = 0;
+    for (let x = y * width, e = x + width; x < e; x++) if (plane[x] !== 0) { nz = 1; break; }
+    prefix[y + 1] = prefix[y]! + nz;
+  }
+  return prefix;
+}
+
+const windowIsZero = (prefix: Int32Array, y0: number, y1: number, height: number): boolean =>
+  prefix[Math.min(height, y1 + 1)]! - prefix[Math.max(0, y0)]! === 0;
+
 // Below this radius a plain running max over 2r+1 values is cheaper than van Herk's bookkeeping.
 const DIRECT_MORPH_RADIUS = 3;
 
 function directMorph(plane: Float32Array, width: number, height: number, r: number, isMax: boolean): void {
   const fill = isMax ? -Infinity : Infinity;
+  const prefix = zeroRowPrefix(plane, width, height);
   const row = new Float32Array(width + 2 * r).fill(fill);
   for (let y = 0; y < height; y++) {
+    if (prefix[y + 1] === prefix[y]) continue;
     const o = y * width;
     row.set(plane.subarray(o, o + width), r);
     if (isMax) {
@@ -133,6 +154,7 @@ function directMorph(plane: Float32Array, width: number, height: number, r: numb
     const ahead = y + r;
     if (ahead < height) ring.set(plane.subarray(ahead * width, ahead * width + width), slot(ahead));
     const y0 = Math.max(0, y - r), y1 = Math.min(height - 1, y + r);
+    if (windowIsZero(prefix, y0, y1, height)) continue; // row y is zero and stays zero
     acc.set(ring.subarray(slot(y0), slot(y0) + width));
     for (let yy = y0 + 1; yy <= y1; yy++) {
       const s = slot(yy);
@@ -158,7 +180,8 @@ export function morphPlane(plane: Float32Array, width: number, height: number, p
   const k = 2 * r + 1;
   const maxLen = Math.max(width, height) + 2 * r + k;
   const pad = new Float32Array(maxLen), g = new Float32Array(maxLen), h = new Float32Array(maxLen);
-  for (let y = 0; y < height; y++) vanHerkRow(plane, y * width, 1, width, r, isMax, pad, g, h, plane);
+  const prefix = zeroRowPrefix(plane, width, height);
+  for (let y = 0; y < height; y++) if (prefix[y + 1] !== prefix[y]) vanHerkRow(plane, y * width, 1, width, r, isMax, pad, g, h, plane);
 
   // Vertical: padded row index p = y + r; blocks of k rows; g/h hold one row per padded row.
   const fill = isMax ? -Infinity : Infinity;
@@ -209,7 +232,7 @@ export function gaussianKernel(sigma: number): Float64Array {
   return k;
 }
 
-type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, width: number, height: number) => void;
+type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, width: number, height: number, prefix: Int32Array) => void;
 type VPass = (plane: Float32Array, tmp: Float32Array, offs: Int32Array, o: number, width: number) => void;
 const firCache = new Map<number, { r: number; h: HPass; v: VPass }>();
 
@@ -225,9 +248,10 @@ function firPasses(sigma: number): { r: number; h: HPass; v: VPass } {
   const lit = (v: number): string => v.toExponential(17);
   let hs = `${lit(k[r]!)} * row[x + ${r}]`;
   for (let t = 1; t <= r; t++) hs += ` + ${lit(k[r + t]!)} * (row[x + ${r - t}] + row[x + ${r + t}])`;
-  const h = new Function("plane", "tmp", "row", "width", "height", `
+  const h = new Function("plane", "tmp", "row", "width", "height", "prefix", `
     for (let y = 0; y < height; y++) {
       const o = y * width, first = plane[o], last = plane[o + width - 1];
+      if (prefix[y + 1] === prefix[y]) { tmp.fill(0, o, o + width); continue; }
       for (let i = 0; i < ${r}; i++) { row[i] = first; row[${r} + width + i] = last; }
       for (let x = 0; x < width; x++) row[${r} + x] = plane[o + x];
       for (let x = 0; x < width; x++) tmp[o + x] = ${hs};
@@ -246,9 +270,11 @@ function firPasses(sigma: number): { r: number; h: HPass; v: VPass } {
 
 function firBlur(plane: Float32Array, width: number, height: number, sigma: number, tmp: Float32Array): void {
   const { r, h, v } = firPasses(sigma);
-  h(plane, tmp, new Float32Array(width + 2 * r), width, height);
+  const prefix = zeroRowPrefix(plane, width, height);
+  h(plane, tmp, new Float32Array(width + 2 * r), width, height, prefix);
   const offs = new Int32Array(2 * r + 1);
   for (let y = 0; y < height; y++) {
+    if (windowIsZero(prefix, y - r, y + r, height)) continue; // row y is zero and stays zero
     for (let t = -r; t <= r; t++) {
       const yy = y + t;
       offs[t + r] = (yy < 0 ? 0 : yy >= height ? height - 1 : yy) * width;

@@ -3,7 +3,7 @@ import { createHash } from "node:crypto";
 import { mkdir, readFile, rename, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { canonicalJson, type LabRunRequest, type StepReport } from "@/lib/lab/recipe";
-import { LabAbortedError, runRecipe, type DenoisedLoader, type LabProgress } from "@/lib/lab/engine";
+import { LabAbortedError, runRecipe, type DecodeCache, type DecodedStill, type DenoisedLoader, type LabProgress } from "@/lib/lab/engine";
 
 /*
  * Runs lab recipes with a result cache (memory LRU with a byte cap, then an on-disk folder)
@@ -57,6 +57,8 @@ export type LabRunnerOptions = {
   maxConcurrent?: number;
   maxQueue?: number;
   timeoutMs?: number;
+  /** Byte cap of decoded proxy stills kept for re-renders. */
+  decodedCacheBytes?: number;
 };
 
 type Meta = Omit<LabRunOutput, "bytes" | "cached">;
@@ -83,6 +85,30 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
   let active = 0;
   const waiting: (() => void)[] = [];
   const inflight = new Map<string, Promise<LabRunOutput>>();
+  // Decoded proxy stills (≈ 3 MB each at 1024 px, 16-bit), least recently used first out.
+  const decoded = new Map<string, DecodedStill>();
+  let decodedBytes = 0;
+  const decodedCap = options.decodedCacheBytes ?? 96 * 1024 * 1024;
+  const decodeCache: DecodeCache = {
+    get(key) {
+      const v = decoded.get(key);
+      if (v) {
+        decoded.delete(key);
+        decoded.set(key, v);
+      }
+      return v;
+    },
+    set(key, value) {
+      if (decoded.has(key) || value.codes.byteLength > decodedCap) return;
+      decoded.set(key, value);
+      decodedBytes += value.codes.byteLength;
+      for (const [k, v] of decoded) {
+        if (decodedBytes <= decodedCap) break;
+        decoded.delete(k);
+        decodedBytes -= v.codes.byteLength;
+      }
+    },
+  };
 
   function remember(key: string, bytes: Buffer, meta: Meta): void {
     if (bytes.length > memCap) return;
@@ -160,6 +186,8 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       loadStill: input.loadStill,
       signal: controller.signal,
       onProgress: input.onProgress,
+      decodeCache,
+      plateKey: input.stillSha256,
     });
     // The slot is held until the run has really stopped, so the bound stays honest.
     run.then(release, release);
