@@ -7,16 +7,7 @@ import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit/log";
 import { csvRecordsToRows, planImport, readShotCsv, type ExistingShot, type ImportRow } from "@/lib/shots/csv";
-import {
-  findShotByCode,
-  findStills,
-  findTechniqueBySlugOrHistory,
-  getShow,
-  getUse,
-  isTechniqueVisible,
-  isUuid,
-  requireShow,
-} from "@/lib/shots/queries";
+import { findShotByCode, findStills, getShow, getUse, isUuid, requireShow } from "@/lib/shots/queries";
 import {
   MAX_IMPORT_ROWS,
   type ColumnMapping,
@@ -29,8 +20,20 @@ import {
   type UpdateUseInput,
   type UseResponse,
 } from "@/lib/shots/schemas";
+import { requireVisibleTechnique } from "@/lib/techniques/queries";
+import { reindexTechnique } from "@/lib/techniques/search-sync";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+/*
+ * Shot codes are part of a technique's search document, so every committed change to use logs
+ * (and to shots that have uses) reindexes the techniques concerned. Always after the transaction:
+ * the index reads through getDb(), and PGlite has one connection, so calling it inside would wait
+ * on the transaction forever.
+ */
+async function reindexAll(techniqueIds: Iterable<string>): Promise<void> {
+  for (const id of new Set(techniqueIds)) await reindexTechnique(id);
+}
 
 /** PostgreSQL's unique_violation (SQLSTATE 23505), possibly wrapped by the driver layer. */
 function isUniqueViolation(error: unknown): boolean {
@@ -114,6 +117,8 @@ export async function importShots(actor: SessionUser, showCode: string, request:
   }
   if (rows.length + readErrors.length > MAX_IMPORT_ROWS) throw new AppError("too_large", `At most ${MAX_IMPORT_ROWS} shots per import.`);
 
+  // Codes of existing shots the write changed, for the search update after the commit.
+  let touchedCodes: string[] = [];
   const run = async (db: Tx | Database): Promise<ImportShotsResponse> => {
     const [show] = await db.select().from(shows).where(eq(shows.code, showCode.trim().toUpperCase())).limit(1);
     if (!show) throw new AppError("not_found", `No show ${showCode}`);
@@ -153,12 +158,31 @@ export async function importShots(actor: SessionUser, showCode: string, request:
         detail: { ...counts, errors: errors.length },
       });
     }
+    touchedCodes = plan.update.map((u) => u.code);
     return { dryRun: false, ...counts, errors };
   };
 
   // A dry run reads only; a real import plans and writes in one transaction, so a failure
   // part-way leaves no good row written and the plan cannot go stale before the write.
-  return request.dryRun ? run(getDb()) : getDb().transaction((tx) => run(tx));
+  if (request.dryRun) return run(getDb());
+  const result = await getDb().transaction((tx) => run(tx));
+  // New shots have no uses yet; changed ones may, and their techniques' documents are rebuilt.
+  await reindexAll(await techniquesUsedOnShots(touchedCodes));
+  return result;
+}
+
+/** Ids of the techniques logged on any of these shots. */
+async function techniquesUsedOnShots(codes: readonly string[]): Promise<string[]> {
+  const out = new Set<string>();
+  for (let i = 0; i < codes.length; i += LOOKUP_CHUNK) {
+    const rows = await getDb()
+      .selectDistinct({ id: uses.techniqueId })
+      .from(uses)
+      .innerJoin(shots, eq(shots.id, uses.shotId))
+      .where(inArray(shots.code, codes.slice(i, i + LOOKUP_CHUNK)));
+    for (const r of rows) out.add(r.id);
+  }
+  return [...out];
 }
 
 /** The stored shots (of any show) whose codes appear in the rows, keyed by code. */
@@ -207,8 +231,8 @@ async function requireShotByCode(code: string) {
  */
 export async function logUse(actor: SessionUser, techniqueSlug: string, input: LogUseInput): Promise<UseResponse> {
   assertCan(actor, "use:log");
-  const technique = await findTechniqueBySlugOrHistory(techniqueSlug);
-  if (!technique || !isTechniqueVisible(actor, technique)) throw new AppError("not_found", `No technique "${techniqueSlug}".`);
+  // 404 for what the actor may not read: artists see techniques with an approved revision only.
+  const { technique } = await requireVisibleTechnique(actor, techniqueSlug);
   if (technique.status !== "approved" && !can(actor, "technique:read-working")) {
     throw new AppError("conflict", "This technique is retired; log the use on its replacement.");
   }
@@ -228,6 +252,7 @@ export async function logUse(actor: SessionUser, techniqueSlug: string, input: L
     })
     .returning({ id: uses.id });
   if (!created) throw new AppError("internal");
+  await reindexAll([technique.id]);
   return getUse(actor, created.id);
 }
 
@@ -260,6 +285,8 @@ export async function updateUse(actor: SessionUser, id: string, input: UpdateUse
       await writeAudit(tx, { actorId: actor.id, action: "use.update", targetType: "use", targetId: use.id, detail: { ownerId: use.userId } });
     }
   });
+  // Only the shot code reaches the search document; outcome and note changes leave it as is.
+  if (shot) await reindexAll([use.techniqueId]);
   return getUse(actor, use.id);
 }
 
@@ -276,4 +303,5 @@ export async function deleteUse(actor: SessionUser, id: string): Promise<void> {
       detail: { ownerId: use.userId, techniqueId: use.techniqueId, shotId: use.shotId, outcome: use.outcome },
     });
   });
+  await reindexAll([use.techniqueId]);
 }

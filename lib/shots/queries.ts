@@ -2,11 +2,12 @@ import "server-only";
 import { and, asc, count, desc, eq, ilike, inArray, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "@/db/client";
-import { revisions, shots, shows, stills, techniques, techniqueSlugHistory, users, uses, type Shot, type Show, type Technique } from "@/db/schema";
+import { revisions, shots, shows, stills, techniques, users, uses, type Shot, type Show, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { shotsToCsv } from "@/lib/shots/csv";
+import { requireVisibleTechnique, visibleRevisionId } from "@/lib/techniques/queries";
 import {
   type FollowUp,
   type FollowUpShot,
@@ -58,38 +59,11 @@ export function toShotResponse(s: Shot, showCode: string): ShotResponse {
   };
 }
 
-// ---- techniques, resolved here so this module does not wait on the technique DAL ----
-
-/** A technique by its slug, or by a slug it had before a rename. */
-export async function findTechniqueBySlugOrHistory(slug: string): Promise<Technique | null> {
-  const db = getDb();
-  const [direct] = await db.select().from(techniques).where(eq(techniques.slug, slug)).limit(1);
-  if (direct) return direct;
-  const [old] = await db
-    .select({ t: techniques })
-    .from(techniqueSlugHistory)
-    .innerJoin(techniques, eq(techniques.id, techniqueSlugHistory.techniqueId))
-    .where(eq(techniqueSlugHistory.slug, slug))
-    .limit(1);
-  return old?.t ?? null;
-}
+// ---- techniques: lookup and visibility come from the technique DAL ----
 
 /** Seniors and leads read working copies; everyone else sees a technique once it has an approved revision. */
-export function isTechniqueVisible(actor: SessionUser, t: Pick<Technique, "approvedRevisionId">): boolean {
-  return can(actor, "technique:read-working") || t.approvedRevisionId !== null;
-}
-
-/** The revision whose title this person reads: working copy for senior+, the approved one otherwise. */
-function visibleRevisionId(actor: SessionUser, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId">): string | null {
-  return can(actor, "technique:read-working") ? (t.latestRevisionId ?? t.approvedRevisionId) : t.approvedRevisionId;
-}
-
-/** Resolves a slug to a technique the actor may see; 404 otherwise, without hinting that drafts exist. */
-export async function requireVisibleTechnique(actor: SessionUser, slug: string): Promise<Technique> {
-  assertCan(actor, "technique:read");
-  const t = await findTechniqueBySlugOrHistory(slug);
-  if (!t || !isTechniqueVisible(actor, t)) throw new AppError("not_found", `No technique "${slug}".`);
-  return t;
+export function isTechniqueVisible(actor: SessionUser, t: Technique): boolean {
+  return visibleRevisionId(actor, t) !== null;
 }
 
 async function titlesOf(revisionIds: string[]): Promise<Map<string, string>> {
@@ -216,6 +190,15 @@ export async function findShotByCode(code: string): Promise<(Shot & { showCode: 
 }
 
 const replacementTechnique = alias(techniques, "replacement");
+const beforeStills = alias(stills, "before_still");
+const afterStills = alias(stills, "after_still");
+
+type StillInfo = { id: string; alt: string; owner: "technique" | "use" | "trial"; uploaderId: string | null } | null;
+/** A use's still as the reader may see it: a private trial of someone else's is not shown. */
+function readableStill(actor: SessionUser, s: StillInfo): { id: string | null; alt: string | null } {
+  if (!s?.id || !can(actor, "still:read", { stillOwner: s.owner, ownerId: s.uploaderId })) return { id: null, alt: null };
+  return { id: s.id, alt: s.alt };
+}
 
 /**
  * A shot with the techniques used on it (outcome, who, stills) and, where a technique has been
@@ -236,11 +219,20 @@ export async function getShotWithUses(actor: SessionUser, code: string): Promise
   if (!row) throw new AppError("not_found", `No shot ${trimmed}`);
 
   const useRows = await db
-    .select({ use: uses, technique: techniques, replacement: replacementTechnique, user: { id: users.id, name: users.name } })
+    .select({
+      use: uses,
+      technique: techniques,
+      replacement: replacementTechnique,
+      user: { id: users.id, name: users.name },
+      before: { id: beforeStills.id, alt: beforeStills.alt, owner: beforeStills.owner, uploaderId: beforeStills.uploaderId },
+      after: { id: afterStills.id, alt: afterStills.alt, owner: afterStills.owner, uploaderId: afterStills.uploaderId },
+    })
     .from(uses)
     .innerJoin(techniques, eq(techniques.id, uses.techniqueId))
     .leftJoin(replacementTechnique, eq(replacementTechnique.id, techniques.supersededById))
     .leftJoin(users, eq(users.id, uses.userId))
+    .leftJoin(beforeStills, eq(beforeStills.id, uses.beforeStillId))
+    .leftJoin(afterStills, eq(afterStills.id, uses.afterStillId))
     .where(eq(uses.shotId, row.shot.id))
     .orderBy(desc(uses.createdAt), asc(uses.id));
 
@@ -255,14 +247,18 @@ export async function getShotWithUses(actor: SessionUser, code: string): Promise
     const technique = refs.get(r.technique.id);
     if (!technique) continue;
     const rep = r.replacement ? refs.get(r.replacement.id) : undefined;
+    const before = readableStill(actor, r.before);
+    const after = readableStill(actor, r.after);
     items.push({
       id: r.use.id,
       technique,
       outcome: r.use.outcome,
       note: r.use.note,
       user: r.user?.id ? { id: r.user.id, name: r.user.name } : null,
-      beforeStill: r.use.beforeStillId,
-      afterStill: r.use.afterStillId,
+      beforeStill: before.id,
+      afterStill: after.id,
+      beforeStillAlt: before.alt,
+      afterStillAlt: after.alt,
       revisionId: r.use.revisionId,
       followUp: followUpFor(r.technique, rep ? { slug: rep.slug, title: rep.title } : null),
       canEdit: can(actor, "use:edit", { ownerId: r.use.userId }),
@@ -373,7 +369,7 @@ export async function outcomeCounts(techniqueId: string): Promise<OutcomeCounts>
 
 /** GET /api/techniques/{slug}/uses: the page of uses and the outcome counts. */
 export async function listTechniqueUses(actor: SessionUser, slug: string, query: Partial<ListUsesQuery> = {}): Promise<TechniqueUsesResponse> {
-  const t = await requireVisibleTechnique(actor, slug);
+  const { technique: t } = await requireVisibleTechnique(actor, slug);
   const [page, counts] = await Promise.all([listUsesForTechnique(actor, t.id, query), outcomeCounts(t.id)]);
   return { ...page, counts };
 }

@@ -273,6 +273,9 @@ export type ShotUseResponse = {
   user: PersonRef | null;
   beforeStill: string | null;
   afterStill: string | null;
+  /** Alt text of the stills, for their thumbnails; a still the reader may not open is left out (id and alt null). */
+  beforeStillAlt: string | null;
+  afterStillAlt: string | null;
   revisionId: string | null;
   followUp: FollowUp | null;
   canEdit: boolean;

@@ -210,6 +210,22 @@ describe("shot page and follow-up", () => {
     expect(((await unknown.json()) as ErrorJson).error.message).toBe("No shot SLM_040_9999");
   });
 
+  it("gives each use's stills with their alt text, and hides someone else's private lab trial", async () => {
+    // Rule: shared/PRODUCT.md roles table and stills access (a lab trial is its owner's and leads').
+    const before = await makeStill(ann.id, "use");
+    const trial = await makeStill(ann.id, "trial");
+    const created = await logUse(approved.slug, ann, { shot: "SLM_050_0010", outcome: "clean", beforeStill: before.id, afterStill: trial.id });
+    expect(created.status).toBe(201);
+    const id = ((await created.json()) as UseResponse).id;
+    const useOnShot = async (as: Person) => {
+      const res = await shotRoute.GET(request("GET", "/api/shots/SLM_050_0010", { as }), ctx({ code: "SLM_050_0010" }));
+      return ((await res.json()) as ShotDetailResponse).uses.find((u) => u.id === id)!;
+    };
+    expect(await useOnShot(ann)).toMatchObject({ beforeStill: before.id, beforeStillAlt: before.alt, afterStill: trial.id, afterStillAlt: trial.alt });
+    expect(await useOnShot(lead)).toMatchObject({ afterStill: trial.id });
+    expect(await useOnShot(bob)).toMatchObject({ beforeStill: before.id, beforeStillAlt: before.alt, afterStill: null, afterStillAlt: null });
+  });
+
   it("suggests shot codes by prefix, any case, with _ matched literally", async () => {
     const res = await shotSearchRoute.GET(request("GET", "/api/shots?q=slm_04", { as: ann }), ctx({}));
     const body = (await res.json()) as ShotSearchResponse;
