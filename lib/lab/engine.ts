@@ -412,9 +412,10 @@ function checkAbort(signal?: AbortSignal): void {
   if (signal?.aborted) throw new LabAbortedError();
 }
 
-/** Decodes, runs every step in float32, and encodes. Never writes to the still it was given. */
-export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult> {
-  const { steps, space, format, signal, onProgress } = opts;
+type PreparedRun = { state: LabState; plateCodes: DecodedStill & { fromCache: boolean }; reports: StepReport[]; decodeMs: number; stepsMs: number };
+
+async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<PreparedRun> {
+  const { steps, space, signal, onProgress } = opts;
   const total = steps.length + 2;
   const t0 = performance.now();
   onProgress?.({ done: 0, total, label: "decode" });
@@ -436,7 +437,6 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
       throw new LabInputError(`step ${grainIndex}: the denoised still is not the plate's size`, grainIndex);
     }
     base = codesSource(den, space);
-    checkAbort(signal);
   }
   const state = createLabState({
     width: plateCodes.width,
@@ -455,9 +455,18 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
     await new Promise<void>((resolve) => setImmediate(resolve));
   }
   const t2 = performance.now();
-  onProgress?.({ done: total - 1, total, label: "encode" });
   state.scratch = [];
   state.matte = null;
+  return { state, plateCodes, reports, decodeMs: t1 - t0, stepsMs: t2 - t1 };
+}
+
+/** Decodes, runs every step in float32, and encodes. Never writes to the still it was given. */
+export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult> {
+  const { space, format, onProgress } = opts;
+  const total = opts.steps.length + 2;
+  const { state, plateCodes, reports, decodeMs, stepsMs } = await decodeAndRun(opts);
+  const t2 = performance.now();
+  onProgress?.({ done: total - 1, total, label: "encode" });
   const reuse = plateCodes.bits === 16 && !plateCodes.fromCache ? (plateCodes.codes as Uint16Array) : undefined;
   const bytes = await encodeImage(state.cur, state.width, state.height, space, format, reuse);
   const t3 = performance.now();
@@ -470,7 +479,36 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
     sourceWidth: plateCodes.sourceWidth,
     sourceHeight: plateCodes.sourceHeight,
     reports,
-    timings: { decodeMs: t1 - t0, stepsMs: t2 - t1, encodeMs: t3 - t2 },
+    timings: { decodeMs, stepsMs, encodeMs: t3 - t2 },
+  };
+}
+
+export type FloatRunResult = {
+  /** The plate in the working space, before any step (only when asked for). */
+  before: { width: number; height: number; data: Float32Array } | null;
+  /** The float result, unclipped (values outside 0..1 kept). */
+  after: { width: number; height: number; data: Float32Array };
+  reports: StepReport[];
+  sourceWidth: number;
+  sourceHeight: number;
+};
+
+/** As runRecipe, but answers the float result instead of encoded bytes (for plots and samples). */
+export async function runRecipeToFloat(opts: Omit<RunRecipeOptions, "format"> & { withBefore?: boolean }): Promise<FloatRunResult> {
+  const { state, plateCodes, reports } = await decodeAndRun(opts);
+  let before: FloatRunResult["before"] = null;
+  if (opts.withBefore) {
+    const data = new Float32Array(state.cur.length);
+    const { codes, lut } = codesSource(plateCodes, opts.space) as Extract<PixelSource, { kind: "codes" }>;
+    for (let i = 0; i < data.length; i++) data[i] = lut[codes[i]!]!;
+    before = { width: state.width, height: state.height, data };
+  }
+  return {
+    before,
+    after: { width: state.width, height: state.height, data: state.cur },
+    reports,
+    sourceWidth: plateCodes.sourceWidth,
+    sourceHeight: plateCodes.sourceHeight,
   };
 }
 

@@ -143,3 +143,15 @@ describe("mix and grain", () => {
     for (let i = 0; i < 18; i++) expect(state.cur[i]).toBeCloseTo(0.3 + (plate[i]! - 0.5), 6);
   });
 });
+
+describe("float result", () => {
+  it("runRecipeToFloat keeps values outside 0..1 that the encoded result clips", async () => {
+    const { runRecipeToFloat } = await import("@/lib/lab/engine");
+    const u = new Uint16Array(4 * 2 * 3).fill(65535);
+    const png = await sharp(u, { raw: { width: 4, height: 2, channels: 3 } }).toColourspace("rgb16").png().toBuffer();
+    const r = await runRecipeToFloat({ still: png, steps: [step({ op: "matrix", m: [[2, 0, 0], [0, 1, 0], [0, 0, -1]] })], space: "stored", withBefore: true });
+    expect(r.before!.data[0]).toBe(1);
+    expect(r.after.data[0]).toBe(2);
+    expect(r.after.data[2]).toBe(-1);
+  });
+});
