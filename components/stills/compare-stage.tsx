@@ -26,6 +26,7 @@ function sourceFor(still: StillResponse, zoom: CompareZoom): string {
 }
 
 function subscribeToPixelRatio(onChange: () => void): () => void {
+  if (typeof window.matchMedia !== "function") return () => undefined;
   const query = window.matchMedia(`(resolution: ${window.devicePixelRatio}dppx)`);
   query.addEventListener("change", onChange);
   return () => query.removeEventListener("change", onChange);

@@ -93,3 +93,52 @@ export function readIhdr(png: Uint8Array): { width: number; height: number; bitD
   const b = Buffer.from(png.buffer, png.byteOffset, png.byteLength);
   return { width: b.readUInt32BE(16), height: b.readUInt32BE(20), bitDepth: b[24]!, colourType: b[25]! };
 }
+
+/**
+ * A baseline uncompressed RGB TIFF with 32-bit IEEE float samples, written by hand from the
+ * TIFF 6.0 specification (Part 1 §2 header and IFD; §8 RGB images) and the SampleFormat tag
+ * (339, value 3 = IEEE floating point) of the same specification's Part 2 §19.
+ */
+export function floatTiff(width: number, height: number, samples: number[]): Buffer {
+  const pixels = Buffer.alloc(width * height * 3 * 4);
+  samples.forEach((v, i) => pixels.writeFloatLE(v, i * 4));
+  const entries: [number, number, number, number | number[]][] = [
+    [256, 3, 1, width], // ImageWidth, SHORT
+    [257, 3, 1, height], // ImageLength
+    [258, 3, 3, [32, 32, 32]], // BitsPerSample
+    [259, 3, 1, 1], // Compression: none
+    [262, 3, 1, 2], // PhotometricInterpretation: RGB
+    [273, 4, 1, 0], // StripOffsets (filled below), LONG
+    [277, 3, 1, 3], // SamplesPerPixel
+    [278, 3, 1, height], // RowsPerStrip
+    [279, 4, 1, pixels.length], // StripByteCounts
+    [284, 3, 1, 1], // PlanarConfiguration: chunky
+    [339, 3, 3, [3, 3, 3]], // SampleFormat: IEEE float
+  ];
+  const ifdOffset = 8;
+  const ifdSize = 2 + entries.length * 12 + 4;
+  const extraStart = ifdOffset + ifdSize;
+  const extra: Buffer[] = [];
+  let extraLength = 0;
+  const ifd = Buffer.alloc(ifdSize);
+  ifd.writeUInt16LE(entries.length, 0);
+  entries.forEach(([tag, type, count, value], i) => {
+    const at = 2 + i * 12;
+    ifd.writeUInt16LE(tag, at);
+    ifd.writeUInt16LE(type, at + 2);
+    ifd.writeUInt32LE(count, at + 4);
+    if (Array.isArray(value)) {
+      const b = Buffer.alloc(value.length * 2);
+      value.forEach((v, j) => b.writeUInt16LE(v, j * 2));
+      ifd.writeUInt32LE(extraStart + extraLength, at + 8);
+      extra.push(b);
+      extraLength += b.length;
+    } else if (type === 3) ifd.writeUInt16LE(value, at + 8);
+    else ifd.writeUInt32LE(value, at + 8);
+  });
+  const pixelStart = extraStart + extraLength;
+  const stripEntry = entries.findIndex(([tag]) => tag === 273);
+  ifd.writeUInt32LE(pixelStart, 2 + stripEntry * 12 + 8);
+  const header = Buffer.from([0x49, 0x49, 0x2a, 0x00, 0x08, 0x00, 0x00, 0x00]);
+  return Buffer.concat([header, ifd, ...extra, pixels]);
+}

@@ -9,7 +9,7 @@ import { GET as getVariant } from "@/app/api/stills/[id]/[variant]/route";
 import { GET as getStill } from "@/app/api/stills/[id]/route";
 import { GET as getPixel } from "@/app/api/stills/[id]/pixel/route";
 import { env } from "@/lib/env";
-import { noisePng, png16 } from "./images";
+import { floatTiff, noisePng, png16 } from "./images";
 import { createPerson, createTechnique, ctx, uploadRequest, type TestPerson } from "./factories";
 
 let dir: string;
@@ -194,5 +194,18 @@ describe("pixel values", () => {
     const i = (2 * 5 + 3) * 3;
     expect(body.values).toEqual([data[i], data[i + 1], data[i + 2]]);
     expect(body.max).toBe(255);
+  });
+
+  it("float TIFF: accepted as 32-bit, values read back exactly as stored", async () => {
+    // Values exactly representable in IEEE 754 binary32, including one above 1.0 (scene-referred).
+    const samples = [0.25, 0.5, 1.5, 0, 0.125, 0.75];
+    const created = await upload(artist, floatTiff(2, 1, samples), { owner: "trial" });
+    expect(created).toMatchObject({ format: "tiff", bitDepth: 32, channels: 3, width: 2, height: 1 });
+    const id = created.id as string;
+    const res = await getPixel(new Request(`http://plateroom.test/api/stills/${id}/pixel?x=1&y=0`, { headers: artist.auth }), ctx({ id }));
+    expect(await res.json()).toMatchObject({ values: [0, 0.125, 0.75], max: 1, bitDepth: 32 });
+    const original = await variantRequest(artist, id, "original");
+    expect(original.headers.get("content-type")).toBe("image/tiff");
+    expect(original.headers.get("content-disposition")).toBe(`inline; filename="still-${id}.tif"`);
   });
 });
