@@ -1,14 +1,16 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { useId, useState } from "react";
 import { ShotTypeahead } from "@/components/shots/shot-typeahead";
+import { TechniquePicker, type PickedTechnique } from "@/components/shots/technique-picker";
 import { ConfidentialNotice } from "@/components/stills/confidential-notice";
 import { Button } from "@/components/ui/button";
 import { Field, TextArea } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
+import { USE_OUTCOME_LABELS, USE_OUTCOMES, type UseOutcome } from "@/lib/shots/schemas";
 
-type Outcome = "clean" | "touch-up" | "failed";
+type Outcome = UseOutcome;
 
 async function uploadUseStill(file: File, role: "before" | "after", shot: string): Promise<string> {
   const form = new FormData();
@@ -22,10 +24,18 @@ async function uploadUseStill(file: File, role: "before" | "after", shot: string
   return body.id;
 }
 
-/** Log that this technique was used on a shot: outcome, note, optional before/after stills. */
-export function LogUseForm({ slug }: { slug: string }) {
+/**
+ * Log that a technique was used on a shot: outcome, note, optional before/after stills.
+ * On a technique page pass `slug` (the shot is typed); on a shot page pass `shot` (the
+ * technique is picked from the approved ones).
+ */
+export function LogUseForm({ slug, shot: fixedShot }: { slug?: string; shot?: string }) {
   const router = useRouter();
-  const [shot, setShot] = useState("");
+  const uid = useId();
+  const [typedShot, setShot] = useState("");
+  const shot = fixedShot ?? typedShot;
+  const [picked, setPicked] = useState<PickedTechnique | null>(null);
+  const techniqueSlug = slug ?? picked?.slug ?? "";
   const [outcome, setOutcome] = useState<Outcome>("clean");
   const [note, setNote] = useState("");
   const [before, setBefore] = useState<File | null>(null);
@@ -41,9 +51,13 @@ export function LogUseForm({ slug }: { slug: string }) {
     try {
       const beforeStill = before ? await uploadUseStill(before, "before", shot) : undefined;
       const afterStill = after ? await uploadUseStill(after, "after", shot) : undefined;
-      await apiFetch(`/api/techniques/${slug}/uses`, { method: "POST", json: { shot, outcome, note: note || undefined, beforeStill, afterStill } });
+      await apiFetch(`/api/techniques/${encodeURIComponent(techniqueSlug)}/uses`, {
+        method: "POST",
+        json: { shot, outcome, note: note || undefined, beforeStill, afterStill },
+      });
       setDone(true);
       setShot("");
+      if (!slug) setPicked(null);
       setNote("");
       setBefore(null);
       setAfter(null);
@@ -57,16 +71,37 @@ export function LogUseForm({ slug }: { slug: string }) {
 
   return (
     <form onSubmit={submit} className="mt-3 grid gap-3 sm:grid-cols-2">
-      <Field id="use-shot" label="Shot">
-        <ShotTypeahead id="use-shot" value={shot} onChange={setShot} />
-      </Field>
+      {slug ? null : (
+        <Field id={`${uid}-technique`} label="Technique">
+          <TechniquePicker
+            id={`${uid}-technique`}
+            value={picked}
+            onChange={(t) => {
+              setPicked(t);
+              setDone(false);
+            }}
+          />
+        </Field>
+      )}
+      {fixedShot ? (
+        <div className="space-y-1">
+          <p className="text-sm font-medium">Shot</p>
+          <p className="py-1.5 font-mono text-sm" data-testid="use-fixed-shot">
+            {fixedShot}
+          </p>
+        </div>
+      ) : (
+        <Field id="use-shot" label="Shot">
+          <ShotTypeahead id="use-shot" value={typedShot} onChange={setShot} />
+        </Field>
+      )}
       <fieldset>
         <legend className="mb-1 text-sm font-medium">How did it go?</legend>
         <div className="flex flex-wrap gap-3 text-sm">
-          {(["clean", "touch-up", "failed"] as const).map((o) => (
+          {USE_OUTCOMES.map((o) => (
             <label key={o} className="flex items-center gap-1.5">
-              <input type="radio" name="outcome" value={o} checked={outcome === o} onChange={() => setOutcome(o)} />
-              {o === "clean" ? "Clean" : o === "touch-up" ? "Needed touch-up" : "Failed"}
+              <input type="radio" name={`${uid}-outcome`} value={o} checked={outcome === o} onChange={() => setOutcome(o)} />
+              {USE_OUTCOME_LABELS[o]}
             </label>
           ))}
         </div>
@@ -90,7 +125,7 @@ export function LogUseForm({ slug }: { slug: string }) {
       {error ? <p role="alert" className="text-sm text-bad sm:col-span-2">{error}</p> : null}
       {done ? <p role="status" className="text-sm text-ok sm:col-span-2">Logged. Thank you — it helps the next person.</p> : null}
       <div>
-        <Button type="submit" variant="primary" disabled={busy || !shot}>
+        <Button type="submit" variant="primary" disabled={busy || !shot || !techniqueSlug}>
           {busy ? "Saving…" : "Log use"}
         </Button>
       </div>

@@ -14,6 +14,16 @@ export type ShowState = (typeof SHOW_STATES)[number];
 export type ShotState = (typeof SHOT_STATES)[number];
 export type UseOutcome = (typeof USE_OUTCOMES)[number];
 
+export const SHOW_KIND_LABELS: Record<ShowKind, string> = {
+  feature: "Feature",
+  series: "Series",
+  commercial: "Commercial",
+  other: "Other",
+};
+export const SHOW_STATE_LABELS: Record<ShowState, string> = {
+  active: "Active",
+  wrapped: "Wrapped",
+};
 export const SHOT_STATE_LABELS: Record<ShotState, string> = {
   waiting: "Waiting",
   in_prep: "In prep",
