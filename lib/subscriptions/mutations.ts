@@ -91,3 +91,12 @@ export async function setMailMode(actor: SessionUser, mode: MailMode): Promise<{
   });
   return { mailMode: mode };
 }
+
+/**
+ * Call in the transaction that renames a technique's slug: subscriptions are keyed by slug, so
+ * without this the followers of the old slug would stop hearing about it.
+ */
+export async function renameTechniqueSubscriptions(tx: Pick<Database, "update">, oldSlug: string, newSlug: string): Promise<void> {
+  if (oldSlug === newSlug) return;
+  await tx.update(subscriptions).set({ key: newSlug }).where(and(eq(subscriptions.kind, "technique"), eq(subscriptions.key, oldSlug)));
+}

@@ -301,6 +301,19 @@ describe("delivery across a mail server outage", () => {
       await restarted.stop();
       fs.rmSync(restarted.storeDir, { recursive: true, force: true });
     }
+  }, 120_000);
+
+  it("senders running at the same time never take the same message (FOR UPDATE SKIP LOCKED claim)", async () => {
+    const person = await makeUser();
+    await getDb().transaction(async (tx) => {
+      for (let i = 0; i < 30; i++) await enqueueMail(tx, { to: person, kind: "test", subject: `Parallel ${i}`, html: "<p>x</p>", text: "x" });
+    });
+    const before = smtp.messages().length;
+    const runs = await Promise.all([1, 2, 3].map(() => flushUntilIdle({ smtpUrl: smtp.url, batch: 4 })));
+    expect(runs.reduce((n, r) => n + r.sent, 0)).toBe(30);
+    const got = smtp.messages().slice(before);
+    expect(got).toHaveLength(30);
+    expect(new Set(got.map((m) => m.messageId)).size).toBe(30);
   });
 
   it("a row left in 'sending' by a crashed sender is sent again with the same Message-ID", async () => {

@@ -4,7 +4,7 @@ import { getDb } from "@/db/client";
 import { subscriptions, techniqueSlugHistory, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/roles";
 import { getSubscription, isSubscribed, listSubscriptions } from "@/lib/subscriptions/queries";
-import { setMailMode, subscribe, unsubscribe } from "@/lib/subscriptions/mutations";
+import { renameTechniqueSubscriptions, setMailMode, subscribe, unsubscribe } from "@/lib/subscriptions/mutations";
 import { makeShow, makeTag, makeTechnique, makeUser } from "./factories";
 
 describe("subscriptions DAL", () => {
@@ -65,6 +65,11 @@ describe("subscriptions DAL", () => {
     await getDb().insert(techniqueSlugHistory).values({ slug: `${technique.slug}-old`, techniqueId: technique.id });
     const s = await subscribe(artist, { target: { kind: "technique", key: `${technique.slug}-old` } });
     expect(s.target.key).toBe(technique.slug);
+
+    // A rename moves existing followers with it.
+    await getDb().transaction((tx) => renameTechniqueSubscriptions(tx, technique.slug, `${technique.slug}-new`));
+    expect(await isSubscribed(artist, "technique", `${technique.slug}-new`)).toBe(true);
+    expect(await isSubscribed(artist, "technique", technique.slug)).toBe(false);
   });
 
   it("the mail mode applies to everything followed and is the default for new follows", async () => {
