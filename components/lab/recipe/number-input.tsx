@@ -67,8 +67,8 @@ export function Choice<T extends string>({ id, label, value, options, onChange, 
   id: string;
   label: string;
   value: T;
-  options: readonly (readonly [T, string])[];
-  onChange(next: T): void;
+  options: readonly (readonly [NoInfer<T>, string])[];
+  onChange(next: NoInfer<T>): void;
   error?: string;
 }) {
   return (

@@ -1,0 +1,101 @@
+"use client";
+
+import { LabCompare } from "@/components/lab/lab-compare";
+import { useLabRender } from "@/components/lab/use-lab-render";
+import { Button } from "@/components/ui/button";
+import type { LabSpace, RecipeStep, StepReport } from "@/lib/lab/recipe";
+import { stillUrl } from "@/lib/stills/schemas";
+import type { LabStillInfo } from "@/components/lab/lab-api";
+
+const PROXY_WIDTH = 1024;
+
+/** "Render exact": a proxy first, full resolution on request, with progress, cancel and the compare view. */
+export function RenderPanel({ still, steps, space }: { still: LabStillInfo; steps: RecipeStep[]; space: LabSpace }) {
+  const { state, start, cancel } = useLabRender();
+  const run = async (mode: "proxy" | "full") => {
+    const width = mode === "proxy" && still.width > PROXY_WIDTH ? PROXY_WIDTH : undefined;
+    // png16 for the exact render keeps the float result's precision for download; webp for a quick look.
+    await start({ still: still.id, space, steps, format: mode === "full" ? "png16" : "webp", width }, mode);
+  };
+  const running = state.status === "running";
+  return (
+    <section aria-label="Exact render" className="space-y-3">
+      <div className="flex flex-wrap items-center gap-2">
+        <Button variant="primary" onClick={() => run("proxy")} disabled={running || !steps.length}>
+          Render exact{still.width > PROXY_WIDTH ? ` (${PROXY_WIDTH} px preview)` : ""}
+        </Button>
+        {still.width > PROXY_WIDTH ? (
+          <Button onClick={() => run("full")} disabled={running || !steps.length}>
+            Full resolution ({still.width}×{still.height})
+          </Button>
+        ) : null}
+        {running ? (
+          <Button variant="ghost" onClick={cancel}>
+            Cancel
+          </Button>
+        ) : null}
+        {!steps.length ? <span className="text-xs text-muted">Add a step to render.</span> : null}
+      </div>
+      <div role="status" aria-live="polite" className="text-sm">
+        {running ? (
+          <div className="space-y-1">
+            <div className="h-1.5 overflow-hidden rounded bg-surface-2">
+              <div className="h-full w-1/3 animate-pulse rounded bg-accent" />
+            </div>
+            <p className="text-xs text-muted">
+              Rendering {state.mode === "full" ? "at full resolution" : "a preview"} in floating point… {state.elapsed.toFixed(1)} s
+            </p>
+          </div>
+        ) : state.status === "error" ? (
+          <div className="text-bad">
+            <p>{state.message}</p>
+            {state.fields ? (
+              <ul className="list-inside list-disc text-xs">
+                {Object.entries(state.fields).map(([k, v]) => (
+                  <li key={k}>{/^steps\.(\d+)/.test(k) ? `Step ${Number(/^steps\.(\d+)/.exec(k)![1]) + 1} (${k}): ${v}` : `${k}: ${v}`}</li>
+                ))}
+              </ul>
+            ) : null}
+          </div>
+        ) : state.status === "done" ? (
+          <p className="text-xs text-ok">
+            {state.result.width}×{state.result.height} {state.mode === "full" ? "exact render" : "preview render"} in {state.seconds.toFixed(1)} s
+            {state.result.cached !== "miss" ? " (from the cache)" : ""}.
+          </p>
+        ) : null}
+      </div>
+      {state.status === "done" ? (
+        <>
+          <LabCompare plateSrc={stillUrl(still.id, "preview")} resultSrc={state.result.url} width={still.width} height={still.height} alt={still.alt} />
+          <StepReports reports={state.result.reports} />
+          {state.mode === "full" ? (
+            <a className="text-sm text-accent underline" href={state.result.url} download={`lab-${still.id.slice(0, 8)}.png`}>
+              Download the 16-bit PNG
+            </a>
+          ) : null}
+        </>
+      ) : null}
+    </section>
+  );
+}
+
+function StepReports({ reports }: { reports: StepReport[] }) {
+  const notable = reports.filter((r) => r.op === "level" || r.op === "matte" || r.op === "flatten");
+  if (!notable.length) return null;
+  return (
+    <ul className="space-y-0.5 text-xs text-muted">
+      {notable.map((r) => (
+        <li key={r.index} className="font-mono">
+          Step {r.index + 1}:{" "}
+          {r.op === "level"
+            ? `gain ${r.gain.toFixed(4)}, offset ${r.offset.toFixed(4)}, residual ${r.residual.toExponential(2)} over ${r.samples} px`
+            : r.op === "matte"
+              ? `matte covers ${(r.coverage * 100).toFixed(1)} %`
+              : r.op === "flatten"
+                ? `${r.unfilled} px had no clean screen nearby`
+                : ""}
+        </li>
+      ))}
+    </ul>
+  );
+}
