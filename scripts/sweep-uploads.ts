@@ -6,19 +6,15 @@
  */
 import { closeDb } from "@/db/client";
 import { env } from "@/lib/env";
-import { referencedHashes } from "@/lib/stills/queries";
-import { SWEEP_GRACE_MS, sweepOrphans } from "@/lib/stills/storage";
+import { SWEEP_GRACE_MS } from "@/lib/stills/storage";
+import { sweepUploads } from "@/lib/stills/sweep";
 
 async function main(): Promise<void> {
   const graceArg = process.argv.find((a) => a.startsWith("--grace-minutes="));
   const graceMs = graceArg ? Number(graceArg.split("=")[1]) * 60_000 : SWEEP_GRACE_MS;
   if (!Number.isFinite(graceMs) || graceMs < 0) throw new Error("--grace-minutes takes a number of minutes.");
   const dryRun = process.argv.includes("--dry-run");
-  const result = await sweepOrphans({
-    graceMs,
-    referenced: referencedHashes,
-    ...(dryRun ? { remove: false } : {}),
-  });
+  const result = await sweepUploads({ graceMs, remove: !dryRun });
   for (const file of result.removed) console.log(`${dryRun ? "would remove" : "removed"} ${file}`);
   console.log(`uploads in ${env.PLATEROOM_UPLOADS_DIR}: ${result.removed.length} ${dryRun ? "orphans found" : "removed"}, ${result.kept} kept`);
 }

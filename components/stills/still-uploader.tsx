@@ -9,6 +9,9 @@ import { UploadRow, type UploadItem } from "@/components/stills/upload-row";
 import type { StillCreatedResponse, StillOwner, StillRole } from "@/lib/stills/schemas";
 import { cn } from "@/lib/utils";
 
+// crypto.randomUUID needs a secure context; studio intranets often serve plain http.
+let nextKey = 0;
+
 export type UploadedStill = StillCreatedResponse & { alt: string; caption: string; role: StillRole; originalName: string };
 
 export type StillUploaderProps = {
@@ -42,7 +45,7 @@ export function StillUploader({ technique, owner, role = "reference", maxBytes =
         ...files.map<UploadItem>((file) => {
           const tooBig = file.size > maxBytes;
           return {
-            key: `${file.name}-${file.size}-${crypto.randomUUID()}`,
+            key: `${file.name}-${file.size}-${(nextKey += 1)}`,
             file,
             alt: "",
             caption: "",
