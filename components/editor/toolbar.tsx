@@ -59,13 +59,14 @@ export function EditorToolbar({ editor, controlsId, onOpenLink, onOpenStill, can
     }),
   });
 
-  // Roving tabindex: exactly one enabled button is reachable with Tab.
-  useLayoutEffect(() => {
+  // Roving tabindex: exactly one enabled button is reachable with Tab, the one last focused.
+  function placeStop(next: HTMLButtonElement | null) {
     const buttons = [...(ref.current?.querySelectorAll<HTMLButtonElement>("button") ?? [])];
     const enabled = buttons.filter((b) => !b.disabled);
-    if (!stop.current || !enabled.includes(stop.current)) stop.current = enabled[0] ?? null;
+    stop.current = next && enabled.includes(next) ? next : (enabled[0] ?? null);
     for (const b of buttons) b.tabIndex = b === stop.current ? 0 : -1;
-  });
+  }
+  useLayoutEffect(() => placeStop(stop.current));
 
   function onKeyDown(event: KeyboardEvent<HTMLDivElement>) {
     const enabled = [...(ref.current?.querySelectorAll<HTMLButtonElement>("button:not([disabled])") ?? [])];
@@ -137,7 +138,7 @@ export function EditorToolbar({ editor, controlsId, onOpenLink, onOpenStill, can
       aria-controls={controlsId}
       onKeyDown={onKeyDown}
       onFocus={(event) => {
-        if (event.target instanceof HTMLButtonElement) stop.current = event.target;
+        if (event.target instanceof HTMLButtonElement) placeStop(event.target);
       }}
       className="sticky top-0 z-10 flex flex-wrap items-center gap-0.5 border-b border-line bg-surface-2 p-1"
     >
