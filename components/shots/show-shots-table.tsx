@@ -8,20 +8,12 @@ import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { TextInput } from "@/components/ui/field";
 import { apiFetch } from "@/lib/api/fetcher";
-import { SHOT_STATE_LABELS, type ShotResponse, type ShotsResponse, type ShotState } from "@/lib/shots/schemas";
+import { frameRange, SHOTS_PAGE_SIZE } from "@/lib/shots/format";
+import { SHOT_STATE_LABELS, type ShotsResponse, type ShotState } from "@/lib/shots/schemas";
 
-export const SHOTS_PAGE_SIZE = 50;
 const STATE_TONE: Record<ShotState, "neutral" | "accent" | "ok" | "warn"> = { waiting: "neutral", in_prep: "accent", cleaned: "ok", on_hold: "warn" };
 
 export const showShotsKey = (showCode: string) => ["show-shots", showCode] as const;
-
-/** "1001–1096 (96 frames)": both ends are included, so the count is end − start + 1 (common practice, no published source). */
-export function frameRange(s: Pick<ShotResponse, "frameStart" | "frameEnd">): string {
-  if (s.frameStart === null && s.frameEnd === null) return "—";
-  if (s.frameStart === null || s.frameEnd === null) return `${s.frameStart ?? "?"}–${s.frameEnd ?? "?"}`;
-  const n = s.frameEnd - s.frameStart + 1;
-  return `${s.frameStart}–${s.frameEnd} (${n} frame${n === 1 ? "" : "s"})`;
-}
 
 /**
  * A show's shots, paged on the server and filtered by part of a code or description. The first

@@ -5,7 +5,7 @@ import { createRoot, type Root } from "react-dom/client";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { LogUseForm } from "@/components/shots/log-use-form";
 import { patternAccepts } from "@/components/shots/show-forms";
-import { frameRange } from "@/components/shots/show-shots-table";
+import { frameRange } from "@/lib/shots/format";
 import { ShotUses } from "@/components/shots/shot-uses";
 import { matchesTechnique } from "@/components/shots/technique-picker";
 import { DEFAULT_SHOT_PATTERN, type ShotUseResponse } from "@/lib/shots/schemas";
