@@ -55,7 +55,11 @@ if (args[0] === "--child-peak") {
   const t = performance.now();
   const r = await runRecipe({ still: plate, steps, space: "linear", format: "png16", loadStill: async () => denoised });
   const ms = performance.now() - t;
-  process.stdout.write(JSON.stringify({ ms, timings: r.timings, maxRssMB: process.resourceUsage().maxRSS / 1024, bytes: r.bytes.length }));
+  // VmHWM is this process image's own peak; getrusage's maxRSS would also count the parent's
+  // pages at fork time (Linux keeps the pre-exec high-water mark).
+  const hwm = /VmHWM:\s+(\d+) kB/.exec(readFileSync("/proc/self/status", "utf8"));
+  const maxRssMB = hwm ? Number(hwm[1]) / 1024 : process.resourceUsage().maxRSS / 1024;
+  process.stdout.write(JSON.stringify({ ms, timings: r.timings, maxRssMB, bytes: r.bytes.length }));
   process.exit(0);
 }
 
