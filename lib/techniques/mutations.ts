@@ -13,6 +13,7 @@ import { documentToPlainText } from "@/lib/techniques/plain-text";
 import { findTechniqueBySlug } from "@/lib/techniques/queries";
 import { slugify } from "@/lib/techniques/slug";
 import { reindexTechnique } from "@/lib/techniques/search-sync";
+import { renameTechniqueSubscriptions } from "@/lib/subscriptions/mutations";
 import type { CreateTechniqueInput, RetireInput, ReviewInput, UpdateTechniqueInput } from "@/lib/techniques/schemas";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
@@ -52,6 +53,7 @@ async function renameSlug(tx: Tx, technique: Technique, title: string): Promise<
   await tx.delete(techniqueSlugHistory).where(eq(techniqueSlugHistory.slug, slug));
   await tx.insert(techniqueSlugHistory).values({ slug: technique.slug, techniqueId: technique.id }).onConflictDoNothing();
   await tx.update(techniques).set({ slug }).where(eq(techniques.id, technique.id));
+  await renameTechniqueSubscriptions(tx, technique.slug, slug);
   return slug;
 }
 

@@ -2,13 +2,14 @@ import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { Card, CardTitle } from "@/components/ui/card";
 import { QuestionsSection } from "@/components/techniques/questions-section";
-import { RecipeCards } from "@/components/techniques/recipe-cards";
 import { RenderedBody } from "@/components/techniques/rendered-body";
 import { TechniqueActions } from "@/components/techniques/technique-actions";
 import { TechniqueBanners } from "@/components/techniques/technique-banners";
 import { TechniqueHeader } from "@/components/techniques/technique-header";
 import { TechniqueEvidence } from "@/components/techniques/technique-evidence";
 import { TechniqueShots } from "@/components/techniques/technique-shots";
+import { TechniqueLabSection } from "@/components/techniques/technique-lab-section";
+import { SubscribeButton } from "@/components/subscriptions/subscribe-button";
 import { loadOrNotFound } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 import { getTechnique } from "@/lib/techniques/queries";
@@ -28,17 +29,19 @@ export default async function TechniquePage({ params }: Props) {
     <article className="space-y-6">
       <TechniqueHeader t={t} />
       <TechniqueBanners t={t} />
-      <TechniqueActions user={user} t={t} />
+      <div className="flex flex-wrap items-center gap-2">
+        <TechniqueActions user={user} t={t} />
+        <div className="ml-auto">
+          <SubscribeButton target={{ kind: "technique", key: t.slug }} />
+        </div>
+      </div>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-6">
           <Card>
             <RenderedBody doc={t.body} />
           </Card>
           <TechniqueEvidence user={user} technique={t} />
-          <Card>
-            <CardTitle>Parameters</CardTitle>
-            <RecipeCards recipe={t.recipe} />
-          </Card>
+          <TechniqueLabSection user={user} technique={t} />
           <TechniqueShots user={user} technique={t} />
           <QuestionsSection slug={t.slug} canAsk />
         </div>
