@@ -24,6 +24,8 @@ export function UsesTable({ initial }: { initial: UseResponse[] }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: "createdAt", desc: true }]);
   const [globalFilter, setGlobalFilter] = useState("");
   const [outcome, setOutcome] = useState("");
+  // The compiler leaves this component unmemoised, which is what TanStack Table needs: its API returns fresh functions each render.
+  // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data: initial,
     columns,
