@@ -15,7 +15,7 @@ const config = [
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
     },
   },
-  { ignores: [".next/**", "node_modules/**", ".data/**", "uploads/**", "tests/.tmp/**", "next-env.d.ts", "db/migrations/**"] },
+  { ignores: [".next/**", "node_modules/**", ".data/**", "uploads/**", "tests/.tmp/**", ".next-*/**", "next-env.d.ts", "db/migrations/**"] },
 ];
 
 export default config;

@@ -47,11 +47,37 @@ function baseEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
   return { ...rest, NEXT_TELEMETRY_DISABLED: "1", ...extra } as unknown as NodeJS.ProcessEnv;
 }
 
+const distDir = process.env.PLATEROOM_DIST_DIR || ".next";
+
+/** A cross-process lock (mkdir is atomic), so parallel runs never build or seed into the same folder at once. */
+function withLock<T>(name: string, work: () => T): T {
+  const lock = path.join(os.tmpdir(), `plateroom-${name}.lock`);
+  const started = Date.now();
+  for (;;) {
+    try {
+      fs.mkdirSync(lock);
+      break;
+    } catch {
+      // A lock older than 20 minutes belongs to a run that died.
+      if (Date.now() - (fs.statSync(lock, { throwIfNoEntry: false })?.mtimeMs ?? Date.now()) > 20 * 60_000) fs.rmSync(lock, { recursive: true, force: true });
+      if (Date.now() - started > 30 * 60_000) throw new Error(`Timed out waiting for ${lock}`);
+      Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 1000);
+    }
+  }
+  try {
+    return work();
+  } finally {
+    fs.rmSync(lock, { recursive: true, force: true });
+  }
+}
+
 /** Builds the app when there is no build or a source is newer than it. */
 export function ensureBuild(): void {
-  const buildId = path.join(root, ".next", "BUILD_ID");
-  if (fs.existsSync(buildId) && fs.statSync(buildId).mtimeMs >= newestMtime(SOURCES)) return;
-  run(bin("next"), ["build"], baseEnv({ NODE_ENV: "production" }));
+  withLock(`build-${distDir.replace(/[^a-z0-9]/gi, "_")}`, () => {
+    const buildId = path.join(root, distDir, "BUILD_ID");
+    if (fs.existsSync(buildId) && fs.statSync(buildId).mtimeMs >= newestMtime(SOURCES)) return;
+    run(bin("next"), ["build"], baseEnv({ NODE_ENV: "production", PLATEROOM_DIST_DIR: distDir }));
+  });
 }
 
 /** A migrated and seeded data folder, made once and reused while migrations and seed data stay the same. */
@@ -64,12 +90,13 @@ export function seededTemplate(): { data: string; uploads: string } {
   const dir = path.join(root, "tests", ".tmp", `e2e-template-${stamp}`);
   const data = path.join(dir, "data");
   const uploads = path.join(dir, "uploads");
-  if (!fs.existsSync(path.join(dir, "ready"))) {
+  withLock("seed-template", () => {
+    if (fs.existsSync(path.join(dir, "ready"))) return;
     fs.rmSync(dir, { recursive: true, force: true });
     const env = baseEnv({ PLATEROOM_DATA_DIR: data, PLATEROOM_UPLOADS_DIR: uploads });
     run(bin("tsx"), ["-C", "react-server", "scripts/seed.ts"], env);
     fs.writeFileSync(path.join(dir, "ready"), new Date().toISOString());
-  }
+  });
   return { data, uploads };
 }
 
@@ -114,6 +141,7 @@ export async function startApp(): Promise<RunningApp> {
   const [port, smtpPort] = [await freePort(), await freePort()];
   const env = baseEnv({
     NODE_ENV: "production",
+    PLATEROOM_DIST_DIR: distDir,
     PORT: String(port),
     PLATEROOM_DATA_DIR: dataDir,
     PLATEROOM_UPLOADS_DIR: uploadsDir,
