@@ -6,6 +6,20 @@ const nextConfig: NextConfig = {
   // PGlite ships a WebAssembly build of PostgreSQL that must be loaded from node_modules, not bundled.
   serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser"],
   poweredByHeader: false,
+  async headers() {
+    const common = [
+      { key: "X-Content-Type-Options", value: "nosniff" },
+      { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
+      { key: "Permissions-Policy", value: "camera=(), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()" },
+      { key: "X-Frame-Options", value: "DENY" },
+      { key: "Cross-Origin-Opener-Policy", value: "same-origin" },
+    ];
+    return [
+      { source: "/:path*", headers: common },
+      // JSON and still bytes are never documents to render; pages get their nonce policy from proxy.ts.
+      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: "default-src 'none'; frame-ancestors 'none'; sandbox" }] },
+    ];
+  },
   typedRoutes: false,
   experimental: {
     serverActions: { bodySizeLimit: "2mb" },

@@ -13,12 +13,34 @@ type Handler<P> = (req: Request, ctx: RouteContext<P>) => Promise<Response>;
 export function apiRoute<P = Record<string, never>>(handler: Handler<P>): Handler<P> {
   return async (req, ctx) => {
     try {
+      refuseCrossSite(req);
       const res = await handler(req, ctx);
       return withApiHeaders(res);
     } catch (error) {
       return errorResponse(error);
     }
   };
+}
+
+const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/**
+ * Browsers send Origin on cross-site writes; a write whose Origin is not this site is refused,
+ * so a page elsewhere cannot use a signed-in person's cookie (OWASP CSRF Prevention Cheat Sheet,
+ * verifying origin with standard headers). Scripts with a token send no Origin.
+ */
+export function refuseCrossSite(req: Request): void {
+  if (SAFE_METHODS.has(req.method)) return;
+  const origin = req.headers.get("origin");
+  if (!origin) return;
+  const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host") ?? new URL(req.url).host;
+  let originHost: string;
+  try {
+    originHost = new URL(origin).host;
+  } catch {
+    throw new AppError("forbidden", "Cross-site requests are refused.");
+  }
+  if (originHost !== host) throw new AppError("forbidden", "Cross-site requests are refused.");
 }
 
 export function errorResponse(error: unknown): Response {

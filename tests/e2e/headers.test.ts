@@ -1,0 +1,67 @@
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { hasChromium, launchBrowser, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
+
+/** Response headers every page type must carry (issue 9; OWASP Secure Headers project, from memory). */
+function expectSecurityHeaders(h: Headers, kind: "page" | "api") {
+  expect(h.get("x-content-type-options")).toBe("nosniff");
+  expect(h.get("referrer-policy")).toBe("strict-origin-when-cross-origin");
+  expect(h.get("permissions-policy")).toContain("camera=()");
+  const csp = h.get("content-security-policy") ?? "";
+  // W3C CSP Level 3: frame-ancestors 'none' forbids framing (clickjacking); no 'unsafe-eval' in production.
+  expect(csp).toContain("frame-ancestors 'none'");
+  expect(csp).not.toContain("unsafe-eval");
+  if (kind === "page") expect(csp).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+' 'strict-dynamic'/);
+}
+
+describe.skipIf(!hasChromium())("security headers on every page type", () => {
+  let app: RunningApp;
+  let browser: Browser;
+  beforeAll(async () => {
+    app = await startApp();
+    browser = await launchBrowser();
+  }, 600_000);
+  afterAll(async () => {
+    await browser?.close();
+    await app?.stop();
+  });
+
+  it("sign-in page, API JSON and API errors", async () => {
+    const login = await fetch(`${app.baseUrl}/login`);
+    expectSecurityHeaders(login.headers, "page");
+    const health = await fetch(`${app.baseUrl}/api/health`);
+    expectSecurityHeaders(health.headers, "api");
+    const refused = await fetch(`${app.baseUrl}/api/me`);
+    expect(refused.status).toBe(401);
+    expectSecurityHeaders(refused.headers, "api");
+    expect(refused.headers.get("cache-control")).toContain("no-store");
+  });
+
+  it("signed-in pages: fresh nonce per request, and no CSP violations while they run", async () => {
+    const { context, page } = await signIn(browser, app.baseUrl, "senior@kestrel.test");
+    const violations: string[] = [];
+    page.on("console", (msg) => {
+      if (msg.type() === "error" && /Content Security Policy/i.test(msg.text())) violations.push(msg.text());
+    });
+    const nonces = new Set<string>();
+    for (const path of ["/", "/techniques", "/techniques/marker-channel-cleanup", "/techniques/marker-channel-cleanup/history", "/problems/tracking-markers", "/shows", "/settings", "/no-such-page"]) {
+      const res = await page.goto(path);
+      expect(res).not.toBeNull();
+      expectSecurityHeaders(new Headers(res!.headers()), "page");
+      nonces.add(/nonce-([^']+)/.exec(res!.headers()["content-security-policy"] ?? "")?.[1] ?? "");
+      await page.waitForLoadState("networkidle");
+    }
+    expect(nonces.size).toBe(8);
+    expect(violations).toEqual([]);
+    await context.close();
+  });
+
+  it("refuses a cross-site write even with a valid session cookie", async () => {
+    const { context, page } = await signIn(browser, app.baseUrl, "senior@kestrel.test");
+    const res = await page.request.post("/api/tokens", { data: { name: "x" }, headers: { Origin: "https://elsewhere.example" } });
+    expect(res.status()).toBe(403);
+    const same = await page.request.post("/api/tokens", { data: { name: "same-site" }, headers: { Origin: app.baseUrl } });
+    expect(same.status()).toBe(201);
+    await context.close();
+  });
+});
