@@ -1,0 +1,75 @@
+import "server-only";
+import { can } from "@/lib/auth/permissions";
+import type { SessionUser } from "@/lib/auth/roles";
+import { getSearchIndex, type SearchAudience, type SearchResult } from "@/lib/search";
+import type { SearchApiResponse, SearchQuery, SearchResultDto, SuggestApiResponse, SuggestItem } from "@/lib/search-ui/params";
+
+/**
+ * Which view of each technique a person searches: readers only ever the approved text; people who
+ * may read working copies (seniors, leads) the newest revision, drafts and pending edits included.
+ */
+export function searchAudienceFor(user: SessionUser): SearchAudience {
+  return can(user, "technique:read-working") ? "working" : "published";
+}
+
+function toDto(r: SearchResult): SearchResultDto {
+  return {
+    slug: r.slug,
+    title: r.title,
+    summary: r.summary,
+    status: r.status,
+    score: r.score,
+    matches: r.matches,
+    snippet: r.snippet,
+    // Tag aliases stay on the server: they are search vocabulary, not something results show.
+    tags: r.tags.map(({ slug, name, kind }) => ({ slug, name, kind })),
+    isHouseMethod: r.isHouseMethod,
+    houseMethodFor: r.houseMethodFor,
+    updatedAt: r.updatedAt,
+  };
+}
+
+/** The search behind `GET /api/search` and the search page. Retired techniques only when asked for. */
+export function runSearch(user: SessionUser, query: Omit<SearchQuery, "limit"> & { limit?: number }): SearchApiResponse {
+  const res = getSearchIndex().search(query.q, {
+    audience: searchAudienceFor(user),
+    tags: query.tag,
+    status: query.status.length ? query.status : undefined,
+    includeRetired: query.retired,
+    sort: query.sort,
+    limit: query.limit,
+    offset: query.offset,
+  });
+  return {
+    results: res.results.map(toDto),
+    total: res.total,
+    facets: res.facets,
+    ...(res.corrected ? { corrected: res.corrected } : {}),
+    tookMs: res.tookMs,
+  };
+}
+
+/**
+ * Quick-finder rows: title matches first (titles, aliases, tag names), then — when those leave
+ * room — the best full-search hits, so a problem described in other words still finds something.
+ */
+export function runSuggest(user: SessionUser, q: string, limit: number): SuggestApiResponse {
+  const t0 = performance.now();
+  if (!q.trim()) return { items: [], tookMs: 0 };
+  const audience = searchAudienceFor(user);
+  const index = getSearchIndex();
+  const items: SuggestItem[] = index
+    .suggestTitles(q, audience, limit)
+    .filter((s) => s.status !== "retired")
+    .map((s) => ({ slug: s.slug, title: s.title, status: s.status, ranges: s.ranges, isHouseMethod: s.isHouseMethod, via: "title" as const }));
+  if (items.length < limit) {
+    const seen = new Set(items.map((i) => i.slug));
+    for (const r of index.search(q, { audience, limit }).results) {
+      if (items.length >= limit) break;
+      if (seen.has(r.slug)) continue;
+      const title = r.matches.find((m) => m.field === "title");
+      items.push({ slug: r.slug, title: r.title, status: r.status, ranges: title?.ranges ?? [], isHouseMethod: r.isHouseMethod, via: "text" });
+    }
+  }
+  return { items, tookMs: Math.round((performance.now() - t0) * 100) / 100 };
+}
