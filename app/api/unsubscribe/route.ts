@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { AppError } from "@/lib/api/errors";
-import { apiRoute, parseWith, searchParamsOf } from "@/lib/api/handler";
+import { apiRoute, errorResponse, parseWith, searchParamsOf } from "@/lib/api/handler";
 import { applyUnsubscribe } from "@/lib/mail/unsubscribe";
 
 const tokenQuery = z.object({ token: z.string().trim().min(1, "The link has no token.").max(2000) });
@@ -11,12 +11,21 @@ const tokenQuery = z.object({ token: z.string().trim().min(1, "The link has no t
  * the signed token in the URL is the only authority. The answer is never a redirect (same
  * section). Using it twice is harmless.
  */
-export const POST = apiRoute(async (req) => {
-  const { token } = parseWith(tokenQuery, searchParamsOf(req));
-  await checkOneClickBody(req);
-  const result = await applyUnsubscribe(token);
-  return Response.json({ unsubscribed: true, removed: result.removed, target: result.target });
-});
+export async function POST(req: Request): Promise<Response> {
+  // Not wrapped in apiRoute: its cross-site check guards cookie sessions, and this endpoint uses
+  // none. A webmail page or a receiver's server may POST from anywhere; the token decides.
+  try {
+    const { token } = parseWith(tokenQuery, searchParamsOf(req));
+    await checkOneClickBody(req);
+    const result = await applyUnsubscribe(token);
+    return Response.json(
+      { unsubscribed: true, removed: result.removed, target: result.target },
+      { headers: { "Cache-Control": "private, no-store", "X-Content-Type-Options": "nosniff" } },
+    );
+  } catch (error) {
+    return errorResponse(error);
+  }
+}
 
 /**
  * A person clicking the link (or a link scanner fetching it, RFC 8058 §1, from memory) must not
