@@ -43,6 +43,9 @@ type Row = {
   p50: number;
   p95: number;
   max: number;
+  /** Process CPU ms per query: shows how much of the wall time was waiting for a shared core. */
+  cpuP50: number;
+  cpuP95: number;
   fuseQueries: number;
   fuseP50: number;
   fuseP95: number;
@@ -89,10 +92,14 @@ function runSize(size: number): Row {
   // Warm up, then time every query REPEATS times.
   for (const q of queries) index.search(q, { audience: "published" });
   const lat: number[] = [];
+  const cpu: number[] = [];
   const perQuery = new Map<string, number[]>();
   for (let rep = 0; rep < REPEATS; rep++) {
     for (const q of queries) {
+      const c0 = process.cpuUsage();
       const [, ms] = time(() => index.search(q, { audience: "published", limit: 20 }));
+      const c1 = process.cpuUsage(c0);
+      cpu.push((c1.user + c1.system) / 1000);
       lat.push(ms);
       perQuery.set(q, [...(perQuery.get(q) ?? []), ms]);
     }
@@ -148,6 +155,8 @@ function runSize(size: number): Row {
     p50: r2(percentile(lat, 50)),
     p95: r2(percentile(lat, 95)),
     max: r2(Math.max(...lat)),
+    cpuP50: r2(percentile(cpu, 50)),
+    cpuP95: r2(percentile(cpu, 95)),
     fuseQueries: fuseQueries.length,
     fuseP50: Math.round(percentile(fuseLat, 50)),
     fuseP95: Math.round(percentile(fuseLat, 95)),
@@ -166,6 +175,7 @@ function runSize(size: number): Row {
 }
 
 const started = performance.now();
+const loadAverageAtStart = os.loadavg().map((v) => Math.round(v * 10) / 10);
 const rows: Row[] = [];
 for (const size of SIZES) rows.push(runSize(size));
 
@@ -178,6 +188,7 @@ console.table(
     p50: r.p50,
     p95: r.p95,
     max: r.max,
+    "cpu p50/p95": `${r.cpuP50}/${r.cpuP95}`,
     "fuse p50/p95": `${r.fuseP50}/${r.fuseP95} (n=${r.fuseQueries})`,
     "speed-up p50/p95": `${r.speedupP50}×/${r.speedupP95}×`,
     "top-3": r.quality,
@@ -196,9 +207,10 @@ const targets = {
 console.log("targets", targets);
 writeResultsKey("search", {
   measuredAt: new Date().toISOString(),
-  machine: { cpus: os.cpus().length, node: process.version },
+  machine: { cpus: os.cpus().length, node: process.version, loadAverageAtStart, loadAverageAtEnd: os.loadavg().map((v) => Math.round(v * 10) / 10) },
   notes: [
-    "p50/p95/max over every query of the fixed set (34 junior quality queries + 40 misspelt synthetic title queries), run 3 times after a warm-up; audience published, limit 20.",
+    `p50/p95/max wall ms over every query of the fixed set (${QUALITY_QUERIES.length} junior quality queries + 40 misspelt synthetic title queries), run ${REPEATS} times after a warm-up; audience published, limit 20. cpuP50/cpuP95: process CPU ms for the same calls.`,
+    "synthetic techniques cover other problems than the quality fixture (see bench/lib/corpus.ts) but share plate tags and trade vocabulary.",
     "fuse.js 7.5 timed on a fixed sample of the same queries (fuseQueries) over title, aliases, tag names/aliases, summary, parameter names and shot codes (no body); speed-up compares with our latency on that same sample.",
     "memoryMB: heap retained after gc with the loader's arrays dropped (document text the index keeps included); structuresMB: heap growth from building the index while the documents were held elsewhere.",
     "update: upsert of a changed title then a search finding it, and remove then a search not finding it; 30 of each.",

@@ -36,6 +36,8 @@ const NF = FIELDS.length;
 const F_TITLE = 0;
 const F_ALIASES = 1;
 const F_TAGS = 2;
+const F_SUMMARY = 3;
+const JOINERS = " -";
 /** title > aliases ≈ tags > summary > parameters ≈ shots > body (issue 6). */
 export const FIELD_WEIGHTS: readonly number[] = [6, 4, 4, 2.5, 1.5, 1.5, 1];
 /** BM25 length normalisation per field: short list-like fields barely normalise. */
@@ -45,6 +47,12 @@ const TF_MAX = 15; // 4 bits per field in the packed posting word
 
 const MASK_PUBLISHED = 1;
 const MASK_WORKING = 2;
+const FL_PUBLISHED = 1;
+const FL_WORKING = 2;
+const FL_RETIRED = 4;
+const FL_APPROVED = 8;
+const FL_HOUSE = 16;
+const STATUS_ORDER: readonly SearchStatus[] = ["approved", "in_review", "draft", "retired"];
 
 const DEFAULT_LIMIT = 20;
 const MAX_LIMIT = 200;
@@ -107,8 +115,6 @@ type Expansion = { stemId: number; weight: number; surface: string; kind: "exact
 type QueryWord = { text: string; expansions: Expansion[]; start: number; end: number };
 
 type TagInfo = { tag: SearchTag; phrases: string[][] };
-
-type Candidate = { id: number; score: number; group: number; isHouseHit: boolean };
 
 type Technique = { published?: number; working?: number };
 
@@ -188,6 +194,12 @@ export function createSearchIndex(): SearchIndex & {
   let nextId = 0;
   const techniques = new Map<string, Technique>();
   const tags = new Map<string, TagInfo>();
+  // Dense per-id data read in the hot loops (typed arrays avoid chasing entry objects).
+  let flags = new Uint8Array(1024);
+  let updatedAt = new Float64Array(1024);
+  const tagIndex = new Map<string, number>();
+  const tagSlugs: string[] = [];
+  const tagIdsOf: (Int32Array | undefined)[] = [];
   const internedTags = new Map<string, SearchTag>();
 
   // Scratch accumulators reused by every query (single-threaded, so no sharing hazard).
@@ -213,6 +225,8 @@ export function createSearchIndex(): SearchIndex & {
     queryStamp = grow(queryStamp, cap);
     cover = grow(cover, cap);
     lens = grow(lens, cap * NF);
+    flags = grow(flags, cap);
+    updatedAt = grow(updatedAt, cap);
   }
 
   function surfaceId(word: string, stemId: number): number {
@@ -254,49 +268,118 @@ export function createSearchIndex(): SearchIndex & {
         internedTags.set(key, shared);
       }
       // The newest definition of a tag wins (leads rename tags and edit their aliases).
-      tags.set(t.slug, {
-        tag: shared,
-        phrases: [t.name, ...t.aliases].map((p) => contentWords(p).map(stem)).filter((p) => p.length > 0),
-      });
+      if (tags.get(t.slug)?.tag !== shared) {
+        tags.set(t.slug, {
+          tag: shared,
+          phrases: [t.name, ...t.aliases].map((p) => contentWords(p).map(stem)).filter((p) => p.length > 0),
+        });
+      }
       return shared;
     });
   }
 
   /** Per-doc term table: stemId → packed field counts, plus the surface words seen. */
-  function analyse(doc: SearchDocument): { terms: Map<number, number>; surfaces: Set<number>; fieldLens: number[] } {
-    const terms = new Map<number, number>();
-    const surfaces = new Set<number>();
+  // Per-document scratch (by stem id / surface id), reset after each use: no Map per document, far less GC.
+  let tfScratch = new Uint32Array(4096);
+  let surfaceSeen = new Uint8Array(4096);
+
+  /** Per-doc term table: stem ids with packed field counts, plus the surface words seen. */
+  function analyse(doc: SearchDocument): { terms: number[]; packed: number[]; surfaces: number[]; fieldLens: number[] } {
+    const terms: number[] = [];
+    const surfaces: number[] = [];
     const texts = fieldTexts(doc);
     const fieldLens: number[] = [];
     for (let f = 0; f < NF; f++) {
-      const toks = tokenize(texts[f] as string, f === 4);
+      const text = texts[f] as string;
+      const toks = tokenize(text, f === 4);
       let len = 0;
+      const one = 1 << (f * 4);
+      let prev: Token | undefined;
       for (const t of toks) {
-        if (isStopWord(t.word)) continue;
+        if (isStopWord(t.word)) {
+          prev = undefined;
+          continue;
+        }
         len++;
-        const sid = stemId(t.word);
-        surfaces.add(surfaceId(t.word, sid));
-        const packed = terms.get(sid) ?? 0;
-        const tf = (packed >>> (f * 4)) & 15;
-        if (tf < TF_MAX) terms.set(sid, packed + (1 << (f * 4)));
+        // Run-together pairs ("blue screen" → "bluescreen", "clean plate" → "cleanplate") in the short
+        // fields, so a junior's compound word finds the two-word title. Postings only: kept out of the
+        // typo vocabulary, where they would add noise.
+        if (f <= F_SUMMARY && prev && t.start - prev.end === 1 && JOINERS.includes(text.charAt(prev.end))) {
+          const joined = prev.word + t.word;
+          if (joined.length <= 18) {
+            const jid = stemId(joined);
+            if (jid >= tfScratch.length) {
+              const next = new Uint32Array(tfScratch.length * 2);
+              next.set(tfScratch);
+              tfScratch = next;
+            }
+            const jp = tfScratch[jid] as number;
+            if (jp === 0) terms.push(jid);
+            if (((jp >>> (f * 4)) & 15) < TF_MAX) tfScratch[jid] = jp + one;
+          }
+        }
+        prev = t;
+        // Known words skip the stemmer: most tokens of a large corpus are repeats.
+        let sf = surfaceIds.get(t.word);
+        let sid: number;
+        if (sf === undefined) {
+          sid = stemId(t.word);
+          sf = surfaceId(t.word, sid);
+        } else sid = surfaceStem[sf] as number;
+        if (sf >= surfaceSeen.length) {
+          const next = new Uint8Array(surfaceSeen.length * 2);
+          next.set(surfaceSeen);
+          surfaceSeen = next;
+        }
+        if (sid >= tfScratch.length) {
+          const next = new Uint32Array(tfScratch.length * 2);
+          next.set(tfScratch);
+          tfScratch = next;
+        }
+        if (surfaceSeen[sf] === 0) {
+          surfaceSeen[sf] = 1;
+          surfaces.push(sf);
+        }
+        const p = tfScratch[sid] as number;
+        if (p === 0) terms.push(sid);
+        if (((p >>> (f * 4)) & 15) < TF_MAX) tfScratch[sid] = p + one;
       }
       fieldLens.push(Math.min(len, 65535));
     }
-    return { terms, surfaces, fieldLens };
+    const packed = terms.map((sid) => tfScratch[sid] as number);
+    for (const sid of terms) tfScratch[sid] = 0;
+    for (const sf of surfaces) surfaceSeen[sf] = 0;
+    return { terms, packed, surfaces, fieldLens };
   }
 
   function addEntry(doc: SearchDocument, mask: number, isRankApproved: boolean): number {
     const id = nextId++;
     ensureCapacity(id);
     const stored: SearchDocument = { ...doc, tags: internTags(doc.tags) };
-    const { terms, surfaces, fieldLens } = analyse(stored);
-    for (const [sid, packed] of terms) (postings[sid] as Postings).push(id, packed >>> 0);
+    const { terms, packed, surfaces, fieldLens } = analyse(stored);
+    for (let i = 0; i < terms.length; i++) (postings[terms[i] as number] as Postings).push(id, packed[i] as number);
     for (const s of surfaces) surfaceRefs[s] = (surfaceRefs[s] as number) + 1;
     for (let f = 0; f < NF; f++) {
       lens[id * NF + f] = fieldLens[f] as number;
       totalLen[f] = (totalLen[f] as number) + (fieldLens[f] as number);
     }
     const parsed = Date.parse(doc.updatedAt);
+    flags[id] =
+      (mask & MASK_PUBLISHED ? FL_PUBLISHED : 0) |
+      (mask & MASK_WORKING ? FL_WORKING : 0) |
+      (doc.status === "retired" ? FL_RETIRED : 0) |
+      (isRankApproved ? FL_APPROVED : 0) |
+      (doc.houseMethodFor.length > 0 ? FL_HOUSE : 0);
+    updatedAt[id] = Number.isNaN(parsed) ? 0 : parsed;
+    tagIdsOf[id] = Int32Array.from(stored.tags, (t) => {
+      let ti = tagIndex.get(t.slug);
+      if (ti === undefined) {
+        ti = tagSlugs.length;
+        tagIndex.set(t.slug, ti);
+        tagSlugs.push(t.slug);
+      }
+      return ti;
+    });
     entries[id] = {
       doc: stored,
       mask,
@@ -312,10 +395,12 @@ export function createSearchIndex(): SearchIndex & {
     const entry = entries[id];
     if (!entry) return;
     const { terms, surfaces } = analyse(entry.doc);
-    for (const sid of terms.keys()) (postings[sid] as Postings).remove(id);
+    for (const sid of terms) (postings[sid] as Postings).remove(id);
     for (const s of surfaces) surfaceRefs[s] = (surfaceRefs[s] as number) - 1;
     for (let f = 0; f < NF; f++) totalLen[f] = (totalLen[f] as number) - (lens[id * NF + f] as number);
     entries[id] = undefined;
+    flags[id] = 0;
+    tagIdsOf[id] = undefined;
     liveDocs--;
   }
 
@@ -414,11 +499,12 @@ export function createSearchIndex(): SearchIndex & {
     // An edit destroys at most 3 padded trigrams (4 for a transposition), so fewer shared ones rule a word out.
     const need = Math.max(1, grams.length - 4 * maxD);
     const found: { id: number; d: number }[] = [];
+    const queryStem = stem(word);
+    const within = (a: string, b: string): number => (Math.abs(a.length - b.length) > maxD ? maxD + 1 : editDistance(a, b, maxD));
     for (const [id, c] of counts) {
       if (c < need || (surfaceRefs[id] as number) <= 0) continue;
-      const w = surfaceWords[id] as string;
-      if (Math.abs(w.length - word.length) > maxD) continue;
-      const d = editDistance(word, w, maxD);
+      // Compare stems too: "flaten" is one edit from "flatten" although the corpus only has "flattening".
+      const d = Math.min(within(word, surfaceWords[id] as string), within(queryStem, stemWords[surfaceStem[id] as number] as string));
       if (d <= maxD) found.push({ id, d });
     }
     const bestD = Math.min(...found.map((f) => f.d));
@@ -563,57 +649,113 @@ export function createSearchIndex(): SearchIndex & {
     includeRetired: boolean;
   };
 
-  function passesTags(e: Entry, f: Filters): boolean {
-    return f.tags.every((slug) => e.doc.tags.some((t) => t.slug === slug));
-  }
-  function passesStatus(e: Entry, f: Filters): boolean {
-    if (f.status && f.status.length > 0) return f.status.includes(e.doc.status);
-    return !e.isRetired || f.includeRetired;
+  /** Ids visible to the audience, carrying every filter tag, retired ones only when asked. */
+  function gate(pool: number[], f: Filters): number[] {
+    const bit = f.audience === "published" ? FL_PUBLISHED : FL_WORKING;
+    const wanted = f.tags.map((slug) => tagIndex.get(slug) ?? -1);
+    if (wanted.includes(-1)) return [];
+    const out: number[] = [];
+    for (const id of pool) {
+      const fl = flags[id] as number;
+      if ((fl & bit) === 0 || ((fl & FL_RETIRED) !== 0 && !f.includeRetired)) continue;
+      if (wanted.length > 0) {
+        const own = tagIdsOf[id] as Int32Array;
+        if (!wanted.every((t) => own.includes(t))) continue;
+      }
+      out.push(id);
+    }
+    return out;
   }
 
+  type Ranked = { ids: number[]; scores: Float64Array; keys: Float64Array; house: Uint8Array };
+
   /**
-   * Order: among good matches (≥ GOOD_MATCH of the best score) the department's method for a problem the
-   * search is about first, then approved, then drafts and reviews; then weaker matches; retired last.
+   * Order: among good matches (≥ GOOD_MATCH of the best score) the department's method for a problem
+   * the search is about first, then approved, then drafts and reviews; then weaker matches; retired
+   * last. Encoded in one sort key per candidate: group × 1e9 + score.
    */
-  function rankCandidates(ids: number[], words: QueryWord[], filters: Filters): Candidate[] {
+  function rankCandidates(ids: number[], words: QueryWord[], filters: Filters): Ranked {
     const n = words.filter((w) => w.expansions.length > 0).length;
     const houseHits = hitProblemTags(words, filters.tags);
-    // Most query words must match; relax one word at a time when nothing would be left. Retired
-    // techniques do not count when choosing the bar, since they are listed last anyway.
-    const live = ids.filter((id) => !(entries[id] as Entry).isRetired);
-    const basis = live.length > 0 ? live : ids;
-    let required = n - Math.floor(n / 3);
-    while (required > 1 && !basis.some((id) => (cover[id] as number) >= required)) required--;
-    const chosen = ids.filter((id) => (cover[id] as number) >= required);
-    const cands: Candidate[] = chosen.map((id) => {
-      const e = entries[id] as Entry;
-      // Square root: matching every word helps, but not enough to beat strong title/alias matches of most words.
-      const coverage = Math.sqrt((cover[id] as number) / Math.max(1, n));
-      const isHouseHit = e.isRankApproved && e.doc.houseMethodFor.some((slug) => houseHits.has(slug));
-      return { id, score: (acc[id] as number) * coverage, group: 0, isHouseHit };
-    });
-    let top = 0;
-    for (const c of cands) if (!(entries[c.id] as Entry).isRetired && c.score > top) top = c.score;
-    if (top === 0) for (const c of cands) top = Math.max(top, c.score);
-    for (const c of cands) {
-      const e = entries[c.id] as Entry;
-      if (e.isRetired) c.group = 4;
-      else if (c.score >= GOOD_MATCH * top) c.group = c.isHouseHit ? 0 : e.isRankApproved ? 1 : 2;
-      else {
-        c.group = 3;
-        if (!e.isRankApproved) c.score *= 0.5;
-      }
+    // Most query words must match; relax to the best coverage any live technique reaches. Retired
+    // techniques do not set the bar, since they are listed last anyway.
+    let bestLive = 0;
+    let bestAny = 0;
+    for (const id of ids) {
+      const c = cover[id] as number;
+      if (c > bestAny) bestAny = c;
+      if (c > bestLive && ((flags[id] as number) & FL_RETIRED) === 0) bestLive = c;
     }
-    return cands;
+    const required = Math.max(1, Math.min(n - Math.floor(n / 3), bestLive > 0 ? bestLive : bestAny));
+    const chosen: number[] = [];
+    for (const id of ids) if ((cover[id] as number) >= required) chosen.push(id);
+    const scores = new Float64Array(chosen.length);
+    let top = 0;
+    let topAny = 0;
+    for (let i = 0; i < chosen.length; i++) {
+      const id = chosen[i] as number;
+      // Square root: matching every word helps, but not enough to beat strong title/alias matches of most words.
+      const sc = (acc[id] as number) * Math.sqrt((cover[id] as number) / Math.max(1, n));
+      scores[i] = sc;
+      if (sc > topAny) topAny = sc;
+      if (sc > top && ((flags[id] as number) & FL_RETIRED) === 0) top = sc;
+    }
+    if (top === 0) top = topAny;
+    const keys = new Float64Array(chosen.length);
+    const house = new Uint8Array(chosen.length);
+    for (let i = 0; i < chosen.length; i++) {
+      const id = chosen[i] as number;
+      const fl = flags[id] as number;
+      let sc = scores[i] as number;
+      const isHouseHit =
+        (fl & FL_HOUSE) !== 0 &&
+        (fl & FL_APPROVED) !== 0 &&
+        (entries[id] as Entry).doc.houseMethodFor.some((slug) => houseHits.has(slug));
+      house[i] = isHouseHit ? 1 : 0;
+      let group: number;
+      if (fl & FL_RETIRED) group = 4;
+      else if (sc >= GOOD_MATCH * top) group = isHouseHit ? 0 : fl & FL_APPROVED ? 1 : 2;
+      else {
+        group = 3;
+        if ((fl & FL_APPROVED) === 0) sc *= 0.5;
+      }
+      scores[i] = sc;
+      keys[i] = (4 - group) * 1e9 + sc;
+    }
+    return { ids: chosen, scores, keys, house };
+  }
+
+  /** Positions of the `k` largest keys, best first (ties by lower id); avoids sorting every match. */
+  function topK(ids: number[], keys: Float64Array, select: Uint8Array | null, k: number): number[] {
+    const idx: number[] = [];
+    let threshold = Number.NEGATIVE_INFINITY;
+    let count = 0;
+    for (let i = 0; i < ids.length; i++) if (!select || select[i]) count++;
+    if (count > k * 2 + 64 && k > 0) {
+      const pool = new Float64Array(count);
+      let j = 0;
+      for (let i = 0; i < ids.length; i++) if (!select || select[i]) pool[j++] = keys[i] as number;
+      pool.sort();
+      threshold = pool[count - k] as number;
+    }
+    for (let i = 0; i < ids.length; i++) if ((!select || select[i]) && (keys[i] as number) >= threshold) idx.push(i);
+    idx.sort((a, b) => (keys[b] as number) - (keys[a] as number) || (ids[a] as number) - (ids[b] as number));
+    return idx.slice(0, k);
   }
 
   function matchesFor(e: Entry, stems: Set<string>): { matches: SearchMatch[]; snippet: string } {
     const doc = e.doc;
     const matches: SearchMatch[] = [];
-    const rangesOf = (text: string, camel = false): [number, number][] =>
-      tokenize(text, camel)
-        .filter((t) => stems.has(stem(t.word)))
-        .map((t) => [t.start, t.end]);
+    const rangesOf = (text: string, camel = false): [number, number][] => {
+      const toks = tokenize(text, camel);
+      const out: [number, number][] = [];
+      toks.forEach((t, i) => {
+        if (stems.has(stem(t.word))) out.push([t.start, t.end]);
+        const next = toks[i + 1];
+        if (next && next.start - t.end === 1 && stems.has(stem(t.word + next.word))) out.push([t.start, next.end]);
+      });
+      return out;
+    };
     const single = (field: SearchField, value: string, camel = false): void => {
       const ranges = rangesOf(value, camel);
       if (ranges.length > 0) matches.push({ field, value, ranges });
@@ -644,11 +786,11 @@ export function createSearchIndex(): SearchIndex & {
       }
       const cut = excerpt(doc.bodyText, bestStart - 40, bestStart - 40 + SNIPPET_CHARS);
       snippet = cut.text;
-      const ranges = bodyTokens
+      const lo = snippet.startsWith("…") ? 1 : 0;
+      const hi = snippet.length - (snippet.endsWith("…") ? 1 : 0);
+      const inside = bodyTokens
         .map((t) => [t.start + cut.shift, t.end + cut.shift] as [number, number])
-        .filter(([s, en]) => s >= 0 && en <= snippet.length && snippet.slice(s, en).length === en - s)
-        .filter(([s]) => s >= (snippet.startsWith("…") ? 1 : 0));
-      const inside = ranges.filter(([, en]) => en <= snippet.length - (snippet.endsWith("…") ? 1 : 0));
+        .filter(([s0, e0]) => s0 >= lo && e0 <= hi);
       if (inside.length > 0) matches.push({ field: "body", value: snippet, ranges: inside });
     } else {
       snippet = excerpt(doc.summary, 0, SNIPPET_CHARS).text;
@@ -656,47 +798,52 @@ export function createSearchIndex(): SearchIndex & {
     return { matches, snippet };
   }
 
-  function toResult(c: Candidate, stems: Set<string>): SearchResult {
-    const e = entries[c.id] as Entry;
-    const { matches, snippet } = stems.size > 0 ? matchesFor(e, stems) : { matches: [], snippet: excerpt(e.doc.summary, 0, SNIPPET_CHARS).text };
+  function toResult(id: number, score: number, isHouseHit: boolean, stems: Set<string>): SearchResult {
+    const e = entries[id] as Entry;
+    const { matches, snippet } =
+      stems.size > 0 ? matchesFor(e, stems) : { matches: [], snippet: excerpt(e.doc.summary, 0, SNIPPET_CHARS).text };
     return {
       slug: e.doc.slug,
       title: e.doc.title,
       summary: e.doc.summary,
       status: e.doc.status,
-      score: Math.round(c.score * 1000) / 1000,
+      score: Math.round(score * 1000) / 1000,
       matches,
       snippet,
       tags: e.doc.tags,
       updatedAt: e.doc.updatedAt,
-      isHouseMethod: c.isHouseHit,
+      isHouseMethod: isHouseHit,
       houseMethodFor: e.doc.houseMethodFor,
     };
   }
 
-  function facetsOf(cands: Candidate[], statusPool: Entry[]): SearchResponse["facets"] {
-    const tagCounts = new Map<string, number>();
-    for (const c of cands) for (const t of (entries[c.id] as Entry).doc.tags) tagCounts.set(t.slug, (tagCounts.get(t.slug) ?? 0) + 1);
+  function facetsOf(ids: number[], select: Uint8Array, statusCounts: Map<SearchStatus, number>): SearchResponse["facets"] {
+    const counts = new Int32Array(tagSlugs.length);
+    for (let i = 0; i < ids.length; i++) {
+      if (!select[i]) continue;
+      const own = tagIdsOf[ids[i] as number] as Int32Array;
+      for (let t = 0; t < own.length; t++) counts[own[t] as number] = (counts[own[t] as number] as number) + 1;
+    }
     const problem: SearchFacetTag[] = [];
     const plate: SearchFacetTag[] = [];
-    for (const [slug, count] of tagCounts) {
+    counts.forEach((count, ti) => {
+      if (count === 0) return;
+      const slug = tagSlugs[ti] as string;
       const info = tags.get(slug);
-      if (!info) continue;
-      (info.tag.kind === "problem" ? problem : plate).push({ slug, name: info.tag.name, count });
-    }
+      if (info) (info.tag.kind === "problem" ? problem : plate).push({ slug, name: info.tag.name, count });
+    });
     const bySize = (a: SearchFacetTag, b: SearchFacetTag): number => b.count - a.count || a.name.localeCompare(b.name);
-    const statusCounts = new Map<SearchStatus, number>();
-    for (const e of statusPool) statusCounts.set(e.doc.status, (statusCounts.get(e.doc.status) ?? 0) + 1);
-    const order: SearchStatus[] = ["approved", "in_review", "draft", "retired"];
     return {
       problem: problem.sort(bySize),
       plate: plate.sort(bySize),
-      status: order.filter((s) => statusCounts.has(s)).map((s) => ({ status: s, count: statusCounts.get(s) as number })),
+      status: STATUS_ORDER.filter((st) => statusCounts.has(st)).map((st) => ({ status: st, count: statusCounts.get(st) as number })),
     };
   }
 
-  function compareCandidates(a: Candidate, b: Candidate): number {
-    return a.group - b.group || b.score - a.score || a.id - b.id;
+  function expandedStems(words: QueryWord[]): Set<string> {
+    const stems = new Set<string>();
+    for (const w of words) for (const e of w.expansions) stems.add(stemWords[e.stemId] as string);
+    return stems;
   }
 
   function search(query: string, options: SearchOptions): SearchResponse {
@@ -719,28 +866,33 @@ export function createSearchIndex(): SearchIndex & {
     } else {
       pool = score(words, (1 << NF) - 1);
     }
-    // Status facet counts ignore the status filter itself, so the UI can show what switching it would give.
-    const gated = pool.filter((id) => {
-      const e = entries[id] as Entry;
-      return isVisible(e, filters.audience) && passesTags(e, filters) && (!e.isRetired || filters.includeRetired);
-    });
-    const ranked: Candidate[] = isEmptyQuery
-      ? gated.map((id) => ({ id, score: 0, group: (entries[id] as Entry).isRetired ? 4 : 0, isHouseHit: false }))
-      : rankCandidates(gated, words, filters);
-    const cands = ranked.filter((c) => passesStatus(entries[c.id] as Entry, filters));
-    if (isEmptyQuery || options.sort === "recent") {
-      cands.sort(
-        (a, b) =>
-          Number(a.group === 4) - Number(b.group === 4) ||
-          (entries[b.id] as Entry).updatedMs - (entries[a.id] as Entry).updatedMs ||
-          a.id - b.id,
-      );
+    const gated = gate(pool, filters);
+    let ranked: Ranked;
+    if (isEmptyQuery) {
+      ranked = { ids: gated, scores: new Float64Array(gated.length), keys: new Float64Array(gated.length), house: new Uint8Array(gated.length) };
     } else {
-      cands.sort(compareCandidates);
+      ranked = rankCandidates(gated, words, filters);
     }
-    const stems = new Set<string>();
-    for (const w of words) for (const e of w.expansions) stems.add(stemWords[e.stemId] as string);
-    const results = cands.slice(offset, offset + limit).map((c) => toResult(c, stems));
+    if (isEmptyQuery || options.sort === "recent") {
+      ranked.ids.forEach((id, i) => {
+        ranked.keys[i] = (((flags[id] as number) & FL_RETIRED) === 0 ? 1e14 : 0) + (updatedAt[id] as number);
+      });
+    }
+    // Status facet counts ignore the status filter itself, so the UI can show what switching it would give.
+    const select = new Uint8Array(ranked.ids.length);
+    const statusCounts = new Map<SearchStatus, number>();
+    let total = 0;
+    ranked.ids.forEach((id, i) => {
+      const st = (entries[id] as Entry).doc.status;
+      statusCounts.set(st, (statusCounts.get(st) ?? 0) + 1);
+      if (!filters.status || filters.status.length === 0 || filters.status.includes(st)) {
+        select[i] = 1;
+        total++;
+      }
+    });
+    const order = topK(ranked.ids, ranked.keys, select, offset + limit).slice(offset);
+    const stems = expandedStems(words);
+    const results = order.map((i) => toResult(ranked.ids[i] as number, ranked.scores[i] as number, ranked.house[i] === 1, stems));
 
     let corrected = query;
     for (const w of [...words].reverse()) {
@@ -749,8 +901,8 @@ export function createSearchIndex(): SearchIndex & {
     }
     return {
       results,
-      total: cands.length,
-      facets: facetsOf(cands, ranked.map((c) => entries[c.id] as Entry)),
+      total,
+      facets: facetsOf(ranked.ids, select, statusCounts),
       ...(corrected !== query ? { corrected } : {}),
       tookMs: Math.round((performance.now() - t0) * 100) / 100,
     };
@@ -761,24 +913,19 @@ export function createSearchIndex(): SearchIndex & {
     if (words.length === 0) return [];
     const mask = (1 << F_TITLE) | (1 << F_ALIASES) | (1 << F_TAGS);
     const filters: Filters = { audience, tags: [], status: undefined, includeRetired: false };
-    const ids = score(words, mask).filter((id) => {
-      const e = entries[id] as Entry;
-      return isVisible(e, audience) && passesStatus(e, filters);
-    });
-    const cands = rankCandidates(ids, words, filters).sort(compareCandidates).slice(0, Math.max(0, Math.min(50, limit)));
-    const stems = new Set<string>();
-    for (const w of words) for (const e of w.expansions) stems.add(stemWords[e.stemId] as string);
-    return cands.map((c) => {
-      const e = entries[c.id] as Entry;
+    const ranked = rankCandidates(gate(score(words, mask), filters), words, filters);
+    const stems = expandedStems(words);
+    return topK(ranked.ids, ranked.keys, null, Math.max(0, Math.min(50, limit))).map((i) => {
+      const e = entries[ranked.ids[i] as number] as Entry;
       return {
         slug: e.doc.slug,
         title: e.doc.title,
         status: e.doc.status,
-        score: Math.round(c.score * 1000) / 1000,
+        score: Math.round((ranked.scores[i] as number) * 1000) / 1000,
         ranges: tokenize(e.doc.title)
           .filter((t) => stems.has(stem(t.word)))
           .map((t) => [t.start, t.end] as [number, number]),
-        isHouseMethod: c.isHouseHit,
+        isHouseMethod: ranked.house[i] === 1,
       };
     });
   }

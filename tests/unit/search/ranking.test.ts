@@ -141,6 +141,18 @@ describe("matches and snippets", () => {
   });
 });
 
+describe("run-together words", () => {
+  it("finds and highlights a two-word title from a compound query word", () => {
+    const idx = createSearchIndex();
+    idx.upsert("b", pub(doc({ slug: "b", title: "Markers on blue screen" })));
+    idx.upsert("o", pub(doc({ slug: "o", title: "Blue sky and a screen door" })));
+    const res = idx.search("bluescreen markers", { audience: "published" });
+    expect(res.results.map((r) => r.slug)[0]).toBe("b");
+    const title = res.results[0]?.matches.find((m) => m.field === "title");
+    expect(title?.ranges.map(([s, e]) => title.value.slice(s, e))).toContain("blue screen");
+  });
+});
+
 describe("visibility", () => {
   it("never shows a working-only draft to the published audience", () => {
     const idx = createSearchIndex();
