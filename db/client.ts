@@ -11,7 +11,8 @@ import * as schema from "@/db/schema";
 
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
 
-type Holder = { db?: Database; close?: () => Promise<void> };
+export type Driver = "pglite" | "postgres";
+type Holder = { db?: Database; driver?: Driver; close?: () => Promise<void> };
 const globalHolder = globalThis as unknown as { __plateroomDb?: Holder };
 const holder: Holder = (globalHolder.__plateroomDb ??= {});
 
@@ -26,11 +27,15 @@ export function getDb(): Database {
   return holder.db!;
 }
 
+/** Which driver the open database uses (migrations pick their migrator by it). */
+export function currentDriver(): Driver {
+  getDb();
+  return holder.driver!;
+}
+
 function openDefault(): void {
   if (env.DATABASE_URL) {
-    const pool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 10 });
-    holder.db = drizzleNodePg(pool, { schema }) as unknown as Database;
-    holder.close = () => pool.end();
+    useNodePostgres(env.DATABASE_URL);
     return;
   }
   const dir = path.resolve(env.PLATEROOM_DATA_DIR, "pg");
@@ -41,13 +46,24 @@ function openDefault(): void {
 /** Installs a PGlite instance as this process's database (tests load a migrated template). */
 export function usePglite(client: PGlite): Database {
   holder.db = drizzlePglite(client, { schema }) as unknown as Database;
+  holder.driver = "pglite";
   holder.close = () => client.close();
+  return holder.db;
+}
+
+/** Installs a PostgreSQL server connection pool as this process's database. */
+export function useNodePostgres(connectionString: string): Database {
+  const pool = new pg.Pool({ connectionString, max: 10 });
+  holder.db = drizzleNodePg(pool, { schema }) as unknown as Database;
+  holder.driver = "postgres";
+  holder.close = () => pool.end();
   return holder.db;
 }
 
 export async function closeDb(): Promise<void> {
   const close = holder.close;
   holder.db = undefined;
+  holder.driver = undefined;
   holder.close = undefined;
   if (close) await close();
 }

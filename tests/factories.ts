@@ -5,6 +5,7 @@ import { apiTokens, tags, users, type User } from "@/db/schema";
 import type { Role, SessionUser } from "@/lib/auth/roles";
 import { authSecret } from "@/lib/auth/secret";
 import { hashToken } from "@/lib/people/tokens";
+import { documentFromText, type TechniqueDocument } from "@/lib/techniques/document";
 
 let counter = 0;
 
@@ -63,4 +64,4 @@ export function params<P>(value: P): { params: Promise<P> } {
   return { params: Promise.resolve(value) };
 }
 
-export const simpleDoc = (text: string) => ({ type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text }] }] });
+export const simpleDoc = (text: string): TechniqueDocument => documentFromText(text);

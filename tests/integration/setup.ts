@@ -1,13 +1,36 @@
+import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { PGlite } from "@electric-sql/pglite";
+import pg from "pg";
 import { afterAll } from "vitest";
-import { closeDb, usePglite } from "@/db/client";
+import { closeDb, useNodePostgres, usePglite } from "@/db/client";
+import { PG_TEMPLATE_DB, withDatabase } from "@/tests/global-setup";
 
-// Each test file gets its own database: a copy of the migrated template made in global-setup.
-const template = fs.readFileSync(path.resolve("tests/.tmp/template.tar.gz"));
-usePglite(new PGlite({ loadDataDir: new Blob([template]) }));
+// Each test file gets its own database, a copy of the migrated template made in global-setup:
+// in-process PGlite by default, or a database on the PostgreSQL server in PLATEROOM_TEST_PG_URL.
+const serverUrl = process.env.PLATEROOM_TEST_PG_URL;
+let dropDatabase: (() => Promise<void>) | undefined;
+
+if (serverUrl) {
+  const name = `plateroom_test_${crypto.randomBytes(6).toString("hex")}`;
+  const admin = new pg.Client({ connectionString: serverUrl });
+  await admin.connect();
+  await admin.query(`CREATE DATABASE ${name} TEMPLATE ${PG_TEMPLATE_DB}`);
+  await admin.end();
+  useNodePostgres(withDatabase(serverUrl, name));
+  dropDatabase = async () => {
+    const c = new pg.Client({ connectionString: serverUrl });
+    await c.connect();
+    await c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+    await c.end();
+  };
+} else {
+  const template = fs.readFileSync(path.resolve("tests/.tmp/template.tar.gz"));
+  usePglite(new PGlite({ loadDataDir: new Blob([template]) }));
+}
 
 afterAll(async () => {
   await closeDb();
+  await dropDatabase?.();
 });
