@@ -3,6 +3,7 @@ import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
 import type { ReactNode } from "react";
 import { Wordmark } from "@/components/brand/logo-mark";
+import { QuickFinder } from "@/components/search/quick-finder";
 import { AppNav } from "@/components/shell/app-nav";
 import { NAV_ITEMS } from "@/components/shell/nav-items";
 import { ThemeToggle } from "@/components/shell/theme-toggle";
@@ -30,6 +31,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
           </Link>
           <AppNav items={items} reviewCount={reviewCount} />
           <div className="ml-auto flex items-center gap-1">
+            <QuickFinder userId={user.id} />
             <ThemeToggle initial={theme} />
             <UserMenu user={user} />
           </div>

@@ -6,10 +6,13 @@ import { listRequests } from "@/lib/requests";
 import type { SearchApiResponse, SuggestApiResponse } from "@/lib/search-ui/params";
 import { createTechnique, retireTechnique, reviewTechnique, submitTechnique, updateTechnique } from "@/lib/techniques/mutations";
 import { rebuildSearchFromDb } from "@/lib/techniques/search-sync";
+import { techniqueDocumentSchema } from "@/lib/techniques/document";
 import { apiRequest, createPerson, createTag, simpleDoc, type TestPerson } from "@/tests/factories";
 
 // Visibility rules are our own product rules (shared/PRODUCT.md "Search" and "Techniques", issue 6):
 // no outside source. Status codes follow RFC 9110 §15.5.1 (400 Bad Request) and §15.5.2 (401 Unauthorized).
+
+const doc = (text: string) => techniqueDocumentSchema.parse(simpleDoc(text));
 
 let artist: TestPerson;
 let senior: TestPerson;
@@ -61,7 +64,7 @@ describe("GET /api/search", () => {
       summary: "Scale each frame against a focus-pull reference so the framing holds while focus racks.",
       aliases: ["focus breathing fix"],
       tags: ["lens-breathing"],
-      body: simpleDoc("Track the background scale across the pull and divide it out before any paint."),
+      body: doc("Track the background scale across the pull and divide it out before any paint."),
       recipe: [],
     });
     expect(await slugsFor(artist, "q=lens+breathing")).not.toContain(slug);
@@ -79,7 +82,7 @@ describe("GET /api/search", () => {
       summary: "Undo the lean of verticals on a whip pan by shearing each scanline back by its capture delay.",
       aliases: [],
       tags: ["rolling-shutter", "car-interior"],
-      body: simpleDoc("Measure the lean on a straight vertical, then shear rows by the measured delay."),
+      body: doc("Measure the lean on a straight vertical, then shear rows by the measured delay."),
       recipe: [],
     });
     await approve(slug);
@@ -90,7 +93,7 @@ describe("GET /api/search", () => {
       summary: "Undo the lean of verticals on a whip pan; on anamorphic plates squeeze first.",
       aliases: ["wobble fix"],
       tags: ["rolling-shutter", "car-interior"],
-      body: simpleDoc("Desqueeze anamorphic plates before measuring the lean."),
+      body: doc("Desqueeze anamorphic plates before measuring the lean."),
       recipe: [],
       baseRevision: 1,
       changeNote: "Anamorphic plates.",
@@ -116,7 +119,7 @@ describe("GET /api/search", () => {
       summary: "Blend neighbouring frames to hide the shear; superseded by scanline shearing.",
       aliases: [],
       tags: ["rolling-shutter"],
-      body: simpleDoc("Blend three frames with weights that follow the scanline."),
+      body: doc("Blend three frames with weights that follow the scanline."),
       recipe: [],
     });
     await approve(slug);

@@ -1,0 +1,5 @@
+import { SearchSkeleton } from "@/components/search/skeletons";
+
+export default function Loading() {
+  return <SearchSkeleton />;
+}

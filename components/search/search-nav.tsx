@@ -1,0 +1,36 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { createContext, useContext, useTransition, type ReactNode } from "react";
+import { cn } from "@/lib/utils";
+
+type SearchNav = { navigate(href: string): void; isPending: boolean };
+
+const SearchNavContext = createContext<SearchNav | null>(null);
+
+/**
+ * One transition for every control of the search page (box, facets, sort), so the results can
+ * show that a new search is on its way whichever control started it.
+ */
+export function SearchNavProvider({ children }: { children: ReactNode }) {
+  const router = useRouter();
+  const [isPending, startTransition] = useTransition();
+  const navigate = (href: string) => startTransition(() => router.push(href, { scroll: false }));
+  return <SearchNavContext.Provider value={{ navigate, isPending }}>{children}</SearchNavContext.Provider>;
+}
+
+export function useSearchNav(): SearchNav {
+  const nav = useContext(SearchNavContext);
+  if (!nav) throw new Error("useSearchNav needs a SearchNavProvider");
+  return nav;
+}
+
+/** Dims the results while a new search loads and tells assistive technology it is busy. */
+export function PendingRegion({ children, className }: { children: ReactNode; className?: string }) {
+  const { isPending } = useSearchNav();
+  return (
+    <div aria-busy={isPending} className={cn("transition-opacity", isPending && "opacity-50", className)} data-testid="search-results">
+      {children}
+    </div>
+  );
+}

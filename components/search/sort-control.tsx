@@ -1,0 +1,25 @@
+"use client";
+
+import { useSearchNav } from "@/components/search/search-nav";
+import { Select } from "@/components/ui/field";
+import { searchHref, type SearchSort, type SearchState } from "@/lib/search-ui/params";
+
+export function SortControl({ state }: { state: SearchState }) {
+  const { navigate } = useSearchNav();
+  return (
+    <div className="flex items-center gap-2 text-sm">
+      <label htmlFor="search-sort" className="text-muted">
+        Sort by
+      </label>
+      <Select
+        id="search-sort"
+        value={state.sort}
+        onChange={(e) => navigate(searchHref({ ...state, sort: e.target.value as SearchSort, offset: 0 }))}
+        className="w-auto py-1"
+      >
+        <option value="relevance">Best match</option>
+        <option value="recent">Recently updated</option>
+      </Select>
+    </div>
+  );
+}
