@@ -11,7 +11,8 @@ const tokenQuery = z.object({ token: z.string().trim().min(1, "The link has no t
  * the signed token in the URL is the only authority. The answer is never a redirect (same
  * section). Using it twice is harmless.
  */
-export async function POST(req: Request): Promise<Response> {
+// The context is unused; taking it keeps the handler's signature the same as apiRoute's.
+export async function POST(req: Request, _ctx?: { params: Promise<Record<string, never>> }): Promise<Response> {
   // Not wrapped in apiRoute: its cross-site check guards cookie sessions, and this endpoint uses
   // none. A webmail page or a receiver's server may POST from anywhere; the token decides.
   try {
