@@ -134,4 +134,19 @@ describe("on the synthetic demo plate", () => {
     const level = res.reports.find((r) => r.op === "level");
     expect(level && level.op === "level" && level.residual).toBeLessThan(1e-3);
   });
+
+  it("works the same on a blue backing screen (hiding in the blue channel)", async () => {
+    const blue = await generateSyntheticPlate({ width: 512, height: 270, seed: 5, screen: "blue", compressionLevel: 1 });
+    const steps = recipeSchema.parse(demoCleanupRecipe({ denoisedStillId: "den", width: blue.width, screen: "blue", markerSamples: blue.markerSamples, screenSamples: blue.screenSamples, screenRect: blue.screenRect }));
+    expect(steps[0]!.op === "matrix" && steps[0]!.m[0]).toEqual([1, 0, 0]);
+    const res = await runRecipe({ still: blue.plate, steps, space: "linear", format: "png16", loadStill: async () => blue.denoised });
+    const [out, truth, plate] = await Promise.all([decodeStill(res.bytes), decodeStill(blue.cleanTruth), decodeStill(blue.plate)]);
+    let errOut = 0, errPlate = 0;
+    for (let i = 0; i < out.codes.length; i++) {
+      errOut += Math.abs(out.codes[i]! - truth.codes[i]!);
+      errPlate += Math.abs(plate.codes[i]! - truth.codes[i]!);
+    }
+    // Over the whole frame (foreground included): the recipe must leave it at least 10× closer to the truth.
+    expect(errOut).toBeLessThan(errPlate / 10);
+  });
 });
