@@ -37,6 +37,7 @@ const FUSE_SAMPLE: Record<number, number> = { 1_000: 20, 10_000: 12, 50_000: 6 }
 type Row = {
   size: number;
   buildMs: number;
+  buildCpuMs: number;
   memoryMB: number;
   structuresMB: number;
   queries: number;
@@ -58,6 +59,7 @@ type Row = {
   updateP50: number;
   updateP95: number;
   updateMax: number;
+  updateCpuP95: number;
 };
 
 function corpusOf(size: number) {
@@ -80,7 +82,9 @@ function runSize(size: number): Row {
   let corpus: ReturnType<typeof corpusOf> | null = corpusOf(size);
   const withDocs = heapMB();
   const index = createSearchIndex();
+  const buildCpu0 = process.cpuUsage();
   const [, buildMs] = time(() => index.load(corpus ?? []));
+  const buildCpu = process.cpuUsage(buildCpu0);
   const withIndex = heapMB();
   const queries = [...QUALITY_QUERIES.map((q) => q.query), ...syntheticQueries(corpus, 40)];
   const publishedDocs = corpus.flatMap((e) => (e.published && e.published.status !== "retired" ? [e.published] : []));
@@ -113,15 +117,19 @@ function runSize(size: number): Row {
 
   // Update-visible latency: write a new version with a fresh word, then search until it is found.
   const updates: number[] = [];
+  const updatesCpu: number[] = [];
   const sample = publishedDocs.filter((_, i) => i % Math.max(1, Math.floor(publishedDocs.length / 30)) === 0).slice(0, 30);
   sample.forEach((d, i) => {
     const marker = `zephyrine${i}`;
+    const u0 = process.cpuUsage();
     const [found, ms] = time(() => {
       index.upsert(d.techniqueId, { published: { ...d, title: `${d.title} ${marker}` }, working: null });
       return index.search(marker, { audience: "published" }).results[0]?.slug;
     });
+    const u1 = process.cpuUsage(u0);
     if (found !== d.slug) throw new Error(`update not visible for ${d.slug}`);
     updates.push(ms);
+    updatesCpu.push((u1.user + u1.system) / 1000);
     const [, removeMs] = time(() => {
       index.remove(d.techniqueId);
       if (index.search(marker, { audience: "published" }).total !== 0) throw new Error("removal not visible");
@@ -149,6 +157,7 @@ function runSize(size: number): Row {
   const row: Row = {
     size,
     buildMs: Math.round(buildMs),
+    buildCpuMs: Math.round((buildCpu.user + buildCpu.system) / 1000),
     memoryMB: Math.round(memoryMB),
     structuresMB: Math.round(structuresMB),
     queries: queries.length,
@@ -169,6 +178,7 @@ function runSize(size: number): Row {
     updateP50: r2(percentile(updates, 50)),
     updateP95: r2(percentile(updates, 95)),
     updateMax: r2(Math.max(...updates)),
+    updateCpuP95: r2(percentile(updatesCpu, 95)),
   };
   console.error(`  ${size}: done`);
   return row;
@@ -183,7 +193,7 @@ console.log("\nSearch benchmark (ms unless noted)");
 console.table(
   rows.map((r) => ({
     size: r.size,
-    "build ms": r.buildMs,
+    "build ms (cpu)": `${r.buildMs} (${r.buildCpuMs})`,
     "memory MB": r.memoryMB,
     p50: r.p50,
     p95: r.p95,
@@ -193,6 +203,7 @@ console.table(
     "speed-up p50/p95": `${r.speedupP50}×/${r.speedupP95}×`,
     "top-3": r.quality,
     "update p95/max": `${r.updateP95}/${r.updateMax}`,
+    "update cpu p95": r.updateCpuP95,
   })),
 );
 const at = (n: number) => rows.find((r) => r.size === n);

@@ -36,7 +36,6 @@ const NF = FIELDS.length;
 const F_TITLE = 0;
 const F_ALIASES = 1;
 const F_TAGS = 2;
-const F_SUMMARY = 3;
 const JOINERS = " -";
 /** title > aliases ≈ tags > summary > parameters ≈ shots > body (issue 6). */
 export const FIELD_WEIGHTS: readonly number[] = [6, 4, 4, 2.5, 1.5, 1.5, 1];
@@ -171,8 +170,10 @@ function excerpt(text: string, from: number, to: number): { text: string; shift:
  * the next `search`. Not safe to share across worker threads (there are none in Next's Node runtime).
  */
 export function createSearchIndex(): SearchIndex & {
-  /** Replace the whole content in one go (start-up); faster than repeated upserts and trims memory. */
+  /** Replace the whole content in one go (start-up); trims memory afterwards. */
   load(entries: Iterable<{ techniqueId: string } & SearchViews>): void;
+  /** Release spare posting-list capacity (after many upserts). */
+  compact(): void;
 } {
   // Vocabulary of surface words (for typo correction and prefix completion) mapping to stems (for retrieval).
   const surfaceIds = new Map<string, number>();
@@ -301,10 +302,10 @@ export function createSearchIndex(): SearchIndex & {
           continue;
         }
         len++;
-        // Run-together pairs ("blue screen" → "bluescreen", "clean plate" → "cleanplate") in the short
-        // fields, so a junior's compound word finds the two-word title. Postings only: kept out of the
+        // Run-together pairs ("blue screen" → "bluescreen", "clean plate" → "cleanplate") in title,
+        // aliases and tags (summaries would add ~100 MB of one-off pairs at 50,000 techniques), so a junior's compound word finds the two-word title. Postings only: kept out of the
         // typo vocabulary, where they would add noise.
-        if (f <= F_SUMMARY && prev && t.start - prev.end === 1 && JOINERS.includes(text.charAt(prev.end))) {
+        if (f <= F_TAGS && prev && t.start - prev.end === 1 && JOINERS.includes(text.charAt(prev.end))) {
           const joined = prev.word + t.word;
           if (joined.length <= 18) {
             const jid = stemId(joined);
@@ -431,10 +432,14 @@ export function createSearchIndex(): SearchIndex & {
     techniques.set(techniqueId, t);
   }
 
+  function compact(): void {
+    for (const p of postings) p.trim();
+  }
+
   function load(list: Iterable<{ techniqueId: string } & SearchViews>): void {
     for (const id of [...techniques.keys()]) removeTechnique(id);
     for (const e of list) upsert(e.techniqueId, { published: e.published, working: e.working });
-    for (const p of postings) p.trim();
+    compact();
   }
 
   // ---- query side -------------------------------------------------------------------------------
@@ -727,6 +732,7 @@ export function createSearchIndex(): SearchIndex & {
 
   /** Positions of the `k` largest keys, best first (ties by lower id); avoids sorting every match. */
   function topK(ids: number[], keys: Float64Array, select: Uint8Array | null, k: number): number[] {
+    if (k <= 0) return [];
     const idx: number[] = [];
     let threshold = Number.NEGATIVE_INFINITY;
     let count = 0;
@@ -937,5 +943,6 @@ export function createSearchIndex(): SearchIndex & {
     suggestTitles,
     size: () => techniques.size,
     load,
+    compact,
   };
 }

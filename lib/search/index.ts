@@ -32,7 +32,15 @@ export function getSearchIndex(): SearchIndex {
 export async function rebuildSearchIndex(loadAll: () => Promise<SearchIndexEntry[]>): Promise<number> {
   const rows = await loadAll();
   const next = createSearchIndex();
-  next.load(rows);
+  // Index in slices and yield between them: 50,000 techniques take seconds of CPU, and the server
+  // should keep answering meanwhile (from the previous index).
+  for (let i = 0; i < rows.length; i += REBUILD_SLICE) {
+    for (const row of rows.slice(i, i + REBUILD_SLICE)) next.upsert(row.techniqueId, { published: row.published, working: row.working });
+    await new Promise<void>((resolve) => setImmediate(resolve));
+  }
+  next.compact();
   globalForSearch.plateroomSearchIndex = next;
   return next.size();
 }
+
+const REBUILD_SLICE = 500;
