@@ -49,6 +49,9 @@ export function errorResponse(error: unknown): Response {
     return json(error.toBody(), error.status, error.code === "rate_limited" ? { "Retry-After": "60" } : undefined);
   }
   if (error instanceof z.ZodError) return json(validationError(error).toBody(), 400);
+  // PostgreSQL refuses U+0000 in text and jsonb (SQLSTATE 22021, 22P05): bad input, not a server fault.
+  const pgCode = (error as { cause?: { code?: unknown } } | null)?.cause?.code;
+  if (pgCode === "22021" || pgCode === "22P05") return json(new AppError("validation_failed", "Text may not contain NUL (U+0000) characters.").toBody(), 400);
   console.error("[api] unexpected error:", error);
   return json(new AppError("internal").toBody(), 500);
 }
