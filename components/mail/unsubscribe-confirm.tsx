@@ -25,7 +25,7 @@ export function UnsubscribeConfirm({ token, what }: { token: string; what: strin
   return (
     <form action={action} className="space-y-4 text-sm">
       <p>
-        You will no longer get mail about <strong>{what}</strong>.
+        Press the button and you will no longer get mail about <strong>{what}</strong>.
       </p>
       <input type="hidden" name="token" value={token} />
       {state.status === "error" ? (
