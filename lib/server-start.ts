@@ -1,5 +1,6 @@
 import "server-only";
 import fs from "node:fs";
+import path from "node:path";
 import { runMigrations } from "@/db/migrate";
 import { env } from "@/lib/env";
 import { startMailSender } from "@/lib/mail/sender";
@@ -8,6 +9,11 @@ import { rebuildSearchFromDb } from "@/lib/techniques/search-sync";
 /** Start-up work of a server process: schema up to date, search index built, mail sender running. */
 export async function startServerServices(): Promise<void> {
   fs.mkdirSync(env.PLATEROOM_UPLOADS_DIR, { recursive: true });
+  if (!env.DATABASE_URL) {
+    // Lets `npm run backup` tell that this data folder is in use (PGlite allows one process).
+    fs.mkdirSync(env.PLATEROOM_DATA_DIR, { recursive: true });
+    fs.writeFileSync(path.join(env.PLATEROOM_DATA_DIR, "server.pid"), String(process.pid));
+  }
   await runMigrations();
   const count = await rebuildSearchFromDb();
   console.log(`[plateroom] search index built: ${count} techniques`);
