@@ -49,7 +49,7 @@ describe.skipIf(!hasChromium())("security headers on every page type", () => {
       expect(res).not.toBeNull();
       expectSecurityHeaders(new Headers(res!.headers()), "page");
       nonces.add(/nonce-([^']+)/.exec(res!.headers()["content-security-policy"] ?? "")?.[1] ?? "");
-      await page.waitForLoadState("networkidle");
+      await page.waitForLoadState("load");
     }
     expect(nonces.size).toBe(8);
     expect(violations).toEqual([]);
