@@ -12,5 +12,6 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/review", label: "Review", permission: "technique:review", badge: "review" },
   { href: "/people", label: "People", permission: "people:manage" },
   { href: "/mail", label: "Mail", permission: "mail:read-outbox" },
+  { href: "/audit", label: "Audit", permission: "audit:read" },
   { href: "/settings", label: "Settings", permission: "token:manage" },
 ];

@@ -6,7 +6,7 @@ const NAV: Record<string, { sees: string[]; doesNotSee: string[] }> = {
   "artist@kestrel.test": { sees: ["Techniques", "Search", "Shows", "Settings"], doesNotSee: ["People", "Review", "Mail"] },
   "senior@kestrel.test": { sees: ["Techniques", "Search", "Shows", "Settings"], doesNotSee: ["People", "Review", "Mail"] },
   "lead@kestrel.test": { sees: ["Techniques", "Review", "Shows"], doesNotSee: ["People", "Mail"] },
-  "admin@kestrel.test": { sees: ["People", "Mail", "Techniques"], doesNotSee: ["Review"] },
+  "admin@kestrel.test": { sees: ["People", "Mail", "Audit", "Techniques"], doesNotSee: ["Review"] },
 };
 
 describe.skipIf(!hasChromium())("sign-in and roles in Chromium", () => {

@@ -123,3 +123,19 @@ describe("personal API tokens", () => {
     await expectErrorShape(await me(apiRequest("GET", "/api/me", { token }), ctx), 401, "unauthorized");
   });
 });
+
+describe("audit log (admin)", () => {
+  it("lists changes newest first for admins and refuses everyone else", async () => {
+    const { GET: audit } = await import("@/app/api/admin/audit/route");
+    const people = await createPeople();
+    await invite(apiRequest("POST", "/api/people", people.admin, { email: "audited@kestrel.test", name: "Audited", role: "artist" }), ctx);
+    for (const role of ["artist", "senior", "lead"] as const) {
+      await expectErrorShape(await audit(apiRequest("GET", "/api/admin/audit", people[role]), ctx), 403, "forbidden");
+    }
+    await expectErrorShape(await audit(apiRequest("GET", "/api/admin/audit", null), ctx), 401, "unauthorized");
+    const res = await audit(apiRequest("GET", "/api/admin/audit?limit=5", people.admin), ctx);
+    const body = await res.json();
+    expect(body.items[0]).toMatchObject({ action: "person.invite", actor: { id: people.admin.id } });
+    expect(body.items.length).toBeLessThanOrEqual(5);
+  });
+});
