@@ -392,7 +392,7 @@ describe("hostile multipart bodies", () => {
       await expectErrorShape(res, label);
     }
     // Not multipart at all.
-    const raw = await POST(new Request("http://localhost/api/stills", { method: "POST", body: png, headers: { ...auth, "Content-Type": "image/png" } }), params({}));
+    const raw = await POST(new Request("http://localhost/api/stills", { method: "POST", body: new Uint8Array(png), headers: { ...auth, "Content-Type": "image/png" } }), params({}));
     expect(raw.status).toBe(415);
     await expectErrorShape(raw, "raw body");
     // A NUL in a text field reaches no database column (PostgreSQL refuses U+0000).
