@@ -14,6 +14,10 @@ import { createPair, createStill } from "@/lib/stills/mutations";
 import { newIncomingPath } from "@/lib/stills/storage";
 import { createTechnique, retireTechnique, reviewTechnique, setHouseMethod, submitTechnique, updateTechnique } from "@/lib/techniques/mutations";
 import { findTechniqueBySlug, getTechnique } from "@/lib/techniques/queries";
+import { answerQuestion, askQuestion } from "@/lib/questions";
+import { createRequest } from "@/lib/requests";
+import { subscribe } from "@/lib/subscriptions/mutations";
+import { documentFromText } from "@/lib/techniques/document";
 import { slugify } from "@/lib/techniques/slug";
 import type { TechniqueDocument } from "@/lib/techniques/document";
 
@@ -107,4 +111,29 @@ export async function seedTechniques(log: (line: string) => void): Promise<void>
     const slug = slugs.get(t.key)!;
     await retireTechnique(lead, slug, { supersededBy: t.supersededBy ? slugs.get(t.supersededBy) : undefined, note: "Replaced by the channel-based method, which needs no hand painting." });
   }
+  await seedConversation(slugs);
+}
+
+/** A little life around the techniques: followers, a question with its answer, an open request. */
+async function seedConversation(slugs: Map<string, string>): Promise<void> {
+  const rows = await getDb().select().from(users);
+  const person = (email: string): SessionUser => {
+    const u = rows.find((r) => r.email === email)!;
+    return { id: u.id, email: u.email, name: u.name, role: u.role };
+  };
+  const marker = slugs.get("marker-channel-cleanup");
+  if (!marker) return;
+  const artist = person("artist@kestrel.test");
+  await subscribe(artist, { target: { kind: "technique", key: marker }, mode: "immediate" });
+  await subscribe(person("lena.strandberg@kestrel.test"), { target: { kind: "tag", key: "tracking-markers" }, mode: "daily" });
+  const question = await askQuestion(artist, marker, documentFromText("Does the hide row still work when the markers are motion-blurred across two frames?"));
+  const answerer = rows.find((r) => r.email === DEMO_TECHNIQUES.find((t) => t.key === "marker-channel-cleanup")?.author);
+  if (answerer) {
+    await answerQuestion(
+      { id: answerer.id, email: answerer.email, name: answerer.name, role: answerer.role },
+      question.id,
+      documentFromText("Mostly. Sample the blurred edge as a second marker shade so the solve sees it, and grow the matte one or two pixels more."),
+    );
+  }
+  await createRequest(person("dara.pellow@kestrel.test"), { query: "LED wall flicker on a night exterior", note: "Seen on two LTH shots; the screen pulses every few frames." });
 }
