@@ -1,5 +1,6 @@
 "use client";
 
+import { useOptimistic } from "react";
 import { useSearchNav } from "@/components/search/search-nav";
 import type { SearchFacetTag, SearchStatus } from "@/lib/search/types";
 import { searchHref, toggled, type SearchApiResponse, type SearchState } from "@/lib/search-ui/params";
@@ -8,9 +9,14 @@ import { STATUS_LABELS } from "@/lib/techniques/schemas";
 type Option = { value: string; label: string; count: number };
 
 /** Facets for problem tags, plate tags and status; each box changes the address, so a filtered search can be shared. */
-export function FacetPanel({ state, facets, tagInfo }: { state: SearchState; facets: SearchApiResponse["facets"]; tagInfo: Record<string, { name: string; kind: "problem" | "plate" }> }) {
+export function FacetPanel({ state: current, facets, tagInfo }: { state: SearchState; facets: SearchApiResponse["facets"]; tagInfo: Record<string, { name: string; kind: "problem" | "plate" }> }) {
   const { navigate } = useSearchNav();
-  const go = (next: Partial<SearchState>) => navigate(searchHref({ ...state, ...next, offset: 0 }));
+  // Boxes tick at once; the server's answer replaces this state when the new page arrives.
+  const [state, setState] = useOptimistic(current);
+  const go = (next: Partial<SearchState>) => {
+    const target = { ...state, ...next, offset: 0 };
+    navigate(searchHref(target), () => setState(target));
+  };
   const tagOptions = (list: SearchFacetTag[], kind: "problem" | "plate"): Option[] => {
     const options: Option[] = list.map((f) => ({ value: f.slug, label: f.name, count: f.count }));
     // A chosen tag stays listed (to untick it) even when nothing left carries it.

@@ -87,7 +87,7 @@ export function FinderDialog({ open, onClose, userId }: { open: boolean; onClose
         ? "No technique matches. Press Enter to search everything, or ask for a write-up there."
         : suggest.isFetching || debounced !== typed
           ? "Searching…"
-          : `${suggest.data?.items.length ?? 0} techniques`;
+          : `${suggest.data?.items.length ?? 0} ${suggest.data?.items.length === 1 ? "technique" : "techniques"}`;
 
   return (
     <dialog

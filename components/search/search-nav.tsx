@@ -4,7 +4,8 @@ import { useRouter } from "next/navigation";
 import { createContext, useContext, useTransition, type ReactNode } from "react";
 import { cn } from "@/lib/utils";
 
-type SearchNav = { navigate(href: string): void; isPending: boolean };
+/** `optimistic` runs inside the transition, so a control can show its new value before the page answers. */
+type SearchNav = { navigate(href: string, optimistic?: () => void): void; isPending: boolean };
 
 const SearchNavContext = createContext<SearchNav | null>(null);
 
@@ -15,7 +16,11 @@ const SearchNavContext = createContext<SearchNav | null>(null);
 export function SearchNavProvider({ children }: { children: ReactNode }) {
   const router = useRouter();
   const [isPending, startTransition] = useTransition();
-  const navigate = (href: string) => startTransition(() => router.push(href, { scroll: false }));
+  const navigate = (href: string, optimistic?: () => void) =>
+    startTransition(() => {
+      optimistic?.();
+      router.push(href, { scroll: false });
+    });
   return <SearchNavContext.Provider value={{ navigate, isPending }}>{children}</SearchNavContext.Provider>;
 }
 
