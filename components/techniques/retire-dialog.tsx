@@ -7,9 +7,8 @@ import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Select, TextArea } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
+import { USE_OUTCOME_LABELS, type TechniqueUsesResponse, type UseOutcome } from "@/lib/shots/schemas";
 import type { TechniqueListResponse } from "@/lib/techniques/schemas";
-
-type UsesResponse = { items?: Array<{ shot: string; outcome: string }>; followUp?: Array<{ code: string }> };
 
 /** Retire, optionally naming the approved technique that replaces it; lists shots to follow up first. */
 export function RetireDialog({ slug }: { slug: string }) {
@@ -24,8 +23,11 @@ export function RetireDialog({ slug }: { slug: string }) {
     queryFn: () => apiFetch<TechniqueListResponse>("/api/techniques?status=approved&limit=200"),
     enabled: open,
   });
-  const uses = useQuery({ queryKey: ["uses", slug, "follow-up"], queryFn: () => apiFetch<UsesResponse>(`/api/techniques/${slug}/uses?limit=200`), enabled: open });
-  const shotCodes = [...new Set((uses.data?.items ?? []).map((u) => u.shot))];
+  const uses = useQuery({ queryKey: ["uses", slug, "follow-up"], queryFn: () => apiFetch<TechniqueUsesResponse>(`/api/techniques/${slug}/uses?limit=200`), enabled: open });
+  // Uses come newest first, so the first one seen per shot carries its latest outcome.
+  const latestByShot = new Map<string, UseOutcome>();
+  for (const u of uses.data?.items ?? []) if (!latestByShot.has(u.shot.code)) latestByShot.set(u.shot.code, u.outcome);
+  const followUp = [...latestByShot].sort(([a], [b]) => a.localeCompare(b));
 
   async function retire() {
     setBusy(true);
@@ -66,9 +68,17 @@ export function RetireDialog({ slug }: { slug: string }) {
         </label>
         <TextArea id="retire-note" value={note} onChange={(e) => setNote(e.target.value)} />
         <div>
-          <p className="font-medium">Shots that used it ({shotCodes.length})</p>
-          {uses.isLoading ? <p className="text-muted">Loading…</p> : shotCodes.length ? <p className="font-mono text-xs">{shotCodes.join(", ")}</p> : <p className="text-muted">None logged.</p>}
-          {shotCodes.length ? <p className="text-muted">Each of these shots will show a follow-up note pointing to the replacement.</p> : null}
+          <p className="font-medium">Shots that used it ({followUp.length})</p>
+          {uses.isLoading ? <p className="text-muted">Loading…</p> : followUp.length ? (
+            <ul className="max-h-40 overflow-auto text-xs" data-testid="follow-up-shots">
+              {followUp.map(([code, outcome]) => (
+                <li key={code}>
+                  <span className="font-mono">{code}</span> <span className="text-muted">· last {USE_OUTCOME_LABELS[outcome].toLowerCase()}</span>
+                </li>
+              ))}
+            </ul>
+          ) : <p className="text-muted">None logged.</p>}
+          {followUp.length ? <p className="text-muted">Each of these shots will show a follow-up note pointing to the replacement.</p> : null}
         </div>
         {error ? <p role="alert" className="text-bad">{error}</p> : null}
       </ConfirmDialog>

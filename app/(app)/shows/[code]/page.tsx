@@ -29,6 +29,8 @@ export default async function ShowPage({ params }: Props) {
   // One address per show: codes are stored in capitals.
   if (show.code !== code) redirect(`/shows/${show.code}`);
   const shots = await listShots(user, show.code, { limit: SHOTS_PAGE_SIZE });
+  // Counted by the same query as the table below, so the title and the table always agree.
+  const shotCount = shots.total;
   const canManage = can(user, "show:manage");
   return (
     <div className="space-y-6">
@@ -49,7 +51,7 @@ export default async function ShowPage({ params }: Props) {
       <Card aria-labelledby="shots-title">
         <CardTitle
           action={
-            show.shotCount ? (
+            shotCount ? (
               <a href={`/api/shows/${show.code}/shots?format=csv`} className={buttonClasses("secondary")} download>
                 Export CSV
               </a>
@@ -57,7 +59,7 @@ export default async function ShowPage({ params }: Props) {
           }
         >
           <span id="shots-title">
-            Shots <span className="font-normal text-muted">({show.shotCount})</span>
+            Shots <span className="font-normal text-muted">({shotCount})</span>
           </span>
         </CardTitle>
         <ShowShotsTable showCode={show.code} initial={shots} />
