@@ -1,5 +1,5 @@
 import "server-only";
-import { eq, inArray } from "drizzle-orm";
+import { eq, gt, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { houseMethods, revisions, shots, tags, techniques, uses, type Revision, type Technique } from "@/db/schema";
 import { getSearchIndex, rebuildSearchIndex, type SearchDocument, type SearchIndexEntry, type SearchTag } from "@/lib/search";
@@ -94,4 +94,18 @@ export async function reindexTechnique(techniqueId: string): Promise<void> {
 /** Rebuilds the whole index from the database (start-up, and after tag renames or merges). */
 export function rebuildSearchFromDb(): Promise<number> {
   return rebuildSearchIndex(() => loadSearchEntries());
+}
+
+/**
+ * With several app instances on one PostgreSQL server, each keeps its own index: this picks up
+ * techniques another instance changed since `since` and returns the new high-water mark.
+ */
+export async function syncChangedSince(since: Date): Promise<Date> {
+  const changed = await getDb().select({ id: techniques.id, updatedAt: techniques.updatedAt }).from(techniques).where(gt(techniques.updatedAt, since));
+  let mark = since;
+  for (const row of changed) {
+    await reindexTechnique(row.id);
+    if (row.updatedAt > mark) mark = row.updatedAt;
+  }
+  return mark;
 }
