@@ -84,6 +84,7 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { path: "/api/admin/outbox/[id]/retry", method: "POST", access: ADMIN },
   { path: "/api/admin/inbox", method: "GET", access: ADMIN },
   { path: "/api/admin/inbox/[id]", method: "GET", access: ADMIN },
+  { path: "/api/admin/audit", method: "GET", access: ADMIN, note: "audit:read" },
 
   // Techniques.
   { path: "/api/techniques", method: "GET", access: "signed-in", note: "Readers see approved techniques; seniors and leads drafts too." },

@@ -146,6 +146,7 @@ function cases(): Record<string, Case> {
     "GET /api/admin/outbox": { ok: 200, prep: async () => ({ url: "/api/admin/outbox" }) },
     "GET /api/admin/outbox/[id]": { ok: 200, prep: async () => ({ url: `/api/admin/outbox/${w.outboxId}`, params: { id: String(w.outboxId) } }) },
     "POST /api/admin/outbox/[id]/retry": { ok: 200, prep: async () => ({ url: `/api/admin/outbox/${w.outboxId}/retry`, params: { id: String(w.outboxId) } }) },
+    "GET /api/admin/audit": { ok: 200, prep: async () => ({ url: "/api/admin/audit?limit=5" }) },
     "GET /api/admin/inbox": { ok: 200, prep: async () => ({ url: "/api/admin/inbox" }) },
     "GET /api/admin/inbox/[id]": { ok: 200, prep: async () => ({ url: `/api/admin/inbox/${INBOX_ID}`, params: { id: INBOX_ID } }) },
 
