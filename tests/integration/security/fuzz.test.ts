@@ -20,7 +20,7 @@ import { approvedTechnique, buildWorld, draftTechnique, expectErrorShape, inRevi
 
 // Bounded so the suite stays fast; PLATEROOM_FUZZ_SCALE=10 for a deeper run by hand.
 const SCALE = Number(process.env.PLATEROOM_FUZZ_SCALE ?? 1);
-const RUNS = { arbitrary: 40 * SCALE, mutated: 60 * SCALE, malformed: 15 * SCALE };
+const RUNS = { arbitrary: 30 * SCALE, mutated: 50 * SCALE, malformed: 10 * SCALE };
 let w: World;
 let folders: ReturnType<typeof useTempFolders>;
 
