@@ -1,7 +1,7 @@
 import { NextResponse, type NextRequest } from "next/server";
 
 const SESSION_COOKIES = ["authjs.session-token", "__Secure-authjs.session-token"];
-const PUBLIC_PATHS = ["/login", "/set-password", "/forgot-password", "/unsubscribe", "/unsubscribed"];
+const PUBLIC_PATHS = ["/login", "/set-password", "/forgot-password", "/unsubscribe"];
 
 /**
  * Content-Security-Policy with a fresh nonce per request: Next.js puts it on its own inline
