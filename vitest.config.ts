@@ -12,6 +12,8 @@ export default defineConfig({
   },
   test: {
     environment: "node",
+    // next-auth imports "next/server" without an extension, which Node refuses outside a bundler.
+    server: { deps: { inline: ["next-auth"] } },
     globalSetup: ["tests/global-setup.ts"],
     testTimeout: 30_000,
     hookTimeout: 120_000,
