@@ -96,7 +96,8 @@ export function followUpFor(t: Pick<Technique, "status">, replacement: { slug: s
 
 // ---- shows ----
 
-const shotCountSql = sql<number>`(select count(*) from ${shots} where ${shots.showId} = ${shows.id})`.mapWith(Number);
+// Qualified by hand: inside the subquery drizzle prints both columns unqualified, and "id" would bind to shots.
+const shotCountSql = sql<number>`(select count(*) from "shots" s where s."show_id" = "shows"."id")`.mapWith(Number);
 
 /** Every show with its number of shots, active shows first. Any signed-in person. */
 export async function listShows(actor: SessionUser): Promise<ShowResponse[]> {
