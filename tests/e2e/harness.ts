@@ -206,3 +206,48 @@ export async function isShown(locator: Locator, timeout = 10_000): Promise<boole
     return false;
   }
 }
+
+/** A fresh copy of the seeded data and uploads folders in a new temporary folder (removed by the caller). */
+export function copySeededData(): { work: string; dataDir: string; uploadsDir: string } {
+  const template = seededTemplate();
+  const work = fs.mkdtempSync(path.join(os.tmpdir(), "plateroom-e2e-"));
+  const dataDir = path.join(work, "data");
+  const uploadsDir = path.join(work, "uploads");
+  fs.cpSync(template.data, dataDir, { recursive: true });
+  fs.cpSync(template.uploads, uploadsDir, { recursive: true });
+  return { work, dataDir, uploadsDir };
+}
+
+export type ServerProcess = { baseUrl: string; child: ChildProcess; output(): string; exited(): Promise<void> };
+
+/**
+ * Starts the built app on the given data and uploads folders (no mail sender), so a test can
+ * kill it (even with SIGKILL) and start it again on the same folders. The caller ends it.
+ */
+export async function startServerOn(dataDir: string, uploadsDir: string, options: { authSecret?: string } = {}): Promise<ServerProcess> {
+  ensureBuild();
+  const port = await freePort();
+  const env = baseEnv({
+    NODE_ENV: "production",
+    PLATEROOM_DIST_DIR: distDir,
+    PORT: String(port),
+    PLATEROOM_DATA_DIR: dataDir,
+    PLATEROOM_UPLOADS_DIR: uploadsDir,
+    AUTH_SECRET: options.authSecret ?? crypto.randomBytes(32).toString("base64url"),
+    PLATEROOM_MAIL_SENDER: "off",
+    PLATEROOM_BASE_URL: `http://127.0.0.1:${port}`,
+  });
+  let output = "";
+  const child = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env });
+  child.stdout?.on("data", (d: Buffer) => (output += d.toString()));
+  child.stderr?.on("data", (d: Buffer) => (output += d.toString()));
+  const exit = new Promise<void>((resolve) => child.once("exit", () => resolve()));
+  const baseUrl = `http://127.0.0.1:${port}`;
+  try {
+    await waitFor(`${baseUrl}/api/health`, child, () => output.slice(-6000));
+  } catch (error) {
+    if (child.exitCode === null) child.kill("SIGKILL");
+    throw error;
+  }
+  return { baseUrl, child, output: () => output, exited: () => (child.exitCode !== null || child.signalCode !== null ? Promise.resolve() : exit) };
+}
