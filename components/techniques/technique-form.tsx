@@ -15,6 +15,7 @@ import type { RecipeStep } from "@/lib/lab/recipe";
 import type { TechniqueDocument } from "@/lib/techniques/document";
 import type { TagRef } from "@/lib/techniques/schemas";
 import { uploadStillForEditor } from "@/components/techniques/upload-still";
+import { formatDateTime } from "@/lib/utils";
 
 export type TechniqueFormValue = TechniqueDraft & { recipe: RecipeStep[] };
 
@@ -98,11 +99,16 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
       {conflict ? (
         <div role="alert" className="space-y-2 rounded border border-bad/60 bg-bad/10 p-3 text-sm">
           <p className="font-medium">Someone else saved first — nothing was overwritten.</p>
-          <p>{conflict.message}</p>
+          {/* The API's message carries a raw ISO time; say the same in readable words when we know who and when. */}
+          <p>
+            {conflict.latest
+              ? `${conflict.latest.author ?? "Someone"} saved revision ${conflict.latest.number} on ${formatDateTime(conflict.latest.savedAt)}, after the revision ${base} you started from. Compare and re-apply your changes.`
+              : conflict.message}
+          </p>
           <div className="flex flex-wrap gap-2">
             {conflict.latest && slug ? (
               <Link className="underline" href={`/techniques/${slug}/history?from=${base}&to=${conflict.latest.number}`} target="_blank">
-                Compare their revision {conflict.latest.number} with yours&apos; base ({base})
+                Compare their revision {conflict.latest.number} with your base ({base})
               </Link>
             ) : null}
             {conflict.latest ? (

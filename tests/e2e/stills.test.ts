@@ -112,6 +112,8 @@ describe.skipIf(!hasChromium())("stills in Chromium", () => {
     await page.goto(`/techniques/${slug}`);
     const evidence = page.getByRole("region", { name: "Before and after" });
     expect(await isShown(evidence.getByText("No before/after stills yet."))).toBe(true);
+    // Made without a body: the page says so instead of showing an empty card.
+    expect(await isShown(page.getByText("No write-up yet."))).toBe(true);
     await page.getByText("Add stills and pair them").click();
     const uploader = page.getByRole("region", { name: "Upload stills" });
     expect(await isShown(uploader)).toBe(true);
@@ -159,6 +161,12 @@ describe.skipIf(!hasChromium())("stills in Chromium", () => {
     expect(after.values.map((v) => v.code)).toEqual([...raw.after.subarray(i, i + 3)]);
     expectConsistent(before.values, 255);
     expectConsistent(after.values, 255);
+    // The server's decode (sharp) of the stored originals agrees with the browser's canvas and the bytes written.
+    const ids = { before: await stillIdOf(evidence.getByRole("img", { name: `Before: ${alts.before}` })), after: await stillIdOf(evidence.getByRole("img", { name: `After: ${alts.after}` })) };
+    for (const kind of ["before", "after"] as const) {
+      const stored = await serverPixel(page, ids[kind], 25, 15);
+      expect(stored).toMatchObject({ bitDepth: 8, max: 255, values: [...raw[kind].subarray(i, i + 3)] });
+    }
     await screenshot(page, "stills-paired");
     await context.close();
   });
@@ -172,6 +180,8 @@ describe.skipIf(!hasChromium())("stills in Chromium", () => {
     const beforeImg = evidence.getByRole("img", { name: /^Before: / }).first();
     const afterImg = evidence.getByRole("img", { name: /^After: / }).first();
     await beforeImg.waitFor();
+    // Mouse coordinates are the viewport's: bring the still into view first.
+    await beforeImg.scrollIntoViewIfNeeded();
     const box = (await beforeImg.boundingBox())!;
     expect(box.width).toBeGreaterThan(100);
 

@@ -131,6 +131,11 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     const rendered = page.locator(".prose-plate");
     expect(await isShown(rendered.locator("table th", { hasText: "Setting" }))).toBe(true);
     expect(await isShown(rendered.locator("table td", { hasText: "Hides the seam" }))).toBe(true);
+    // The table's third row was left empty: it keeps a line's height rather than collapsing.
+    const rows = rendered.locator("table tr");
+    expect(await rows.count()).toBe(3);
+    const [filled, empty] = [(await rows.nth(1).boundingBox())!, (await rows.nth(2).boundingBox())!];
+    expect(empty.height).toBeGreaterThanOrEqual(filled.height - 2);
     const callout = rendered.locator("aside.callout-works");
     expect(await isShown(callout.getByText("Works when", { exact: true }))).toBe(true);
     expect(await isShown(callout.getByText("Soft cloud edges hide the patch seam."))).toBe(true);
@@ -158,6 +163,11 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     await artist.page.goto(`/techniques/${slug}`);
     expect(await isShown(artist.page.getByText(SUMMARY, { exact: true }))).toBe(true);
     expect(await artist.page.getByText(NEW_SUMMARY).count()).toBe(0);
+    // The problem page's list shows the approved summary too.
+    await artist.page.goto(`/problems/${PROBLEM.slug}`);
+    expect(await isShown(artist.page.getByText(SUMMARY, { exact: true }))).toBe(true);
+    expect(await artist.page.getByText(NEW_SUMMARY).count()).toBe(0);
+    await artist.page.goto(`/techniques/${slug}`);
 
     const lead = await signIn(browser, app.baseUrl, LEAD);
     await approve(lead.page, slug, 2);
@@ -195,7 +205,12 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     expect(await isShown(alert, 30_000)).toBe(true);
     // The 409 names who saved and which revision (issue 3: "says who saved what and when"); the
     // senior is Joel Brackwell in db/seed-data/people.ts.
-    expect(await alert.textContent()).toContain("Joel Brackwell saved revision 3");
+    const said = (await alert.textContent()) ?? "";
+    expect(said).toContain("Joel Brackwell saved revision 3");
+    // Said in words a person reads, not a raw ISO 8601 stamp.
+    expect(said).not.toMatch(/\d{4}-\d\d-\d\dT\d\d:/);
+    const compare = alert.getByRole("link", { name: /Compare their revision 3/ });
+    expect(await compare.getAttribute("href")).toBe(`/techniques/${slug}/history?from=2&to=3`);
     // Nothing lost: the lead is still on the form with their own text.
     expect(new URL(lead.page.url()).pathname).toBe(`/techniques/${slug}/edit`);
     expect(await lead.page.getByLabel("One-line summary").inputValue()).toBe(leadSummary);
