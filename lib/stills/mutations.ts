@@ -158,10 +158,20 @@ export async function createPair(user: SessionUser, input: CreatePairInput): Pro
       .values({ techniqueId: technique.id, beforeStillId: before.id, afterStillId: after.id, caption: data.caption ?? "", position: next })
       .returning();
     if (!row) throw new Error("Insert returned no row.");
+    // Pairing says which still is which, whatever role they were uploaded with.
+    await tx.update(stills).set({ role: "before" }).where(eq(stills.id, before.id));
+    await tx.update(stills).set({ role: "after" }).where(eq(stills.id, after.id));
     await writeAudit(tx, { actorId: user.id, action: "still_pair.create", targetType: "still_pair", targetId: row.id, detail: { techniqueId: technique.id } });
     return row;
   });
-  return { id: pair.id, techniqueId: pair.techniqueId, caption: pair.caption, position: pair.position, before: toStillResponse(before), after: toStillResponse(after) };
+  return {
+    id: pair.id,
+    techniqueId: pair.techniqueId,
+    caption: pair.caption,
+    position: pair.position,
+    before: toStillResponse({ ...before, role: "before" }),
+    after: toStillResponse({ ...after, role: "after" }),
+  };
 }
 
 /** Removes a pair (seniors and up); the stills stay. */

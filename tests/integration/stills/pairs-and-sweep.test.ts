@@ -49,13 +49,14 @@ afterAll(() => {
 
 describe("before/after pairs", () => {
   it("a senior pairs two stills of the technique; everyone who sees the technique lists it; delete removes it", async () => {
+    // Both uploaded as "before", as the technique page's uploader does; pairing sets which is which.
     const before = await uploadStill(senior, { owner: "technique", technique: technique.slug, role: "before" });
-    const after = await uploadStill(senior, { owner: "technique", technique: technique.slug, role: "after" });
+    const after = await uploadStill(senior, { owner: "technique", technique: technique.slug, role: "before" });
     const res = await postPair(pairRequest(senior, { technique: technique.slug, before, after, caption: "Marker removal on SLM_040_0120" }), ctx({}));
     expect(res.status).toBe(201);
-    const pair = (await res.json()) as { id: string; before: { id: string }; after: { id: string }; position: number };
-    expect(pair.before.id).toBe(before);
-    expect(pair.after.id).toBe(after);
+    const pair = (await res.json()) as { id: string; before: { id: string; role: string }; after: { id: string; role: string }; position: number };
+    expect(pair.before).toMatchObject({ id: before, role: "before" });
+    expect(pair.after).toMatchObject({ id: after, role: "after" });
 
     const listed = await listPairs(new Request(`http://plateroom.test/api/stills/pairs?technique=${technique.slug}`, { headers: artist.auth }), ctx({}));
     const items = ((await listed.json()) as { items: { id: string; caption: string }[] }).items;
