@@ -63,4 +63,43 @@ describe.skipIf(!hasChromium())("sign-in and roles in Chromium", () => {
     await screenshot(page, "sign-in-refused");
     await context.close();
   });
+
+  /** A script's sign-in, the standard Auth.js way (shared/API.md, "Calling it"). */
+  async function scriptSignIn(email: string, password: string, forwardedFor?: string): Promise<{ status: number; cookie: string }> {
+    const csrfRes = await fetch(`${app.baseUrl}/api/auth/csrf`);
+    const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+    const jar = csrfRes.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+    const res = await fetch(`${app.baseUrl}/api/auth/callback/credentials`, {
+      method: "POST",
+      headers: { "Content-Type": "application/x-www-form-urlencoded", cookie: jar, ...(forwardedFor ? { "X-Forwarded-For": forwardedFor } : {}) },
+      body: new URLSearchParams({ csrfToken, email, password }),
+      redirect: "manual",
+    });
+    const cookie = [jar, ...res.headers.getSetCookie().map((c) => c.split(";")[0])].join("; ");
+    return { status: res.status, cookie };
+  }
+
+  it("signs each demo role in through /api/auth/csrf and the credentials callback, and /api/me answers its role", async () => {
+    for (const role of ["artist", "senior", "lead", "admin"]) {
+      const { cookie } = await scriptSignIn(`${role}@kestrel.test`, "plateroom-demo");
+      const me = await fetch(`${app.baseUrl}/api/me`, { headers: { cookie } });
+      expect(me.status).toBe(200);
+      expect(await me.json()).toMatchObject({ email: `${role}@kestrel.test`, role });
+    }
+    const wrong = await scriptSignIn("lead@kestrel.test", "not-the-password");
+    expect((await fetch(`${app.baseUrl}/api/me`, { headers: { cookie: wrong.cookie } })).status).toBe(401);
+  });
+
+  it("answers 429 after 10 failed sign-ins for one e-mail within 15 minutes", async () => {
+    // Earlier tests in this file already failed sign-ins from this address; a client address of its
+    // own (a documentation address, RFC 5737; only a header value) leaves the e-mail's count to decide.
+    const address = "203.0.113.7";
+    const statuses: number[] = [];
+    for (let i = 0; i < 11; i++) statuses.push((await scriptSignIn("senior@kestrel.test", `wrong-${i}`, address)).status);
+    // The first ten fail the ordinary way (a redirect back with an error); the eleventh is refused outright.
+    expect(statuses.slice(0, 10).every((s) => s !== 429)).toBe(true);
+    expect(statuses[10]).toBe(429);
+    // The right password is refused too while the limit holds (OWASP Authentication Cheat Sheet, throttling).
+    expect((await scriptSignIn("senior@kestrel.test", "plateroom-demo", address)).status).toBe(429);
+  });
 });
