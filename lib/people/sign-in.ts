@@ -18,7 +18,10 @@ export async function isSignInLimited(email: string, address: string): Promise<b
     })
     .from(signInFailures)
     .where(and(gt(signInFailures.at, since), or(eq(signInFailures.email, email.toLowerCase()), eq(signInFailures.address, address))));
-  return (row?.byEmail ?? 0) >= SIGN_IN_FAILURE_LIMIT || (row?.byAddress ?? 0) >= SIGN_IN_FAILURE_LIMIT;
+  // Without a proxy telling us the client address every caller looks alike ("local"); counting
+  // those together would let ten typos lock everyone out, so only known addresses are counted.
+  const addressLimited = address !== "local" && (row?.byAddress ?? 0) >= SIGN_IN_FAILURE_LIMIT;
+  return (row?.byEmail ?? 0) >= SIGN_IN_FAILURE_LIMIT || addressLimited;
 }
 
 /**
