@@ -35,16 +35,16 @@ export function currentDriver(): Driver {
 
 function openDefault(): void {
   if (env.DATABASE_URL) {
-    useNodePostgres(env.DATABASE_URL);
+    installNodePostgres(env.DATABASE_URL);
     return;
   }
   const dir = path.resolve(env.PLATEROOM_DATA_DIR, "pg");
   fs.mkdirSync(dir, { recursive: true });
-  usePglite(new PGlite(dir));
+  installPglite(new PGlite(dir));
 }
 
 /** Installs a PGlite instance as this process's database (tests load a migrated template). */
-export function usePglite(client: PGlite): Database {
+export function installPglite(client: PGlite): Database {
   holder.db = drizzlePglite(client, { schema }) as unknown as Database;
   holder.driver = "pglite";
   holder.close = () => client.close();
@@ -52,7 +52,7 @@ export function usePglite(client: PGlite): Database {
 }
 
 /** Installs a PostgreSQL server connection pool as this process's database. */
-export function useNodePostgres(connectionString: string): Database {
+export function installNodePostgres(connectionString: string): Database {
   const pool = new pg.Pool({ connectionString, max: 10 });
   holder.db = drizzleNodePg(pool, { schema }) as unknown as Database;
   holder.driver = "postgres";

@@ -7,7 +7,7 @@ export const showKindEnum = pgEnum("show_kind", ["feature", "series", "commercia
 export const showStateEnum = pgEnum("show_state", ["active", "wrapped"]);
 /** Our own words for where a shot stands in paint and prep. */
 export const shotStateEnum = pgEnum("shot_state", ["waiting", "in_prep", "cleaned", "on_hold"]);
-export const useOutcomeEnum = pgEnum("use_outcome", ["clean", "touch-up", "failed"]);
+export const outcomeEnum = pgEnum("use_outcome", ["clean", "touch-up", "failed"]);
 
 export const shows = pgTable("shows", {
   id: uuid("id").primaryKey().defaultRandom(),
@@ -48,7 +48,7 @@ export const uses = pgTable(
     revisionId: uuid("revision_id").references(() => revisions.id, { onDelete: "set null" }),
     shotId: uuid("shot_id").notNull().references(() => shots.id, { onDelete: "cascade" }),
     userId: uuid("user_id").references(() => users.id, { onDelete: "set null" }),
-    outcome: useOutcomeEnum("outcome").notNull(),
+    outcome: outcomeEnum("outcome").notNull(),
     note: text("note").notNull().default(""),
     beforeStillId: uuid("before_still_id").references(() => stills.id, { onDelete: "set null" }),
     afterStillId: uuid("after_still_id").references(() => stills.id, { onDelete: "set null" }),

@@ -575,10 +575,6 @@ export function createSearchIndex(): SearchIndex & {
     return out;
   }
 
-  function isVisible(e: Entry, audience: SearchAudience): boolean {
-    return (e.mask & (audience === "published" ? MASK_PUBLISHED : MASK_WORKING)) !== 0;
-  }
-
   /** Problem tags the query is about: every content word of the tag's name or of one alias was matched. */
   function hitProblemTags(words: QueryWord[], filterTags: readonly string[]): Set<string> {
     const matched = new Set<string>();

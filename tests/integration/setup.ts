@@ -4,7 +4,7 @@ import path from "node:path";
 import { PGlite } from "@electric-sql/pglite";
 import pg from "pg";
 import { afterAll } from "vitest";
-import { closeDb, useNodePostgres, usePglite } from "@/db/client";
+import { closeDb, installNodePostgres, installPglite } from "@/db/client";
 import { PG_TEMPLATE_DB, withDatabase } from "@/tests/global-setup";
 
 // Each test file gets its own database, a copy of the migrated template made in global-setup:
@@ -18,7 +18,7 @@ if (serverUrl) {
   await admin.connect();
   await admin.query(`CREATE DATABASE ${name} TEMPLATE ${PG_TEMPLATE_DB}`);
   await admin.end();
-  useNodePostgres(withDatabase(serverUrl, name));
+  installNodePostgres(withDatabase(serverUrl, name));
   dropDatabase = async () => {
     const c = new pg.Client({ connectionString: serverUrl });
     await c.connect();
@@ -27,7 +27,7 @@ if (serverUrl) {
   };
 } else {
   const template = fs.readFileSync(path.resolve("tests/.tmp/template.tar.gz"));
-  usePglite(new PGlite({ loadDataDir: new Blob([template]) }));
+  installPglite(new PGlite({ loadDataDir: new Blob([template]) }));
 }
 
 afterAll(async () => {

@@ -121,8 +121,6 @@ const jsonish = fc.oneof(
   { weight: 1, arbitrary: fc.constantFrom<unknown>(1e308, -0, 2 ** 53 + 1, "", "\u0000", "<script>alert(1)</script>", "../../etc/passwd", "a".repeat(10_000), [], {}, null) },
 );
 
-type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
-
 function allPaths(value: unknown, prefix: (string | number)[] = []): (string | number)[][] {
   const out: (string | number)[][] = [prefix];
   if (Array.isArray(value)) value.forEach((v, i) => out.push(...allPaths(v, [...prefix, i])));
