@@ -21,12 +21,13 @@ export function RenderPanel({ still, steps, space }: { still: LabStillInfo; step
   return (
     <section aria-label="Exact render" className="space-y-3">
       <div className="flex flex-wrap items-center gap-2">
-        <Button variant="primary" onClick={() => run("proxy")} disabled={running || !steps.length}>
-          Render exact{still.width > PROXY_WIDTH ? ` (${PROXY_WIDTH} px preview)` : ""}
+        {/* "Render exact" is always the full-resolution float render; a wide still also offers a quick proxy. */}
+        <Button variant="primary" onClick={() => run("full")} disabled={running || !steps.length}>
+          Render exact ({still.width}×{still.height})
         </Button>
         {still.width > PROXY_WIDTH ? (
-          <Button onClick={() => run("full")} disabled={running || !steps.length}>
-            Full resolution ({still.width}×{still.height})
+          <Button onClick={() => run("proxy")} disabled={running || !steps.length}>
+            Quick preview ({PROXY_WIDTH} px wide)
           </Button>
         ) : null}
         {running ? (

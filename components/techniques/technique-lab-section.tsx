@@ -1,4 +1,5 @@
 import { TechniqueLab } from "@/components/lab/technique-lab";
+import { TechniqueLabWithApply } from "@/components/lab/technique-lab-apply";
 import { RecipeCards } from "@/components/techniques/recipe-cards";
 import { Card, CardTitle } from "@/components/ui/card";
 import { can } from "@/lib/auth/permissions";
@@ -9,6 +10,7 @@ import type { TechniqueResponse } from "@/lib/techniques/schemas";
 /** The recipe as readable cards, and the lab where anyone can run it on the page's stills or their own. */
 export async function TechniqueLabSection({ user, technique }: { user: SessionUser; technique: TechniqueResponse }) {
   const stills = (await listStillsForTechnique(user, technique.id)).filter((s) => s.role !== "after");
+  const labStills = stills.map((s) => ({ id: s.id, alt: s.alt, width: s.width, height: s.height, bitDepth: s.bitDepth }));
   return (
     <Card aria-labelledby="parameters-title">
       <CardTitle>
@@ -18,12 +20,25 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
       {technique.recipe.length ? (
         <div className="mt-6 border-t border-line pt-4">
           <h3 className="mb-2 font-semibold">Try it</h3>
-          <TechniqueLab
-            slug={technique.slug}
-            recipe={technique.recipe}
-            stills={stills.map((s) => ({ id: s.id, alt: s.alt, width: s.width, height: s.height, bitDepth: s.bitDepth }))}
-            canEditRecipe={can(user, "technique:write")}
-          />
+          {/* Editors get "Apply to recipe" (a new revision); everyone else tries matrices on a working copy. */}
+          {can(user, "technique:write") && !technique.retiredAt ? (
+            <TechniqueLabWithApply
+              stills={labStills}
+              technique={{
+                slug: technique.slug,
+                title: technique.title,
+                summary: technique.summary,
+                aliases: technique.aliases,
+                tags: technique.tags.map((t) => t.slug),
+                body: technique.body,
+                recipe: technique.recipe,
+                latestRevision: technique.latestRevision,
+                approved: technique.approvedRevision !== null,
+              }}
+            />
+          ) : (
+            <TechniqueLab slug={technique.slug} recipe={technique.recipe} stills={labStills} canEditRecipe={false} />
+          )}
         </div>
       ) : null}
     </Card>
