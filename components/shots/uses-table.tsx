@@ -2,7 +2,7 @@
 
 import { createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getPaginationRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import Link from "next/link";
-import { useState } from "react";
+import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Select, TextInput } from "@/components/ui/field";
@@ -25,11 +25,15 @@ export function UsesTable({ initial }: { initial: UseResponse[] }) {
   const [globalFilter, setGlobalFilter] = useState("");
   const [outcome, setOutcome] = useState("");
   // The compiler leaves this component unmemoised, which is what TanStack Table needs: its API returns fresh functions each render.
+  // A fresh filter array (or a refreshed `initial`) on every render made the table reset its page
+  // index on every render, which re-rendered it again: an endless loop after router.refresh().
+  const columnFilters = useMemo(() => (outcome ? [{ id: "outcome", value: outcome }] : []), [outcome]);
   // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
+    autoResetPageIndex: false,
     data: initial,
     columns,
-    state: { sorting, globalFilter, columnFilters: outcome ? [{ id: "outcome", value: outcome }] : [] },
+    state: { sorting, globalFilter, columnFilters },
     onSortingChange: setSorting,
     onGlobalFilterChange: setGlobalFilter,
     getCoreRowModel: getCoreRowModel(),
@@ -42,8 +46,14 @@ export function UsesTable({ initial }: { initial: UseResponse[] }) {
   return (
     <div className="space-y-2">
       <div className="flex gap-2">
-        <TextInput aria-label="Filter shots" placeholder="Filter by shot, person or note" value={globalFilter} onChange={(e) => setGlobalFilter(e.target.value)} />
-        <Select aria-label="Outcome" className="w-44" value={outcome} onChange={(e) => setOutcome(e.target.value)}>
+        <TextInput aria-label="Filter shots" placeholder="Filter by shot, person or note" value={globalFilter} onChange={(e) => {
+            setGlobalFilter(e.target.value);
+            table.setPageIndex(0);
+          }} />
+        <Select aria-label="Outcome" className="w-44" value={outcome} onChange={(e) => {
+            setOutcome(e.target.value);
+            table.setPageIndex(0);
+          }}>
           <option value="">all outcomes</option>
           <option value="clean">clean</option>
           <option value="touch-up">needed touch-up</option>
