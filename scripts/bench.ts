@@ -1,0 +1,73 @@
+/*
+ * `npm run bench`: the still lab, search and load benchmarks in turn, each in its own process
+ * (so one's heap, worker threads and server do not weigh on the next), then one summary from
+ * bench/results.json. `npm run bench -- --quick` passes --quick to lab and search and runs the
+ * load targets for 10 s with 20 connections; LOAD_DURATION / LOAD_CONNECTIONS override.
+ */
+import { spawnSync } from "node:child_process";
+import fs from "node:fs";
+import path from "node:path";
+import { RESULTS_PATH } from "@/bench/lib/results";
+
+const root = process.cwd();
+const tsx = path.join(root, "node_modules", ".bin", "tsx");
+const quick = process.argv.includes("--quick");
+
+// Every script runs with the react-server condition, as `npm run bench` itself does: lib modules
+// import "server-only", which resolves to an empty module only under it.
+const steps: { name: string; script: string; args: string[]; env?: Record<string, string> }[] = [
+  { name: "lab", script: "bench/lab.ts", args: quick ? ["--quick"] : [] },
+  { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
+  { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
+];
+
+// A child inherits the -C react-server of `npm run bench`'s tsx only through NODE_OPTIONS, which
+// is cleared so each script runs exactly as it does on its own.
+const { NODE_OPTIONS: _nodeOptions, ...baseEnv } = process.env;
+const outcomes: { name: string; status: number | null; seconds: number }[] = [];
+for (const step of steps) {
+  console.log(`\n=== ${step.name}: tsx -C react-server ${step.script} ${step.args.join(" ")}`);
+  const started = Date.now();
+  const r = spawnSync(tsx, ["-C", "react-server", step.script, ...step.args], { cwd: root, stdio: "inherit", env: { ...baseEnv, ...step.env } });
+  outcomes.push({ name: step.name, status: r.status, seconds: Math.round((Date.now() - started) / 1000) });
+}
+
+type Json = Record<string, unknown>;
+const results = (fs.existsSync(RESULTS_PATH) ? JSON.parse(fs.readFileSync(RESULTS_PATH, "utf8")) : {}) as Record<string, Json | undefined>;
+const get = (o: unknown, ...keys: (string | number)[]): unknown => keys.reduce<unknown>((v, k) => (v && typeof v === "object" ? (v as Record<string, unknown>)[k] : undefined), o);
+const fmt = (v: unknown, digits = 1): string => (typeof v === "number" ? v.toFixed(digits) : v === undefined ? "-" : String(v));
+
+console.log("\n=== Summary (bench/results.json)");
+console.table(outcomes.map((o) => ({ benchmark: o.name, exit: o.status, seconds: o.seconds })));
+
+const lab = results.lab;
+if (lab) {
+  const sizes = (get(lab, "sizes") ?? {}) as Record<string, Json>;
+  console.log("Still lab: full demo recipe");
+  console.table(
+    Object.entries(sizes).map(([size, s]) => ({ size, "steps ms": fmt(s.recipeStepsMs, 0), "exact ms": fmt(s.recipeExactMs, 0), "proxy ms": fmt(s.proxyMs, 0), "float copy ms": fmt(s.copyMs, 2) })),
+  );
+}
+
+const search = results.search;
+if (search) {
+  const rows = (get(search, "rows") ?? []) as Json[];
+  console.log("Search");
+  console.table(rows.map((r) => ({ techniques: r.size, "build ms": r.buildMs, "p50 ms": r.p50, "p95 ms": r.p95, "fuse p50 ms": r.fuseP50, "memory MB": r.memoryMB, quality: r.quality })));
+  const targets = get(search, "targets");
+  if (targets) console.log("Search targets:", targets);
+}
+
+const load = results.load;
+if (load) {
+  const targets = (get(load, "targets") ?? {}) as Record<string, Json>;
+  console.log(`Load (${fmt(get(load, "settings", "connections"), 0)} connections × ${fmt(get(load, "settings", "durationSeconds"), 0)} s)`);
+  console.table(
+    Object.entries(targets).map(([name, t]) =>
+      t.skipped ? { target: name, "req/s": "-", "p50 ms": "-", "p95 ms": "-", "p99 ms": "-", errors: "-", non2xx: "-", "p95 target": `skipped: ${String(t.skipped)}` }
+        : { target: name, "req/s": t.requestsPerSec, "p50 ms": t.p50, "p95 ms": t.p95, "p99 ms": t.p99, errors: Number(t.errors) + Number(t.timeouts), non2xx: t.non2xx, "p95 target": t.targetP95Ms ? (t.metTarget ? "met" : "not met") : "" },
+    ),
+  );
+}
+
+process.exitCode = outcomes.every((o) => o.status === 0) ? 0 : 1;
