@@ -7,18 +7,9 @@
  */
 import type { SearchDocument, SearchStatus, SearchTag } from "@/lib/search/types";
 import { TAGS } from "@/tests/unit/search/fixtures";
+import { mulberry32 } from "@/lib/random";
 
-/** mulberry32: tiny, fast, good enough for reproducible test data. */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export const rng = mulberry32;
 
 type Rand = () => number;
 const pick = <T>(r: Rand, list: readonly T[]): T => list[Math.floor(r() * list.length)] as T;

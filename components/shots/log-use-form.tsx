@@ -8,7 +8,8 @@ import { ConfidentialNotice } from "@/components/stills/confidential-notice";
 import { Button } from "@/components/ui/button";
 import { Field, TextArea } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import { USE_OUTCOME_LABELS, USE_OUTCOMES, type UseOutcome } from "@/lib/shots/schemas";
+import type { UseOutcome } from "@/lib/shots/schemas";
+import { OutcomeRadios } from "@/components/shots/outcome-radios";
 
 type Outcome = UseOutcome;
 
@@ -95,17 +96,7 @@ export function LogUseForm({ slug, shot: fixedShot }: { slug?: string; shot?: st
           <ShotTypeahead id="use-shot" value={typedShot} onChange={setShot} />
         </Field>
       )}
-      <fieldset>
-        <legend className="mb-1 text-sm font-medium">How did it go?</legend>
-        <div className="flex flex-wrap gap-3 text-sm">
-          {USE_OUTCOMES.map((o) => (
-            <label key={o} className="flex items-center gap-1.5">
-              <input type="radio" name={`${uid}-outcome`} value={o} checked={outcome === o} onChange={() => setOutcome(o)} />
-              {USE_OUTCOME_LABELS[o]}
-            </label>
-          ))}
-        </div>
-      </fieldset>
+      <OutcomeRadios name={`${uid}-outcome`} value={outcome} onChange={setOutcome} />
       <div className="sm:col-span-2">
         <Field id="use-note" label="Note">
           <TextArea id="use-note" value={note} onChange={(e) => setNote(e.target.value)} placeholder="What worked, what you changed" />

@@ -11,8 +11,9 @@ import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Field, TextArea } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import { USE_OUTCOME_LABELS, USE_OUTCOMES, type ShotUseResponse, type UpdateUseInput, type UseOutcome, type UseResponse } from "@/lib/shots/schemas";
+import { USE_OUTCOME_LABELS, type ShotUseResponse, type UpdateUseInput, type UseOutcome, type UseResponse } from "@/lib/shots/schemas";
 import { formatDate } from "@/lib/utils";
+import { OutcomeRadios } from "@/components/shots/outcome-radios";
 
 const OUTCOME_TONE = { clean: "ok", "touch-up": "warn", failed: "bad" } as const;
 
@@ -159,17 +160,7 @@ function EditUse({ use, onDone }: { use: ShotUseResponse; onDone(): void }) {
         if (body) save.mutate(body);
       }}
     >
-      <fieldset>
-        <legend className="mb-1 text-sm font-medium">How did it go?</legend>
-        <div className="flex flex-wrap gap-3 text-sm">
-          {USE_OUTCOMES.map((o) => (
-            <label key={o} className="flex items-center gap-1.5">
-              <input type="radio" name={`${uid}-outcome`} value={o} checked={outcome === o} onChange={() => setOutcome(o)} />
-              {USE_OUTCOME_LABELS[o]}
-            </label>
-          ))}
-        </div>
-      </fieldset>
+      <OutcomeRadios name={`${uid}-outcome`} value={outcome} onChange={setOutcome} />
       <Field id={`${uid}-note`} label="Note" error={save.error instanceof ApiError ? save.error.fields?.note : undefined}>
         <TextArea id={`${uid}-note`} value={note} onChange={(e) => setNote(e.target.value)} />
       </Field>

@@ -3,6 +3,7 @@ import sharp from "sharp";
 import type { Rect, RecipeStepInput } from "@/lib/lab/recipe";
 import { codeLut, srgbEncode } from "@/lib/lab/srgb";
 import { solveRow } from "@/lib/lab/solver";
+import { mulberry32 } from "@/lib/random";
 
 /*
  * Deterministic demo plate: an unevenly lit backing screen with tracking markers of two hues
@@ -56,17 +57,6 @@ export const MARKER_COLOURS: [Rgb3, Rgb3] = [
 ];
 export const FOREGROUND_COLOUR: Rgb3 = [0.03, 0.05, 0.07];
 
-/** mulberry32: small, fast, seedable; good enough for demo grain and layout. */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function gaussian(rand: () => number): () => number {
   let spare: number | null = null;
