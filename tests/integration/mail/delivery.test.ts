@@ -343,10 +343,13 @@ describe("delivery across a mail server outage", () => {
       await getDb().transaction((tx) => enqueueMail(tx, { to: person, kind: "test", subject: "Refused", html: "<p>x</p>", text: "x" }));
       let now = Date.now();
       const waits: number[] = [];
-      for (let i = 0; i < MAX_ATTEMPTS_PERMANENT; i++) {
+      // A slow connection on a loaded machine counts as an outage (not an attempt), so flush until
+      // the refusals have used up the attempts, with a bound; only counted attempts record a wait.
+      for (let i = 0; i < MAX_ATTEMPTS_PERMANENT + 6 && waits.length < MAX_ATTEMPTS_PERMANENT; i++) {
+        const before = (await getDb().select().from(outbox))[0]!.attempts;
         await flushOutbox({ smtpUrl: refusing.url, now: new Date(now) });
         const [row] = await getDb().select().from(outbox);
-        waits.push(row!.nextAttemptAt.getTime() - now);
+        if (row!.attempts > before) waits.push(row!.nextAttemptAt.getTime() - now);
         now += 3_600_000;
       }
       const [failed] = await getDb().select().from(outbox);
