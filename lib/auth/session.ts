@@ -3,8 +3,7 @@ import { decode } from "next-auth/jwt";
 import { cookies, headers } from "next/headers";
 import { AppError } from "@/lib/api/errors";
 import { authSecret } from "@/lib/auth/secret";
-import { assertCan, type Permission } from "@/lib/auth/permissions";
-import type { Role, SessionUser } from "@/lib/auth/roles";
+import type { SessionUser } from "@/lib/auth/roles";
 import { findActiveUser, findUserByApiToken } from "@/lib/people/queries";
 
 export const SESSION_COOKIE_NAMES = ["__Secure-authjs.session-token", "authjs.session-token"] as const;
@@ -48,16 +47,6 @@ export async function requireUser(req?: Request): Promise<SessionUser> {
   const user = req ? await userFromRequest(req) : await currentUser();
   if (!user) throw new AppError("unauthorized");
   return user;
-}
-
-export async function requirePermission(permission: Permission, req?: Request): Promise<SessionUser> {
-  const user = await requireUser(req);
-  assertCan(user, permission);
-  return user;
-}
-
-export function hasRole(user: SessionUser, ...roles: Role[]): boolean {
-  return roles.includes(user.role);
 }
 
 function parseCookies(header: string): Map<string, string> {
