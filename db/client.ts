@@ -54,6 +54,9 @@ export function installPglite(client: PGlite): Database {
 /** Installs a PostgreSQL server connection pool as this process's database. */
 export function installNodePostgres(connectionString: string): Database {
   const pool = new pg.Pool({ connectionString, max: 10 });
+  // An idle connection the server closes (restart, failover, admin command) must not crash the
+  // process: the pool drops it and the next query opens a fresh one.
+  pool.on("error", (error) => console.error("[db] idle connection lost:", error.message));
   holder.db = drizzleNodePg(pool, { schema }) as unknown as Database;
   holder.driver = "postgres";
   holder.close = () => pool.end();
