@@ -37,6 +37,23 @@ const serverErrors = (e: unknown): Errors => (e instanceof ApiError ? { ...(e.fi
 const PATTERN_HINT = "A regular expression; {CODE} stands for the show's code. A group named seq, as in (?<seq>\\d{3}), gives the sequence.";
 
 /** Does `code` fit the pattern? null when the pattern does not compile. */
+/** The shot-code pattern input, shared by the new-show and edit-show forms. */
+function PatternField({ id, value, onChange, error }: { id: string; value: string; onChange(next: string): void; error?: string }) {
+  return (
+    <Field id={id} label="Shot-code pattern" error={error} hint={PATTERN_HINT}>
+      <TextInput
+        id={id}
+        className="font-mono"
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        spellCheck={false}
+        aria-invalid={Boolean(error)}
+        aria-describedby={describedBy(id, error, PATTERN_HINT)}
+      />
+    </Field>
+  );
+}
+
 export function patternAccepts(pattern: string, showCode: string, code: string): boolean | null {
   try {
     return compileShotPattern(pattern.trim(), showCode).test(code.trim());
@@ -95,17 +112,7 @@ export function NewShowForm() {
         </Select>
       </Field>
       <div className="sm:col-span-3">
-        <Field id={id("pattern")} label="Shot-code pattern" error={errors.shotPattern} hint={PATTERN_HINT}>
-          <TextInput
-            id={id("pattern")}
-            className="font-mono"
-            value={pattern}
-            onChange={(e) => setPattern(e.target.value)}
-            spellCheck={false}
-            aria-invalid={Boolean(errors.shotPattern)}
-            aria-describedby={describedBy(id("pattern"), errors.shotPattern, PATTERN_HINT)}
-          />
-        </Field>
+        <PatternField id={id("pattern")} value={pattern} onChange={setPattern} error={errors.shotPattern} />
       </div>
       {errors.form ? (
         <p role="alert" className="text-sm text-bad sm:col-span-3">
@@ -187,17 +194,7 @@ export function ShowEditForm({ show }: { show: ShowResponse }) {
       </Field>
       <div />
       <div className="sm:col-span-2">
-        <Field id={id("pattern")} label="Shot-code pattern" error={errors.shotPattern} hint={PATTERN_HINT}>
-          <TextInput
-            id={id("pattern")}
-            className="font-mono"
-            value={pattern}
-            onChange={(e) => setPattern(e.target.value)}
-            spellCheck={false}
-            aria-invalid={Boolean(errors.shotPattern)}
-            aria-describedby={describedBy(id("pattern"), errors.shotPattern, PATTERN_HINT)}
-          />
-        </Field>
+        <PatternField id={id("pattern")} value={pattern} onChange={setPattern} error={errors.shotPattern} />
       </div>
       <div className="space-y-1">
         <Field id={id("try")} label="Try a code">
