@@ -8,7 +8,7 @@ import {
   type StepReport,
 } from "@/lib/lab/recipe";
 import { codeLut, quantise, quantiser } from "@/lib/lab/srgb";
-import { allocSimdRgb } from "@/lib/lab/simd";
+import { releaseSimdRgb, takeSimdRgb } from "@/lib/lab/simd";
 import {
   blurPlane,
   copyChannel,
@@ -123,7 +123,7 @@ export function codesSource(still: StillCodes, space: LabSpace): PixelSource {
 export function createLabState(opts: { width: number; height: number; plate: PixelSource; base?: PixelSource; scale?: number }): LabState {
   const { width, height, plate } = opts;
   const base = opts.base ?? plate;
-  const cur = allocSimdRgb(width * height * 3);
+  const cur = takeSimdRgb(width * height * 3);
   if (base.kind === "float") cur.set(base.data);
   else {
     const { codes, lut } = base;
@@ -198,11 +198,25 @@ function matteStep(state: LabState, step: Extract<RecipeStep, { op: "matte" }>, 
     ? ([0, 0, 0].map((_, i) => (i === CHANNEL_INDEX[step.channel as "r"] ? 1 : 0)) as number[])
     : step.channel;
   const w0 = w[0]!, w1 = w[1]!, w2 = w[2]!;
+  const base = state.base;
+  if (step.source === "plate" && base.kind === "codes" && step.white !== step.black) {
+    // Weights, ramp and coverage in one pass over the stored codes (three passes cost ~3×).
+    const { codes, lut } = base;
+    const black = step.black, k = 1 / (step.white - step.black);
+    let s = 0;
+    for (let p = 0, i = 0; p < n; p++, i += 3) {
+      const t = (w0 * lut[codes[i]!]! + w1 * lut[codes[i + 1]!]! + w2 * lut[codes[i + 2]!]! - black) * k;
+      const v = t < 0 ? 0 : t > 1 ? 1 : t;
+      matte[p] = v;
+      s += v;
+    }
+    state.matte = matte;
+    return { index, op: "matte", coverage: s / n };
+  }
   if (step.source === "current") {
     const cur = state.cur;
     for (let p = 0, i = 0; p < n; p++, i += 3) matte[p] = w0 * cur[i]! + w1 * cur[i + 1]! + w2 * cur[i + 2]!;
   } else {
-    const base = state.base;
     if (base.kind === "float") {
       const d = base.data;
       for (let p = 0, i = 0; p < n; p++, i += 3) matte[p] = w0 * d[i]! + w1 * d[i + 1]! + w2 * d[i + 2]!;
@@ -263,6 +277,42 @@ function grainStep(state: LabState): void {
     readChunk(base, p, count, b);
     for (let j = 0, i = p * 3; j < count * 3; j++, i++) cur[i] = cur[i]! + (a[j]! - b[j]!);
   }
+}
+
+/*
+ * mix followed by grain, in one pass: cur·m + base·(1−m) + (plate − base) = m·(cur − base) + plate.
+ * Where the matte is 0 the plate comes back bit-exact, and a 2K frame is read once instead of
+ * twice (~45 → ~20 ms). Only for stored codes through one table (the engine's own runs).
+ */
+function mixGrainStep(state: LabState, invert: boolean): boolean {
+  const { cur, plate, base } = state;
+  const matte = state.matte;
+  if (!matte || base === plate || plate.kind !== "codes" || base.kind !== "codes" || plate.lut !== base.lut) return false;
+  const pc = plate.codes, bc = base.codes, lut = plate.lut;
+  const n3 = cur.length;
+  for (let i = 0, p = 0; i < n3; i += 3, p++) {
+    const m = invert ? 1 - matte[p]! : matte[p]!;
+    if (m === 0) {
+      cur[i] = lut[pc[i]!]!; cur[i + 1] = lut[pc[i + 1]!]!; cur[i + 2] = lut[pc[i + 2]!]!;
+      continue;
+    }
+    cur[i] = m * (cur[i]! - lut[bc[i]!]!) + lut[pc[i]!]!;
+    cur[i + 1] = m * (cur[i + 1]! - lut[bc[i + 1]!]!) + lut[pc[i + 1]!]!;
+    cur[i + 2] = m * (cur[i + 2]! - lut[bc[i + 2]!]!) + lut[pc[i + 2]!]!;
+  }
+  return true;
+}
+
+/**
+ * Runs the step at `i` — or, for a mix directly followed by the grain step, both in one pass —
+ * and answers the reports of the steps it ran (one or two).
+ */
+export function applyStepsAt(state: LabState, steps: readonly RecipeStep[], i: number): StepReport[] {
+  const step = steps[i]!, next = steps[i + 1];
+  if (step.op === "mix" && next?.op === "grain" && mixGrainStep(state, step.invert)) {
+    return [{ index: i, op: "mix" }, { index: i + 1, op: "grain" }];
+  }
+  return [applyStep(state, step, i)];
 }
 
 function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" }>, index: number): StepReport {
@@ -448,9 +498,11 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<Pre
   });
   const t1 = performance.now();
   const reports: StepReport[] = [];
-  for (let i = 0; i < steps.length; i++) {
+  for (let i = 0; i < steps.length; ) {
     onProgress?.({ done: i + 1, total, label: steps[i]!.op });
-    reports.push(applyStep(state, steps[i]!, i));
+    const ran = applyStepsAt(state, steps, i);
+    reports.push(...ran);
+    i += ran.length;
     checkAbort(signal);
     // Let the event loop breathe between steps so timeouts and other requests get a turn.
     await new Promise<void>((resolve) => setImmediate(resolve));
@@ -470,6 +522,7 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
   onProgress?.({ done: total - 1, total, label: "encode" });
   const reuse = plateCodes.bits === 16 && !plateCodes.fromCache ? (plateCodes.codes as Uint16Array) : undefined;
   const bytes = await encodeImage(state.cur, state.width, state.height, space, format, reuse);
+  releaseSimdRgb(state.cur);
   const t3 = performance.now();
   onProgress?.({ done: total, total, label: "done" });
   return {

@@ -114,6 +114,28 @@ export function allocSimdRgb(length: number): Float32Array {
   return new Float32Array(memory.buffer, PARAM_BYTES, length);
 }
 
+/*
+ * Working buffers are pooled: a fresh 2K frame's memory costs ~12 ms of page faults on first
+ * touch (a 4K one ~50 ms) and wasm memories are only freed by GC. At most POOL_BYTES stay idle.
+ */
+const POOL_BYTES = 160 * 1024 * 1024;
+const idle: Float32Array[] = [];
+
+/** As allocSimdRgb, but may hand back a released buffer with old contents (caller overwrites all). */
+export function takeSimdRgb(length: number): Float32Array {
+  const i = idle.findIndex((a) => a.length === length);
+  if (i >= 0) return idle.splice(i, 1)[0]!;
+  return allocSimdRgb(length);
+}
+
+/** Gives a buffer from allocSimdRgb/takeSimdRgb back for reuse; the caller must not touch it again. */
+export function releaseSimdRgb(a: Float32Array): void {
+  if (!backings.has(a.buffer) || idle.includes(a)) return;
+  idle.push(a);
+  let bytes = idle.reduce((s, b) => s + b.byteLength, 0);
+  while (bytes > POOL_BYTES && idle.length) bytes -= idle.shift()!.byteLength;
+}
+
 /** out = M · rgb + offset in place, for arrays from allocSimdRgb; false when `a` is not one. */
 export function matrixSimd(a: Float32Array, m: readonly (readonly number[])[], offset: readonly number[], keep: readonly boolean[]): boolean {
   const backing = backings.get(a.buffer);

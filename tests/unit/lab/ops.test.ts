@@ -2,7 +2,7 @@ import { solve, Matrix } from "ml-matrix";
 import sharp from "sharp";
 import { linearRegression } from "simple-statistics";
 import { describe, expect, it } from "vitest";
-import { applyStep, createLabState, runRecipe, type PixelSource } from "@/lib/lab/engine";
+import { applyStep, applyStepsAt, codesSource, createLabState, runRecipe, type PixelSource } from "@/lib/lab/engine";
 import { recipeStepSchema, type RecipeStep } from "@/lib/lab/recipe";
 
 function rand(seed: number): () => number {
@@ -141,6 +141,59 @@ describe("mix and grain", () => {
     state.cur.fill(0.3); // a cleaned value
     applyStep(state, step({ op: "grain", denoised: "x" }), 0);
     for (let i = 0; i < 18; i++) expect(state.cur[i]).toBeCloseTo(0.3 + (plate[i]! - 0.5), 6);
+  });
+});
+
+describe("one-pass paths the engine takes", () => {
+  // Stored 16-bit codes (what decoded stills are), so the engine's code-table paths run.
+  function codeState(seed: number) {
+    const w = 41, h = 23, r = rand(seed);
+    const den = new Uint16Array(w * h * 3), plate = new Uint16Array(w * h * 3);
+    for (let i = 0; i < den.length; i++) {
+      den[i] = 5000 + Math.floor(r() * 50000);
+      plate[i] = Math.min(65535, Math.max(0, den[i]! + Math.round((r() - 0.5) * 4000)));
+    }
+    const still = (codes: Uint16Array) => ({ width: w, height: h, bits: 16 as const, codes });
+    const make = () => createLabState({ width: w, height: h, plate: codesSource(still(plate), "linear"), base: codesSource(still(den), "linear") });
+    return { w, h, r, make };
+  }
+
+  it("mix then grain in one pass equals the two steps run apart, and gives the plate bit-exact outside the matte", () => {
+    // PRODUCT.md: mix = cleaned × matte + original × (1 − matte); grain = clean + (plate − denoised).
+    for (const invert of [false, true]) {
+      const { w, h, r, make } = codeState(invert ? 12 : 11);
+      const a = make(), b = make();
+      const cleaned = Float32Array.from({ length: w * h * 3 }, () => r() * 1.2 - 0.1);
+      const matte = Float32Array.from({ length: w * h }, (_, p) => (p % 3 === 0 ? (invert ? 1 : 0) : r()));
+      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float32Array(matte); }
+      const steps = [step({ op: "mix", invert }), step({ op: "grain", denoised: "d" })];
+      const reports = applyStepsAt(a, steps, 0);
+      expect(reports.map((x) => x.op)).toEqual(["mix", "grain"]);
+      applyStep(b, steps[0]!, 0);
+      applyStep(b, steps[1]!, 1);
+      const plateLin = a.plate.kind === "codes" ? a.plate : null;
+      for (let p = 0; p < w * h; p++) for (let c = 0; c < 3; c++) {
+        const i = p * 3 + c;
+        expect(a.cur[i]).toBeCloseTo(b.cur[i]!, 6);
+        if (p % 3 === 0) expect(a.cur[i]).toBe(plateLin!.lut[plateLin!.codes[i]!]);
+      }
+    }
+  });
+
+  it("a matte from the plate in one pass equals weights, then the ramp, then the mean", () => {
+    const { w, h, make } = codeState(13);
+    const s = make();
+    const weights: [number, number, number] = [-0.8, 1.9, -0.4];
+    const rep = applyStep(s, step({ op: "matte", channel: weights, source: "plate", black: 0.05, white: 0.3 }), 0);
+    const base = s.base as Extract<PixelSource, { kind: "codes" }>;
+    let sum = 0;
+    for (let p = 0; p < w * h; p++) {
+      const v = weights[0] * base.lut[base.codes[p * 3]!]! + weights[1] * base.lut[base.codes[p * 3 + 1]!]! + weights[2] * base.lut[base.codes[p * 3 + 2]!]!;
+      const want = Math.min(1, Math.max(0, (v - 0.05) / 0.25));
+      expect(s.matte![p]).toBeCloseTo(want, 6);
+      sum += want;
+    }
+    expect(rep.op === "matte" && rep.coverage).toBeCloseTo(sum / (w * h), 6);
   });
 });
 

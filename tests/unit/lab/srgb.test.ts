@@ -40,6 +40,30 @@ describe("sRGB transfer (IEC 61966-2-1:1999)", () => {
     quantise(all, back, q);
     for (let k = 0; k < 65536; k++) if (back[k] !== k) expect(back[k]).toBe(k);
   });
+  it("quantising picks the code whose rounding interval holds x, also for floats next to an interval's edge", () => {
+    // Rounding in encoded space: code k covers decode((k − ½)/max) ≤ x < decode((k + ½)/max),
+    // decode being monotonic (IEC 61966-2-1); the reference counts edges in float64.
+    const f = new Float32Array(1), u = new Uint32Array(f.buffer);
+    const near = (x: number, d: number): number => { f[0] = x; u[0] = u[0]! + d; return f[0]!; };
+    for (const bits of [8, 16] as const) {
+      for (const linear of [true, false]) {
+        const max = bits === 8 ? 255 : 65535;
+        const edge = (k: number): number => (linear ? srgbDecode((k + 0.5) / max) : (k + 0.5) / max);
+        const xs: number[] = [];
+        for (let k = 0; k < max; k += bits === 8 ? 1 : 13) for (const d of [-1, 0, 1]) xs.push(near(edge(k), d));
+        for (let i = 0; i < 5000; i++) xs.push(Math.random() ** 3);
+        const src = Float32Array.from(xs);
+        const out = bits === 8 ? new Uint8Array(src.length) : new Uint16Array(src.length);
+        quantise(src, out, quantiser(bits, linear));
+        for (let i = 0; i < src.length; i++) {
+          const x = src[i]!;
+          let lo = 0, hi = max; // smallest k with edge(k) > x
+          while (lo < hi) { const mid = (lo + hi) >> 1; if (edge(mid) > x) hi = mid; else lo = mid + 1; }
+          if (out[i] !== lo) expect({ bits, linear, x, code: out[i] }).toEqual({ bits, linear, x, code: lo });
+        }
+      }
+    }
+  });
   it("clips only at quantisation: below 0 → 0, above 1 → max, NaN → 0", () => {
     const out = new Uint8Array(4);
     quantise(new Float32Array([-0.5, 1.5, NaN, 1]), out, quantiser(8, false));
