@@ -206,7 +206,8 @@ results.targets = targets;
 results.at = new Date().toISOString();
 
 console.log(`\nStill lab benchmark (fastest of n repetitions, ms; ratio = op / float RGB copy of the same frame, timed beside each repetition)`);
-console.log(`load average at start ${os.loadavg().map((v) => v.toFixed(1)).join(" ")} on ${os.cpus().length} cores\n`);
+const machine = results.machine as { loadavgAtStart: number[]; loadavgAtEnd: number[] };
+console.log(`load average at start ${machine.loadavgAtStart.map((v) => v.toFixed(1)).join(" ")}, at end ${machine.loadavgAtEnd.map((v) => v.toFixed(1)).join(" ")} on ${os.cpus().length} cores\n`);
 console.log(`${"size".padEnd(10)} ${"op".padEnd(52)} ${"ms".padStart(9)} ${"copy ms".padStart(8)} ${"ratio".padStart(7)}`);
 for (const r of rows) {
   console.log(`${r.size.padEnd(10)} ${r.op.padEnd(52)} ${r.ms.toFixed(1).padStart(9)} ${r.copyMs.toFixed(2).padStart(8)} ${Number.isNaN(r.ratio) ? "".padStart(7) : r.ratio.toFixed(1).padStart(7)}`);
