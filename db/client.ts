@@ -12,7 +12,7 @@ import * as schema from "@/db/schema";
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
 
 export type Driver = "pglite" | "postgres";
-type Holder = { db?: Database; driver?: Driver; close?: () => Promise<void> };
+type Holder = { db?: Database; driver?: Driver; pglite?: PGlite; close?: () => Promise<void> };
 const globalHolder = globalThis as unknown as { __plateroomDb?: Holder };
 const holder: Holder = (globalHolder.__plateroomDb ??= {});
 
@@ -25,6 +25,12 @@ const holder: Holder = (globalHolder.__plateroomDb ??= {});
 export function getDb(): Database {
   if (!holder.db) openDefault();
   return holder.db!;
+}
+
+/** The in-process PGlite behind getDb(), or undefined on a PostgreSQL server. */
+export function currentPglite(): PGlite | undefined {
+  getDb();
+  return holder.pglite;
 }
 
 /** Which driver the open database uses (migrations pick their migrator by it). */
@@ -47,6 +53,7 @@ function openDefault(): void {
 export function installPglite(client: PGlite): Database {
   holder.db = drizzlePglite(client, { schema }) as unknown as Database;
   holder.driver = "pglite";
+  holder.pglite = client;
   holder.close = () => client.close();
   return holder.db;
 }
@@ -58,6 +65,7 @@ export function installNodePostgres(connectionString: string): Database {
   // process: the pool drops it and the next query opens a fresh one.
   pool.on("error", (error) => console.error("[db] idle connection lost:", error.message));
   holder.db = drizzleNodePg(pool, { schema }) as unknown as Database;
+  holder.pglite = undefined;
   holder.driver = "postgres";
   holder.close = () => pool.end();
   return holder.db;
@@ -67,6 +75,7 @@ export async function closeDb(): Promise<void> {
   const close = holder.close;
   holder.db = undefined;
   holder.driver = undefined;
+  holder.pglite = undefined;
   holder.close = undefined;
   if (close) await close();
 }

@@ -4,3 +4,4 @@ export * from "./techniques";
 export * from "./stills";
 export * from "./shows";
 export * from "./mail";
+export * from "./changes";

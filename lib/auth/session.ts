@@ -1,31 +1,81 @@
 import "server-only";
+import { LRUCache } from "lru-cache";
 import { decode } from "next-auth/jwt";
 import { cookies, headers } from "next/headers";
 import { AppError } from "@/lib/api/errors";
 import { authSecret } from "@/lib/auth/secret";
 import type { SessionUser } from "@/lib/auth/roles";
-import { findActiveUser, findUserByApiToken } from "@/lib/people/queries";
+import { changeGeneration } from "@/db/change-watch";
+import { findActiveUserAndChangeStamp, findUserByApiToken } from "@/lib/people/queries";
 
 export const SESSION_COOKIE_NAMES = ["__Secure-authjs.session-token", "authjs.session-token"] as const;
 
 /**
  * Who is calling: a personal API token (`Authorization: Bearer …`) or the Auth.js session
- * cookie. The person is re-read from the database on every request, so disabling someone,
- * changing their role or signing out takes effect at once rather than at cookie expiry.
+ * cookie. The person is checked against the database on every request — or, where this process
+ * holds the database (PGlite), against what it read since the last committed change to people
+ * or tokens (db/change-watch.ts) — so disabling someone, changing their role, revoking a token
+ * or signing out takes effect on the next request rather than at cookie expiry.
  */
 export async function userFromHeaders(h: Headers, cookieValue: (name: string) => string | undefined): Promise<SessionUser | null> {
   const authorization = h.get("authorization");
   if (authorization) {
     const match = /^Bearer\s+(\S+)$/i.exec(authorization);
     if (!match?.[1]) return null;
-    return findUserByApiToken(match[1]);
+    const token = match[1];
+    // Re-read at least once a minute, which keeps the token's "last used" to the minute.
+    return rememberedUntilChange(`token:${token}`, 60_000, () => findUserByApiToken(token));
   }
+  return (await sessionFromCookies(cookieValue))?.user ?? null;
+}
+
+/** For the page cache: the signed-in person (cookie session only) and the database's change stamp. */
+export async function userAndChangeStampFromRequest(req: Request): Promise<{ user: SessionUser; changeStamp: number } | null> {
+  const jar = parseCookies(req.headers.get("cookie") ?? "");
+  return sessionFromCookies((name) => jar.get(name));
+}
+
+async function sessionFromCookies(cookieValue: (name: string) => string | undefined): Promise<{ user: SessionUser; changeStamp: number } | null> {
+  const claims = await sessionClaims(cookieValue);
+  if (!claims) return null;
+  return rememberedUntilChange(`session:${claims.sub}:${claims.sv}`, 10 * 60_000, () => findActiveUserAndChangeStamp(claims.sub, claims.sv));
+}
+
+type Remembered = { generation: number; at: number; value: unknown };
+const rememberedReads = new LRUCache<string, Remembered>({ max: 10_000 });
+
+/** What `read` gives for `key`, remembered until the next committed change or maxAgeMs. */
+async function rememberedUntilChange<T>(key: string, maxAgeMs: number, read: () => Promise<T>): Promise<T> {
+  // Taken before reading: a change committed during the read makes the result stale at once.
+  const generation = changeGeneration();
+  if (generation === null) return read();
+  const seen = rememberedReads.get(key);
+  if (seen && seen.generation === generation && Date.now() - seen.at < maxAgeMs) return seen.value as T;
+  const value = await read();
+  rememberedReads.set(key, { generation, at: Date.now(), value });
+  return value;
+}
+
+type SessionClaims = { sub: string; sv: number; exp: number };
+
+// Decrypting a session cookie derives its key each time; a cookie seen a moment ago is not
+// decrypted again. Keyed by the whole cookie, so only its holder can hit an entry.
+const decodedCookies = new LRUCache<string, SessionClaims>({ max: 5_000, ttl: 5 * 60_000 });
+
+/** Who a session cookie names (not yet checked against the database). */
+async function sessionClaims(cookieValue: (name: string) => string | undefined): Promise<SessionClaims | null> {
   for (const name of SESSION_COOKIE_NAMES) {
     const token = cookieValue(name);
     if (!token) continue;
-    const payload = await decode({ token, secret: authSecret(), salt: name }).catch(() => null);
-    if (!payload?.sub) return null;
-    return findActiveUser(payload.sub, typeof payload.sv === "number" ? payload.sv : 0);
+    let claims = decodedCookies.get(`${name}=${token}`);
+    if (!claims) {
+      const payload = await decode({ token, secret: authSecret(), salt: name }).catch(() => null);
+      if (!payload?.sub) return null;
+      claims = { sub: payload.sub, sv: typeof payload.sv === "number" ? payload.sv : 0, exp: typeof payload.exp === "number" ? payload.exp : Infinity };
+      decodedCookies.set(`${name}=${token}`, claims);
+    }
+    // decode() checked expiry when it decrypted; a remembered cookie expires on the same clock.
+    return claims.exp * 1000 > Date.now() ? claims : null;
   }
   return null;
 }

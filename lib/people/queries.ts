@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, isNull } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { apiTokens, users, type User } from "@/db/schema";
+import { apiTokens, changeStamp, users, type User } from "@/db/schema";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { hashToken } from "@/lib/people/tokens";
@@ -23,12 +23,22 @@ export function toPersonResponse(u: User): PersonResponse {
   };
 }
 
-/** The person behind a session cookie, if still enabled and the cookie is not from before a sign-out. */
-export async function findActiveUser(id: string, sessionVersion: number): Promise<SessionUser | null> {
+const sessionColumns = { id: users.id, email: users.email, name: users.name, role: users.role, disabledAt: users.disabledAt, sessionVersion: users.sessionVersion };
+
+/**
+ * The person behind a session cookie, if still enabled and the cookie is not from before a
+ * sign-out, and the database's change stamp (db/schema/changes.ts) for the page cache, in one read.
+ */
+export async function findActiveUserAndChangeStamp(id: string, sessionVersion: number): Promise<{ user: SessionUser; changeStamp: number } | null> {
   if (!/^[0-9a-f-]{36}$/i.test(id)) return null;
-  const [u] = await getDb().select().from(users).where(eq(users.id, id)).limit(1);
+  const [u] = await getDb()
+    .select({ ...sessionColumns, changeStamp: changeStamp.value })
+    .from(users)
+    .innerJoin(changeStamp, eq(changeStamp.id, 1))
+    .where(eq(users.id, id))
+    .limit(1);
   if (!u || u.disabledAt || u.sessionVersion !== sessionVersion) return null;
-  return toSessionUser(u);
+  return { user: toSessionUser(u), changeStamp: u.changeStamp };
 }
 
 /** The owner of a personal API token, acting with the owner's current role. */
