@@ -1,4 +1,5 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { cachedPage, isCacheablePageRequest, pageResponse } from "@/lib/page-cache/rendered-pages";
 
 const SESSION_COOKIES = ["authjs.session-token", "__Secure-authjs.session-token"];
 const PUBLIC_PATHS = ["/login", "/set-password", "/forgot-password", "/unsubscribe"];
@@ -28,8 +29,9 @@ export function contentSecurityPolicy(nonce: string, isDev = process.env.NODE_EN
 /**
  * Sets the CSP and redirects signed-out visitors of app pages to sign-in. The redirect is a
  * convenience, not the gate: every page, action and route handler checks the session itself.
+ * Technique pages loaded as documents are answered from lib/page-cache when a current copy exists.
  */
-export function proxy(req: NextRequest): NextResponse {
+export async function proxy(req: NextRequest): Promise<Response> {
   const { pathname, search } = req.nextUrl;
   const isPublic = PUBLIC_PATHS.some((p) => pathname === p || pathname.startsWith(`${p}/`));
   const hasSession = SESSION_COOKIES.some((name) => req.cookies.has(name));
@@ -41,6 +43,10 @@ export function proxy(req: NextRequest): NextResponse {
   }
   const nonce = Buffer.from(crypto.randomUUID()).toString("base64");
   const csp = contentSecurityPolicy(nonce);
+  if (isCacheablePageRequest(req)) {
+    const cached = await cachedPage(req);
+    if (cached) return pageResponse(cached, nonce, csp);
+  }
   const requestHeaders = new Headers(req.headers);
   requestHeaders.set("x-nonce", nonce);
   requestHeaders.set("Content-Security-Policy", csp);

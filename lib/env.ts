@@ -18,6 +18,8 @@ const envSchema = z.object({
   PLATEROOM_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(80 * 1024 * 1024),
   PLATEROOM_MAIL_FROM: z.string().default("Plateroom <plateroom@kestrel.test>"),
   PLATEROOM_DIGEST_HOUR: z.coerce.number().int().min(0).max(23).default(7),
+  /** Where this instance reaches itself to render a page for the page cache (lib/page-cache). */
+  PLATEROOM_INTERNAL_URL: z.string().url().optional(),
   /** Set by the demo and tests to start the in-process mail sender loop. */
   PLATEROOM_MAIL_SENDER: z.enum(["on", "off"]).default("on"),
 });
@@ -38,4 +40,12 @@ export const env: Env = readEnv();
 
 export function baseUrl(): string {
   return env.PLATEROOM_BASE_URL ?? `http://localhost:${env.PORT}`;
+}
+
+/**
+ * This instance's own address. Read at call time: `next start -p N` sets PORT only once it
+ * listens. Never taken from a request's Host header, which a caller controls.
+ */
+export function internalBaseUrl(): string {
+  return env.PLATEROOM_INTERNAL_URL ?? `http://127.0.0.1:${process.env.PORT ?? env.PORT}`;
 }

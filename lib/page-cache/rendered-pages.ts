@@ -1,0 +1,106 @@
+import "server-only";
+import { LRUCache } from "lru-cache";
+import type { NextRequest } from "next/server";
+import { userAndChangeStampFromRequest } from "@/lib/auth/session";
+import { internalBaseUrl } from "@/lib/env";
+import { THEME_COOKIE } from "@/lib/theme";
+
+/**
+ * Rendered technique pages, kept per person so a reload or a link from mail is answered without
+ * rendering again. A page is rendered the normal way (the proxy asks this instance for it with
+ * RENDER_HEADER) and kept under the database's change stamp, the person, their role and theme:
+ * any change to what pages show, by any instance, raises the stamp and retires every copy. The
+ * session is still checked against the database on every request, before the cache is read.
+ */
+
+/** Marks the proxy's own render request: it must render, not be answered from the cache. */
+export const RENDER_HEADER = "x-plateroom-render";
+/** Says how a page was answered ("hit" or "rendered"), for tests and for people reading logs. */
+export const CACHE_STATUS_HEADER = "x-plateroom-page-cache";
+
+// Relative times on a page ("5 minutes ago") stay close to true.
+const MAX_AGE_MS = 60_000;
+const MAX_BYTES = 64 * 1024 * 1024;
+const RENDER_TIMEOUT_MS = 20_000;
+const TECHNIQUE_PAGE = /^\/techniques\/(?!new$)[a-z0-9][a-z0-9-]*$/;
+
+// The nonce and its policy are made fresh for every answer; transport headers belong to each answer.
+const NOT_KEPT = new Set(["content-security-policy", "set-cookie", "content-length", "content-encoding", "transfer-encoding", "connection", "keep-alive", "date"]);
+
+/** The page's bytes cut where the render's nonce stood, so each answer joins them around its own. */
+export type RenderedPage = { pieces: Buffer[]; size: number; headers: [string, string][] };
+type RenderContext = { path: string; cookie: string };
+
+let renderFailureLogged = false;
+
+async function render({ path, cookie }: RenderContext): Promise<RenderedPage | undefined> {
+  const res = await fetch(new URL(path, internalBaseUrl()), {
+    headers: { cookie, accept: "text/html", "accept-encoding": "identity", [RENDER_HEADER]: "1" },
+    redirect: "manual",
+    signal: AbortSignal.timeout(RENDER_TIMEOUT_MS),
+  }).catch((error: unknown) => {
+    if (!renderFailureLogged) console.warn(`[plateroom] page cache: cannot reach this instance at ${internalBaseUrl()} (set PLATEROOM_INTERNAL_URL); pages render uncached.`, error);
+    renderFailureLogged = true;
+    return null;
+  });
+  if (!res) return undefined;
+  const html = await res.text();
+  const nonce = /'nonce-([^']+)'/.exec(res.headers.get("content-security-policy") ?? "")?.[1];
+  // Only a plain successful page is kept; redirects, errors and anything setting a cookie render every time.
+  if (res.status !== 200 || !nonce || res.headers.has("set-cookie") || !res.headers.get("content-type")?.startsWith("text/html")) return undefined;
+  const headers = [...res.headers].filter(([name]) => !NOT_KEPT.has(name) && name !== CACHE_STATUS_HEADER);
+  const pieces = html.split(nonce).map((piece) => Buffer.from(piece));
+  return { pieces, size: pieces.reduce((sum, piece) => sum + piece.length, 0), headers };
+}
+
+const pages = new LRUCache<string, RenderedPage, RenderContext>({
+  maxSize: MAX_BYTES,
+  sizeCalculation: (page) => page.size + 1024,
+  ttl: MAX_AGE_MS,
+  // Concurrent requests for the same key share one render.
+  fetchMethod: (_key, _stale, { context }) => render(context),
+});
+
+/** A signed-in person loading a technique page as a document (client navigations fetch RSC data instead). */
+export function isCacheablePageRequest(req: NextRequest): boolean {
+  return (
+    req.method === "GET" &&
+    TECHNIQUE_PAGE.test(req.nextUrl.pathname) &&
+    !req.headers.has("rsc") &&
+    !req.headers.has("next-action") &&
+    !req.headers.has(RENDER_HEADER)
+  );
+}
+
+/** The rendered page for this person, rendering it first when there is no current copy; undefined when it cannot be kept. */
+export async function cachedPage(req: NextRequest): Promise<{ page: RenderedPage; hit: boolean } | undefined> {
+  const session = await userAndChangeStampFromRequest(req);
+  if (!session) return undefined;
+  const { user, changeStamp: stamp } = session;
+  const theme = req.cookies.get(THEME_COOKIE)?.value === "light" ? "light" : "dark";
+  const path = req.nextUrl.pathname + req.nextUrl.search;
+  const key = JSON.stringify([stamp, user.id, user.role, theme, path]);
+  const hit = pages.has(key);
+  try {
+    const page = await pages.fetch(key, { context: { path, cookie: req.headers.get("cookie") ?? "" } });
+    return page ? { page, hit } : undefined;
+  } catch (error) {
+    console.warn("[plateroom] page cache: render failed; rendering uncached.", error);
+    return undefined;
+  }
+}
+
+/** The kept page with this answer's own nonce in every place the rendered one stood. */
+export function pageResponse({ page, hit }: { page: RenderedPage; hit: boolean }, nonce: string, csp: string): Response {
+  const headers = new Headers(page.headers);
+  headers.set("content-security-policy", csp);
+  headers.set(CACHE_STATUS_HEADER, hit ? "hit" : "rendered");
+  const nonceBytes = Buffer.from(nonce);
+  const body = Buffer.concat(page.pieces.flatMap((piece, i) => (i === 0 ? [piece] : [nonceBytes, piece])));
+  return new Response(body, { status: 200, headers });
+}
+
+/** Tests: forget every kept page. */
+export function clearRenderedPages(): void {
+  pages.clear();
+}

@@ -1,0 +1,111 @@
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { apiClient, createApiToken, signInCookie } from "@/bench/lib/http-client";
+import { DEMO_PASSWORD, hasChromium, launchBrowser, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
+
+/**
+ * Technique pages are answered from lib/page-cache when nothing they show has changed (issue 9,
+ * load). What must still hold: every answer has its own CSP nonce, a change by anyone shows on
+ * the next load, each person gets their own copy, and a disabled person gets nothing.
+ */
+const PAGE = "/techniques/marker-channel-cleanup";
+
+function noncesIn(html: string): Set<string> {
+  return new Set([...html.matchAll(/nonce="([^"]+)"/g)].map((m) => m[1]!));
+}
+
+async function load(baseUrl: string, cookie: string) {
+  const res = await fetch(`${baseUrl}${PAGE}`, { headers: { cookie }, redirect: "manual" });
+  const html = await res.text();
+  const nonce = /'nonce-([^']+)'/.exec(res.headers.get("content-security-policy") ?? "")?.[1];
+  return { res, html, nonce, cache: res.headers.get("x-plateroom-page-cache") };
+}
+
+describe.skipIf(!hasChromium())("cached technique pages", () => {
+  let app: RunningApp;
+  let browser: Browser;
+  beforeAll(async () => {
+    app = await startApp();
+    browser = await launchBrowser();
+  }, 600_000);
+  afterAll(async () => {
+    await browser?.close();
+    await app?.stop();
+  });
+
+  it("answers a reload from the cache with a fresh nonce in the policy and in every script", async () => {
+    const cookie = await signInCookie(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
+    const first = await load(app.baseUrl, cookie);
+    expect(first.res.status).toBe(200);
+    const second = await load(app.baseUrl, cookie);
+    expect(second.cache).toBe("hit");
+    expect(second.nonce).toBeTruthy();
+    expect(second.nonce).not.toBe(first.nonce);
+    // W3C CSP Level 3 §6.7.2.3: a script runs only if its nonce equals the policy's, so the
+    // cached page must carry this answer's nonce and no other.
+    expect([...noncesIn(second.html)]).toEqual([second.nonce]);
+    expect(second.html).not.toContain(first.nonce!);
+    // Same page, apart from the nonce.
+    expect(second.html.replaceAll(second.nonce!, "N")).toBe(first.html.replaceAll(first.nonce!, "N"));
+    // The security headers of a rendered page, once each.
+    expect(second.res.headers.get("x-content-type-options")).toBe("nosniff");
+    expect(second.res.headers.get("referrer-policy")).toBe("strict-origin-when-cross-origin");
+    expect(second.res.headers.get("permissions-policy")).toContain("camera=()");
+    expect(second.res.headers.get("content-security-policy")).toContain("frame-ancestors 'none'");
+    expect(second.res.headers.get("set-cookie")).toBeNull();
+  });
+
+  it("shows a change made by someone else on the next load", async () => {
+    const cookie = await signInCookie(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
+    await load(app.baseUrl, cookie);
+    expect((await load(app.baseUrl, cookie)).cache).toBe("hit");
+    const lead = apiClient(app.baseUrl, await createApiToken(app.baseUrl, "lead@kestrel.test", DEMO_PASSWORD, "page cache test"));
+    const renamed = await lead.json("PATCH", "/api/tags/tracking-markers", { name: "Tracker dots on screens" });
+    expect(renamed.status).toBe(200);
+    const after = await load(app.baseUrl, cookie);
+    expect(after.cache).toBe("rendered");
+    expect(after.html).toContain("Tracker dots on screens");
+  });
+
+  it("keeps one copy per person, and a disabled person is sent to sign in", async () => {
+    const senior = await signInCookie(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
+    const artist = await signInCookie(app.baseUrl, "artist@kestrel.test", DEMO_PASSWORD);
+    await load(app.baseUrl, senior);
+    expect((await load(app.baseUrl, senior)).cache).toBe("hit");
+    const artistFirst = await load(app.baseUrl, artist);
+    expect(artistFirst.cache).toBe("rendered");
+    expect((await load(app.baseUrl, artist)).cache).toBe("hit");
+
+    const admin = apiClient(app.baseUrl, await createApiToken(app.baseUrl, "admin@kestrel.test", DEMO_PASSWORD, "page cache test"));
+    const people = await admin.json<{ items?: { id: string; email: string }[] } | { id: string; email: string }[]>("GET", "/api/people");
+    const list = Array.isArray(people.body) ? people.body : (people.body.items ?? []);
+    const artistId = list.find((p) => p.email === "artist@kestrel.test")?.id;
+    expect(artistId).toBeTruthy();
+    expect((await admin.json("PATCH", `/api/people/${artistId}`, { disabled: true })).status).toBe(200);
+    const refused = await load(app.baseUrl, artist);
+    expect(refused.cache).toBeNull();
+    expect(refused.res.status).not.toBe(200);
+    expect(artistFirst.html).toContain("About this technique");
+    expect(refused.html).not.toContain("About this technique");
+  });
+
+  it("a cached page runs in Chromium: no CSP violations, and its client parts load data", async () => {
+    const senior = apiClient(app.baseUrl, await createApiToken(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD, "page cache test"));
+    const asked = await senior.json("POST", `/api/techniques/marker-channel-cleanup/questions`, {
+      body: { type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text: "Does the copy step hold on a blue backing?" }] }] },
+    });
+    expect(asked.status).toBe(201);
+    const { context, page } = await signIn(browser, app.baseUrl, "senior@kestrel.test");
+    const violations: string[] = [];
+    page.on("console", (msg) => {
+      if (msg.type() === "error" && /Content Security Policy/i.test(msg.text())) violations.push(msg.text());
+    });
+    await page.goto(PAGE);
+    const cached = await page.goto(PAGE);
+    expect(cached?.headers()["x-plateroom-page-cache"]).toBe("hit");
+    // The questions list is fetched by client code after hydration: it only appears if the page's scripts ran.
+    await page.getByText("Does the copy step hold on a blue backing?").waitFor({ timeout: 15_000 });
+    expect(violations).toEqual([]);
+    await context.close();
+  });
+});
