@@ -210,6 +210,7 @@ export function createSearchIndex(): SearchIndex & {
   let queryStamp = new Int32Array(1024);
   let cover = new Uint8Array(1024);
   let stampCounter = 0;
+  let contentVersion = 0;
 
   function ensureCapacity(id: number): void {
     if (id < acc.length) return;
@@ -408,12 +409,14 @@ export function createSearchIndex(): SearchIndex & {
   function removeTechnique(techniqueId: string): void {
     const t = techniques.get(techniqueId);
     if (!t) return;
+    contentVersion++;
     if (t.published !== undefined) removeEntry(t.published);
     if (t.working !== undefined && t.working !== t.published) removeEntry(t.working);
     techniques.delete(techniqueId);
   }
 
   function upsert(techniqueId: string, views: SearchViews): void {
+    contentVersion++;
     const { published, working } = views;
     if (published && (published.status === "draft" || published.status === "in_review")) {
       // A published view is an approved revision by definition; anything else would leak unreviewed text to artists.
@@ -938,6 +941,7 @@ export function createSearchIndex(): SearchIndex & {
     search,
     suggestTitles,
     size: () => techniques.size,
+    version: () => contentVersion,
     load,
     compact,
   };

@@ -114,4 +114,6 @@ export type SearchIndex = {
   suggestTitles(query: string, audience: SearchAudience, limit?: number): TitleSuggestion[];
   /** Number of techniques with at least one view. */
   size(): number;
+  /** Goes up with every change to the content, so a caller may keep answers until it moves. */
+  version(): number;
 };
