@@ -3,6 +3,7 @@ import { LRUCache } from "lru-cache";
 import type { NextRequest } from "next/server";
 import { userAndChangeStampFromRequest } from "@/lib/auth/session";
 import { internalBaseUrl } from "@/lib/env";
+import { CACHE_STATUS_HEADER, RENDER_HEADER } from "@/lib/page-cache/headers";
 import { THEME_COOKIE } from "@/lib/theme";
 
 /**
@@ -13,10 +14,6 @@ import { THEME_COOKIE } from "@/lib/theme";
  * session is still checked against the database on every request, before the cache is read.
  */
 
-/** Marks the proxy's own render request: it must render, not be answered from the cache. */
-export const RENDER_HEADER = "x-plateroom-render";
-/** Says how a page was answered ("hit" or "rendered"), for tests and for people reading logs. */
-export const CACHE_STATUS_HEADER = "x-plateroom-page-cache";
 
 // Relative times on a page ("5 minutes ago") stay close to true.
 const MAX_AGE_MS = 60_000;

@@ -1,4 +1,4 @@
-import { eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { GET as me } from "@/app/api/me/route";
 import { PATCH as updatePerson } from "@/app/api/people/[id]/route";
@@ -34,6 +34,26 @@ async function meAs(headers: Record<string, string>): Promise<Response> {
 }
 
 describe("the change stamp and the change watch", () => {
+  it("watches every table except the ones pages never show (a new table must choose)", async () => {
+    const result = await getDb().execute(sql`
+      select c.relname as "table", t.tgname as "trigger"
+      from pg_class c join pg_namespace n on n.oid = c.relnamespace
+      left join pg_trigger t on t.tgrelid = c.oid and not t.tgisinternal
+      where n.nspname = 'public' and c.relkind = 'r'`);
+    // Both drivers answer with node-postgres's result shape.
+    const rows = (result as unknown as { rows: { table: string; trigger: string | null }[] }).rows;
+    const triggers = new Map<string, string[]>();
+    for (const { table, trigger } of rows) triggers.set(table, [...(triggers.get(table) ?? []), ...(trigger ? [trigger] : [])]);
+    // Mail, sign-in bookkeeping and the audit trail never appear on a page; tokens only notify.
+    const unwatched = new Set(["outbox", "digest_items", "one_time_tokens", "sign_in_failures", "audit_log", "change_stamp"]);
+    for (const [table, names] of triggers) {
+      if (unwatched.has(table)) expect(names, table).toEqual([]);
+      else if (table === "api_tokens") expect(names, table).toEqual(["notify_change"]);
+      else expect(names, table).toEqual(["bump_change_stamp"]);
+    }
+    expect(triggers.has("techniques")).toBe(true);
+  });
+
   it("rises with a change to what pages show, and not with an audit row", async () => {
     const before = await stamp();
     await getDb().insert(tags).values({ slug: "stamp-check", name: "Stamp check", kind: "problem" });
