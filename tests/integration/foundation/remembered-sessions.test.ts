@@ -4,7 +4,7 @@ import { GET as me } from "@/app/api/me/route";
 import { PATCH as updatePerson } from "@/app/api/people/[id]/route";
 import { DELETE as revokeToken } from "@/app/api/tokens/[id]/route";
 import { changeGeneration } from "@/db/change-watch";
-import { getDb } from "@/db/client";
+import { currentDriver, getDb } from "@/db/client";
 import { apiTokens, auditLog, changeStamp, tags, users } from "@/db/schema";
 import { apiRequest, createPeople, params, sessionCookie } from "@/tests/factories";
 
@@ -19,8 +19,15 @@ async function stamp(): Promise<number> {
   return row!.value;
 }
 
-/** The watch starts listening on first use; wait until this process knows about changes. */
-async function watching(): Promise<number> {
+/**
+ * The watch starts listening on first use; wait until this process knows about changes. On a
+ * PostgreSQL server it never does (other instances write too): nothing is remembered there.
+ */
+async function watching(): Promise<number | null> {
+  if (currentDriver() === "postgres") {
+    expect(changeGeneration()).toBeNull();
+    return null;
+  }
   for (let i = 0; i < 100; i++) {
     const generation = changeGeneration();
     if (generation !== null) return generation;
@@ -66,6 +73,7 @@ describe("the change stamp and the change watch", () => {
   it("reports a committed change before the writer's own query returns", async () => {
     const people = await createPeople();
     const g0 = await watching();
+    if (g0 === null) return;
     await getDb().update(users).set({ name: "Renamed Once" }).where(eq(users.id, people.artist.id));
     const g1 = changeGeneration();
     expect(g1).not.toBe(g0);
