@@ -2,7 +2,7 @@ import "server-only";
 import { LRUCache } from "lru-cache";
 import type { NextRequest } from "next/server";
 import { userAndChangeStampFromRequest } from "@/lib/auth/session";
-import { internalBaseUrl } from "@/lib/env";
+import { env, internalBaseUrl } from "@/lib/env";
 import { CACHE_STATUS_HEADER, RENDER_HEADER } from "@/lib/page-cache/headers";
 import { THEME_COOKIE } from "@/lib/theme";
 
@@ -61,6 +61,8 @@ const pages = new LRUCache<string, RenderedPage, RenderContext>({
 /** A signed-in person loading a technique page as a document (client navigations fetch RSC data instead). */
 export function isCacheablePageRequest(req: NextRequest): boolean {
   return (
+    // In development a reload must show the edited code.
+    env.NODE_ENV === "production" &&
     req.method === "GET" &&
     TECHNIQUE_PAGE.test(req.nextUrl.pathname) &&
     !req.headers.has("rsc") &&
