@@ -137,9 +137,14 @@ function scratch(state: LabState, i: number): Float32Array {
   return state.scratch[i]!;
 }
 
-function levelStep(state: LabState, step: Extract<RecipeStep, { op: "level" }>, index: number): StepReport {
+/**
+ * `from`: the channel the level reads its x values from — the level's own channel, or the
+ * source of a copy into it directly before (fused: same values, one pass fewer).
+ */
+function levelStep(state: LabState, step: Extract<RecipeStep, { op: "level" }>, index: number, from?: number): StepReport {
   const { width, height, cur } = state;
-  const cx = CHANNEL_INDEX[step.channel], cy = CHANNEL_INDEX[step.ref];
+  const cy = CHANNEL_INDEX[step.ref], cto = CHANNEL_INDEX[step.channel];
+  const cx = from ?? cto;
   let x0 = 0, y0 = 0, x1 = width, y1 = height;
   if (step.rect) {
     const s = state.scale;
@@ -187,7 +192,7 @@ function levelStep(state: LabState, step: Extract<RecipeStep, { op: "level" }>, 
     sse = ryy - gain * rxy;
   }
   const n3 = cur.length;
-  for (let i = cx; i < n3; i += 3) cur[i] = gain * cur[i]! + offset;
+  for (let i = 0; i < n3; i += 3) cur[i + cto] = gain * cur[i + cx]! + offset;
   return { index, op: "level", gain, offset, residual: Math.sqrt(Math.max(0, sse) / count), samples: count };
 }
 
@@ -199,16 +204,26 @@ function matteStep(state: LabState, step: Extract<RecipeStep, { op: "matte" }>, 
     : step.channel;
   const w0 = w[0]!, w1 = w[1]!, w2 = w[2]!;
   const base = state.base;
-  if (step.source === "plate" && base.kind === "codes" && step.white !== step.black) {
-    // Weights, ramp and coverage in one pass over the stored codes (three passes cost ~3×).
-    const { codes, lut } = base;
+  if (step.source === "plate" && step.white !== step.black) {
+    // Weights, ramp and coverage in one pass (three passes cost ~3×).
     const black = step.black, k = 1 / (step.white - step.black);
     let s = 0;
-    for (let p = 0, i = 0; p < n; p++, i += 3) {
-      const t = (w0 * lut[codes[i]!]! + w1 * lut[codes[i + 1]!]! + w2 * lut[codes[i + 2]!]! - black) * k;
-      const v = t < 0 ? 0 : t > 1 ? 1 : t;
-      matte[p] = v;
-      s += v;
+    if (base.kind === "codes") {
+      const { codes, lut } = base;
+      for (let p = 0, i = 0; p < n; p++, i += 3) {
+        const t = (w0 * lut[codes[i]!]! + w1 * lut[codes[i + 1]!]! + w2 * lut[codes[i + 2]!]! - black) * k;
+        const v = t < 0 ? 0 : t > 1 ? 1 : t;
+        matte[p] = v;
+        s += v;
+      }
+    } else {
+      const d = base.data;
+      for (let p = 0, i = 0; p < n; p++, i += 3) {
+        const t = (w0 * d[i]! + w1 * d[i + 1]! + w2 * d[i + 2]! - black) * k;
+        const v = t < 0 ? 0 : t > 1 ? 1 : t;
+        matte[p] = v;
+        s += v;
+      }
     }
     state.matte = matte;
     return { index, op: "matte", coverage: s / n };
@@ -264,6 +279,11 @@ function grainStep(state: LabState): void {
   const { plate, base } = state;
   if (base === plate) return;
   const n3 = cur.length;
+  if (plate.kind === "float" && base.kind === "float") {
+    const pd = plate.data, bd = base.data;
+    for (let i = 0; i < n3; i++) cur[i] = cur[i]! + (pd[i]! - bd[i]!);
+    return;
+  }
   if (plate.kind === "codes" && base.kind === "codes" && plate.lut === base.lut) {
     const pc = plate.codes, bc = base.codes, lut = plate.lut;
     for (let i = 0; i < n3; i++) cur[i] = cur[i]! + (lut[pc[i]!]! - lut[bc[i]!]!);
@@ -287,7 +307,12 @@ function grainStep(state: LabState): void {
 function mixGrainStep(state: LabState, invert: boolean): boolean {
   const { cur, plate, base } = state;
   const matte = state.matte;
-  if (!matte || base === plate || plate.kind !== "codes" || base.kind !== "codes" || plate.lut !== base.lut) return false;
+  if (!matte || base === plate) return false;
+  if (plate.kind === "float" && base.kind === "float") {
+    mixGrainFloat(cur, matte, plate.data, base.data, invert, state.width);
+    return true;
+  }
+  if (plate.kind !== "codes" || base.kind !== "codes" || plate.lut !== base.lut) return false;
   const pc = plate.codes, bc = base.codes, lut = plate.lut;
   const n3 = cur.length;
   for (let i = 0, p = 0; i < n3; i += 3, p++) {
@@ -304,6 +329,50 @@ function mixGrainStep(state: LabState, invert: boolean): boolean {
 }
 
 /**
+ * mixGrainStep over working-space floats (cached proxies): the same arithmetic, no table. Where
+ * a row's matte is 0 the plate is copied as a block (a marker matte is ~1 % of the frame).
+ */
+function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number): void {
+  if (!invert) {
+    const height = matte.length / width;
+    for (let y = 0; y < height; y++) {
+      const o = y * width;
+      let a = o, b = o + width;
+      while (a < b && matte[a] === 0) a++;
+      while (b > a && matte[b - 1] === 0) b--;
+      cur.set(pd.subarray(3 * o, 3 * a), 3 * o);
+      cur.set(pd.subarray(3 * b, 3 * (o + width)), 3 * b);
+      mixGrainRange(cur, matte, pd, bd, a, b);
+    }
+    return;
+  }
+  const n3 = cur.length;
+  for (let i = 0, p = 0; i < n3; i += 3, p++) {
+    const m = invert ? 1 - matte[p]! : matte[p]!;
+    if (m === 0) {
+      cur[i] = pd[i]!; cur[i + 1] = pd[i + 1]!; cur[i + 2] = pd[i + 2]!;
+      continue;
+    }
+    cur[i] = m * (cur[i]! - bd[i]!) + pd[i]!;
+    cur[i + 1] = m * (cur[i + 1]! - bd[i + 1]!) + pd[i + 1]!;
+    cur[i + 2] = m * (cur[i + 2]! - bd[i + 2]!) + pd[i + 2]!;
+  }
+}
+
+function mixGrainRange(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, p0: number, p1: number): void {
+  for (let p = p0, i = 3 * p0; p < p1; p++, i += 3) {
+    const m = matte[p]!;
+    if (m === 0) {
+      cur[i] = pd[i]!; cur[i + 1] = pd[i + 1]!; cur[i + 2] = pd[i + 2]!;
+      continue;
+    }
+    cur[i] = m * (cur[i]! - bd[i]!) + pd[i]!;
+    cur[i + 1] = m * (cur[i + 1]! - bd[i + 1]!) + pd[i + 1]!;
+    cur[i + 2] = m * (cur[i + 2]! - bd[i + 2]!) + pd[i + 2]!;
+  }
+}
+
+/**
  * Runs the step at `i` — or, for a mix directly followed by the grain step, both in one pass —
  * and answers the reports of the steps it ran (one or two).
  */
@@ -311,6 +380,10 @@ export function applyStepsAt(state: LabState, steps: readonly RecipeStep[], i: n
   const step = steps[i]!, next = steps[i + 1];
   if (step.op === "mix" && next?.op === "grain" && mixGrainStep(state, step.invert)) {
     return [{ index: i, op: "mix" }, { index: i + 1, op: "grain" }];
+  }
+  if (step.op === "copy" && next?.op === "level" && next.channel === step.to) {
+    // The level reads the copy's source instead of waiting for the copy: one pass, same values.
+    return [{ index: i, op: "copy" }, levelStep(state, next, i + 1, CHANNEL_INDEX[step.from])];
   }
   return [applyStep(state, step, i)];
 }
@@ -410,7 +483,9 @@ export async function encodeImage(cur: Float32Array, width: number, height: numb
   const img = sharp(out, { raw });
   return format === "png"
     ? img.png({ compressionLevel: 3 }).toBuffer()
-    : img.webp({ quality: 90, effort: 2 }).toBuffer();
+    // Previews: quality 85 at the fastest method encodes a 1024-px frame in ~7.5 ms against ~14 ms
+    // at quality 90 (method 2), most of a proxy render's budget; a preview is not for checking.
+    : img.webp({ quality: 85, effort: 0 }).toBuffer();
 }
 
 export type LabProgress = { done: number; total: number; label: string };
@@ -436,16 +511,52 @@ export type RunRecipeOptions = {
 };
 
 export type DecodedStill = StillCodes & { sourceWidth: number; sourceHeight: number };
-export type DecodeCache = { get(key: string): DecodedStill | undefined; set(key: string, value: DecodedStill): void };
 
-async function decodeCached(bytes: () => Promise<Uint8Array>, width: number | undefined, key: string | undefined, cache: DecodeCache | undefined): Promise<DecodedStill & { fromCache: boolean }> {
+/**
+ * A decoded proxy as kept between runs: already in the working space as floats, so a re-render
+ * starts with a copy instead of a table lookup per value (~11 ms of a 1024-px render), and the
+ * steps that read the plate run their float paths. Bit-identical to the codes through the table.
+ */
+export type ProxyStill = { width: number; height: number; bits: 8 | 16; sourceWidth: number; sourceHeight: number; space: LabSpace; data: Float32Array };
+export type DecodeCache = { get(key: string): ProxyStill | undefined; set(key: string, value: ProxyStill): void };
+
+type Decoded = {
+  width: number;
+  height: number;
+  bits: 8 | 16;
+  sourceWidth: number;
+  sourceHeight: number;
+  source: PixelSource;
+  /** Fresh 16-bit codes no one else holds, which the png16 encode may reuse. */
+  spare16: Uint16Array | null;
+};
+
+function toFloats(still: StillCodes, space: LabSpace): Float32Array {
+  const lut = codeLut(still.bits, space === "linear");
+  const { codes } = still;
+  const data = new Float32Array(codes.length);
+  for (let i = 0; i < data.length; i++) data[i] = lut[codes[i]!]!;
+  return data;
+}
+
+async function decodeCached(bytes: () => Promise<Uint8Array>, width: number | undefined, space: LabSpace, key: string | undefined,
+  cache: DecodeCache | undefined): Promise<Decoded> {
   // Only proxies are kept: a full-resolution decode is as large as the render it feeds.
-  const k = cache && key && width ? `${key}@${width}` : null;
+  const k = cache && key && width ? `${key}@${width}:${space}` : null;
   const hit = k ? cache!.get(k) : undefined;
-  if (hit) return { ...hit, fromCache: true };
+  if (hit) return { ...hit, source: { kind: "float", data: hit.data }, spare16: null };
   const still = await decodeStill(await bytes(), width);
-  if (k) cache!.set(k, still);
-  return { ...still, fromCache: Boolean(k) };
+  const { sourceWidth, sourceHeight, bits } = still;
+  if (k) {
+    const data = toFloats(still, space);
+    cache!.set(k, { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, space, data });
+    return { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, source: { kind: "float", data }, spare16: null };
+  }
+  return {
+    width: still.width, height: still.height, bits, sourceWidth, sourceHeight,
+    source: codesSource(still, space),
+    spare16: bits === 16 ? (still.codes as Uint16Array) : null,
+  };
 }
 
 export type RunRecipeResult = {
@@ -463,7 +574,7 @@ function checkAbort(signal?: AbortSignal): void {
   if (signal?.aborted) throw new LabAbortedError();
 }
 
-type PreparedRun = { state: LabState; plateCodes: DecodedStill & { fromCache: boolean }; reports: StepReport[]; decodeMs: number; stepsMs: number };
+type PreparedRun = { state: LabState; plateCodes: Decoded; reports: StepReport[]; decodeMs: number; stepsMs: number };
 
 async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<PreparedRun> {
   const { steps, space, signal, onProgress } = opts;
@@ -475,19 +586,19 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<Pre
   if (grainStepOf && !opts.loadStill) throw new LabInputError(`step ${grainIndex}: no loader for the denoised still`, grainIndex);
   // Both decodes at once: libvips decodes on its own threads.
   const [plateCodes, den] = await Promise.all([
-    decodeCached(async () => opts.still, opts.width, opts.plateKey, opts.decodeCache),
+    decodeCached(async () => opts.still, opts.width, space, opts.plateKey, opts.decodeCache),
     grainStepOf
-      ? decodeCached(() => opts.loadStill!(grainStepOf.denoised), opts.width, `den:${grainStepOf.denoised}`, opts.decodeCache)
+      ? decodeCached(() => opts.loadStill!(grainStepOf.denoised), opts.width, space, `den:${grainStepOf.denoised}`, opts.decodeCache)
       : null,
   ]);
   checkAbort(signal);
-  const plate = codesSource(plateCodes, space);
+  const plate = plateCodes.source;
   let base: PixelSource = plate;
   if (den) {
     if (den.width !== plateCodes.width || den.height !== plateCodes.height) {
       throw new LabInputError(`step ${grainIndex}: the denoised still is not the plate's size`, grainIndex);
     }
-    base = codesSource(den, space);
+    base = den.source;
   }
   const state = createLabState({
     width: plateCodes.width,
@@ -520,8 +631,7 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
   const { state, plateCodes, reports, decodeMs, stepsMs } = await decodeAndRun(opts);
   const t2 = performance.now();
   onProgress?.({ done: total - 1, total, label: "encode" });
-  const reuse = plateCodes.bits === 16 && !plateCodes.fromCache ? (plateCodes.codes as Uint16Array) : undefined;
-  const bytes = await encodeImage(state.cur, state.width, state.height, space, format, reuse);
+  const bytes = await encodeImage(state.cur, state.width, state.height, space, format, plateCodes.spare16 ?? undefined);
   releaseSimdRgb(state.cur);
   const t3 = performance.now();
   onProgress?.({ done: total, total, label: "done" });
@@ -553,8 +663,9 @@ export async function runRecipeToFloat(opts: Omit<RunRecipeOptions, "format"> & 
   let before: FloatRunResult["before"] = null;
   if (opts.withBefore) {
     const data = new Float32Array(state.cur.length);
-    const { codes, lut } = codesSource(plateCodes, opts.space) as Extract<PixelSource, { kind: "codes" }>;
-    for (let i = 0; i < data.length; i++) data[i] = lut[codes[i]!]!;
+    const src = state.plate;
+    if (src.kind === "float") data.set(src.data);
+    else for (let i = 0; i < data.length; i++) data[i] = src.lut[src.codes[i]!]!;
     before = { width: state.width, height: state.height, data };
   }
   return {
@@ -569,8 +680,5 @@ export async function runRecipeToFloat(opts: Omit<RunRecipeOptions, "format"> & 
 /** A still as interleaved RGB floats in the lab's working space (for plots and sample boxes). */
 export async function decodeStillFloat(bytes: Uint8Array, space: LabSpace, width?: number): Promise<{ width: number; height: number; data: Float32Array }> {
   const still = await decodeStill(bytes, width);
-  const lut = codeLut(still.bits, space === "linear");
-  const data = new Float32Array(still.codes.length);
-  for (let i = 0; i < data.length; i++) data[i] = lut[still.codes[i]!]!;
-  return { width: still.width, height: still.height, data };
+  return { width: still.width, height: still.height, data: toFloats(still, space) };
 }

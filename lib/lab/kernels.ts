@@ -120,31 +120,78 @@ function zeroRowPrefix(plane: Float32Array, width: number, height: number): Int3
 const windowIsZero = (prefix: Int32Array, y0: number, y1: number, height: number): boolean =>
   prefix[Math.min(height, y1 + 1)]! - prefix[Math.max(0, y0)]! === 0;
 
+/*
+ * The same within a row: outside [lo, hi) (the first non-zero column to one past the last) a row
+ * is zero, and an output pixel whose whole window lies in zeros is zero, so the kernels below
+ * compute only each row's span grown by the radius. A zero row has lo = width, hi = 0. Marker
+ * mattes cover ~1 % of a frame in short spans, so this skips most of the remaining work.
+ */
+type Spans = { lo: Int32Array; hi: Int32Array; prefix: Int32Array };
+
+function rowSpans(plane: Float32Array, width: number, height: number): Spans {
+  const lo = new Int32Array(height), hi = new Int32Array(height), prefix = new Int32Array(height + 1);
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    let a = 0;
+    while (a < width && plane[o + a] === 0) a++;
+    let b = width;
+    if (a < width) while (plane[o + b - 1] === 0) b--;
+    else { a = width; b = 0; }
+    lo[y] = a;
+    hi[y] = b;
+    prefix[y + 1] = prefix[y]! + (a < b ? 1 : 0);
+  }
+  return { lo, hi, prefix };
+}
+
+/** Grows every non-empty span by r on both sides, within the frame (the horizontal pass's output spans). */
+function growSpans(s: Spans, width: number, r: number): Spans {
+  const n = s.lo.length, lo = new Int32Array(n), hi = new Int32Array(n);
+  for (let y = 0; y < n; y++) {
+    if (s.lo[y]! < s.hi[y]!) { lo[y] = Math.max(0, s.lo[y]! - r); hi[y] = Math.min(width, s.hi[y]! + r); }
+    else { lo[y] = width; hi[y] = 0; }
+  }
+  return { lo, hi, prefix: s.prefix };
+}
+
+/** The union of the spans of rows y0..y1 (clipped to the frame), as [lo, hi). */
+function unionSpan(s: Spans, y0: number, y1: number, width: number): [number, number] {
+  let a = width, b = 0;
+  for (let y = Math.max(0, y0), e = Math.min(s.lo.length - 1, y1); y <= e; y++) {
+    if (s.lo[y]! < a) a = s.lo[y]!;
+    if (s.hi[y]! > b) b = s.hi[y]!;
+  }
+  return [a, b];
+}
+
 // Below this radius a plain running max over 2r+1 values is cheaper than van Herk's bookkeeping.
 const DIRECT_MORPH_RADIUS = 3;
 
 function directMorph(plane: Float32Array, width: number, height: number, r: number, isMax: boolean): void {
   const fill = isMax ? -Infinity : Infinity;
-  const prefix = zeroRowPrefix(plane, width, height);
+  const spans = rowSpans(plane, width, height);
+  const { prefix } = spans;
   const row = new Float32Array(width + 2 * r).fill(fill);
   for (let y = 0; y < height; y++) {
     if (prefix[y + 1] === prefix[y]) continue;
     const o = y * width;
+    const xa = Math.max(0, spans.lo[y]! - r), xb = Math.min(width, spans.hi[y]! + r);
     row.set(plane.subarray(o, o + width), r);
     if (isMax) {
-      for (let x = 0; x < width; x++) {
+      for (let x = xa; x < xb; x++) {
         let m = row[x]!;
         for (let t = 1; t <= 2 * r; t++) { const v = row[x + t]!; if (v > m) m = v; }
         plane[o + x] = m;
       }
     } else {
-      for (let x = 0; x < width; x++) {
+      for (let x = xa; x < xb; x++) {
         let m = row[x]!;
         for (let t = 1; t <= 2 * r; t++) { const v = row[x + t]!; if (v < m) m = v; }
         plane[o + x] = m;
       }
     }
   }
+  const hs = growSpans(spans, width, r);
   // Vertical: keep the last r+1 source rows in a ring so the pass can write in place.
   const ring = new Float32Array((2 * r + 1) * width);
   const acc = new Float32Array(width);
@@ -155,13 +202,15 @@ function directMorph(plane: Float32Array, width: number, height: number, r: numb
     if (ahead < height) ring.set(plane.subarray(ahead * width, ahead * width + width), slot(ahead));
     const y0 = Math.max(0, y - r), y1 = Math.min(height - 1, y + r);
     if (windowIsZero(prefix, y0, y1, height)) continue; // row y is zero and stays zero
-    acc.set(ring.subarray(slot(y0), slot(y0) + width));
+    // Outside the window's spans every input is zero, and so is row y there already.
+    const [xa, xb] = unionSpan(hs, y0, y1, width);
+    acc.set(ring.subarray(slot(y0) + xa, slot(y0) + xb), xa);
     for (let yy = y0 + 1; yy <= y1; yy++) {
       const s = slot(yy);
-      if (isMax) for (let x = 0; x < width; x++) { const v = ring[s + x]!; if (v > acc[x]!) acc[x] = v; }
-      else for (let x = 0; x < width; x++) { const v = ring[s + x]!; if (v < acc[x]!) acc[x] = v; }
+      if (isMax) for (let x = xa; x < xb; x++) { const v = ring[s + x]!; if (v > acc[x]!) acc[x] = v; }
+      else for (let x = xa; x < xb; x++) { const v = ring[s + x]!; if (v < acc[x]!) acc[x] = v; }
     }
-    plane.set(acc, y * width);
+    plane.set(acc.subarray(xa, xb), y * width + xa);
   }
 }
 
@@ -232,8 +281,8 @@ export function gaussianKernel(sigma: number): Float64Array {
   return k;
 }
 
-type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, width: number, height: number, prefix: Int32Array) => void;
-type VPass = (plane: Float32Array, tmp: Float32Array, offs: Int32Array, o: number, width: number) => void;
+type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, width: number, height: number, lo: Int32Array, hi: Int32Array) => void;
+type VPass = (plane: Float32Array, tmp: Float32Array, offs: Int32Array, o: number, xa: number, xb: number) => void;
 const firCache = new Map<number, { r: number; h: HPass; v: VPass }>();
 
 /*
@@ -248,20 +297,23 @@ function firPasses(sigma: number): { r: number; h: HPass; v: VPass } {
   const lit = (v: number): string => v.toExponential(17);
   let hs = `${lit(k[r]!)} * row[x + ${r}]`;
   for (let t = 1; t <= r; t++) hs += ` + ${lit(k[r + t]!)} * (row[x + ${r - t}] + row[x + ${r + t}])`;
-  const h = new Function("plane", "tmp", "row", "width", "height", "prefix", `
+  // lo/hi: each row's span grown by r (empty: lo ≥ hi); tmp is zero outside it.
+  const h = new Function("plane", "tmp", "row", "width", "height", "lo", "hi", `
     for (let y = 0; y < height; y++) {
-      const o = y * width, first = plane[o], last = plane[o + width - 1];
-      if (prefix[y + 1] === prefix[y]) { tmp.fill(0, o, o + width); continue; }
+      const o = y * width, first = plane[o], last = plane[o + width - 1], xa = lo[y], xb = hi[y];
+      if (xa >= xb) { tmp.fill(0, o, o + width); continue; }
+      tmp.fill(0, o, o + xa);
+      tmp.fill(0, o + xb, o + width);
       for (let i = 0; i < ${r}; i++) { row[i] = first; row[${r} + width + i] = last; }
-      for (let x = 0; x < width; x++) row[${r} + x] = plane[o + x];
-      for (let x = 0; x < width; x++) tmp[o + x] = ${hs};
+      row.set(plane.subarray(o, o + width), ${r});
+      for (let x = xa; x < xb; x++) tmp[o + x] = ${hs};
     }`) as HPass;
   let vs = `${lit(k[r]!)} * tmp[o${r} + x]`;
   for (let t = 1; t <= r; t++) vs += ` + ${lit(k[r + t]!)} * (tmp[o${r - t} + x] + tmp[o${r + t} + x])`;
   const decl = Array.from({ length: 2 * r + 1 }, (_, i) => `o${i} = offs[${i}]`).join(", ");
-  const v = new Function("plane", "tmp", "offs", "o", "width", `
+  const v = new Function("plane", "tmp", "offs", "o", "xa", "xb", `
     const ${decl};
-    for (let x = 0; x < width; x++) plane[o + x] = ${vs};`) as VPass;
+    for (let x = xa; x < xb; x++) plane[o + x] = ${vs};`) as VPass;
   const passes = { r, h, v };
   if (firCache.size > 64) firCache.clear();
   firCache.set(sigma, passes);
@@ -270,16 +322,19 @@ function firPasses(sigma: number): { r: number; h: HPass; v: VPass } {
 
 function firBlur(plane: Float32Array, width: number, height: number, sigma: number, tmp: Float32Array): void {
   const { r, h, v } = firPasses(sigma);
-  const prefix = zeroRowPrefix(plane, width, height);
-  h(plane, tmp, new Float32Array(width + 2 * r), width, height, prefix);
+  const spans = rowSpans(plane, width, height);
+  const hs = growSpans(spans, width, r);
+  h(plane, tmp, new Float32Array(width + 2 * r), width, height, hs.lo, hs.hi);
   const offs = new Int32Array(2 * r + 1);
   for (let y = 0; y < height; y++) {
-    if (windowIsZero(prefix, y - r, y + r, height)) continue; // row y is zero and stays zero
+    if (windowIsZero(spans.prefix, y - r, y + r, height)) continue; // row y is zero and stays zero
     for (let t = -r; t <= r; t++) {
       const yy = y + t;
       offs[t + r] = (yy < 0 ? 0 : yy >= height ? height - 1 : yy) * width;
     }
-    v(plane, tmp, offs, y * width, width);
+    // Edge rows repeat (clamped), so the clamped window's spans cover every row read.
+    const [xa, xb] = unionSpan(hs, y - r, y + r, width);
+    if (xa < xb) v(plane, tmp, offs, y * width, xa, xb);
   }
 }
 

@@ -3,7 +3,7 @@ import { createHash } from "node:crypto";
 import { mkdir, readFile, rename, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { canonicalJson, type LabRunRequest, type StepReport } from "@/lib/lab/recipe";
-import { LabAbortedError, runRecipe, type DecodeCache, type DecodedStill, type DenoisedLoader, type LabProgress } from "@/lib/lab/engine";
+import { LabAbortedError, runRecipe, type DecodeCache, type ProxyStill, type DenoisedLoader, type LabProgress } from "@/lib/lab/engine";
 
 /*
  * Runs lab recipes with a result cache (memory LRU with a byte cap, then an on-disk folder)
@@ -85,10 +85,11 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
   let active = 0;
   const waiting: (() => void)[] = [];
   const inflight = new Map<string, Promise<LabRunOutput>>();
-  // Decoded proxy stills (≈ 3 MB each at 1024 px, 16-bit), least recently used first out.
-  const decoded = new Map<string, DecodedStill>();
+  // Decoded proxy stills as working-space floats (≈ 6.6 MB each at 1024 × 540), least recently
+  // used first out.
+  const decoded = new Map<string, ProxyStill>();
   let decodedBytes = 0;
-  const decodedCap = options.decodedCacheBytes ?? 96 * 1024 * 1024;
+  const decodedCap = options.decodedCacheBytes ?? 128 * 1024 * 1024;
   const decodeCache: DecodeCache = {
     get(key) {
       const v = decoded.get(key);
@@ -99,13 +100,13 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       return v;
     },
     set(key, value) {
-      if (decoded.has(key) || value.codes.byteLength > decodedCap) return;
+      if (decoded.has(key) || value.data.byteLength > decodedCap) return;
       decoded.set(key, value);
-      decodedBytes += value.codes.byteLength;
+      decodedBytes += value.data.byteLength;
       for (const [k, v] of decoded) {
         if (decodedBytes <= decodedCap) break;
         decoded.delete(k);
-        decodedBytes -= v.codes.byteLength;
+        decodedBytes -= v.data.byteLength;
       }
     },
   };

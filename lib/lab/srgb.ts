@@ -69,6 +69,11 @@ export type Quantiser = {
   low: number;
   /** Distance from a rounding edge beyond which the chord's rounding is certain. */
   guard: number;
+  /**
+   * 8-bit linear only: the code of each cell's first float, cells (256 per octave) being narrow
+   * enough that at most one rounding edge falls inside one, so one compare settles the code.
+   */
+  cells: Uint8Array | null;
 };
 
 const quantCache = new Map<string, Quantiser>();
@@ -135,18 +140,45 @@ export function quantiser(bits: 8 | 16, linear: boolean): Quantiser {
     }
     guard = Math.min(0.5, Math.max(4 * miss, 1e-3));
   }
-  const q = { bits, max, linear, thresholds, chord, shift, low, guard };
+  const cells = bits === 8 && linear ? edgeCells(thresholds) : null;
+  const q = { bits, max, linear, thresholds, chord, shift, low, guard, cells };
   quantCache.set(key, q);
   return q;
 }
 
+const ONE_BITS = 0x3f800000, INF_BITS = 0x7f800000;
+const EDGE_CELL_BITS = 8;
+
+/*
+ * Per cell of the float bits (exponent and top 8 mantissa bits, from the octave holding
+ * thresholds[0] up to 1): the code of the cell's first float. Null if some cell held two edges
+ * (it cannot for 8-bit sRGB: the narrowest code step is ~3e-4 wide against cells ≤ 2e-3 of
+ * a step ~9e-3 near 1, and ≤ 8e-6 in the linear segment, but the build checks rather than trusts).
+ */
+function edgeCells(thresholds: Float32Array): Uint8Array | null {
+  const shift = 23 - EDGE_CELL_BITS;
+  const e = Math.ceil(-Math.log2(thresholds[0]!));
+  const low = floatBits(2 ** -e) >>> shift;
+  const count = (ONE_BITS >>> shift) - low;
+  const cells = new Uint8Array(count);
+  let k = 0;
+  for (let j = 0; j < count; j++) {
+    const first = bitsFloat((low + j) << shift), last = bitsFloat(((low + j + 1) << shift) - 1);
+    k = settle(thresholds, k, first);
+    const kLast = settle(thresholds, k, last);
+    if (kLast > k + 1) return null;
+    cells[j] = k;
+  }
+  return cells;
+}
+
 /** Writes codes for an interleaved float buffer, clipping to 0..1 (the only clip in a run). */
 export function quantise(src: Float32Array, dst: Uint16Array | Uint8Array, q: Quantiser): void {
-  if (q.linear) quantiseLinear(src, new Int32Array(src.buffer, src.byteOffset, src.length), dst, q);
+  if (q.cells && dst instanceof Uint8Array) quantiseCells(new Int32Array(src.buffer, src.byteOffset, src.length), dst, q, q.cells);
+  else if (q.linear) quantiseLinear(src, new Int32Array(src.buffer, src.byteOffset, src.length), dst, q);
   else quantiseStored(src, dst, q);
 }
 
-const ONE_BITS = 0x3f800000, INF_BITS = 0x7f800000;
 
 function quantiseLinear(src: Float32Array, bitsOf: Int32Array, dst: Uint16Array | Uint8Array, q: Quantiser): void {
   const { thresholds, chord, shift, max, guard } = q;
@@ -171,6 +203,29 @@ function quantiseLinear(src: Float32Array, bitsOf: Int32Array, dst: Uint16Array 
     const k = y | 0;
     const f = y - k;
     dst[i] = f > guard && f < hi ? k : settle(thresholds, k, src[i]!);
+  }
+}
+
+/** 8-bit linear: the cell's first code, plus one if x is past the one edge the cell may hold. */
+function quantiseCells(bitsOf: Int32Array, dst: Uint8Array, q: Quantiser, cells: Uint8Array): void {
+  const { thresholds, max } = q;
+  const edgeBits = new Int32Array(thresholds.buffer, thresholds.byteOffset, thresholds.length);
+  const shift = 23 - EDGE_CELL_BITS;
+  const lowBits = (floatBits(2 ** -Math.ceil(-Math.log2(thresholds[0]!))) >>> shift) << shift;
+  const n = bitsOf.length;
+  for (let i = 0; i < n; i++) {
+    const b = bitsOf[i]!;
+    if (b < lowBits) {
+      dst[i] = 0;
+      continue;
+    }
+    if (b >= ONE_BITS) {
+      dst[i] = b > INF_BITS ? 0 : max;
+      continue;
+    }
+    // x ≥ t as integers on the bits (both positive): branch-free, as the compare is a coin toss.
+    const k = cells[(b - lowBits) >> shift]!;
+    dst[i] = k + ((edgeBits[k]! - b - 1) >>> 31);
   }
 }
 

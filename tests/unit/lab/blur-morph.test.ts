@@ -134,3 +134,66 @@ describe("grow / shrink (grey-level dilation / erosion)", () => {
     });
   }
 });
+
+/** A marker-matte-like plane: zero except a few blobs, some touching the frame's edges. */
+function sparsePlane(width: number, height: number, seed: number): Float32Array {
+  const r = rand(seed), p = new Float32Array(width * height);
+  const blobs: [number, number][] = [[0, 3], [width - 2, height - 1], [Math.floor(width / 2), 0], [5, Math.floor(height / 2)]];
+  for (let i = 0; i < 4; i++) blobs.push([Math.floor(r() * width), Math.floor(r() * height)]);
+  for (const [cx, cy] of blobs) {
+    for (let y = cy - 1; y <= cy + 2; y++) for (let x = cx - 2; x <= cx + 1; x++) {
+      if (x >= 0 && y >= 0 && x < width && y < height) p[y * width + x] = 0.2 + r();
+    }
+  }
+  return p;
+}
+
+/** Separable Gaussian from the definition, border pixels repeated (as libvips extends edges). */
+function bruteBlur(p: Float32Array, w: number, h: number, sigma: number): Float64Array {
+  const r = Math.floor(sigma * Math.sqrt(-2 * Math.log(0.001)));
+  const k: number[] = [];
+  let s = 0;
+  for (let i = -r; i <= r; i++) { const v = Math.exp(-(i * i) / (2 * sigma * sigma)); k.push(v); s += v; }
+  const tmp = new Float64Array(w * h), out = new Float64Array(w * h);
+  const cl = (v: number, n: number): number => (v < 0 ? 0 : v >= n ? n - 1 : v);
+  for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+    let a = 0;
+    for (let t = -r; t <= r; t++) a += (k[t + r]! / s) * p[y * w + cl(x + t, w)]!;
+    tmp[y * w + x] = a;
+  }
+  for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+    let a = 0;
+    for (let t = -r; t <= r; t++) a += (k[t + r]! / s) * tmp[cl(y + t, h) * w + x]!;
+    out[y * w + x] = a;
+  }
+  return out;
+}
+
+describe("mostly-zero planes (only each row's non-zero span is computed)", () => {
+  for (const px of [1, 2, 3, -2]) {
+    it(`grow/shrink ${px} px equals the running max/min definition everywhere (Serra 1982)`, () => {
+      const w = 61, h = 37;
+      const p = sparsePlane(w, h, 200 + px);
+      const ours = new Float32Array(p);
+      morphPlane(ours, w, h, px);
+      expect(Array.from(ours)).toEqual(Array.from(bruteMorph(p, w, h, px)));
+    });
+  }
+  for (const sigma of [0.6, 1.2, 3]) {
+    it(`blur σ = ${sigma} equals the sampled Gaussian (edges repeated) everywhere, zeros far from the blobs`, () => {
+      const w = 61, h = 37;
+      const p = sparsePlane(w, h, 300);
+      const ours = new Float32Array(p);
+      blurPlane(ours, w, h, sigma, new Float32Array(w * h).fill(7)); // dirty scratch must not leak through
+      const ref = bruteBlur(p, w, h, sigma);
+      let worst = 0, moved = 0;
+      for (let i = 0; i < p.length; i++) {
+        worst = Math.max(worst, Math.abs(ours[i]! - ref[i]!));
+        moved = Math.max(moved, Math.abs(ref[i]! - p[i]!));
+        if (ref[i] === 0) expect(ours[i]).toBe(0);
+      }
+      expect(worst).toBeLessThan(1e-6); // float32 arithmetic against float64
+      expect(moved).toBeGreaterThan(0.1);
+    });
+  }
+});

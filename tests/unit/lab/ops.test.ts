@@ -197,6 +197,70 @@ describe("one-pass paths the engine takes", () => {
   });
 });
 
+describe("proxy paths (decoded proxy kept as working-space floats)", () => {
+  it("mix then grain over float sources equals the two steps apart, plate bit-exact where the matte is 0", () => {
+    // PRODUCT.md: mix = cleaned × matte + original × (1 − matte); grain = clean + (plate − denoised).
+    for (const invert of [false, true]) {
+      const w = 29, h = 13, r = rand(invert ? 22 : 21);
+      const den = Float32Array.from({ length: w * h * 3 }, () => 0.1 + r() * 0.8);
+      const plate = den.map((v) => v + (r() - 0.5) * 0.05);
+      const make = () => createLabState({ width: w, height: h, plate: floatSource(plate), base: floatSource(den) });
+      const a = make(), b = make();
+      const cleaned = Float32Array.from({ length: w * h * 3 }, () => r() * 1.2 - 0.1);
+      // Whole zero rows, zero margins and zeros inside a span: every branch of the span copy.
+      const zero = invert ? 1 : 0;
+      const matte = Float32Array.from({ length: w * h }, (_, p) => {
+        const x = p % w, y = Math.floor(p / w);
+        return y % 4 === 0 || x < 5 || x > 20 || x === 11 ? zero : r();
+      });
+      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float32Array(matte); }
+      const steps = [step({ op: "mix", invert }), step({ op: "grain", denoised: "d" })];
+      expect(applyStepsAt(a, steps, 0).map((x) => x.op)).toEqual(["mix", "grain"]);
+      applyStep(b, steps[0]!, 0);
+      applyStep(b, steps[1]!, 1);
+      for (let p = 0; p < w * h; p++) for (let c = 0; c < 3; c++) {
+        const i = p * 3 + c;
+        expect(a.cur[i]).toBeCloseTo(b.cur[i]!, 6);
+        if (matte[p] === zero) expect(a.cur[i]).toBe(plate[i]);
+      }
+    }
+  });
+
+  it("a copy directly followed by a level of the copied channel runs as one pass with the same values and reports", () => {
+    const w = 31, h = 17, r = rand(31);
+    const plate = Float32Array.from({ length: w * h * 3 }, () => r());
+    const steps = [step({ op: "copy", from: "g", to: "r" }), step({ op: "level", channel: "r", ref: "r", fit: "gain+offset", rect: { x: 3, y: 2, w: 11, h: 7 } })];
+    const a = createLabState({ width: w, height: h, plate: floatSource(plate) });
+    const b = createLabState({ width: w, height: h, plate: floatSource(plate) });
+    const fused = applyStepsAt(a, steps, 0);
+    const apart = [applyStep(b, steps[0]!, 0), applyStep(b, steps[1]!, 1)];
+    expect(fused).toEqual(apart);
+    expect(Array.from(a.cur)).toEqual(Array.from(b.cur));
+    expect(a.cur[0]).not.toBe(plate[0]); // the level changed red
+  });
+
+  it("a proxy re-rendered from the decode cache is bit-identical to one decoded afresh (demo recipe)", async () => {
+    const { generateSyntheticPlate, demoCleanupRecipe } = await import("@/lib/lab/synthetic");
+    const { recipeSchema } = await import("@/lib/lab/recipe");
+    const W = 320, H = 170;
+    const syn = await generateSyntheticPlate({ width: W, height: H, compressionLevel: 1 });
+    const steps = recipeSchema.parse(demoCleanupRecipe({ denoisedStillId: "den", width: W, screen: syn.screen, markerSamples: syn.markerSamples, screenSamples: syn.screenSamples, screenRect: syn.screenRect }));
+    const kept = new Map<string, import("@/lib/lab/engine").ProxyStill>();
+    const decodeCache = { get: (k: string) => kept.get(k), set: (k: string, v: import("@/lib/lab/engine").ProxyStill) => void kept.set(k, v) };
+    const loadStill = async () => syn.denoised;
+    for (const space of ["linear", "stored"] as const) {
+      const opts = { still: syn.plate, steps, space, format: "png16" as const, width: 160, loadStill };
+      const fresh = await runRecipe(opts);
+      await runRecipe({ ...opts, decodeCache, plateKey: "p" });
+      const again = await runRecipe({ ...opts, decodeCache, plateKey: "p" });
+      expect(fresh.width).toBe(160);
+      expect(Buffer.compare(again.bytes, fresh.bytes)).toBe(0);
+      expect(again.reports).toEqual(fresh.reports);
+    }
+    expect([...kept.keys()].sort()).toEqual(["den:den@160:linear", "den:den@160:stored", "p@160:linear", "p@160:stored"]);
+  });
+});
+
 describe("float result", () => {
   it("runRecipeToFloat keeps values outside 0..1 that the encoded result clips", async () => {
     const { runRecipeToFloat } = await import("@/lib/lab/engine");

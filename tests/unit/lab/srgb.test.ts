@@ -64,6 +64,24 @@ describe("sRGB transfer (IEC 61966-2-1:1999)", () => {
       }
     }
   });
+  it("8-bit linear: one compare per cell gives round(encode(x) · 255) at every cell's first and last float", () => {
+    // Rounding in encoded space per IEC 61966-2-1; cells are the float's exponent and top 8
+    // mantissa bits, so these are the floats where the cell table could go wrong.
+    const q = quantiser(8, true);
+    expect(q.cells).not.toBeNull();
+    const f = new Float32Array(1), u = new Uint32Array(f.buffer);
+    const xs: number[] = [];
+    for (let b = 0x38000000; b < 0x3f800000; b += 1 << 15) for (const d of [0, -1, 1, 1 << 14]) { u[0] = b + d; xs.push(f[0]!); }
+    const src = Float32Array.from(xs), out = new Uint8Array(src.length);
+    quantise(src, out, q);
+    for (let i = 0; i < src.length; i++) {
+      const want = Math.round(srgbEncode(src[i]!) * 255);
+      if (out[i] !== want) expect({ x: src[i], code: out[i] }).toEqual({ x: src[i], code: want });
+    }
+    const lut = codeLut(8, true), back = new Uint8Array(256);
+    quantise(Float32Array.from(lut), back, q);
+    expect(Array.from(back)).toEqual(Array.from({ length: 256 }, (_, k) => k));
+  });
   it("clips only at quantisation: below 0 → 0, above 1 → max, NaN → 0", () => {
     const out = new Uint8Array(4);
     quantise(new Float32Array([-0.5, 1.5, NaN, 1]), out, quantiser(8, false));
