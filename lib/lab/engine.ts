@@ -7,7 +7,7 @@ import {
   type RecipeStep,
   type StepReport,
 } from "@/lib/lab/recipe";
-import { codeLut, quantise, quantiser } from "@/lib/lab/srgb";
+import { codeLut, quantise, quantise8Consuming, quantiser } from "@/lib/lab/srgb";
 import { releaseSimdRgb, takeSimdRgb } from "@/lib/lab/simd";
 import {
   blurPlane,
@@ -132,8 +132,29 @@ export function createLabState(opts: { width: number; height: number; plate: Pix
   return { width, height, cur, base, plate, matte: null, scale: opts.scale ?? 1, scratch: [] };
 }
 
+/*
+ * Planes (matte, scratch) are pooled like the RGB buffers: two fresh 2 MB planes per proxy render
+ * are ~4 ms of page faults and collector work. Every user overwrites the whole plane first.
+ */
+const PLANE_POOL_BYTES = 64 * 1024 * 1024;
+const idlePlanes: Float32Array[] = [];
+
+function takePlane(n: number): Float32Array {
+  const i = idlePlanes.findIndex((a) => a.length === n);
+  return i >= 0 ? idlePlanes.splice(i, 1)[0]! : new Float32Array(n);
+}
+
+/** Gives the state's matte and scratch planes back to the pool; the state must not use them again. */
+function releasePlanes(state: LabState): void {
+  for (const a of [...state.scratch, ...(state.matte ? [state.matte] : [])]) if (!idlePlanes.includes(a)) idlePlanes.push(a);
+  state.scratch = [];
+  state.matte = null;
+  let bytes = idlePlanes.reduce((t, a) => t + a.byteLength, 0);
+  while (bytes > PLANE_POOL_BYTES && idlePlanes.length) bytes -= idlePlanes.shift()!.byteLength;
+}
+
 function scratch(state: LabState, i: number): Float32Array {
-  while (state.scratch.length <= i) state.scratch.push(new Float32Array(state.width * state.height));
+  while (state.scratch.length <= i) state.scratch.push(takePlane(state.width * state.height));
   return state.scratch[i]!;
 }
 
@@ -198,7 +219,7 @@ function levelStep(state: LabState, step: Extract<RecipeStep, { op: "level" }>, 
 
 function matteStep(state: LabState, step: Extract<RecipeStep, { op: "matte" }>, index: number): StepReport {
   const n = state.width * state.height;
-  const matte = state.matte ?? new Float32Array(n);
+  const matte = state.matte ?? takePlane(n);
   const w = typeof step.channel === "string"
     ? ([0, 0, 0].map((_, i) => (i === CHANNEL_INDEX[step.channel as "r"] ? 1 : 0)) as number[])
     : step.channel;
@@ -466,9 +487,10 @@ export const CONTENT_TYPES: Record<LabFormat, string> = { png16: "image/png", pn
 /**
  * Encodes the working image. `reuse` may be handed a 16-bit code buffer of the right size that
  * is no longer needed (the plate's), so a 4K png16 render does not allocate another 53 MB.
+ * `consume`: `cur` is not needed afterwards, so 8-bit codes may be written over it in place.
  */
 export async function encodeImage(cur: Float32Array, width: number, height: number, space: LabSpace, format: LabFormat,
-  reuse?: Uint16Array): Promise<Buffer> {
+  reuse?: Uint16Array, consume = false): Promise<Buffer> {
   const linear = space === "linear";
   const raw = { width, height, channels: 3 as const };
   if (format === "png16") {
@@ -478,8 +500,12 @@ export async function encodeImage(cur: Float32Array, width: number, height: numb
     // no smaller (14 MB vs 13 MB at 2K) and took 5–7× longer (~250 ms vs ~50 ms).
     return sharp(out, { raw }).toColourspace("rgb16").png({ compressionLevel: 0 }).toBuffer();
   }
-  const out = new Uint8Array(cur.length);
-  quantise(cur, out, quantiser(8, linear));
+  const q8 = quantiser(8, linear);
+  let out = consume ? quantise8Consuming(cur, q8) : null;
+  if (!out) {
+    out = new Uint8Array(cur.length);
+    quantise(cur, out, q8);
+  }
   const img = sharp(out, { raw });
   return format === "png"
     ? img.png({ compressionLevel: 3 }).toBuffer()
@@ -619,8 +645,7 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<Pre
     await new Promise<void>((resolve) => setImmediate(resolve));
   }
   const t2 = performance.now();
-  state.scratch = [];
-  state.matte = null;
+  releasePlanes(state);
   return { state, plateCodes, reports, decodeMs: t1 - t0, stepsMs: t2 - t1 };
 }
 
@@ -631,7 +656,7 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
   const { state, plateCodes, reports, decodeMs, stepsMs } = await decodeAndRun(opts);
   const t2 = performance.now();
   onProgress?.({ done: total - 1, total, label: "encode" });
-  const bytes = await encodeImage(state.cur, state.width, state.height, space, format, plateCodes.spare16 ?? undefined);
+  const bytes = await encodeImage(state.cur, state.width, state.height, space, format, plateCodes.spare16 ?? undefined, true);
   releaseSimdRgb(state.cur);
   const t3 = performance.now();
   onProgress?.({ done: total, total, label: "done" });

@@ -281,24 +281,25 @@ export function gaussianKernel(sigma: number): Float64Array {
   return k;
 }
 
-type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, width: number, height: number, lo: Int32Array, hi: Int32Array) => void;
-type VPass = (plane: Float32Array, tmp: Float32Array, offs: Int32Array, o: number, xa: number, xb: number) => void;
-const firCache = new Map<number, { r: number; h: HPass; v: VPass }>();
+type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, width: number, height: number, lo: Int32Array, hi: Int32Array, k: Float64Array) => void;
+type VPass = (plane: Float32Array, tmp: Float32Array, offs: Int32Array, o: number, xa: number, xb: number, k: Float64Array) => void;
+const firCache = new Map<number, { h: HPass; v: VPass }>();
 
 /*
- * The kernel is unrolled into generated straight-line code (weights as literals, symmetric taps
- * paired): a loop over taps costs ~5× more per pixel in V8. Only numbers go into the source.
+ * The kernel is unrolled into generated straight-line code (symmetric taps paired, weights held in
+ * locals): a loop over taps costs ~5× more per pixel in V8. The code is made per radius, not per
+ * sigma, so dragging a sigma slider does not compile (and run unoptimised) a new function for
+ * every render. Only numbers go into the source.
  */
-function firPasses(sigma: number): { r: number; h: HPass; v: VPass } {
-  const hit = firCache.get(sigma);
+function firPasses(r: number): { h: HPass; v: VPass } {
+  const hit = firCache.get(r);
   if (hit) return hit;
-  const k = gaussianKernel(sigma);
-  const r = (k.length - 1) >> 1;
-  const lit = (v: number): string => v.toExponential(17);
-  let hs = `${lit(k[r]!)} * row[x + ${r}]`;
-  for (let t = 1; t <= r; t++) hs += ` + ${lit(k[r + t]!)} * (row[x + ${r - t}] + row[x + ${r + t}])`;
+  const weights = Array.from({ length: r + 1 }, (_, t) => `k${t} = k[${r + t}]`).join(", ");
+  let hs = `k0 * row[x + ${r}]`;
+  for (let t = 1; t <= r; t++) hs += ` + k${t} * (row[x + ${r - t}] + row[x + ${r + t}])`;
   // lo/hi: each row's span grown by r (empty: lo ≥ hi); tmp is zero outside it.
-  const h = new Function("plane", "tmp", "row", "width", "height", "lo", "hi", `
+  const h = new Function("plane", "tmp", "row", "width", "height", "lo", "hi", "k", `
+    const ${weights};
     for (let y = 0; y < height; y++) {
       const o = y * width, first = plane[o], last = plane[o + width - 1], xa = lo[y], xb = hi[y];
       if (xa >= xb) { tmp.fill(0, o, o + width); continue; }
@@ -308,23 +309,24 @@ function firPasses(sigma: number): { r: number; h: HPass; v: VPass } {
       row.set(plane.subarray(o, o + width), ${r});
       for (let x = xa; x < xb; x++) tmp[o + x] = ${hs};
     }`) as HPass;
-  let vs = `${lit(k[r]!)} * tmp[o${r} + x]`;
-  for (let t = 1; t <= r; t++) vs += ` + ${lit(k[r + t]!)} * (tmp[o${r - t} + x] + tmp[o${r + t} + x])`;
+  let vs = `k0 * tmp[o${r} + x]`;
+  for (let t = 1; t <= r; t++) vs += ` + k${t} * (tmp[o${r - t} + x] + tmp[o${r + t} + x])`;
   const decl = Array.from({ length: 2 * r + 1 }, (_, i) => `o${i} = offs[${i}]`).join(", ");
-  const v = new Function("plane", "tmp", "offs", "o", "xa", "xb", `
-    const ${decl};
+  const v = new Function("plane", "tmp", "offs", "o", "xa", "xb", "k", `
+    const ${decl}, ${weights};
     for (let x = xa; x < xb; x++) plane[o + x] = ${vs};`) as VPass;
-  const passes = { r, h, v };
-  if (firCache.size > 64) firCache.clear();
-  firCache.set(sigma, passes);
+  const passes = { h, v };
+  firCache.set(r, passes);
   return passes;
 }
 
 function firBlur(plane: Float32Array, width: number, height: number, sigma: number, tmp: Float32Array): void {
-  const { r, h, v } = firPasses(sigma);
+  const k = gaussianKernel(sigma);
+  const r = (k.length - 1) >> 1;
+  const { h, v } = firPasses(r);
   const spans = rowSpans(plane, width, height);
   const hs = growSpans(spans, width, r);
-  h(plane, tmp, new Float32Array(width + 2 * r), width, height, hs.lo, hs.hi);
+  h(plane, tmp, new Float32Array(width + 2 * r), width, height, hs.lo, hs.hi, k);
   const offs = new Int32Array(2 * r + 1);
   for (let y = 0; y < height; y++) {
     if (windowIsZero(spans.prefix, y - r, y + r, height)) continue; // row y is zero and stays zero
@@ -334,7 +336,7 @@ function firBlur(plane: Float32Array, width: number, height: number, sigma: numb
     }
     // Edge rows repeat (clamped), so the clamped window's spans cover every row read.
     const [xa, xb] = unionSpan(hs, y - r, y + r, width);
-    if (xa < xb) v(plane, tmp, offs, y * width, xa, xb);
+    if (xa < xb) v(plane, tmp, offs, y * width, xa, xb, k);
   }
 }
 

@@ -12,7 +12,9 @@
  * bytes (r, g, b and the next pixel's r, which the mask writes back unchanged).
  */
 
-const PARAM_BYTES = 256;
+const PARAM_BYTES = 8192;
+// Tables of the 8-bit quantiser (quantise8InPlace) live in the parameter area after the matrix's.
+const Q8_TABLES = 256;
 
 function leb(n: number): number[] {
   const out: number[] = [];
@@ -86,6 +88,81 @@ function moduleBytes(): Uint8Array<ArrayBuffer> {
   return new Uint8Array(bytes);
 }
 
+/** Signed LEB128, for i32.const. */
+function sleb(n: number): number[] {
+  const out: number[] = [];
+  n |= 0;
+  for (;;) {
+    const b = n & 0x7f;
+    n >>= 7;
+    if ((n === 0 && (b & 0x40) === 0) || (n === -1 && (b & 0x40) !== 0)) {
+      out.push(b);
+      return out;
+    }
+    out.push(b | 0x80);
+  }
+}
+
+/*
+ * The 8-bit cell quantiser (srgb.ts quantiseCells) as a scalar loop: the JS loop's bounds checks
+ * and three dependent typed-array reads cost ~4 ns a value, a third of a 1024-px proxy render.
+ * q8(src, end, dst, cells, edges, lowBits, count): for each float's bits b at src..end,
+ *   t = (b − lowBits) >> 15, 0 when outside the table; k = cells[t];
+ *   v = k + ((edges[k] − b − 1) >>> 31); 0 below lowBits; ≥ 1.0: 255, NaN: 0. One byte to dst.
+ * dst may equal src: byte i is written after float i is read, and later floats lie beyond it.
+ */
+function quant8ModuleBytes(): Uint8Array<ArrayBuffer> {
+  const get = (i: number): number[] => [0x20, i];
+  const set = (i: number): number[] => [0x21, i];
+  const c = (v: number): number[] => [0x41, ...sleb(v)];
+  const [SRC, END, DST, CELLS, EDGES, LOW, COUNT, B, T, K, V] = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
+  const I32_ADD = 0x6a, I32_SUB = 0x6b, SHL = 0x74, SHR_S = 0x75, SHR_U = 0x76, LT_S = 0x48, LT_U = 0x49, GT_S = 0x4a, GE_S = 0x4e, GE_U = 0x4f, SELECT = 0x1b;
+  const body = [
+    0x01, 0x04, 0x7f, // four i32 locals: b, t, k, v
+    0x02, 0x40, 0x03, 0x40,
+    ...get(SRC), ...get(END), GE_U, 0x0d, 0x01,
+    ...get(SRC), 0x28, 0x02, 0x00, ...set(B),
+    ...get(B), ...get(LOW), I32_SUB, ...c(15), SHR_S, ...set(T),
+    ...get(T), ...c(0), ...get(T), ...get(COUNT), LT_U, SELECT, ...set(T),
+    ...get(CELLS), ...get(T), I32_ADD, 0x2d, 0x00, 0x00, ...set(K),
+    ...get(K),
+    ...get(EDGES), ...get(K), ...c(2), SHL, I32_ADD, 0x28, 0x02, 0x00,
+    ...get(B), I32_SUB, ...c(1), I32_SUB, ...c(31), SHR_U,
+    I32_ADD, ...set(V),
+    ...c(0), ...get(V), ...get(B), ...get(LOW), LT_S, SELECT, ...set(V),
+    ...c(0), ...c(255), ...get(B), ...c(0x7f800000), GT_S, SELECT,
+    ...get(V), ...get(B), ...c(0x3f800000), GE_S, SELECT, ...set(V),
+    ...get(DST), ...get(V), 0x3a, 0x00, 0x00,
+    ...get(DST), ...c(1), I32_ADD, ...set(DST),
+    ...get(SRC), ...c(4), I32_ADD, ...set(SRC),
+    0x0c, 0x00,
+    0x0b, 0x0b,
+    0x0b,
+  ];
+  const bytes = [
+    0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00,
+    ...section(1, [0x01, 0x60, 0x07, 0x7f, 0x7f, 0x7f, 0x7f, 0x7f, 0x7f, 0x7f, 0x00]),
+    ...section(2, [0x01, 0x01, 0x65, 0x01, 0x6d, 0x02, 0x00, 0x01]),
+    ...section(3, [0x01, 0x00]),
+    ...section(7, [0x01, 0x01, 0x66, 0x00, 0x00]),
+    ...section(10, [0x01, ...leb(body.length), ...body]),
+  ];
+  return new Uint8Array(bytes);
+}
+
+let quant8Compiled: WebAssembly.Module | null | undefined;
+function quant8Module(): WebAssembly.Module | null {
+  if (quant8Compiled === undefined) {
+    try {
+      const bytes = quant8ModuleBytes();
+      quant8Compiled = typeof WebAssembly !== "undefined" && WebAssembly.validate(bytes) ? new WebAssembly.Module(bytes) : null;
+    } catch {
+      quant8Compiled = null;
+    }
+  }
+  return quant8Compiled;
+}
+
 let compiled: WebAssembly.Module | null | undefined;
 function simdModule(): WebAssembly.Module | null {
   if (compiled === undefined) {
@@ -99,7 +176,8 @@ function simdModule(): WebAssembly.Module | null {
   return compiled;
 }
 
-type Backing = { memory: WebAssembly.Memory; run: (p: number, end: number) => void };
+type Q8 = (src: number, end: number, dst: number, cells: number, edges: number, lowBits: number, count: number) => void;
+type Backing = { memory: WebAssembly.Memory; run: (p: number, end: number) => void; q8?: Q8 | null };
 const backings = new WeakMap<ArrayBufferLike, Backing>();
 
 /** A zeroed Float32Array of `length` floats that the SIMD matrix can work on (plain array if no SIMD). */
@@ -134,6 +212,27 @@ export function releaseSimdRgb(a: Float32Array): void {
   idle.push(a);
   let bytes = idle.reduce((s, b) => s + b.byteLength, 0);
   while (bytes > POOL_BYTES && idle.length) bytes -= idle.shift()!.byteLength;
+}
+
+/**
+ * Quantises `a` (from allocSimdRgb/takeSimdRgb) to 8-bit codes in place with the cell tables of
+ * srgb.ts's 8-bit quantiser and answers the codes, a view over `a`'s first bytes (its floats are
+ * gone). Null when `a` is not such an array or WebAssembly is missing: quantise in JS then.
+ */
+export function quantise8InPlace(a: Float32Array, cells: Uint8Array, edgeBits: Int32Array, lowBits: number): Uint8Array | null {
+  const backing = backings.get(a.buffer);
+  if (!backing || a.byteOffset !== PARAM_BYTES || Q8_TABLES + cells.length + 4 * edgeBits.length + 8 > PARAM_BYTES) return null;
+  if (backing.q8 === undefined) {
+    const mod = quant8Module();
+    backing.q8 = mod ? (new WebAssembly.Instance(mod, { e: { m: backing.memory } }).exports.f as Q8) : null;
+  }
+  if (!backing.q8) return null;
+  const buf = backing.memory.buffer;
+  const edges = (Q8_TABLES + cells.length + 3) & ~3;
+  new Uint8Array(buf, Q8_TABLES, cells.length).set(cells);
+  new Int32Array(buf, edges, edgeBits.length).set(edgeBits);
+  backing.q8(PARAM_BYTES, PARAM_BYTES + a.length * 4, PARAM_BYTES, Q8_TABLES, edges, lowBits, cells.length);
+  return new Uint8Array(buf, PARAM_BYTES, a.length);
 }
 
 /** out = M · rgb + offset in place, for arrays from allocSimdRgb; false when `a` is not one. */

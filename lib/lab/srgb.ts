@@ -3,6 +3,7 @@
  * Decode of stored 8/16-bit codes goes through exact lookup tables; encode uses the formula,
  * or (for quantising to a code) a threshold search that gives the same code as rounding it.
  */
+import { quantise8InPlace } from "@/lib/lab/simd";
 
 export function srgbDecode(v: number): number {
   return v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4;
@@ -204,6 +205,18 @@ function quantiseLinear(src: Float32Array, bitsOf: Int32Array, dst: Uint16Array 
     const f = y - k;
     dst[i] = f > guard && f < hi ? k : settle(thresholds, k, src[i]!);
   }
+}
+
+/**
+ * 8-bit linear codes for a working buffer from takeSimdRgb, computed in place in WebAssembly
+ * (the floats are consumed); null when that path is not available.
+ */
+export function quantise8Consuming(src: Float32Array, q: Quantiser): Uint8Array | null {
+  if (!q.cells) return null;
+  const { thresholds } = q;
+  const shift = 23 - EDGE_CELL_BITS;
+  const lowBits = (floatBits(2 ** -Math.ceil(-Math.log2(thresholds[0]!))) >>> shift) << shift;
+  return quantise8InPlace(src, q.cells, new Int32Array(thresholds.buffer, thresholds.byteOffset, thresholds.length), lowBits);
 }
 
 /** 8-bit linear: the cell's first code, plus one if x is past the one edge the cell may hold. */

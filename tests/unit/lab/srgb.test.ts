@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { codeLut, quantise, quantiser, srgbDecode, srgbEncode, srgbDecodeExt, srgbEncodeExt } from "@/lib/lab/srgb";
+import { codeLut, quantise, quantise8Consuming, quantiser, srgbDecode, srgbEncode, srgbDecodeExt, srgbEncodeExt } from "@/lib/lab/srgb";
 
 describe("sRGB transfer (IEC 61966-2-1:1999)", () => {
   it("decodes encoded 0.5 to linear 0.214041", () => {
@@ -81,6 +81,24 @@ describe("sRGB transfer (IEC 61966-2-1:1999)", () => {
     const lut = codeLut(8, true), back = new Uint8Array(256);
     quantise(Float32Array.from(lut), back, q);
     expect(Array.from(back)).toEqual(Array.from({ length: 256 }, (_, k) => k));
+  });
+  it("8-bit in place in WebAssembly gives the same codes as the JS quantiser (edges, clips, NaN)", async () => {
+    const { takeSimdRgb, releaseSimdRgb } = await import("@/lib/lab/simd");
+    const q = quantiser(8, true);
+    const f = new Float32Array(1), u = new Uint32Array(f.buffer);
+    const xs: number[] = [-1, -0, 0, 1e-9, 1, 1.5, Infinity, -Infinity, NaN, 0.5];
+    for (let k = 0; k < 255; k++) for (const d of [-1, 0, 1]) { f[0] = srgbDecode((k + 0.5) / 255); u[0] = u[0]! + d; xs.push(f[0]!); }
+    for (let i = 0; i < 3000; i++) xs.push(Math.sin(i) * 1.3);
+    while (xs.length % 3) xs.push(0.25);
+    const want = new Uint8Array(xs.length);
+    quantise(Float32Array.from(xs), want, q);
+    const a = takeSimdRgb(xs.length);
+    a.set(xs);
+    const got = quantise8Consuming(a, q);
+    expect(got).not.toBeNull();
+    expect(Array.from(got!)).toEqual(Array.from(want));
+    releaseSimdRgb(a);
+    expect(quantise8Consuming(Float32Array.from(xs), q)).toBeNull(); // not wasm memory: the JS path
   });
   it("clips only at quantisation: below 0 → 0, above 1 → max, NaN → 0", () => {
     const out = new Uint8Array(4);
