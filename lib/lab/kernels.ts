@@ -121,47 +121,62 @@ const windowIsZero = (prefix: Int32Array, y0: number, y1: number, height: number
   prefix[Math.min(height, y1 + 1)]! - prefix[Math.max(0, y0)]! === 0;
 
 /*
- * The same within a row: outside [lo, hi) (the first non-zero column to one past the last) a row
- * is zero, and an output pixel whose whole window lies in zeros is zero, so the kernels below
- * compute only each row's span grown by the radius. A zero row has lo = width, hi = 0. Marker
- * mattes cover ~1 % of a frame in short spans, so this skips most of the remaining work.
+ * The same within a row, by blocks: each row is cut into 32 blocks of ceil(width/32) columns and
+ * a 32-bit mask marks the blocks holding a non-zero value. Outside the marked blocks grown by the
+ * radius every window lies in zeros, so the kernels below compute only there. Marker mattes
+ * cover ~1 % of a frame in small spots spread along a row (so a first-to-last span would still
+ * hold ~half of the row), which leaves a few blocks per row.
  */
-type Spans = { lo: Int32Array; hi: Int32Array; prefix: Int32Array };
+type Blocks = { bw: number; masks: Int32Array; prefix: Int32Array };
 
-function rowSpans(plane: Float32Array, width: number, height: number): Spans {
-  const lo = new Int32Array(height), hi = new Int32Array(height), prefix = new Int32Array(height + 1);
+function rowBlocks(plane: Float32Array, width: number, height: number): Blocks {
+  const bw = Math.ceil(width / 32);
+  const masks = new Int32Array(height), prefix = new Int32Array(height + 1);
+  // OR of the bits, no branch per value (−0 counts as non-zero: only more work, never wrong).
+  const bits = new Int32Array(plane.buffer, plane.byteOffset, plane.length);
   for (let y = 0; y < height; y++) {
     const o = y * width;
-    let a = 0;
-    while (a < width && plane[o + a] === 0) a++;
-    let b = width;
-    if (a < width) while (plane[o + b - 1] === 0) b--;
-    else { a = width; b = 0; }
-    lo[y] = a;
-    hi[y] = b;
-    prefix[y + 1] = prefix[y]! + (a < b ? 1 : 0);
+    let m = 0;
+    for (let b = 0, x0 = 0; x0 < width; b++, x0 += bw) {
+      let any = 0;
+      for (let x = o + x0, e = o + Math.min(width, x0 + bw); x < e; x++) any |= bits[x]!;
+      if (any !== 0) m |= 1 << b;
+    }
+    masks[y] = m;
+    prefix[y + 1] = prefix[y]! + (m !== 0 ? 1 : 0);
   }
-  return { lo, hi, prefix };
+  return { bw, masks, prefix };
 }
 
-/** Grows every non-empty span by r on both sides, within the frame (the horizontal pass's output spans). */
-function growSpans(s: Spans, width: number, r: number): Spans {
-  const n = s.lo.length, lo = new Int32Array(n), hi = new Int32Array(n);
-  for (let y = 0; y < n; y++) {
-    if (s.lo[y]! < s.hi[y]!) { lo[y] = Math.max(0, s.lo[y]! - r); hi[y] = Math.min(width, s.hi[y]! + r); }
-    else { lo[y] = width; hi[y] = 0; }
-  }
-  return { lo, hi, prefix: s.prefix };
+/** The masks after a horizontal pass of radius r: every marked block's neighbours within r columns. */
+function growBlocks(s: Blocks, width: number, r: number): Blocks {
+  const g = Math.ceil(r / s.bw), nb = Math.ceil(width / s.bw);
+  const all = nb >= 32 ? -1 : (1 << nb) - 1;
+  const masks = s.masks.map((m) => {
+    let out = m;
+    for (let t = 1; t <= g; t++) out |= (m << t) | (m >>> t);
+    return out & all;
+  });
+  return { bw: s.bw, masks, prefix: s.prefix };
 }
 
-/** The union of the spans of rows y0..y1 (clipped to the frame), as [lo, hi). */
-function unionSpan(s: Spans, y0: number, y1: number, width: number): [number, number] {
-  let a = width, b = 0;
-  for (let y = Math.max(0, y0), e = Math.min(s.lo.length - 1, y1); y <= e; y++) {
-    if (s.lo[y]! < a) a = s.lo[y]!;
-    if (s.hi[y]! > b) b = s.hi[y]!;
+/** OR of the masks of rows y0..y1, clipped to the frame. */
+function windowMask(s: Blocks, y0: number, y1: number): number {
+  let m = 0;
+  for (let y = Math.max(0, y0), e = Math.min(s.masks.length - 1, y1); y <= e; y++) m |= s.masks[y]!;
+  return m;
+}
+
+/** Calls fn(xa, xb) for each run of marked blocks of `mask`, as a column range [xa, xb). */
+function forRuns(mask: number, bw: number, width: number, fn: (xa: number, xb: number) => void): void {
+  let m = mask;
+  while (m !== 0) {
+    const lo = 31 - Math.clz32(m & -m);
+    const rest = ~(m >>> lo);
+    const len = rest === 0 ? 32 - lo : 31 - Math.clz32(rest & -rest);
+    fn(lo * bw, Math.min(width, (lo + len) * bw));
+    m = len + lo >= 32 ? 0 : m & ~(((1 << len) - 1) << lo);
   }
-  return [a, b];
 }
 
 // Below this radius a plain running max over 2r+1 values is cheaper than van Herk's bookkeeping.
@@ -169,48 +184,56 @@ const DIRECT_MORPH_RADIUS = 3;
 
 function directMorph(plane: Float32Array, width: number, height: number, r: number, isMax: boolean): void {
   const fill = isMax ? -Infinity : Infinity;
-  const spans = rowSpans(plane, width, height);
-  const { prefix } = spans;
+  const blocks = rowBlocks(plane, width, height);
+  const hb = growBlocks(blocks, width, r);
+  const { prefix } = blocks;
   const row = new Float32Array(width + 2 * r).fill(fill);
-  for (let y = 0; y < height; y++) {
-    if (prefix[y + 1] === prefix[y]) continue;
-    const o = y * width;
-    const xa = Math.max(0, spans.lo[y]! - r), xb = Math.min(width, spans.hi[y]! + r);
-    row.set(plane.subarray(o, o + width), r);
-    if (isMax) {
+  let o = 0;
+  const horizontal = isMax
+    ? (xa: number, xb: number): void => {
       for (let x = xa; x < xb; x++) {
         let m = row[x]!;
         for (let t = 1; t <= 2 * r; t++) { const v = row[x + t]!; if (v > m) m = v; }
         plane[o + x] = m;
       }
-    } else {
+    }
+    : (xa: number, xb: number): void => {
       for (let x = xa; x < xb; x++) {
         let m = row[x]!;
         for (let t = 1; t <= 2 * r; t++) { const v = row[x + t]!; if (v < m) m = v; }
         plane[o + x] = m;
       }
-    }
+    };
+  for (let y = 0; y < height; y++) {
+    if (prefix[y + 1] === prefix[y]) continue;
+    o = y * width;
+    row.set(plane.subarray(o, o + width), r);
+    forRuns(hb.masks[y]!, hb.bw, width, horizontal);
   }
-  const hs = growSpans(spans, width, r);
   // Vertical: keep the last r+1 source rows in a ring so the pass can write in place.
   const ring = new Float32Array((2 * r + 1) * width);
   const acc = new Float32Array(width);
   const slot = (y: number): number => (y % (2 * r + 1)) * width;
   for (let y = 0; y < Math.min(r, height); y++) ring.set(plane.subarray(y * width, y * width + width), slot(y));
-  for (let y = 0; y < height; y++) {
-    const ahead = y + r;
-    if (ahead < height) ring.set(plane.subarray(ahead * width, ahead * width + width), slot(ahead));
-    const y0 = Math.max(0, y - r), y1 = Math.min(height - 1, y + r);
-    if (windowIsZero(prefix, y0, y1, height)) continue; // row y is zero and stays zero
-    // Outside the window's spans every input is zero, and so is row y there already.
-    const [xa, xb] = unionSpan(hs, y0, y1, width);
+  let y0 = 0, y1 = 0;
+  const vertical = (xa: number, xb: number): void => {
     acc.set(ring.subarray(slot(y0) + xa, slot(y0) + xb), xa);
     for (let yy = y0 + 1; yy <= y1; yy++) {
       const s = slot(yy);
       if (isMax) for (let x = xa; x < xb; x++) { const v = ring[s + x]!; if (v > acc[x]!) acc[x] = v; }
       else for (let x = xa; x < xb; x++) { const v = ring[s + x]!; if (v < acc[x]!) acc[x] = v; }
     }
-    plane.set(acc.subarray(xa, xb), y * width + xa);
+    plane.set(acc.subarray(xa, xb), o + xa);
+  };
+  for (let y = 0; y < height; y++) {
+    const ahead = y + r;
+    if (ahead < height) ring.set(plane.subarray(ahead * width, ahead * width + width), slot(ahead));
+    y0 = Math.max(0, y - r);
+    y1 = Math.min(height - 1, y + r);
+    if (windowIsZero(prefix, y0, y1, height)) continue; // row y is zero and stays zero
+    // Outside the window's blocks every input is zero, and so is row y there already.
+    o = y * width;
+    forRuns(windowMask(hb, y0, y1), hb.bw, width, vertical);
   }
 }
 
@@ -281,7 +304,7 @@ export function gaussianKernel(sigma: number): Float64Array {
   return k;
 }
 
-type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, width: number, height: number, lo: Int32Array, hi: Int32Array, k: Float64Array) => void;
+type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, o: number, width: number, xa: number, xb: number, k: Float64Array) => void;
 type VPass = (plane: Float32Array, tmp: Float32Array, offs: Int32Array, o: number, xa: number, xb: number, k: Float64Array) => void;
 const firCache = new Map<number, { h: HPass; v: VPass }>();
 
@@ -297,18 +320,14 @@ function firPasses(r: number): { h: HPass; v: VPass } {
   const weights = Array.from({ length: r + 1 }, (_, t) => `k${t} = k[${r + t}]`).join(", ");
   let hs = `k0 * row[x + ${r}]`;
   for (let t = 1; t <= r; t++) hs += ` + k${t} * (row[x + ${r - t}] + row[x + ${r + t}])`;
-  // lo/hi: each row's span grown by r (empty: lo ≥ hi); tmp is zero outside it.
-  const h = new Function("plane", "tmp", "row", "width", "height", "lo", "hi", "k", `
+  // Columns [xa, xb) of the row at o, through a padded copy of the row (edges repeated).
+  const h = new Function("plane", "tmp", "row", "o", "width", "xa", "xb", "k", `
     const ${weights};
-    for (let y = 0; y < height; y++) {
-      const o = y * width, first = plane[o], last = plane[o + width - 1], xa = lo[y], xb = hi[y];
-      if (xa >= xb) { tmp.fill(0, o, o + width); continue; }
-      tmp.fill(0, o, o + xa);
-      tmp.fill(0, o + xb, o + width);
-      for (let i = 0; i < ${r}; i++) { row[i] = first; row[${r} + width + i] = last; }
-      row.set(plane.subarray(o, o + width), ${r});
-      for (let x = xa; x < xb; x++) tmp[o + x] = ${hs};
-    }`) as HPass;
+    const first = plane[o], last = plane[o + width - 1];
+    for (let i = 0; i < ${r}; i++) { row[i] = first; row[${r} + width + i] = last; }
+    const a = xa < ${r} ? 0 : xa - ${r}, b = xb + ${r} > width ? width : xb + ${r};
+    row.set(plane.subarray(o + a, o + b), ${r} + a);
+    for (let x = xa; x < xb; x++) tmp[o + x] = ${hs};`) as HPass;
   let vs = `k0 * tmp[o${r} + x]`;
   for (let t = 1; t <= r; t++) vs += ` + k${t} * (tmp[o${r - t} + x] + tmp[o${r + t} + x])`;
   const decl = Array.from({ length: 2 * r + 1 }, (_, i) => `o${i} = offs[${i}]`).join(", ");
@@ -324,19 +343,32 @@ function firBlur(plane: Float32Array, width: number, height: number, sigma: numb
   const k = gaussianKernel(sigma);
   const r = (k.length - 1) >> 1;
   const { h, v } = firPasses(r);
-  const spans = rowSpans(plane, width, height);
-  const hs = growSpans(spans, width, r);
-  h(plane, tmp, new Float32Array(width + 2 * r), width, height, hs.lo, hs.hi, k);
-  const offs = new Int32Array(2 * r + 1);
+  const blocks = rowBlocks(plane, width, height);
+  const hb = growBlocks(blocks, width, r);
+  const row = new Float32Array(width + 2 * r);
   for (let y = 0; y < height; y++) {
-    if (windowIsZero(spans.prefix, y - r, y + r, height)) continue; // row y is zero and stays zero
+    const o = y * width;
+    if (hb.masks[y] === 0) { tmp.fill(0, o, o + width); continue; }
+    let done = 0;
+    forRuns(hb.masks[y]!, hb.bw, width, (xa, xb) => {
+      tmp.fill(0, o + done, o + xa);
+      h(plane, tmp, row, o, width, xa, xb, k);
+      done = xb;
+    });
+    tmp.fill(0, o + done, o + width);
+  }
+  const offs = new Int32Array(2 * r + 1);
+  let o = 0;
+  const vertical = (xa: number, xb: number): void => v(plane, tmp, offs, o, xa, xb, k);
+  for (let y = 0; y < height; y++) {
+    if (windowIsZero(blocks.prefix, y - r, y + r, height)) continue; // row y is zero and stays zero
     for (let t = -r; t <= r; t++) {
       const yy = y + t;
       offs[t + r] = (yy < 0 ? 0 : yy >= height ? height - 1 : yy) * width;
     }
-    // Edge rows repeat (clamped), so the clamped window's spans cover every row read.
-    const [xa, xb] = unionSpan(hs, y - r, y + r, width);
-    if (xa < xb) v(plane, tmp, offs, y * width, xa, xb, k);
+    // Edge rows repeat (clamped), so the clamped window's blocks cover every row read.
+    o = y * width;
+    forRuns(windowMask(hb, y - r, y + r), hb.bw, width, vertical);
   }
 }
 

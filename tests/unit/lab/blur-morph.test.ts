@@ -170,18 +170,19 @@ function bruteBlur(p: Float32Array, w: number, h: number, sigma: number): Float6
 }
 
 describe("mostly-zero planes (only each row's non-zero span is computed)", () => {
-  for (const px of [1, 2, 3, -2]) {
-    it(`grow/shrink ${px} px equals the running max/min definition everywhere (Serra 1982)`, () => {
-      const w = 61, h = 37;
+  // Widths give column blocks narrower than the radius (61: 2 columns) and wider (227: 8).
+  for (const [px, w] of [[1, 61], [2, 61], [3, 61], [-2, 61], [2, 227], [3, 227]] as const) {
+    it(`grow/shrink ${px} px equals the running max/min definition everywhere, ${w} wide (Serra 1982)`, () => {
+      const h = 37;
       const p = sparsePlane(w, h, 200 + px);
       const ours = new Float32Array(p);
       morphPlane(ours, w, h, px);
       expect(Array.from(ours)).toEqual(Array.from(bruteMorph(p, w, h, px)));
     });
   }
-  for (const sigma of [0.6, 1.2, 3]) {
-    it(`blur σ = ${sigma} equals the sampled Gaussian (edges repeated) everywhere, zeros far from the blobs`, () => {
-      const w = 61, h = 37;
+  for (const [sigma, w] of [[0.6, 61], [1.2, 61], [3, 61], [1.2, 227], [3, 227]] as const) {
+    it(`blur σ = ${sigma} equals the sampled Gaussian (edges repeated) everywhere, zeros far from the blobs, ${w} wide`, () => {
+      const h = 37;
       const p = sparsePlane(w, h, 300);
       const ours = new Float32Array(p);
       blurPlane(ours, w, h, sigma, new Float32Array(w * h).fill(7)); // dirty scratch must not leak through
