@@ -163,6 +163,19 @@ function scratch(state: LabState, i: number): Float32Array {
  * source of a copy into it directly before (fused: same values, one pass fewer).
  */
 function levelStep(state: LabState, step: Extract<RecipeStep, { op: "level" }>, index: number, from?: number): StepReport {
+  const rep = levelFit(state, step, index, from);
+  const { cur } = state;
+  const cx = from ?? CHANNEL_INDEX[step.channel], cto = CHANNEL_INDEX[step.channel];
+  const { gain, offset } = rep;
+  const n3 = cur.length;
+  for (let i = 0; i < n3; i += 3) cur[i + cto] = gain * cur[i + cx]! + offset;
+  return rep;
+}
+
+type LevelReport = Extract<StepReport, { op: "level" }>;
+
+/** The level's fit (gain, offset, residual) over its rect, reading x from channel `from`; changes nothing. */
+function levelFit(state: LabState, step: Extract<RecipeStep, { op: "level" }>, index: number, from?: number): LevelReport {
   const { width, height, cur } = state;
   const cy = CHANNEL_INDEX[step.ref], cto = CHANNEL_INDEX[step.channel];
   const cx = from ?? cto;
@@ -212,8 +225,6 @@ function levelStep(state: LabState, step: Extract<RecipeStep, { op: "level" }>, 
     offset = 0;
     sse = ryy - gain * rxy;
   }
-  const n3 = cur.length;
-  for (let i = 0; i < n3; i += 3) cur[i + cto] = gain * cur[i + cx]! + offset;
   return { index, op: "level", gain, offset, residual: Math.sqrt(Math.max(0, sse) / count), samples: count };
 }
 
@@ -394,8 +405,9 @@ function mixGrainRange(cur: Float32Array, matte: Float32Array, pd: Float32Array,
 }
 
 /**
- * Runs the step at `i` — or, for a mix directly followed by the grain step, both in one pass —
- * and answers the reports of the steps it ran (one or two).
+ * Runs the step at `i` — or, for a mix directly followed by the grain step, or a copy followed by
+ * a level of the copied channel (once or twice), those together in one pass — and answers the
+ * reports of the steps it ran (one to four).
  */
 export function applyStepsAt(state: LabState, steps: readonly RecipeStep[], i: number): StepReport[] {
   const step = steps[i]!, next = steps[i + 1];
@@ -404,7 +416,24 @@ export function applyStepsAt(state: LabState, steps: readonly RecipeStep[], i: n
   }
   if (step.op === "copy" && next?.op === "level" && next.channel === step.to) {
     // The level reads the copy's source instead of waiting for the copy: one pass, same values.
-    return [{ index: i, op: "copy" }, levelStep(state, next, i + 1, CHANNEL_INDEX[step.from])];
+    const from = CHANNEL_INDEX[step.from], c1 = CHANNEL_INDEX[step.to];
+    const copy2 = steps[i + 2], level2 = steps[i + 3];
+    if (copy2?.op === "copy" && level2?.op === "level" && level2.channel === copy2.to && copy2.from === step.from
+      && c1 !== from && CHANNEL_INDEX[copy2.to] !== from && CHANNEL_INDEX[copy2.to] !== c1) {
+      // Two such pairs from one source (how a solved "hide" spreads the cleaned channel): the
+      // first pair leaves the source alone, so both fits read it as it is and one pass writes both.
+      const r1 = levelFit(state, next, i + 1, from), r2 = levelFit(state, level2, i + 3, from);
+      const c2 = CHANNEL_INDEX[copy2.to];
+      const { cur } = state, n3 = cur.length;
+      const g1 = r1.gain, o1 = r1.offset, g2 = r2.gain, o2 = r2.offset;
+      for (let j = 0; j < n3; j += 3) {
+        const x = cur[j + from]!;
+        cur[j + c1] = g1 * x + o1;
+        cur[j + c2] = g2 * x + o2;
+      }
+      return [{ index: i, op: "copy" }, r1, { index: i + 2, op: "copy" }, r2];
+    }
+    return [{ index: i, op: "copy" }, levelStep(state, next, i + 1, from)];
   }
   return [applyStep(state, step, i)];
 }

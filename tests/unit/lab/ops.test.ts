@@ -239,6 +239,23 @@ describe("proxy paths (decoded proxy kept as working-space floats)", () => {
     expect(a.cur[0]).not.toBe(plate[0]); // the level changed red
   });
 
+  it("two copy+level pairs from one source (a solved hide spreads its channel) run as one pass with the same values", () => {
+    const w = 31, h = 17, r = rand(32);
+    const plate = Float32Array.from({ length: w * h * 3 }, () => r());
+    const rect = { x: 2, y: 1, w: 13, h: 9 };
+    const steps = [
+      step({ op: "copy", from: "g", to: "r" }), step({ op: "level", channel: "r", ref: "r", fit: "gain", rect }),
+      step({ op: "copy", from: "g", to: "b" }), step({ op: "level", channel: "b", ref: "b", fit: "gain+offset" }),
+    ];
+    const a = createLabState({ width: w, height: h, plate: floatSource(plate) });
+    const b = createLabState({ width: w, height: h, plate: floatSource(plate) });
+    const fused = applyStepsAt(a, steps, 0);
+    const apart = steps.map((st, i) => applyStep(b, st, i));
+    expect(fused).toEqual(apart);
+    expect(Array.from(a.cur)).toEqual(Array.from(b.cur));
+    expect(a.cur[2]).not.toBe(plate[2]); // the second level changed blue
+  });
+
   it("a proxy re-rendered from the decode cache is bit-identical to one decoded afresh (demo recipe)", async () => {
     const { generateSyntheticPlate, demoCleanupRecipe } = await import("@/lib/lab/synthetic");
     const { recipeSchema } = await import("@/lib/lab/recipe");
