@@ -58,15 +58,20 @@ const pages = new LRUCache<string, RenderedPage, RenderContext>({
   fetchMethod: (_key, _stale, { context }) => render(context),
 });
 
-/** A signed-in person loading a technique page as a document (client navigations fetch RSC data instead). */
+/**
+ * A browser loading a technique page as a document (typed address, reload, link from mail).
+ * Next.js strips its RSC headers before the proxy sees a request, so client navigations and
+ * `router.refresh()` are told apart by the Fetch Metadata headers browsers send (W3C Fetch
+ * Metadata Request Headers): only a navigation to a document may be answered with cached HTML.
+ */
 export function isCacheablePageRequest(req: NextRequest): boolean {
   return (
     // In development a reload must show the edited code.
     env.NODE_ENV === "production" &&
     req.method === "GET" &&
+    req.headers.get("sec-fetch-dest") === "document" &&
+    req.headers.get("sec-fetch-mode") === "navigate" &&
     TECHNIQUE_PAGE.test(req.nextUrl.pathname) &&
-    !req.headers.has("rsc") &&
-    !req.headers.has("next-action") &&
     !req.headers.has(RENDER_HEADER)
   );
 }

@@ -14,8 +14,11 @@ function noncesIn(html: string): Set<string> {
   return new Set([...html.matchAll(/nonce="([^"]+)"/g)].map((m) => m[1]!));
 }
 
+/** What a browser sends when it navigates to a page (W3C Fetch Metadata Request Headers). */
+const NAVIGATION = { accept: "text/html", "sec-fetch-dest": "document", "sec-fetch-mode": "navigate" };
+
 async function load(baseUrl: string, cookie: string) {
-  const res = await fetch(`${baseUrl}${PAGE}`, { headers: { cookie }, redirect: "manual" });
+  const res = await fetch(`${baseUrl}${PAGE}`, { headers: { cookie, ...NAVIGATION }, redirect: "manual" });
   const html = await res.text();
   const nonce = /'nonce-([^']+)'/.exec(res.headers.get("content-security-policy") ?? "")?.[1];
   return { res, html, nonce, cache: res.headers.get("x-plateroom-page-cache") };
@@ -53,6 +56,20 @@ describe.skipIf(!hasChromium())("cached technique pages", () => {
     expect(second.res.headers.get("permissions-policy")).toContain("camera=()");
     expect(second.res.headers.get("content-security-policy")).toContain("frame-ancestors 'none'");
     expect(second.res.headers.get("set-cookie")).toBeNull();
+  });
+
+  it("never answers a client navigation or refresh (RSC data) with cached HTML", async () => {
+    const cookie = await signInCookie(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
+    await load(app.baseUrl, cookie);
+    expect((await load(app.baseUrl, cookie)).cache).toBe("hit");
+    // What the App Router's fetch sends for router.refresh() and client navigations.
+    const res = await fetch(`${app.baseUrl}${PAGE}?_rsc=1x2y3`, {
+      headers: { cookie, rsc: "1", accept: "*/*", "sec-fetch-dest": "empty", "sec-fetch-mode": "cors" },
+    });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("x-plateroom-page-cache")).toBeNull();
+    expect(res.headers.get("content-type")).toContain("text/x-component");
+    await res.arrayBuffer();
   });
 
   it("shows a change made by someone else on the next load", async () => {
