@@ -70,7 +70,6 @@ export function isCacheablePageRequest(req: NextRequest): boolean {
     env.NODE_ENV === "production" &&
     req.method === "GET" &&
     req.headers.get("sec-fetch-dest") === "document" &&
-    req.headers.get("sec-fetch-mode") === "navigate" &&
     TECHNIQUE_PAGE.test(req.nextUrl.pathname) &&
     !req.headers.has(RENDER_HEADER)
   );
