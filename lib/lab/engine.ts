@@ -31,7 +31,7 @@ export type StillCodes = { width: number; height: number; bits: 8 | 16; codes: U
 /** A read-only image the steps refer to: stored codes through a LUT, or plain floats (tests). */
 export type PixelSource =
   | { kind: "codes"; codes: Uint8Array | Uint16Array; lut: Float32Array }
-  | { kind: "float"; data: Float32Array };
+  | { kind: "float"; data: Float32Array; codes8?: Uint8Array };
 
 export type LabState = {
   width: number;
@@ -46,6 +46,12 @@ export type LabState = {
   /** Full-resolution pixels per working pixel (rects in steps are in full-res pixels). */
   scale: number;
   scratch: Float32Array[];
+  /**
+   * Set when the last step run was a mix + grain over a float plate that carries its 8-bit codes:
+   * per row y the pixels [spans[2y], spans[2y+1]) (indices in the frame) outside which the result is the plate itself,
+   * so an 8-bit encode copies the plate's codes there instead of quantising.
+   */
+  tail?: { spans: Int32Array; plate8: Uint8Array } | null;
 };
 
 export type DenoisedLoader = (stillId: string) => Promise<Uint8Array>;
@@ -341,7 +347,8 @@ function mixGrainStep(state: LabState, invert: boolean): boolean {
   const matte = state.matte;
   if (!matte || base === plate) return false;
   if (plate.kind === "float" && base.kind === "float") {
-    mixGrainFloat(cur, matte, plate.data, base.data, invert, state.width);
+    const spans = mixGrainFloat(cur, matte, plate.data, base.data, invert, state.width);
+    state.tail = spans && plate.codes8 ? { spans, plate8: plate.codes8 } : null;
     return true;
   }
   if (plate.kind !== "codes" || base.kind !== "codes" || plate.lut !== base.lut) return false;
@@ -364,9 +371,10 @@ function mixGrainStep(state: LabState, invert: boolean): boolean {
  * mixGrainStep over working-space floats (cached proxies): the same arithmetic, no table. Where
  * a row's matte is 0 the plate is copied as a block (a marker matte is ~1 % of the frame).
  */
-function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number): void {
+function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number): Int32Array | null {
   if (!invert) {
     const height = matte.length / width;
+    const spans = new Int32Array(2 * height);
     for (let y = 0; y < height; y++) {
       const o = y * width;
       let a = o, b = o + width;
@@ -375,8 +383,10 @@ function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array,
       cur.set(pd.subarray(3 * o, 3 * a), 3 * o);
       cur.set(pd.subarray(3 * b, 3 * (o + width)), 3 * b);
       mixGrainRange(cur, matte, pd, bd, a, b);
+      spans[2 * y] = a;
+      spans[2 * y + 1] = b;
     }
-    return;
+    return spans;
   }
   const n3 = cur.length;
   for (let i = 0, p = 0; i < n3; i += 3, p++) {
@@ -389,6 +399,7 @@ function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array,
     cur[i + 1] = m * (cur[i + 1]! - bd[i + 1]!) + pd[i + 1]!;
     cur[i + 2] = m * (cur[i + 2]! - bd[i + 2]!) + pd[i + 2]!;
   }
+  return null;
 }
 
 function mixGrainRange(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, p0: number, p1: number): void {
@@ -519,7 +530,7 @@ export const CONTENT_TYPES: Record<LabFormat, string> = { png16: "image/png", pn
  * `consume`: `cur` is not needed afterwards, so 8-bit codes may be written over it in place.
  */
 export async function encodeImage(cur: Float32Array, width: number, height: number, space: LabSpace, format: LabFormat,
-  reuse?: Uint16Array, consume = false): Promise<Buffer> {
+  reuse?: Uint16Array, consume = false, tail?: LabState["tail"]): Promise<Buffer> {
   const linear = space === "linear";
   const raw = { width, height, channels: 3 as const };
   if (format === "png16") {
@@ -530,7 +541,7 @@ export async function encodeImage(cur: Float32Array, width: number, height: numb
     return sharp(out, { raw }).toColourspace("rgb16").png({ compressionLevel: 0 }).toBuffer();
   }
   const q8 = quantiser(8, linear);
-  let out = consume ? quantise8Consuming(cur, q8) : null;
+  let out = tail ? quantiseTail(cur, width, tail, q8) : consume ? quantise8Consuming(cur, q8) : null;
   if (!out) {
     out = new Uint8Array(cur.length);
     quantise(cur, out, q8);
@@ -541,6 +552,21 @@ export async function encodeImage(cur: Float32Array, width: number, height: numb
     // Previews: quality 85 at the fastest method encodes a 1024-px frame in ~7.5 ms against ~14 ms
     // at quality 90 (method 2), most of a proxy render's budget; a preview is not for checking.
     : img.webp({ quality: 85, effort: 0 }).toBuffer();
+}
+
+/** 8-bit codes of a result that is the plate outside per-row spans: the plate's codes there, quantised inside. */
+function quantiseTail(cur: Float32Array, width: number, tail: NonNullable<LabState["tail"]>, q: ReturnType<typeof quantiser>): Uint8Array | null {
+  const { spans, plate8 } = tail;
+  if (plate8.length !== cur.length) return null;
+  const out = new Uint8Array(cur.length);
+  const height = spans.length / 2;
+  for (let y = 0; y < height; y++) {
+    const o = 3 * y * width, a = 3 * spans[2 * y]!, b = 3 * spans[2 * y + 1]!, e = o + 3 * width;
+    out.set(plate8.subarray(o, a), o);
+    if (b > a) quantise(cur.subarray(a, b), out.subarray(a, b), q);
+    out.set(plate8.subarray(b, e), b);
+  }
+  return out;
 }
 
 export type LabProgress = { done: number; total: number; label: string };
@@ -572,7 +598,12 @@ export type DecodedStill = StillCodes & { sourceWidth: number; sourceHeight: num
  * starts with a copy instead of a table lookup per value (~11 ms of a 1024-px render), and the
  * steps that read the plate run their float paths. Bit-identical to the codes through the table.
  */
-export type ProxyStill = { width: number; height: number; bits: 8 | 16; sourceWidth: number; sourceHeight: number; space: LabSpace; data: Float32Array };
+export type ProxyStill = {
+  width: number; height: number; bits: 8 | 16; sourceWidth: number; sourceHeight: number; space: LabSpace;
+  data: Float32Array;
+  /** `data` quantised for an 8-bit encode (png, webp) in the same space. */
+  codes8?: Uint8Array;
+};
 export type DecodeCache = { get(key: string): ProxyStill | undefined; set(key: string, value: ProxyStill): void };
 
 type Decoded = {
@@ -599,13 +630,17 @@ async function decodeCached(bytes: () => Promise<Uint8Array>, width: number | un
   // Only proxies are kept: a full-resolution decode is as large as the render it feeds.
   const k = cache && key && width ? `${key}@${width}:${space}` : null;
   const hit = k ? cache!.get(k) : undefined;
-  if (hit) return { ...hit, source: { kind: "float", data: hit.data }, spare16: null };
+  if (hit) return { ...hit, source: { kind: "float", data: hit.data, codes8: hit.codes8 }, spare16: null };
   const still = await decodeStill(await bytes(), width);
   const { sourceWidth, sourceHeight, bits } = still;
   if (k) {
     const data = toFloats(still, space);
-    cache!.set(k, { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, space, data });
-    return { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, source: { kind: "float", data }, spare16: null };
+    // Its 8-bit codes too: a re-render's result is the plate outside the matte, whose codes then
+    // need no quantising (a third of a 1024-px render's encode).
+    const codes8 = new Uint8Array(data.length);
+    quantise(data, codes8, quantiser(8, space === "linear"));
+    cache!.set(k, { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, space, data, codes8 });
+    return { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, source: { kind: "float", data, codes8 }, spare16: null };
   }
   return {
     width: still.width, height: still.height, bits, sourceWidth, sourceHeight,
@@ -666,6 +701,7 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<Pre
   const reports: StepReport[] = [];
   for (let i = 0; i < steps.length; ) {
     onProgress?.({ done: i + 1, total, label: steps[i]!.op });
+    state.tail = null; // only the last step's result may be marked
     const ran = applyStepsAt(state, steps, i);
     reports.push(...ran);
     i += ran.length;
@@ -685,7 +721,7 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
   const { state, plateCodes, reports, decodeMs, stepsMs } = await decodeAndRun(opts);
   const t2 = performance.now();
   onProgress?.({ done: total - 1, total, label: "encode" });
-  const bytes = await encodeImage(state.cur, state.width, state.height, space, format, plateCodes.spare16 ?? undefined, true);
+  const bytes = await encodeImage(state.cur, state.width, state.height, space, format, plateCodes.spare16 ?? undefined, true, state.tail);
   releaseSimdRgb(state.cur);
   const t3 = performance.now();
   onProgress?.({ done: total, total, label: "done" });

@@ -75,6 +75,9 @@ export type LabRunner = {
   stats(): { active: number; queued: number; memoryEntries: number; memoryBytes: number };
 };
 
+/** Disk cache writes in flight, by cache folder and key, across runners of this process. */
+const pendingWrites = new Map<string, Promise<void>>();
+
 export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
   const memCap = options.memoryCacheBytes ?? 256 * 1024 * 1024;
   const maxConcurrent = options.maxConcurrent ?? 2;
@@ -85,8 +88,8 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
   let active = 0;
   const waiting: (() => void)[] = [];
   const inflight = new Map<string, Promise<LabRunOutput>>();
-  // Decoded proxy stills as working-space floats (≈ 6.6 MB each at 1024 × 540), least recently
-  // used first out.
+  // Decoded proxy stills as working-space floats plus 8-bit codes (≈ 8.3 MB each at 1024 × 540),
+  // least recently used first out.
   const decoded = new Map<string, ProxyStill>();
   let decodedBytes = 0;
   const decodedCap = options.decodedCacheBytes ?? 128 * 1024 * 1024;
@@ -100,13 +103,14 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       return v;
     },
     set(key, value) {
-      if (decoded.has(key) || value.data.byteLength > decodedCap) return;
+      const size = (v: ProxyStill): number => v.data.byteLength + (v.codes8?.byteLength ?? 0);
+      if (decoded.has(key) || size(value) > decodedCap) return;
       decoded.set(key, value);
-      decodedBytes += value.data.byteLength;
+      decodedBytes += size(value);
       for (const [k, v] of decoded) {
         if (decodedBytes <= decodedCap) break;
         decoded.delete(k);
-        decodedBytes -= v.data.byteLength;
+        decodedBytes -= size(v);
       }
     },
   };
@@ -125,6 +129,8 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
 
   async function fromDisk(key: string): Promise<{ bytes: Buffer; meta: Meta } | null> {
     if (!options.cacheDir) return null;
+    // A result still being written by this process is read once it is complete.
+    await pendingWrites.get(path.join(options.cacheDir, key));
     try {
       const [bytes, metaText] = await Promise.all([
         readFile(path.join(options.cacheDir, `${key}.bin`)),
@@ -203,7 +209,15 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       const result = await Promise.race([run, timeout]);
       const meta: Meta = { contentType: result.contentType, width: result.width, height: result.height, reports: result.reports, key };
       remember(key, result.bytes, meta);
-      await toDisk(key, result.bytes, meta).catch(() => undefined);
+      if (options.cacheDir) {
+        // The answer does not wait for the disk copy (1–3 ms of file system calls per render, more
+        // under load, which an interactive proxy render feels); readers in this process wait for it.
+        const id = path.join(options.cacheDir, key);
+        const write = toDisk(key, result.bytes, meta).catch(() => undefined).finally(() => {
+          if (pendingWrites.get(id) === write) pendingWrites.delete(id);
+        });
+        pendingWrites.set(id, write);
+      }
       return { ...meta, bytes: result.bytes, cached: false };
     } catch (err) {
       if (err instanceof LabAbortedError) throw new LabTimeoutError(timeoutMs);

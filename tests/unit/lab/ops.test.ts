@@ -265,8 +265,10 @@ describe("proxy paths (decoded proxy kept as working-space floats)", () => {
     const kept = new Map<string, import("@/lib/lab/engine").ProxyStill>();
     const decodeCache = { get: (k: string) => kept.get(k), set: (k: string, v: import("@/lib/lab/engine").ProxyStill) => void kept.set(k, v) };
     const loadStill = async () => syn.denoised;
-    for (const space of ["linear", "stored"] as const) {
-      const opts = { still: syn.plate, steps, space, format: "png16" as const, width: 160, loadStill };
+    // png16 runs the float steps; png (8-bit, lossless) also the encode that copies the plate's
+    // codes outside the matte instead of quantising there.
+    for (const [space, format] of [["linear", "png16"], ["stored", "png16"], ["linear", "png"], ["stored", "png"]] as const) {
+      const opts = { still: syn.plate, steps, space, format, width: 160, loadStill };
       const fresh = await runRecipe(opts);
       await runRecipe({ ...opts, decodeCache, plateKey: "p" });
       const again = await runRecipe({ ...opts, decodeCache, plateKey: "p" });
