@@ -1,6 +1,6 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { hasChromium, launchBrowser, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
+import { describe, expect, it } from "vitest";
+import { hasChromium, signIn } from "@/tests/e2e/harness";
+import { useAppAndBrowser } from "@/tests/e2e/running-app";
 
 /** Response headers every page type must carry (issue 9; OWASP Secure Headers project, from memory). */
 function expectSecurityHeaders(h: Headers, kind: "page" | "api") {
@@ -15,30 +15,21 @@ function expectSecurityHeaders(h: Headers, kind: "page" | "api") {
 }
 
 describe.skipIf(!hasChromium())("security headers on every page type", () => {
-  let app: RunningApp;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  }, 600_000);
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const running = useAppAndBrowser();
 
   it("sign-in page, API JSON and API errors", async () => {
-    const login = await fetch(`${app.baseUrl}/login`);
+    const login = await fetch(`${running.app.baseUrl}/login`);
     expectSecurityHeaders(login.headers, "page");
-    const health = await fetch(`${app.baseUrl}/api/health`);
+    const health = await fetch(`${running.app.baseUrl}/api/health`);
     expectSecurityHeaders(health.headers, "api");
-    const refused = await fetch(`${app.baseUrl}/api/me`);
+    const refused = await fetch(`${running.app.baseUrl}/api/me`);
     expect(refused.status).toBe(401);
     expectSecurityHeaders(refused.headers, "api");
     expect(refused.headers.get("cache-control")).toContain("no-store");
   });
 
   it("signed-in pages: fresh nonce per request, and no CSP violations while they run", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, "senior@kestrel.test");
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "senior@kestrel.test");
     const violations: string[] = [];
     page.on("console", (msg) => {
       if (msg.type() === "error" && /Content Security Policy/i.test(msg.text())) violations.push(msg.text());
@@ -57,10 +48,10 @@ describe.skipIf(!hasChromium())("security headers on every page type", () => {
   });
 
   it("refuses a cross-site write even with a valid session cookie", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, "senior@kestrel.test");
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "senior@kestrel.test");
     const res = await page.request.post("/api/tokens", { data: { name: "x" }, headers: { Origin: "https://elsewhere.example" } });
     expect(res.status()).toBe(403);
-    const same = await page.request.post("/api/tokens", { data: { name: "same-site" }, headers: { Origin: app.baseUrl } });
+    const same = await page.request.post("/api/tokens", { data: { name: "same-site" }, headers: { Origin: running.app.baseUrl } });
     expect(same.status()).toBe(201);
     await context.close();
   });

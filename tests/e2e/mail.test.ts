@@ -1,6 +1,7 @@
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { hasChromium, isShown, launchBrowser, screenshot, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
+import { useAppAndBrowser } from "@/tests/e2e/running-app";
 
 /*
  * Issue 8 in Chromium: an artist follows a technique, a senior edits it, a lead approves, the
@@ -27,24 +28,13 @@ async function followButton(page: Page) {
 }
 
 describe.skipIf(!hasChromium())("subscriptions and mail in Chromium", () => {
-  let app: RunningApp;
-  let browser: Browser;
+  const running = useAppAndBrowser();
   let title = "";
   let subject = "";
   let unsubscribeLink = "";
 
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  }, 600_000);
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
-
   it("an artist follows the technique; a senior edits it and a lead approves", async () => {
-    const artist = await signIn(browser, app.baseUrl, ARTIST);
+    const artist = await signIn(running.browser, running.app.baseUrl, ARTIST);
     await artist.page.goto(`/techniques/${SLUG}`);
     title = ((await artist.page.getByRole("heading", { level: 1 }).first().textContent()) ?? "").trim();
     expect(title.length).toBeGreaterThan(0);
@@ -54,7 +44,7 @@ describe.skipIf(!hasChromium())("subscriptions and mail in Chromium", () => {
     expect((await follow.textContent())?.trim()).toBe("Following ✓");
     await artist.context.close();
 
-    const senior = await signIn(browser, app.baseUrl, SENIOR);
+    const senior = await signIn(running.browser, running.app.baseUrl, SENIOR);
     await senior.page.goto(`/techniques/${SLUG}/edit`);
     await senior.page.getByRole("toolbar", { name: "Formatting" }).waitFor();
     await senior.page.getByLabel("One-line summary").fill(NEW_SUMMARY);
@@ -63,7 +53,7 @@ describe.skipIf(!hasChromium())("subscriptions and mail in Chromium", () => {
     await senior.page.waitForURL(new RegExp(`/techniques/${SLUG}$`), { timeout: 30_000 });
     await senior.context.close();
 
-    const lead = await signIn(browser, app.baseUrl, LEAD);
+    const lead = await signIn(running.browser, running.app.baseUrl, LEAD);
     await lead.page.goto(`/techniques/${SLUG}`);
     const approve = lead.page.getByRole("button", { name: /^Approve revision \d+$/ });
     await approve.waitFor();
@@ -81,7 +71,7 @@ describe.skipIf(!hasChromium())("subscriptions and mail in Chromium", () => {
   });
 
   it("the admin sees the message to the artist in the mail view, headers and both parts", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, ADMIN);
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, ADMIN);
     await page.goto("/mail");
     await page.getByRole("tab", { name: "Delivered" }).click();
     expect(await page.getByRole("tab", { name: "Delivered" }).getAttribute("aria-selected")).toBe("true");
@@ -130,7 +120,7 @@ describe.skipIf(!hasChromium())("subscriptions and mail in Chromium", () => {
   it("the link in the message leads, signed out, to a confirmation; confirming ends the subscription", async () => {
     expect(unsubscribeLink).not.toBe("");
     // Opened where nobody is signed in: the link itself is the authority.
-    const anonymous = await browser.newContext({ baseURL: app.baseUrl });
+    const anonymous = await running.browser.newContext({ baseURL: running.app.baseUrl });
     const page = await anonymous.newPage();
     await page.goto(unsubscribeLink);
     expect(new URL(page.url()).pathname).toBe("/unsubscribe");
@@ -139,7 +129,7 @@ describe.skipIf(!hasChromium())("subscriptions and mail in Chromium", () => {
     await screenshot(page, "unsubscribe-confirm");
 
     // Opening the link did not unsubscribe anyone (link scanners fetch GETs too, RFC 8058 §1, from memory).
-    const artist = await signIn(browser, app.baseUrl, ARTIST);
+    const artist = await signIn(running.browser, running.app.baseUrl, ARTIST);
     await artist.page.goto(`/techniques/${SLUG}`);
     expect(await (await followButton(artist.page)).getAttribute("aria-pressed")).toBe("true");
 
@@ -165,7 +155,7 @@ describe.skipIf(!hasChromium())("subscriptions and mail in Chromium", () => {
   });
 
   it("non-admins are refused the mail view and its API", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, ARTIST);
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, ARTIST);
     await page.goto("/mail");
     expect(await isShown(page.getByTestId("refused"))).toBe(true);
     const res = await page.request.get("/api/admin/outbox");

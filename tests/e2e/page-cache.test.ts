@@ -1,7 +1,7 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { apiClient, createApiToken, signInCookie } from "@/bench/lib/http-client";
-import { DEMO_PASSWORD, hasChromium, launchBrowser, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
+import { DEMO_PASSWORD, hasChromium, signIn } from "@/tests/e2e/harness";
+import { useAppAndBrowser } from "@/tests/e2e/running-app";
 
 /**
  * Technique pages are answered from lib/page-cache when nothing they show has changed (issue 9,
@@ -25,22 +25,13 @@ async function load(baseUrl: string, cookie: string) {
 }
 
 describe.skipIf(!hasChromium())("cached technique pages", () => {
-  let app: RunningApp;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  }, 600_000);
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const running = useAppAndBrowser();
 
   it("answers a reload from the cache with a fresh nonce in the policy and in every script", async () => {
-    const cookie = await signInCookie(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
-    const first = await load(app.baseUrl, cookie);
+    const cookie = await signInCookie(running.app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
+    const first = await load(running.app.baseUrl, cookie);
     expect(first.res.status).toBe(200);
-    const second = await load(app.baseUrl, cookie);
+    const second = await load(running.app.baseUrl, cookie);
     expect(second.cache).toBe("hit");
     expect(second.nonce).toBeTruthy();
     expect(second.nonce).not.toBe(first.nonce);
@@ -59,11 +50,11 @@ describe.skipIf(!hasChromium())("cached technique pages", () => {
   });
 
   it("never answers a client navigation or refresh (RSC data) with cached HTML", async () => {
-    const cookie = await signInCookie(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
-    await load(app.baseUrl, cookie);
-    expect((await load(app.baseUrl, cookie)).cache).toBe("hit");
+    const cookie = await signInCookie(running.app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
+    await load(running.app.baseUrl, cookie);
+    expect((await load(running.app.baseUrl, cookie)).cache).toBe("hit");
     // What the App Router's fetch sends for router.refresh() and client navigations.
-    const res = await fetch(`${app.baseUrl}${PAGE}?_rsc=1x2y3`, {
+    const res = await fetch(`${running.app.baseUrl}${PAGE}?_rsc=1x2y3`, {
       headers: { cookie, rsc: "1", accept: "*/*", "sec-fetch-dest": "empty", "sec-fetch-mode": "cors" },
     });
     expect(res.status).toBe(200);
@@ -73,33 +64,33 @@ describe.skipIf(!hasChromium())("cached technique pages", () => {
   });
 
   it("shows a change made by someone else on the next load", async () => {
-    const cookie = await signInCookie(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
-    await load(app.baseUrl, cookie);
-    expect((await load(app.baseUrl, cookie)).cache).toBe("hit");
-    const lead = apiClient(app.baseUrl, await createApiToken(app.baseUrl, "lead@kestrel.test", DEMO_PASSWORD, "page cache test"));
+    const cookie = await signInCookie(running.app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
+    await load(running.app.baseUrl, cookie);
+    expect((await load(running.app.baseUrl, cookie)).cache).toBe("hit");
+    const lead = apiClient(running.app.baseUrl, await createApiToken(running.app.baseUrl, "lead@kestrel.test", DEMO_PASSWORD, "page cache test"));
     const renamed = await lead.json("PATCH", "/api/tags/tracking-markers", { name: "Tracker dots on screens" });
     expect(renamed.status).toBe(200);
-    const after = await load(app.baseUrl, cookie);
+    const after = await load(running.app.baseUrl, cookie);
     expect(after.cache).toBe("rendered");
     expect(after.html).toContain("Tracker dots on screens");
   });
 
   it("keeps one copy per person, and a disabled person is sent to sign in", async () => {
-    const senior = await signInCookie(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
-    const artist = await signInCookie(app.baseUrl, "artist@kestrel.test", DEMO_PASSWORD);
-    await load(app.baseUrl, senior);
-    expect((await load(app.baseUrl, senior)).cache).toBe("hit");
-    const artistFirst = await load(app.baseUrl, artist);
+    const senior = await signInCookie(running.app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
+    const artist = await signInCookie(running.app.baseUrl, "artist@kestrel.test", DEMO_PASSWORD);
+    await load(running.app.baseUrl, senior);
+    expect((await load(running.app.baseUrl, senior)).cache).toBe("hit");
+    const artistFirst = await load(running.app.baseUrl, artist);
     expect(artistFirst.cache).toBe("rendered");
-    expect((await load(app.baseUrl, artist)).cache).toBe("hit");
+    expect((await load(running.app.baseUrl, artist)).cache).toBe("hit");
 
-    const admin = apiClient(app.baseUrl, await createApiToken(app.baseUrl, "admin@kestrel.test", DEMO_PASSWORD, "page cache test"));
+    const admin = apiClient(running.app.baseUrl, await createApiToken(running.app.baseUrl, "admin@kestrel.test", DEMO_PASSWORD, "page cache test"));
     const people = await admin.json<{ items?: { id: string; email: string }[] } | { id: string; email: string }[]>("GET", "/api/people");
     const list = Array.isArray(people.body) ? people.body : (people.body.items ?? []);
     const artistId = list.find((p) => p.email === "artist@kestrel.test")?.id;
     expect(artistId).toBeTruthy();
     expect((await admin.json("PATCH", `/api/people/${artistId}`, { disabled: true })).status).toBe(200);
-    const refused = await load(app.baseUrl, artist);
+    const refused = await load(running.app.baseUrl, artist);
     expect(refused.cache).toBeNull();
     expect(refused.res.status).not.toBe(200);
     expect(artistFirst.html).toContain("About this technique");
@@ -107,12 +98,12 @@ describe.skipIf(!hasChromium())("cached technique pages", () => {
   });
 
   it("a cached page runs in Chromium: no CSP violations, and its client parts load data", async () => {
-    const senior = apiClient(app.baseUrl, await createApiToken(app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD, "page cache test"));
+    const senior = apiClient(running.app.baseUrl, await createApiToken(running.app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD, "page cache test"));
     const asked = await senior.json("POST", `/api/techniques/marker-channel-cleanup/questions`, {
       body: { type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text: "Does the copy step hold on a blue backing?" }] }] },
     });
     expect(asked.status).toBe(201);
-    const { context, page } = await signIn(browser, app.baseUrl, "senior@kestrel.test");
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "senior@kestrel.test");
     const violations: string[] = [];
     page.on("console", (msg) => {
       if (msg.type() === "error" && /Content Security Policy/i.test(msg.text())) violations.push(msg.text());

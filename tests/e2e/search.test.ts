@@ -1,27 +1,16 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { hasChromium, isShown, launchBrowser, screenshot, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
+import { describe, expect, it } from "vitest";
+import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
+import { useAppAndBrowser } from "@/tests/e2e/running-app";
 
 // The seeded demo data (db/seed-data) makes "Marker channel cleanup" the department's approved
 // method for the "Tracking markers" problem; the journeys below are issue 6's. Our own behaviour,
 // no outside source.
 
 describe.skipIf(!hasChromium())("search in Chromium", () => {
-  let app: RunningApp;
-  let browser: Browser;
-
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  }, 900_000);
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const running = useAppAndBrowser();
 
   it("an artist opens the quick finder with the shortcut, types a misspelt problem and lands on the method", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, "artist@kestrel.test");
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
     await expect(isShown(page.getByTestId("quick-finder-button"))).resolves.toBe(true);
     await page.keyboard.press("Control+k");
     const dialog = page.getByRole("dialog", { name: "Find a technique" });
@@ -51,7 +40,7 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
   });
 
   it("does not open the finder while typing in a field", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, "artist@kestrel.test");
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
     await page.goto("/search");
     const field = page.getByRole("searchbox", { name: "Describe the problem you see" });
     await field.click();
@@ -63,7 +52,7 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
   });
 
   it("the search page highlights matches, says what it searched for, and keeps the query in the address", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, "artist@kestrel.test");
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
     await page.goto("/search");
     await page.getByRole("searchbox", { name: "Describe the problem you see" }).fill("trakcing markrs");
     await page.getByRole("button", { name: "Search" }).click();
@@ -81,7 +70,7 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
   });
 
   it("a search that finds nothing becomes a request that seniors see on their home page", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, "artist@kestrel.test");
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
     await page.goto("/search?q=zebra+crossing+flicker");
     const offer = page.getByTestId("request-offer");
     expect(await isShown(offer)).toBe(true);
@@ -94,7 +83,7 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
     expect(await sent.textContent()).toContain("Seniors will see your request on their home page");
     await context.close();
 
-    const senior = await signIn(browser, app.baseUrl, "senior@kestrel.test");
+    const senior = await signIn(running.browser, running.app.baseUrl, "senior@kestrel.test");
     await senior.page.goto("/");
     const card = senior.page.locator("section", { has: senior.page.getByRole("heading", { name: "Requested write-ups" }) });
     expect(await isShown(card.getByText("“zebra crossing flicker”"))).toBe(true);

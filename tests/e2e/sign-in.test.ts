@@ -1,6 +1,6 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { hasChromium, isShown, launchBrowser, screenshot, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
+import { describe, expect, it } from "vitest";
+import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
+import { useAppAndBrowser } from "@/tests/e2e/running-app";
 
 const NAV: Record<string, { sees: string[]; doesNotSee: string[] }> = {
   "artist@kestrel.test": { sees: ["Techniques", "Search", "Shows", "Settings"], doesNotSee: ["People", "Review", "Mail"] },
@@ -10,22 +10,11 @@ const NAV: Record<string, { sees: string[]; doesNotSee: string[] }> = {
 };
 
 describe.skipIf(!hasChromium())("sign-in and roles in Chromium", () => {
-  let app: RunningApp;
-  let browser: Browser;
-
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  }, 600_000);
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const running = useAppAndBrowser();
 
   for (const [email, nav] of Object.entries(NAV)) {
     it(`${email} signs in and sees their own navigation`, async () => {
-      const { context, page } = await signIn(browser, app.baseUrl, email);
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, email);
       const main = page.getByRole("navigation", { name: "Main" });
       for (const label of nav.sees) expect(await isShown(main.getByRole("link", { name: new RegExp(`^${label}`) }))).toBe(true);
       for (const label of nav.doesNotSee) expect(await main.getByRole("link", { name: new RegExp(`^${label}`) }).count()).toBe(0);
@@ -35,7 +24,7 @@ describe.skipIf(!hasChromium())("sign-in and roles in Chromium", () => {
   }
 
   it("refuses an artist who opens the People page, in the page and in the API", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, "artist@kestrel.test");
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
     await page.goto("/people");
     expect(await isShown(page.getByTestId("refused"))).toBe(true);
     const res = await page.request.get("/api/people");
@@ -45,7 +34,7 @@ describe.skipIf(!hasChromium())("sign-in and roles in Chromium", () => {
   });
 
   it("shows one generic message for a wrong password and for an unknown e-mail", async () => {
-    const context = await browser.newContext({ baseURL: app.baseUrl });
+    const context = await running.browser.newContext({ baseURL: running.app.baseUrl });
     const page = await context.newPage();
     const messages: string[] = [];
     for (const email of ["artist@kestrel.test", "nobody@kestrel.test"]) {
@@ -66,10 +55,10 @@ describe.skipIf(!hasChromium())("sign-in and roles in Chromium", () => {
 
   /** A script's sign-in, the standard Auth.js way (shared/API.md, "Calling it"). */
   async function scriptSignIn(email: string, password: string, forwardedFor?: string): Promise<{ status: number; cookie: string }> {
-    const csrfRes = await fetch(`${app.baseUrl}/api/auth/csrf`);
+    const csrfRes = await fetch(`${running.app.baseUrl}/api/auth/csrf`);
     const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
     const jar = csrfRes.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
-    const res = await fetch(`${app.baseUrl}/api/auth/callback/credentials`, {
+    const res = await fetch(`${running.app.baseUrl}/api/auth/callback/credentials`, {
       method: "POST",
       headers: { "Content-Type": "application/x-www-form-urlencoded", cookie: jar, ...(forwardedFor ? { "X-Forwarded-For": forwardedFor } : {}) },
       body: new URLSearchParams({ csrfToken, email, password }),
@@ -82,12 +71,12 @@ describe.skipIf(!hasChromium())("sign-in and roles in Chromium", () => {
   it("signs each demo role in through /api/auth/csrf and the credentials callback, and /api/me answers its role", async () => {
     for (const role of ["artist", "senior", "lead", "admin"]) {
       const { cookie } = await scriptSignIn(`${role}@kestrel.test`, "plateroom-demo");
-      const me = await fetch(`${app.baseUrl}/api/me`, { headers: { cookie } });
+      const me = await fetch(`${running.app.baseUrl}/api/me`, { headers: { cookie } });
       expect(me.status).toBe(200);
       expect(await me.json()).toMatchObject({ email: `${role}@kestrel.test`, role });
     }
     const wrong = await scriptSignIn("lead@kestrel.test", "not-the-password");
-    expect((await fetch(`${app.baseUrl}/api/me`, { headers: { cookie: wrong.cookie } })).status).toBe(401);
+    expect((await fetch(`${running.app.baseUrl}/api/me`, { headers: { cookie: wrong.cookie } })).status).toBe(401);
   });
 
   it("answers 429 after 10 failed sign-ins for one e-mail within 15 minutes", async () => {

@@ -1,6 +1,7 @@
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { hasChromium, isShown, launchBrowser, screenshot, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
+import { useAppAndBrowser } from "@/tests/e2e/running-app";
 
 /*
  * The technique life cycle as each role meets it in Chromium (issue 3): a senior writes with the
@@ -42,22 +43,11 @@ async function approve(page: Page, slug: string, revision: number): Promise<void
 }
 
 describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
-  let app: RunningApp;
-  let browser: Browser;
+  const running = useAppAndBrowser();
   let slug = "";
 
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  }, 600_000);
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
-
   it("a senior writes a technique with a table and a callout, tags it, saves and submits it", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, SENIOR);
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
     await page.goto("/techniques/new");
     await page.getByLabel("Title").fill(TITLE);
     await page.getByLabel("One-line summary").fill(SUMMARY);
@@ -98,7 +88,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
   });
 
   it("the artist does not see the unapproved technique on the problem page", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, ARTIST);
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, ARTIST);
     await page.goto(`/problems/${PROBLEM.slug}`);
     await page.getByRole("heading", { name: PROBLEM.name, level: 1 }).waitFor();
     expect(await page.getByRole("link", { name: TITLE }).count()).toBe(0);
@@ -108,7 +98,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
   });
 
   it("a lead finds it in the review queue and approves it", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, LEAD);
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, LEAD);
     await page.goto("/review");
     const link = page.getByRole("link", { name: TITLE });
     expect(await isShown(link)).toBe(true);
@@ -122,7 +112,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
   });
 
   it("an artist finds it from the problem page and reads the table and the callout", async () => {
-    const { context, page } = await signIn(browser, app.baseUrl, ARTIST);
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, ARTIST);
     await page.goto(`/problems/${PROBLEM.slug}`);
     const link = page.getByRole("link", { name: TITLE });
     expect(await isShown(link)).toBe(true);
@@ -147,7 +137,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
   });
 
   it("an edit waits for the lead: the artist keeps the approved text until it is approved", async () => {
-    const senior = await signIn(browser, app.baseUrl, SENIOR);
+    const senior = await signIn(running.browser, running.app.baseUrl, SENIOR);
     await senior.page.goto(`/techniques/${slug}/edit`);
     await editorBody(senior.page);
     await senior.page.getByLabel("One-line summary").fill(NEW_SUMMARY);
@@ -159,7 +149,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     await screenshot(senior.page, "technique-pending-senior");
     await senior.context.close();
 
-    const artist = await signIn(browser, app.baseUrl, ARTIST);
+    const artist = await signIn(running.browser, running.app.baseUrl, ARTIST);
     await artist.page.goto(`/techniques/${slug}`);
     expect(await isShown(artist.page.getByText(SUMMARY, { exact: true }))).toBe(true);
     expect(await artist.page.getByText(NEW_SUMMARY).count()).toBe(0);
@@ -169,7 +159,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     expect(await artist.page.getByText(NEW_SUMMARY).count()).toBe(0);
     await artist.page.goto(`/techniques/${slug}`);
 
-    const lead = await signIn(browser, app.baseUrl, LEAD);
+    const lead = await signIn(running.browser, running.app.baseUrl, LEAD);
     await approve(lead.page, slug, 2);
     await lead.context.close();
 
@@ -180,8 +170,8 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
   });
 
   it("a stale save shows who saved first and keeps the second person's text", async () => {
-    const senior = await signIn(browser, app.baseUrl, SENIOR);
-    const lead = await signIn(browser, app.baseUrl, LEAD);
+    const senior = await signIn(running.browser, running.app.baseUrl, SENIOR);
+    const lead = await signIn(running.browser, running.app.baseUrl, LEAD);
     for (const { page } of [senior, lead]) {
       await page.goto(`/techniques/${slug}/edit`);
       await editorBody(page);
