@@ -52,6 +52,11 @@ export type LabState = {
    * so an 8-bit encode copies the plate's codes there instead of quantising.
    */
   tail?: { spans: Int32Array; plate8: Uint8Array } | null;
+  /**
+   * The result goes to an 8-bit encode that honours `tail`: a final mix + grain may then leave
+   * the working image outside its spans unwritten (the encode never reads it there).
+   */
+  encode8?: boolean;
 };
 
 export type DenoisedLoader = (stillId: string) => Promise<Uint8Array>;
@@ -342,12 +347,13 @@ function grainStep(state: LabState): void {
  * Where the matte is 0 the plate comes back bit-exact, and a 2K frame is read once instead of
  * twice (~45 → ~20 ms). Only for stored codes through one table (the engine's own runs).
  */
-function mixGrainStep(state: LabState, invert: boolean): boolean {
+function mixGrainStep(state: LabState, invert: boolean, final = false): boolean {
   const { cur, plate, base } = state;
   const matte = state.matte;
   if (!matte || base === plate) return false;
   if (plate.kind === "float" && base.kind === "float") {
-    const spans = mixGrainFloat(cur, matte, plate.data, base.data, invert, state.width);
+    const skipPlate = final && state.encode8 === true && plate.codes8 !== undefined;
+    const spans = mixGrainFloat(cur, matte, plate.data, base.data, invert, state.width, skipPlate);
     state.tail = spans && plate.codes8 ? { spans, plate8: plate.codes8 } : null;
     return true;
   }
@@ -371,7 +377,8 @@ function mixGrainStep(state: LabState, invert: boolean): boolean {
  * mixGrainStep over working-space floats (cached proxies): the same arithmetic, no table. Where
  * a row's matte is 0 the plate is copied as a block (a marker matte is ~1 % of the frame).
  */
-function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number): Int32Array | null {
+function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number,
+  skipPlate: boolean): Int32Array | null {
   if (!invert) {
     const height = matte.length / width;
     const spans = new Int32Array(2 * height);
@@ -380,8 +387,10 @@ function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array,
       let a = o, b = o + width;
       while (a < b && matte[a] === 0) a++;
       while (b > a && matte[b - 1] === 0) b--;
-      cur.set(pd.subarray(3 * o, 3 * a), 3 * o);
-      cur.set(pd.subarray(3 * b, 3 * (o + width)), 3 * b);
+      if (!skipPlate) {
+        cur.set(pd.subarray(3 * o, 3 * a), 3 * o);
+        cur.set(pd.subarray(3 * b, 3 * (o + width)), 3 * b);
+      }
       mixGrainRange(cur, matte, pd, bd, a, b);
       spans[2 * y] = a;
       spans[2 * y + 1] = b;
@@ -422,7 +431,7 @@ function mixGrainRange(cur: Float32Array, matte: Float32Array, pd: Float32Array,
  */
 export function applyStepsAt(state: LabState, steps: readonly RecipeStep[], i: number): StepReport[] {
   const step = steps[i]!, next = steps[i + 1];
-  if (step.op === "mix" && next?.op === "grain" && mixGrainStep(state, step.invert)) {
+  if (step.op === "mix" && next?.op === "grain" && mixGrainStep(state, step.invert, i + 2 === steps.length)) {
     return [{ index: i, op: "mix" }, { index: i + 1, op: "grain" }];
   }
   if (step.op === "copy" && next?.op === "level" && next.channel === step.to) {
@@ -666,7 +675,7 @@ function checkAbort(signal?: AbortSignal): void {
 
 type PreparedRun = { state: LabState; plateCodes: Decoded; reports: StepReport[]; decodeMs: number; stepsMs: number };
 
-async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<PreparedRun> {
+async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?: boolean }): Promise<PreparedRun> {
   const { steps, space, signal, onProgress } = opts;
   const total = steps.length + 2;
   const t0 = performance.now();
@@ -697,6 +706,7 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<Pre
     base,
     scale: plateCodes.sourceWidth / plateCodes.width,
   });
+  state.encode8 = opts.encode8 === true;
   const t1 = performance.now();
   const reports: StepReport[] = [];
   for (let i = 0; i < steps.length; ) {
@@ -718,7 +728,7 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format">): Promise<Pre
 export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult> {
   const { space, format, onProgress } = opts;
   const total = opts.steps.length + 2;
-  const { state, plateCodes, reports, decodeMs, stepsMs } = await decodeAndRun(opts);
+  const { state, plateCodes, reports, decodeMs, stepsMs } = await decodeAndRun({ ...opts, encode8: format !== "png16" });
   const t2 = performance.now();
   onProgress?.({ done: total - 1, total, label: "encode" });
   const bytes = await encodeImage(state.cur, state.width, state.height, space, format, plateCodes.spare16 ?? undefined, true, state.tail);

@@ -267,8 +267,10 @@ describe("proxy paths (decoded proxy kept as working-space floats)", () => {
     const loadStill = async () => syn.denoised;
     // png16 runs the float steps; png (8-bit, lossless) also the encode that copies the plate's
     // codes outside the matte instead of quantising there.
-    for (const [space, format] of [["linear", "png16"], ["stored", "png16"], ["linear", "png"], ["stored", "png"]] as const) {
-      const opts = { still: syn.plate, steps, space, format, width: 160, loadStill };
+    // A step after the grain step: the working image must then be whole outside the matte too.
+    const after = [...steps, step({ op: "matrix", m: [[0.9, 0.1, 0], [0, 1, 0], [0, 0, 1]] })];
+    for (const [space, format, recipe] of [["linear", "png16", steps], ["stored", "png16", steps], ["linear", "png", steps], ["stored", "png", steps], ["linear", "png", after]] as const) {
+      const opts = { still: syn.plate, steps: recipe, space, format, width: 160, loadStill };
       const fresh = await runRecipe(opts);
       await runRecipe({ ...opts, decodeCache, plateKey: "p" });
       const again = await runRecipe({ ...opts, decodeCache, plateKey: "p" });
