@@ -673,6 +673,8 @@ function checkAbort(signal?: AbortSignal): void {
   if (signal?.aborted) throw new LabAbortedError();
 }
 
+const YIELD_AFTER_MS = 5;
+
 type PreparedRun = { state: LabState; plateCodes: Decoded; reports: StepReport[]; decodeMs: number; stepsMs: number };
 
 async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?: boolean }): Promise<PreparedRun> {
@@ -709,6 +711,7 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?:
   state.encode8 = opts.encode8 === true;
   const t1 = performance.now();
   const reports: StepReport[] = [];
+  let lastYield = t1;
   for (let i = 0; i < steps.length; ) {
     onProgress?.({ done: i + 1, total, label: steps[i]!.op });
     state.tail = null; // only the last step's result may be marked
@@ -716,8 +719,12 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?:
     reports.push(...ran);
     i += ran.length;
     checkAbort(signal);
-    // Let the event loop breathe between steps so timeouts and other requests get a turn.
-    await new Promise<void>((resolve) => setImmediate(resolve));
+    // Let the event loop breathe between steps so timeouts and other requests get a turn — once
+    // some milliseconds of work have gone by, not after every ~1 ms step of a proxy render.
+    if (performance.now() - lastYield >= YIELD_AFTER_MS) {
+      await new Promise<void>((resolve) => setImmediate(resolve));
+      lastYield = performance.now();
+    }
   }
   const t2 = performance.now();
   releasePlanes(state);
