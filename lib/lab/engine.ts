@@ -550,7 +550,7 @@ export async function encodeImage(cur: Float32Array, width: number, height: numb
     return sharp(out, { raw }).toColourspace("rgb16").png({ compressionLevel: 0 }).toBuffer();
   }
   const q8 = quantiser(8, linear);
-  let out = tail ? quantiseTail(cur, width, tail, q8) : consume ? quantise8Consuming(cur, q8) : null;
+  let out = tail ? quantiseTail(cur, width, tail, q8, consume) : consume ? quantise8Consuming(cur, q8) : null;
   if (!out) {
     out = new Uint8Array(cur.length);
     quantise(cur, out, q8);
@@ -563,11 +563,17 @@ export async function encodeImage(cur: Float32Array, width: number, height: numb
     : img.webp({ quality: 85, effort: 0 }).toBuffer();
 }
 
-/** 8-bit codes of a result that is the plate outside per-row spans: the plate's codes there, quantised inside. */
-function quantiseTail(cur: Float32Array, width: number, tail: NonNullable<LabState["tail"]>, q: ReturnType<typeof quantiser>): Uint8Array | null {
+/**
+ * 8-bit codes of a result that is the plate outside per-row spans: the plate's codes there,
+ * quantised inside. `inPlace`: written over `cur`'s own bytes (no 1.6 MB allocation per proxy
+ * render): code i lands inside float i/4 or earlier, which has been read by then (row 0 included;
+ * for later rows the codes lie wholly before the row's floats).
+ */
+function quantiseTail(cur: Float32Array, width: number, tail: NonNullable<LabState["tail"]>, q: ReturnType<typeof quantiser>,
+  inPlace: boolean): Uint8Array | null {
   const { spans, plate8 } = tail;
   if (plate8.length !== cur.length) return null;
-  const out = new Uint8Array(cur.length);
+  const out = inPlace ? new Uint8Array(cur.buffer, cur.byteOffset, cur.length) : new Uint8Array(cur.length);
   const height = spans.length / 2;
   for (let y = 0; y < height; y++) {
     const o = 3 * y * width, a = 3 * spans[2 * y]!, b = 3 * spans[2 * y + 1]!, e = o + 3 * width;
