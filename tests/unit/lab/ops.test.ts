@@ -2,7 +2,7 @@ import { solve, Matrix } from "ml-matrix";
 import sharp from "sharp";
 import { linearRegression } from "simple-statistics";
 import { describe, expect, it } from "vitest";
-import { applyStep, applyStepsAt, codesSource, createLabState, runRecipe, type PixelSource } from "@/lib/lab/engine";
+import { applyStep, applyStepsAt, codesSource, createLabState, runRecipe, type PixelSource, type ProxyStill } from "@/lib/lab/engine";
 import { recipeStepSchema, type RecipeStep } from "@/lib/lab/recipe";
 
 function rand(seed: number): () => number {
@@ -262,8 +262,8 @@ describe("proxy paths (decoded proxy kept as working-space floats)", () => {
     const W = 320, H = 170;
     const syn = await generateSyntheticPlate({ width: W, height: H, compressionLevel: 1 });
     const steps = recipeSchema.parse(demoCleanupRecipe({ denoisedStillId: "den", width: W, screen: syn.screen, markerSamples: syn.markerSamples, screenSamples: syn.screenSamples, screenRect: syn.screenRect }));
-    const kept = new Map<string, import("@/lib/lab/engine").ProxyStill>();
-    const decodeCache = { get: (k: string) => kept.get(k), set: (k: string, v: import("@/lib/lab/engine").ProxyStill) => void kept.set(k, v) };
+    const kept = new Map<string, ProxyStill>();
+    const decodeCache = { get: (k: string) => kept.get(k), set: (k: string, v: ProxyStill) => void kept.set(k, v) };
     const loadStill = async () => syn.denoised;
     // png16 runs the float steps; png (8-bit, lossless) also the encode that copies the plate's
     // codes outside the matte instead of quantising there.
