@@ -11,9 +11,8 @@ import { THEME_COOKIE } from "@/lib/theme";
  * rendering again. A page is rendered the normal way (the proxy asks this instance for it with
  * RENDER_HEADER) and kept under the database's change stamp, the person, their role and theme:
  * any change to what pages show, by any instance, raises the stamp and retires every copy. The
- * session is still checked against the database on every request, before the cache is read.
+ * session is checked on every request before the cache is read (lib/auth/session.ts).
  */
-
 
 // Relative times on a page ("5 minutes ago") stay close to true.
 const MAX_AGE_MS = 60_000;
@@ -101,9 +100,4 @@ export function pageResponse({ page, hit }: { page: RenderedPage; hit: boolean }
   const nonceBytes = Buffer.from(nonce);
   const body = Buffer.concat(page.pieces.flatMap((piece, i) => (i === 0 ? [piece] : [nonceBytes, piece])));
   return new Response(body, { status: 200, headers });
-}
-
-/** Tests: forget every kept page. */
-export function clearRenderedPages(): void {
-  pages.clear();
 }
