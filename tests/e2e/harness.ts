@@ -131,12 +131,7 @@ export type RunningApp = { baseUrl: string; dataDir: string; uploadsDir: string;
 /** Starts a fresh copy of the seeded app; each test file gets its own. */
 export async function startApp(): Promise<RunningApp> {
   ensureBuild();
-  const template = seededTemplate();
-  const work = fs.mkdtempSync(path.join(os.tmpdir(), "plateroom-e2e-"));
-  const dataDir = path.join(work, "data");
-  const uploadsDir = path.join(work, "uploads");
-  fs.cpSync(template.data, dataDir, { recursive: true });
-  fs.cpSync(template.uploads, uploadsDir, { recursive: true });
+  const { work, dataDir, uploadsDir } = copySeededData();
   const inboxDir = path.join(dataDir, "mail-inbox");
   const [port, smtpPort] = [await freePort(), await freePort()];
   const env = baseEnv({
