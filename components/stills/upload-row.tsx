@@ -2,7 +2,7 @@
 
 import { useId } from "react";
 import { Button } from "@/components/ui/button";
-import { describedBy, inputClasses } from "@/components/ui/field";
+import { describedBy, FieldError, inputClasses } from "@/components/ui/field";
 import { ALT_MAX } from "@/lib/stills/schemas";
 import { cn } from "@/lib/utils";
 
@@ -64,11 +64,7 @@ export function UploadRow({ item, onChange, onUpload, onCancel, onRemove }: Prop
             placeholder="e.g. Blue screen with four tracking markers, before cleanup"
             onChange={(e) => onChange({ alt: e.target.value })}
           />
-          {altError ? (
-            <p id={`${id}-alt-error`} className="text-xs text-bad" role="alert">
-              {altError}
-            </p>
-          ) : null}
+          <FieldError id={`${id}-alt`} error={altError} />
         </div>
         <div className="space-y-1">
           <label htmlFor={`${id}-caption`} className="block text-xs font-medium">

@@ -17,13 +17,18 @@ export function Field({ id, label, error, hint, children }: { id: string; label:
           {hint}
         </p>
       ) : null}
-      {error ? (
-        <p id={`${id}-error`} className="text-xs text-bad" role="alert">
-          {error}
-        </p>
-      ) : null}
+      <FieldError id={id} error={error} />
     </div>
   );
+}
+
+/** The error line of control `id`, named `${id}-error` so describedBy() can point the control at it. */
+export function FieldError({ id, error }: { id: string; error?: string }) {
+  return error ? (
+    <p id={`${id}-error`} className="text-xs text-bad" role="alert">
+      {error}
+    </p>
+  ) : null;
 }
 
 export function describedBy(id: string, error?: string, hint?: string): string | undefined {

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import { describedBy, inputClasses } from "@/components/ui/field";
+import { describedBy, FieldError, inputClasses } from "@/components/ui/field";
 import type { Channel } from "@/lib/lab/recipe";
 import { cn } from "@/lib/utils";
 
@@ -51,11 +51,7 @@ export function NumberInput({ id, label, value, onChange, min, max, step = 0.01,
           if (Number.isFinite(n)) onChange(n);
         }}
       />
-      {error ? (
-        <p id={`${id}-error`} className="text-xs text-bad" role="alert">
-          {error}
-        </p>
-      ) : null}
+      <FieldError id={id} error={error} />
     </div>
   );
 }
@@ -90,11 +86,7 @@ export function Choice<T extends string>({ id, label, value, options, onChange, 
           </option>
         ))}
       </select>
-      {error ? (
-        <p id={`${id}-error`} className="text-xs text-bad" role="alert">
-          {error}
-        </p>
-      ) : null}
+      <FieldError id={id} error={error} />
     </div>
   );
 }
