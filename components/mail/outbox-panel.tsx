@@ -6,6 +6,7 @@ import { MessagePreview } from "@/components/mail/message-preview";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
+import { DataTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Skeleton } from "@/components/ui/skeleton";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
@@ -114,11 +115,12 @@ export function OutboxPanel() {
       ) : null}
 
       {list.data && list.data.items.length > 0 ? (
-        <div className="overflow-x-auto">
-          <table className="w-full border-collapse text-sm" data-testid="outbox-table">
-            <caption className="sr-only">Outbox messages, newest first</caption>
-            <thead>
-              <tr className="border-b border-line text-left text-muted">
+        <div>
+          <DataTable
+            data-testid="outbox-table"
+            caption="Outbox messages, newest first"
+            head={
+              <>
                 <th scope="col" className="py-2 pr-3 font-medium">Recipient</th>
                 <th scope="col" className="pr-3 font-medium">Subject</th>
                 <th scope="col" className="pr-3 font-medium">State</th>
@@ -129,62 +131,61 @@ export function OutboxPanel() {
                 <th scope="col">
                   <span className="sr-only">Actions</span>
                 </th>
+              </>
+            }
+          >
+            {list.data.items.map((item) => (
+              <tr
+                key={item.id}
+                onClick={() => setSelected(item.id)}
+                className={cn("cursor-pointer border-b border-line align-top hover:bg-surface-2", selected === item.id && "bg-accent/10")}
+                data-testid="outbox-row"
+              >
+                <td className="py-2 pr-3 break-all">{item.to}</td>
+                <td className="py-2 pr-3">
+                  {/* The row is clickable for the mouse; this button is the keyboard's way in. */}
+                  <button type="button" className="text-left hover:underline focus-visible:underline" aria-expanded={selected === item.id} onClick={() => setSelected(item.id)}>
+                    {item.subject}
+                  </button>
+                  <span className="block text-xs text-muted">{item.kind}</span>
+                </td>
+                <td className="py-2 pr-3">
+                  <Badge tone={STATE_TONE[item.state]}>{STATE_LABEL[item.state]}</Badge>
+                </td>
+                <td className="py-2 pr-3 text-right tabular-nums">{item.attempts}</td>
+                <td className="max-w-64 py-2 pr-3 text-xs break-words text-bad">{item.lastError ?? <span className="text-muted">—</span>}</td>
+                <td className="py-2 pr-3 text-xs whitespace-nowrap text-muted">
+                  <time dateTime={item.createdAt}>{formatDateTime(item.createdAt)}</time>
+                </td>
+                <td className="py-2 pr-3 text-xs whitespace-nowrap text-muted">
+                  {item.sentAt ? (
+                    <time dateTime={item.sentAt}>{formatDateTime(item.sentAt)}</time>
+                  ) : item.state === "queued" ? (
+                    <>
+                      next <time dateTime={item.nextAttemptAt}>{formatDateTime(item.nextAttemptAt)}</time>
+                    </>
+                  ) : (
+                    "—"
+                  )}
+                </td>
+                <td className="py-2 text-right">
+                  {canRetry(item) ? (
+                    <Button
+                      variant={item.state === "failed" ? "primary" : "secondary"}
+                      disabled={retry.isPending && retry.variables === item.id}
+                      onClick={(e) => {
+                        e.stopPropagation();
+                        retry.mutate(item.id);
+                      }}
+                      aria-label={`Retry the message to ${item.to}: ${item.subject}`}
+                    >
+                      {retry.isPending && retry.variables === item.id ? "Queuing…" : item.state === "failed" ? "Retry" : "Retry now"}
+                    </Button>
+                  ) : null}
+                </td>
               </tr>
-            </thead>
-            <tbody>
-              {list.data.items.map((item) => (
-                <tr
-                  key={item.id}
-                  onClick={() => setSelected(item.id)}
-                  className={cn("cursor-pointer border-b border-line align-top hover:bg-surface-2", selected === item.id && "bg-accent/10")}
-                  data-testid="outbox-row"
-                >
-                  <td className="py-2 pr-3 break-all">{item.to}</td>
-                  <td className="py-2 pr-3">
-                    {/* The row is clickable for the mouse; this button is the keyboard's way in. */}
-                    <button type="button" className="text-left hover:underline focus-visible:underline" aria-expanded={selected === item.id} onClick={() => setSelected(item.id)}>
-                      {item.subject}
-                    </button>
-                    <span className="block text-xs text-muted">{item.kind}</span>
-                  </td>
-                  <td className="py-2 pr-3">
-                    <Badge tone={STATE_TONE[item.state]}>{STATE_LABEL[item.state]}</Badge>
-                  </td>
-                  <td className="py-2 pr-3 text-right tabular-nums">{item.attempts}</td>
-                  <td className="max-w-64 py-2 pr-3 text-xs break-words text-bad">{item.lastError ?? <span className="text-muted">—</span>}</td>
-                  <td className="py-2 pr-3 text-xs whitespace-nowrap text-muted">
-                    <time dateTime={item.createdAt}>{formatDateTime(item.createdAt)}</time>
-                  </td>
-                  <td className="py-2 pr-3 text-xs whitespace-nowrap text-muted">
-                    {item.sentAt ? (
-                      <time dateTime={item.sentAt}>{formatDateTime(item.sentAt)}</time>
-                    ) : item.state === "queued" ? (
-                      <>
-                        next <time dateTime={item.nextAttemptAt}>{formatDateTime(item.nextAttemptAt)}</time>
-                      </>
-                    ) : (
-                      "—"
-                    )}
-                  </td>
-                  <td className="py-2 text-right">
-                    {canRetry(item) ? (
-                      <Button
-                        variant={item.state === "failed" ? "primary" : "secondary"}
-                        disabled={retry.isPending && retry.variables === item.id}
-                        onClick={(e) => {
-                          e.stopPropagation();
-                          retry.mutate(item.id);
-                        }}
-                        aria-label={`Retry the message to ${item.to}: ${item.subject}`}
-                      >
-                        {retry.isPending && retry.variables === item.id ? "Queuing…" : item.state === "failed" ? "Retry" : "Retry now"}
-                      </Button>
-                    ) : null}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+            ))}
+          </DataTable>
           <div className="mt-2 flex items-center justify-between text-sm text-muted">
             <span>
               {offset + 1}–{offset + list.data.items.length} of {list.data.total}

@@ -5,6 +5,7 @@ import { useState } from "react";
 import { InviteForm } from "@/components/people/invite-form";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
+import { DataTable } from "@/components/ui/data-table";
 import { Select } from "@/components/ui/field";
 import { Skeleton } from "@/components/ui/skeleton";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
@@ -32,49 +33,48 @@ export function PeopleManager({ currentUserId }: { currentUserId: string }) {
       {people.isLoading ? <Skeleton className="h-40" /> : null}
       {people.error ? <p role="alert" className="text-bad">{(people.error as Error).message}</p> : null}
       {people.data ? (
-        <table className="w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-line text-left text-muted">
+        <DataTable
+          head={
+            <>
               <th className="py-2 font-medium">Name</th>
               <th className="font-medium">E-mail</th>
               <th className="font-medium">Role</th>
               <th className="font-medium">State</th>
               <th />
+            </>
+          }
+        >
+          {people.data.items.map((p) => (
+            <tr key={p.id} className="border-b border-line">
+              <td className="py-2">
+                {p.name}
+                {p.id === currentUserId ? <span className="text-muted"> (you)</span> : null}
+              </td>
+              <td>{p.email}</td>
+              <td>
+                <Select aria-label={`Role of ${p.name}`} className="w-auto py-1" value={p.role} onChange={(e) => update.mutate({ id: p.id, patch: { role: e.target.value as Role } })}>
+                  {ROLES.map((r) => (
+                    <option key={r} value={r}>
+                      {ROLE_LABELS[r]}
+                    </option>
+                  ))}
+                </Select>
+              </td>
+              <td className="text-muted">{p.disabled ? "disabled" : p.hasPassword ? "active" : "invited"}</td>
+              <td className="text-right">
+                {p.disabled ? (
+                  <Button variant="ghost" onClick={() => update.mutate({ id: p.id, patch: { disabled: false } })}>
+                    Enable
+                  </Button>
+                ) : (
+                  <Button variant="danger" onClick={() => setConfirm(p)}>
+                    Disable
+                  </Button>
+                )}
+              </td>
             </tr>
-          </thead>
-          <tbody>
-            {people.data.items.map((p) => (
-              <tr key={p.id} className="border-b border-line">
-                <td className="py-2">
-                  {p.name}
-                  {p.id === currentUserId ? <span className="text-muted"> (you)</span> : null}
-                </td>
-                <td>{p.email}</td>
-                <td>
-                  <Select aria-label={`Role of ${p.name}`} className="w-auto py-1" value={p.role} onChange={(e) => update.mutate({ id: p.id, patch: { role: e.target.value as Role } })}>
-                    {ROLES.map((r) => (
-                      <option key={r} value={r}>
-                        {ROLE_LABELS[r]}
-                      </option>
-                    ))}
-                  </Select>
-                </td>
-                <td className="text-muted">{p.disabled ? "disabled" : p.hasPassword ? "active" : "invited"}</td>
-                <td className="text-right">
-                  {p.disabled ? (
-                    <Button variant="ghost" onClick={() => update.mutate({ id: p.id, patch: { disabled: false } })}>
-                      Enable
-                    </Button>
-                  ) : (
-                    <Button variant="danger" onClick={() => setConfirm(p)}>
-                      Disable
-                    </Button>
-                  )}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+          ))}
+        </DataTable>
       ) : null}
       <ConfirmDialog
         open={confirm !== null}

@@ -5,6 +5,7 @@ import Link from "next/link";
 import { useEffect, useState } from "react";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
+import { DataTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { TextInput } from "@/components/ui/field";
 import { apiFetch } from "@/lib/api/fetcher";
@@ -62,36 +63,34 @@ export function ShowShotsTable({ showCode, initial }: { showCode: string; initia
       {data.items.length === 0 && !query.isFetching ? (
         <EmptyState title={q ? "No shot matches this filter." : "No shots in this show yet."}>{q ? null : "Leads add them by importing a shot list."}</EmptyState>
       ) : (
-        <div className="overflow-x-auto">
-          <table className="w-full border-collapse text-sm" data-testid="show-shots">
-            <thead>
-              <tr className="border-b border-line text-left text-muted">
-                <th className="py-1.5 pr-3 font-medium">Shot</th>
-                <th className="py-1.5 pr-3 font-medium">Sequence</th>
-                <th className="py-1.5 pr-3 font-medium">Description</th>
-                <th className="py-1.5 pr-3 font-medium">Frames</th>
-                <th className="py-1.5 font-medium">State</th>
-              </tr>
-            </thead>
-            <tbody>
-              {data.items.map((s) => (
-                <tr key={s.id} className="border-b border-line align-top">
-                  <td className="py-1.5 pr-3">
-                    <Link href={`/shots/${encodeURIComponent(s.code)}`} className="font-mono hover:text-accent">
-                      {s.code}
-                    </Link>
-                  </td>
-                  <td className="py-1.5 pr-3 font-mono">{s.sequence || "—"}</td>
-                  <td className="py-1.5 pr-3">{s.description}</td>
-                  <td className="py-1.5 pr-3 whitespace-nowrap font-mono text-xs">{frameRange(s)}</td>
-                  <td className="py-1.5">
-                    <Badge tone={STATE_TONE[s.state]}>{SHOT_STATE_LABELS[s.state]}</Badge>
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <DataTable
+          data-testid="show-shots"
+          head={
+            <>
+              <th className="py-1.5 pr-3 font-medium">Shot</th>
+              <th className="py-1.5 pr-3 font-medium">Sequence</th>
+              <th className="py-1.5 pr-3 font-medium">Description</th>
+              <th className="py-1.5 pr-3 font-medium">Frames</th>
+              <th className="py-1.5 font-medium">State</th>
+            </>
+          }
+        >
+          {data.items.map((s) => (
+            <tr key={s.id} className="border-b border-line align-top">
+              <td className="py-1.5 pr-3">
+                <Link href={`/shots/${encodeURIComponent(s.code)}`} className="font-mono hover:text-accent">
+                  {s.code}
+                </Link>
+              </td>
+              <td className="py-1.5 pr-3 font-mono">{s.sequence || "—"}</td>
+              <td className="py-1.5 pr-3">{s.description}</td>
+              <td className="py-1.5 pr-3 whitespace-nowrap font-mono text-xs">{frameRange(s)}</td>
+              <td className="py-1.5">
+                <Badge tone={STATE_TONE[s.state]}>{SHOT_STATE_LABELS[s.state]}</Badge>
+              </td>
+            </tr>
+          ))}
+        </DataTable>
       )}
       {pages > 1 ? (
         <nav aria-label="Shot pages" className="flex items-center gap-2 text-sm">

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { DataTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Refused } from "@/components/ui/refused";
 import { listAudit } from "@/lib/audit/queries";
@@ -20,30 +21,29 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
       <h1 className="text-2xl font-semibold">Audit log</h1>
       <p className="text-sm text-muted">{total} entries · every change to people, techniques, tags, shots and stills.</p>
       {items.length ? (
-        <table className="w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-line text-left text-muted">
+        <DataTable
+          head={
+            <>
               <th className="py-2 font-medium">When</th>
               <th className="font-medium">Who</th>
               <th className="font-medium">What</th>
               <th className="font-medium">On</th>
               <th className="font-medium">Details</th>
+            </>
+          }
+        >
+          {items.map((e) => (
+            <tr key={e.id} className="border-b border-line align-top">
+              <td className="py-1.5 pr-2 whitespace-nowrap">{formatDateTime(e.at)}</td>
+              <td className="pr-2">{e.actor?.name ?? "system"}</td>
+              <td className="pr-2 font-mono text-xs">{e.action}</td>
+              <td className="pr-2 text-xs text-muted">
+                {e.targetType} {e.targetId?.slice(0, 8)}
+              </td>
+              <td className="font-mono text-xs break-all text-muted">{JSON.stringify(e.detail)}</td>
             </tr>
-          </thead>
-          <tbody>
-            {items.map((e) => (
-              <tr key={e.id} className="border-b border-line align-top">
-                <td className="py-1.5 pr-2 whitespace-nowrap">{formatDateTime(e.at)}</td>
-                <td className="pr-2">{e.actor?.name ?? "system"}</td>
-                <td className="pr-2 font-mono text-xs">{e.action}</td>
-                <td className="pr-2 text-xs text-muted">
-                  {e.targetType} {e.targetId?.slice(0, 8)}
-                </td>
-                <td className="font-mono text-xs break-all text-muted">{JSON.stringify(e.detail)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+          ))}
+        </DataTable>
       ) : (
         <EmptyState title="Nothing logged yet." />
       )}

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { NewShowForm } from "@/components/shots/show-forms";
 import { Badge } from "@/components/ui/badge";
 import { Card, CardTitle } from "@/components/ui/card";
+import { DataTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
@@ -22,40 +23,38 @@ export default async function ShowsPage() {
         <span className="text-sm text-muted">{shows.length} in all</span>
       </div>
       {shows.length ? (
-        <div className="overflow-x-auto">
-          <table className="w-full border-collapse text-sm" data-testid="shows-table">
-            <thead>
-              <tr className="border-b border-line text-left text-muted">
-                <th className="py-1.5 pr-3 font-medium">Code</th>
-                <th className="py-1.5 pr-3 font-medium">Name</th>
-                <th className="py-1.5 pr-3 font-medium">Kind</th>
-                <th className="py-1.5 pr-3 font-medium">State</th>
-                <th className="py-1.5 text-right font-medium">Shots</th>
-              </tr>
-            </thead>
-            <tbody>
-              {shows.map((s) => (
-                <tr key={s.id} className="border-b border-line">
-                  <td className="py-1.5 pr-3">
-                    <Link href={`/shows/${s.code}`} className="font-mono font-medium hover:text-accent">
-                      {s.code}
-                    </Link>
-                  </td>
-                  <td className="py-1.5 pr-3">
-                    <Link href={`/shows/${s.code}`} className="hover:text-accent">
-                      {s.name}
-                    </Link>
-                  </td>
-                  <td className="py-1.5 pr-3">{SHOW_KIND_LABELS[s.kind]}</td>
-                  <td className="py-1.5 pr-3">
-                    <Badge tone={s.state === "active" ? "ok" : "neutral"}>{SHOW_STATE_LABELS[s.state]}</Badge>
-                  </td>
-                  <td className="py-1.5 text-right font-mono">{s.shotCount}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <DataTable
+          data-testid="shows-table"
+          head={
+            <>
+              <th className="py-1.5 pr-3 font-medium">Code</th>
+              <th className="py-1.5 pr-3 font-medium">Name</th>
+              <th className="py-1.5 pr-3 font-medium">Kind</th>
+              <th className="py-1.5 pr-3 font-medium">State</th>
+              <th className="py-1.5 text-right font-medium">Shots</th>
+            </>
+          }
+        >
+          {shows.map((s) => (
+            <tr key={s.id} className="border-b border-line">
+              <td className="py-1.5 pr-3">
+                <Link href={`/shows/${s.code}`} className="font-mono font-medium hover:text-accent">
+                  {s.code}
+                </Link>
+              </td>
+              <td className="py-1.5 pr-3">
+                <Link href={`/shows/${s.code}`} className="hover:text-accent">
+                  {s.name}
+                </Link>
+              </td>
+              <td className="py-1.5 pr-3">{SHOW_KIND_LABELS[s.kind]}</td>
+              <td className="py-1.5 pr-3">
+                <Badge tone={s.state === "active" ? "ok" : "neutral"}>{SHOW_STATE_LABELS[s.state]}</Badge>
+              </td>
+              <td className="py-1.5 text-right font-mono">{s.shotCount}</td>
+            </tr>
+          ))}
+        </DataTable>
       ) : (
         <EmptyState title="No shows yet.">{canManage ? "Create the first one below, then import its shot list." : "Leads add shows and their shot lists."}</EmptyState>
       )}
