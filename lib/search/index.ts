@@ -1,37 +1,73 @@
 import "server-only";
 
-import { createSearchIndex } from "./engine";
-import type { SearchDocument, SearchIndex } from "./types";
+import { createSearchIndex, type SearchEngine } from "./engine";
+import { createLanguage, loadLanguage } from "./language";
+import type { ThesaurusEntry } from "./thesaurus";
+import type { SearchDocument, SearchIndex, SearchViews } from "./types";
 
 export { createSearchIndex, FIELD_WEIGHTS } from "./engine";
 export { highlight, type HighlightSegment } from "./highlight";
+export type { ThesaurusEntry } from "./thesaurus";
 export type * from "./types";
 
 export type SearchIndexEntry = { techniqueId: string; published: SearchDocument | null; working: SearchDocument | null };
-export type ProcessSearchIndex = ReturnType<typeof createSearchIndex>;
-
-// One index per process; on globalThis so Next's dev reloads do not build a second one.
-const globalForSearch = globalThis as unknown as { plateroomSearchIndex?: ProcessSearchIndex };
 
 /**
- * The process-wide index. Empty until `rebuildSearchIndex` has run; the DAL calls `upsert`/`remove`
- * on it in every write that changes a technique (after the transaction commits).
+ * A change the process's index must apply. This is the one entry point for changes, whether they
+ * come from this process's own writes or from another instance (a database notification).
+ * - technique: its views now (`null` when it was deleted or has no text any more);
+ * - thesaurus: the whole thesaurus now (it is small, and applied at query time).
+ */
+export type SearchChange =
+  | { kind: "technique"; techniqueId: string; views: SearchViews | null }
+  | { kind: "thesaurus"; entries: readonly ThesaurusEntry[] };
+
+type Holder = { index?: SearchEngine; hasLanguage: boolean; thesaurus: readonly ThesaurusEntry[] };
+
+// One index per process; on globalThis so Next's dev reloads do not build a second one.
+const globalForSearch = globalThis as unknown as { plateroomSearch?: Holder };
+const holder = (): Holder => (globalForSearch.plateroomSearch ??= { hasLanguage: false, thesaurus: [] });
+
+/**
+ * The process-wide index for reading. Until the first rebuild or change it is an empty stand-in
+ * without the English word data (that loads asynchronously, in `rebuildSearchIndex`).
  */
 export function getSearchIndex(): SearchIndex {
-  globalForSearch.plateroomSearchIndex ??= createSearchIndex();
-  return globalForSearch.plateroomSearchIndex;
+  const h = holder();
+  h.index ??= createSearchIndex({ language: createLanguage([], []) });
+  return h.index;
+}
+
+async function indexWithLanguage(): Promise<SearchEngine> {
+  const language = await loadLanguage();
+  const h = holder();
+  if (!h.hasLanguage || !h.index) {
+    h.index = createSearchIndex({ language, thesaurus: h.thesaurus });
+    h.hasLanguage = true;
+  }
+  return h.index;
+}
+
+/** Apply one change; visible to the next search. */
+export async function applySearchChange(change: SearchChange): Promise<void> {
+  const index = await indexWithLanguage();
+  if (change.kind === "thesaurus") {
+    holder().thesaurus = change.entries;
+    index.setThesaurus(change.entries);
+  } else if (change.views) index.upsert(change.techniqueId, change.views);
+  else index.remove(change.techniqueId);
 }
 
 /**
- * Build a fresh index from `loadAll()` and swap it in, so searches keep using the old one while
- * loading. Returns the number of techniques indexed.
+ * Build a fresh index from `loadAll()` and the thesaurus and swap it in, so searches keep using the
+ * old one while loading. Returns the number of techniques indexed.
  *
  * Writes that land during the load may be missed by the fresh index; call this at start-up, before
  * serving writes, or re-apply such writes afterwards.
  */
-export async function rebuildSearchIndex(loadAll: () => Promise<SearchIndexEntry[]>): Promise<number> {
-  const rows = await loadAll();
-  const next = createSearchIndex();
+export async function rebuildSearchIndex(loadAll: () => Promise<SearchIndexEntry[]>, loadThesaurus?: () => Promise<readonly ThesaurusEntry[]>): Promise<number> {
+  const [language, rows, thesaurus] = await Promise.all([loadLanguage(), loadAll(), loadThesaurus ? loadThesaurus() : Promise.resolve(holder().thesaurus)]);
+  const next = createSearchIndex({ language, thesaurus });
   // Index in slices and yield between them: 50,000 techniques take seconds of CPU, and the server
   // should keep answering meanwhile (from the previous index).
   for (let i = 0; i < rows.length; i += REBUILD_SLICE) {
@@ -39,7 +75,10 @@ export async function rebuildSearchIndex(loadAll: () => Promise<SearchIndexEntry
     await new Promise<void>((resolve) => setImmediate(resolve));
   }
   next.compact();
-  globalForSearch.plateroomSearchIndex = next;
+  const h = holder();
+  h.index = next;
+  h.hasLanguage = true;
+  h.thesaurus = thesaurus;
   return next.size();
 }
 

@@ -1,28 +1,60 @@
 /**
- * Text helpers for search: tokenising with offsets, a light stemmer, stop words and edit distance.
- * Client-safe and pure, so the UI and tests can use them too.
+ * Text helpers for search: tokenising with offsets, the stop-word list, how much a query word
+ * weighs, edit distance and trigrams. Client-safe and pure, so the UI and tests can use them too
+ * (stemming lives in stemming.ts, which the browser never needs).
  */
 
 export type Token = {
-  /** Lower-cased, accent-folded surface form. */
+  /** Lower-cased, accent-folded surface form; a hyphenated compound without its hyphens ("cstand"). */
   word: string;
   start: number;
   /** Exclusive. */
   end: number;
+  /** The pieces of a hyphenated compound ("c-stand" → stand; "16-bit" → 16, bit), single letters left out. */
+  parts?: Token[];
 };
 
-// Small English list: only words that carry no meaning in a technique search. Trade words such as
-// "plate", "screen" or "remove" are NOT here, because they distinguish techniques.
+// The one stop-word list (issue 14): words that never describe a plate problem, dropped from queries
+// and documents alike. Trade words ("plate", "screen", "remove") are NOT here, and neither are the
+// little words trade phrases are made of ("take out", "put grain back", "fall off"): those are
+// filler words below, kept at a small weight so thesaurus phrases can still match them.
 const STOP_WORDS = new Set(
   (
-    "a an and are as at be but by can do does for from has have how i if in into is it its my of on or " +
-    "so than that the their then there these this those to was we what when where which while who why " +
-    "will with you your our me get got just any some all no not very too also out up"
+    "a an and are as at be but by can could do does did for from has have had how i if in into is it its my of on or " +
+    "so than that the their them then there these they this those to was we were what when where which while who why " +
+    "will would with you your our me am just any all no not very too also " +
+    // Contractions, typed with or without the apostrophe.
+    "dont doesnt didnt isnt arent wasnt cant couldnt wont wouldnt shouldnt im ive whats theres thats"
   ).split(" "),
 );
 
 export function isStopWord(word: string): boolean {
   return STOP_WORDS.has(word);
+}
+
+// Words that carry no problem: asking ("need", "help", "best way"), doing in general ("get", "take",
+// "make", "deal") and the particles of phrasal verbs. They stay in the query at a small weight, so a
+// question full of them is judged by its few content words.
+const FILLER_WORDS = new Set(
+  (
+    "need needs needed help want wanted wants trying try tried way ways best good better easiest easy quick quickly " +
+    "get gets getting got rid take takes taking took make makes making made do doing done deal dealing " +
+    "thing things stuff bit bits lot lots kind sort really please anyone tell know able should " +
+    "out up off back down over around away about here some put go going use using"
+  ).split(" "),
+);
+
+// Generic action words: most write-ups remove or fix something, so these say little about which one.
+const GENERIC_WORDS = new Set("remove removal removing removed fix fixing fixed clean cleaning cleanup repair repairing".split(" "));
+
+export const FILLER_WEIGHT = 0.15;
+export const GENERIC_WEIGHT = 0.5;
+
+/** How much a query word counts toward a page's score (1 for words that name a problem or a plate). */
+export function queryWordWeight(word: string): number {
+  if (FILLER_WORDS.has(word)) return FILLER_WEIGHT;
+  if (GENERIC_WORDS.has(word)) return GENERIC_WEIGHT;
+  return 1;
 }
 
 function foldChar(ch: string): string {
@@ -35,42 +67,65 @@ function isWordCode(c: number): boolean {
   return (c >= 97 && c <= 122) || (c >= 48 && c <= 57);
 }
 
+const isDigits = (w: string): boolean => w.charCodeAt(0) >= 48 && w.charCodeAt(0) <= 57;
+/** Single letters never identify a technique; single digits can ("3 x 3"). */
+const keeps = (w: string): boolean => w.length > 1 || isDigits(w);
+
 /**
- * Split text into word tokens ([a-z0-9] runs after lower-casing and accent folding) with their offsets
- * in the original string. `splitCamel` also breaks "blackPoint" into "black" + "point" (parameter names).
- * Single letters are dropped: they never identify a technique.
+ * Split text into word tokens with their offsets in the original string: [a-z0-9] runs after
+ * lower-casing and accent folding; an apostrophe inside a word is dropped ("don't" → "dont"); runs
+ * joined by single hyphens become one compound token that keeps its parts ("c-stand", "16-bit").
+ * `splitCamel` also breaks "blackPoint" into "black" + "point" (parameter names).
  */
 export function tokenize(text: string, splitCamel = false): Token[] {
-  // Fast path for plain ASCII text (nearly every body): one regex pass instead of a char loop.
-  if (!splitCamel && ASCII_ONLY.test(text)) {
-    const out: Token[] = [];
-    WORD_RE.lastIndex = 0;
-    for (let m = WORD_RE.exec(text); m !== null; m = WORD_RE.exec(text)) {
-      const raw = m[0];
-      if (raw.length === 1 && !(raw >= "0" && raw <= "9")) continue;
-      out.push({ word: raw.toLowerCase(), start: m.index, end: m.index + raw.length });
+  const runs = wordRuns(text, splitCamel);
+  const out: Token[] = [];
+  for (let i = 0; i < runs.length; i++) {
+    let j = i;
+    // A hyphen with word characters right on both sides joins the runs into a compound.
+    while (j + 1 < runs.length && (runs[j + 1] as Token).start === (runs[j] as Token).end + 1 && text.charCodeAt((runs[j] as Token).end) === 45) j++;
+    if (j === i) {
+      const t = runs[i] as Token;
+      if (keeps(t.word)) out.push(t);
+      continue;
     }
-    return out;
+    const pieces = runs.slice(i, j + 1);
+    const first = pieces[0] as Token;
+    const last = pieces[pieces.length - 1] as Token;
+    out.push({ word: pieces.map((p) => p.word).join(""), start: first.start, end: last.end, parts: pieces.filter((p) => keeps(p.word)) });
+    i = j;
   }
-  return tokenizeSlow(text, splitCamel);
+  return out;
 }
 
-const ASCII_ONLY = /^[\x00-\x7f]*$/;
-const WORD_RE = /[A-Za-z0-9]+/g;
+/** The plain [a-z0-9] runs (apostrophes inside words folded away), before hyphen compounds are joined. */
+function wordRuns(text: string, splitCamel: boolean): Token[] {
+  // Fast path for plain ASCII text without apostrophes (nearly every body): one regex pass.
+  if (!splitCamel && ASCII_PLAIN.test(text)) {
+    const out: Token[] = [];
+    WORD_RE.lastIndex = 0;
+    for (let m = WORD_RE.exec(text); m !== null; m = WORD_RE.exec(text)) out.push({ word: m[0].toLowerCase(), start: m.index, end: m.index + m[0].length });
+    return out;
+  }
+  return wordRunsSlow(text, splitCamel);
+}
 
-function tokenizeSlow(text: string, splitCamel: boolean): Token[] {
+const ASCII_PLAIN = /^[^\x80-\uffff']*$/;
+const WORD_RE = /[A-Za-z0-9]+/g;
+const APOSTROPHES = new Set(["'", "\u2019"]);
+
+function wordRunsSlow(text: string, splitCamel: boolean): Token[] {
   const out: Token[] = [];
   let word = "";
   let start = -1;
   let prevLower = false;
   const flush = (end: number): void => {
-    if (start >= 0 && (word.length > 1 || (word.length === 1 && word >= "0" && word <= "9"))) {
-      out.push({ word, start, end });
-    }
+    if (start >= 0 && word.length > 0) out.push({ word, start, end });
     word = "";
     start = -1;
   };
   for (let i = 0; i < text.length; i++) {
+    const raw = text[i] as string;
     let code = text.charCodeAt(i);
     let ch: string;
     const isUpper = code >= 65 && code <= 90;
@@ -78,9 +133,9 @@ function tokenizeSlow(text: string, splitCamel: boolean): Token[] {
       code += 32;
       ch = String.fromCharCode(code);
     } else if (code < 128) {
-      ch = text[i] as string;
+      ch = raw;
     } else {
-      ch = foldChar(text[i] as string);
+      ch = foldChar(raw);
       code = ch.length === 1 ? ch.charCodeAt(0) : 0;
     }
     if (isWordCode(code)) {
@@ -88,6 +143,9 @@ function tokenizeSlow(text: string, splitCamel: boolean): Token[] {
       if (start < 0) start = i;
       word += ch;
       prevLower = code >= 97 && code <= 122 && !isUpper;
+    } else if (APOSTROPHES.has(raw) && start >= 0 && isWordCode((text[i + 1] ?? " ").toLowerCase().charCodeAt(0))) {
+      // "actor's", "don't": one word, the apostrophe left out of it but inside its range.
+      continue;
     } else {
       flush(i);
       prevLower = false;
@@ -95,33 +153,6 @@ function tokenizeSlow(text: string, splitCamel: boolean): Token[] {
   }
   flush(text.length);
   return out;
-}
-
-function undouble(w: string): string {
-  const n = w.length;
-  if (n >= 3 && w[n - 1] === w[n - 2] && !"lsz".includes(w[n - 1] as string)) return w.slice(0, -1);
-  return w;
-}
-
-/**
- * A light, conservative suffix stripper: plurals, -ing, -ed and a final -e, so that "markers"/"marker"
- * and "tracking"/"tracks" meet. It is not the Porter stemmer. "-er" is kept on purpose: "trackers"
- * (tracking markers) must not become "tracks" (footprints, tyre tracks).
- */
-export function stem(word: string): string {
-  let w = word;
-  if (w.length <= 3 || /^[0-9]/.test(w)) return w;
-  if (w.endsWith("ies") && w.length > 4) w = w.slice(0, -3) + "y";
-  else if (w.endsWith("sses")) w = w.slice(0, -2);
-  else if (/(?:ches|shes|xes|zes)$/.test(w)) w = w.slice(0, -2);
-  else if (w.endsWith("s") && !/(?:ss|us|is)$/.test(w) && w.length > 3) w = w.slice(0, -1);
-
-  if (w.endsWith("ing") && w.length > 5) w = undouble(w.slice(0, -3));
-  else if (w.endsWith("ed") && w.length > 4) w = undouble(w.slice(0, -2));
-
-  if (w.endsWith("e") && w.length > 3) w = w.slice(0, -1);
-  // Undouble once more so "matte", "mattes" and "matting" all meet at "mat".
-  return undouble(w);
 }
 
 /**

@@ -8,6 +8,8 @@
  *   these, falling back to the published view when there is no working one.
  */
 
+import type { ThesaurusEntry } from "./thesaurus";
+
 export type SearchStatus = "draft" | "in_review" | "approved" | "retired";
 
 export type SearchAudience = "published" | "working";
@@ -45,6 +47,9 @@ export type SearchField = "title" | "aliases" | "tags" | "summary" | "parameters
  */
 export type SearchMatch = { field: SearchField; value: string; ranges: [number, number][] };
 
+/** A query word that matched this result only through the thesaurus, and the term it matched. */
+export type SearchVia = { word: string; term: string; kind: "synonym" | "broader" };
+
 export type SearchResult = {
   slug: string;
   title: string;
@@ -61,6 +66,8 @@ export type SearchResult = {
   isHouseMethod: boolean;
   /** Problem tag slugs it is the approved method for, whatever the query (for a badge). */
   houseMethodFor: string[];
+  /** Query words this result answers only through the thesaurus ("tracker" → "marker"). */
+  via: SearchVia[];
 };
 
 export type SearchFacetTag = { slug: string; name: string; count: number };
@@ -74,7 +81,10 @@ export type SearchResponse = {
     plate: SearchFacetTag[];
     status: { status: SearchStatus; count: number }[];
   };
-  /** The query with misspelt words replaced by the corpus words they were matched to (when any were). */
+  /**
+   * The query with misspelt words replaced by the words they were matched to (when any were). Words
+   * of the English word list or of the pages and thesaurus are never replaced.
+   */
   corrected?: string;
   tookMs: number;
 };
@@ -91,6 +101,8 @@ export type SearchOptions = {
   /** Default 20, at most 200. */
   limit?: number;
   offset?: number;
+  /** Search for exactly the words typed: no spelling corrections (the "did you mean" banner's way out). */
+  exact?: boolean;
 };
 
 /** A quick-finder row: title matching only (title, aliases, tag names). */
@@ -110,6 +122,8 @@ export type SearchIndex = {
   /** Replace both views of a technique. Visible to the next search call. */
   upsert(techniqueId: string, views: SearchViews): void;
   remove(techniqueId: string): void;
+  /** Replace the thesaurus (applied at query time, so no page is re-indexed). */
+  setThesaurus(entries: readonly ThesaurusEntry[]): void;
   search(query: string, options: SearchOptions): SearchResponse;
   suggestTitles(query: string, audience: SearchAudience, limit?: number): TitleSuggestion[];
   /** Number of techniques with at least one view. */

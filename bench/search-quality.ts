@@ -1,0 +1,26 @@
+/**
+ * `npx tsx -C react-server bench/search-quality.ts`: the quality set alone, for tuning. Prints the
+ * per-kind table for the tuned queries and the held-out ones, and lists misses of the TUNED queries
+ * only (the held-out quarter is never listed: look at its numbers, not its queries).
+ */
+import { createSearchIndex } from "@/lib/search/engine";
+import { loadLanguage } from "@/lib/search/language";
+import { STARTER_THESAURUS } from "@/db/seed-data/thesaurus";
+import { QUALITY_PAGES } from "@/tests/unit/search/quality/pages";
+import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
+
+import { evaluateQuality, hunspellJudge } from "./lib/quality";
+
+const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
+index.load(QUALITY_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
+const judge = await hunspellJudge(QUALITY_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+const report = evaluateQuality(index, QUALITY_QUERIES, judge);
+console.log("tuned");
+console.table(report.tuned);
+// While tuning, leave the held-out numbers unseen too; `--held-out` shows them (for reports).
+if (process.argv.includes("--held-out")) {
+  console.log("held out (misses never listed)");
+  console.table(report.heldOut);
+}
+console.log("real words corrected", report.realWordsCorrected);
+if (process.argv.includes("--misses")) console.log(report.tunedMisses.join("\n"));

@@ -1,0 +1,134 @@
+/**
+ * What the engine knows about English beyond the pages: which words are real words (so spelling
+ * correction never "corrects" them) and which British and American spellings are the same word.
+ *
+ * - Real words: the word-list package (~274,000 English words, maintained, MIT).
+ * - Spelling variants: the words that only the British Hunspell dictionary has (dictionary-en-gb)
+ *   paired with words that only the American one has (dictionary-en), where a known spelling rule
+ *   turns one into the other (colour/color, grey/gray, centre/center, stabilise/stabilize…).
+ *
+ * Loading reads ~3.8 MB of package files once per process (`loadLanguage`); tests may build a small
+ * `Language` with `createLanguage`.
+ */
+import { snowballStem } from "./stemming";
+
+export type Language = {
+  /** True for a word of the English word list (lower case). */
+  isEnglishWord(word: string): boolean;
+  /** The American stem for a British one ("colour" → "color"), else the stem itself. */
+  normaliseStem(stem: string): string;
+  /** British → American word pairs in use (for documentation and tests). */
+  variantPairs: readonly (readonly [string, string])[];
+};
+
+/** A sorted word list kept as one string with offsets: ~4 MB instead of ~30 MB for a Set of strings. */
+class SortedWords {
+  private readonly text: string;
+  private readonly offsets: Uint32Array;
+  constructor(words: Iterable<string>) {
+    const sorted = [...new Set([...words].map((w) => w.trim().toLowerCase()).filter(Boolean))].sort();
+    this.text = sorted.join("\n");
+    this.offsets = new Uint32Array(sorted.length + 1);
+    let at = 0;
+    sorted.forEach((w, i) => {
+      this.offsets[i] = at;
+      at += w.length + 1;
+    });
+    this.offsets[sorted.length] = at;
+  }
+  has(word: string): boolean {
+    let lo = 0;
+    let hi = this.offsets.length - 2;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const w = this.text.slice(this.offsets[mid] as number, (this.offsets[mid + 1] as number) - 1);
+      if (w === word) return true;
+      if (w < word) lo = mid + 1;
+      else hi = mid - 1;
+    }
+    return false;
+  }
+}
+
+// British → American spelling rules, as endings or inner letters (common knowledge of the two
+// spellings). A rule only pairs words when the British form is in the British dictionary alone and
+// the American form in the American one alone, so "tour"/"tor" or "ise"/"ize" in "wise" never pair.
+const VARIANT_RULES: readonly (readonly [RegExp, string])[] = [
+  [/our/, "or"], // colour, harbour, behaviour
+  [/is(e|ed|es|ing|ation|ations|er|ers)$/, "iz$1"], // stabilise, normalisation
+  [/ys(e|ed|es|ing)$/, "yz$1"], // analyse
+  [/tre(s?)$/, "ter$1"], // centre, metre, fibre
+  [/ogue(s?)$/, "og$1"], // catalogue, analogue
+  [/ence(s?)$/, "ense$1"], // defence, licence
+  [/ll(ed|ing|er|ers)$/, "l$1"], // travelled, levelling
+  [/ae/, "e"], // anaemia
+  [/oe/, "e"], // manoeuvre
+  [/ey$/, "ay"], // grey
+  [/yre(s?)$/, "ire$1"], // tyre
+  [/ould/, "old"], // mould, smoulder
+  [/amme(s?)$/, "am$1"], // programme
+  [/que(s?)$/, "ck$1"], // cheque
+  [/ough$/, "ow"], // plough
+];
+
+/** British-only words paired with American-only words by the rules above. */
+export function deriveVariantPairs(americanOnly: ReadonlySet<string>, britishOnly: Iterable<string>): [string, string][] {
+  const pairs: [string, string][] = [];
+  for (const gb of britishOnly) {
+    for (const [rule, replacement] of VARIANT_RULES) {
+      const us = gb.replace(rule, replacement);
+      if (us !== gb && americanOnly.has(us)) {
+        pairs.push([gb, us]);
+        break;
+      }
+    }
+  }
+  return pairs.sort((a, b) => a[0].localeCompare(b[0]));
+}
+
+export function createLanguage(words: Iterable<string>, variantPairs: readonly (readonly [string, string])[]): Language {
+  const list = new SortedWords(words);
+  const stemMap = new Map<string, string>();
+  for (const [gb, us] of variantPairs) {
+    const from = snowballStem(gb);
+    const to = snowballStem(us);
+    if (from !== to && !stemMap.has(from)) stemMap.set(from, to);
+  }
+  return {
+    isEnglishWord: (word) => list.has(word),
+    normaliseStem: (stem) => stemMap.get(stem) ?? stem,
+    variantPairs,
+  };
+}
+
+/** Hunspell .dic entries without their affix flags: lower-case letter-only stems. */
+function dictionaryStems(dic: Uint8Array): Set<string> {
+  const out = new Set<string>();
+  const lines = new TextDecoder().decode(dic).split("\n");
+  for (let i = 1; i < lines.length; i++) {
+    const w = (lines[i] as string).split("/")[0] as string;
+    if (/^[a-z]+$/.test(w)) out.add(w);
+  }
+  return out;
+}
+
+let loading: Promise<Language> | undefined;
+
+/** The process-wide language data, read from the packages on first use. */
+export function loadLanguage(): Promise<Language> {
+  loading ??= (async () => {
+    const [{ default: wordListPath }, { default: american }, { default: british }, fs] = await Promise.all([
+      import("word-list"),
+      import("dictionary-en"),
+      import("dictionary-en-gb"),
+      import("node:fs/promises"),
+    ]);
+    const words = (await fs.readFile(wordListPath, "utf8")).split("\n");
+    const us = dictionaryStems(american.dic);
+    const gb = dictionaryStems(british.dic);
+    const americanOnly = new Set([...us].filter((w) => !gb.has(w)));
+    const britishOnly = [...gb].filter((w) => !us.has(w));
+    return createLanguage([...words, ...us, ...gb], deriveVariantPairs(americanOnly, britishOnly));
+  })();
+  return loading;
+}

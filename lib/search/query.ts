@@ -1,0 +1,158 @@
+/**
+ * Query parsing: a typed query becomes units (one per content word, weighted by how much a word
+ * like it says about a problem) and spans (several units that together spell a thesaurus term or a
+ * run-together word). Each unit and span holds the alternatives a page may match it by — the word
+ * itself, its word family, a completion of a partial last word, a spelling correction, a split
+ * compound, thesaurus terms — each with its own weight (scoring.ts).
+ */
+import { ALTERNATIVE_WEIGHTS, completionWeight, MAX_UNITS } from "./scoring";
+import { findPhrases, type CompiledThesaurus } from "./thesaurus";
+import { isStopWord, queryWordWeight, tokenize, type Token } from "./text";
+import type { Vocabulary } from "./vocabulary";
+
+export type AlternativeKind = "exact" | "stem" | "family" | "parts" | "prefix" | "typo" | "split" | "joined" | "synonym" | "broader";
+
+/** One way a page can answer a unit or span: all `stems` present (one stem for most kinds). */
+export type Alternative = { stems: number[]; weight: number; kind: AlternativeKind; surface: string };
+
+export type QueryUnit = { text: string; start: number; end: number; weight: number; alternatives: Alternative[]; correction?: string };
+export type QuerySpan = { first: number; count: number; alternatives: Alternative[] };
+export type QueryPlan = { units: QueryUnit[]; spans: QuerySpan[] };
+
+export type ParseOptions = {
+  /** Complete partial words: the last one while typing a search, every one in the quick finder. */
+  prefix: "last" | "all" | "none";
+  /** "Search for exactly what I typed": no spelling corrections. */
+  exact: boolean;
+};
+
+export type QueryContext = { vocab: Vocabulary; thesaurus: CompiledThesaurus; docFreq: (stemId: number) => number };
+
+const MAX_ALTERNATIVES = 8;
+
+export function parseQuery(query: string, ctx: QueryContext, options: ParseOptions): QueryPlan {
+  const raw = tokenize(query);
+  const content = raw.filter((t) => !isStopWord(t.word));
+  const tokens = (content.length > 0 ? content : raw).slice(0, MAX_UNITS);
+  const units = tokens.map((tok, i) => parseWord(tok, ctx, options.prefix === "all" || (options.prefix === "last" && i === tokens.length - 1), options.exact));
+  const spans: QuerySpan[] = [];
+  const taken = new Uint8Array(units.length);
+
+  // Thesaurus terms, longest first: each unit may stand for its own stem or its correction.
+  const stemsAt = (i: number): string[] => {
+    const u = units[i] as QueryUnit;
+    const out = [ctx.vocab.stemOf((tokens[i] as Token).word)];
+    if (u.correction) out.push(ctx.vocab.stemOf(u.correction));
+    for (const a of u.alternatives) if ((a.kind === "typo" || a.kind === "exact" || a.kind === "stem") && a.stems.length === 1) out.push(ctx.vocab.stemWords[a.stems[0] as number] as string);
+    return out;
+  };
+  for (const match of findPhrases(units.length, stemsAt, ctx.thesaurus)) {
+    const targets: Alternative[] = [];
+    for (const t of match.rule.targets) {
+      const stems = t.stems.map((s) => ctx.vocab.stemIdOf(s));
+      if (stems.some((s) => s === undefined || ctx.docFreq(s) === 0)) continue;
+      targets.push({ stems: stems as number[], weight: ALTERNATIVE_WEIGHTS[t.kind], kind: t.kind, surface: t.text });
+    }
+    if (targets.length === 0) continue;
+    if (match.count === 1) (units[match.first] as QueryUnit).alternatives.push(...targets);
+    else spans.push({ first: match.first, count: match.count, alternatives: targets });
+    for (let k = match.first; k < match.first + match.count; k++) taken[k] = 1;
+  }
+
+  // Two typed words that the pages write as one ("foot prints" → footprints, "fall off" → falloff).
+  for (let i = 0; i + 1 < units.length; i++) {
+    if (taken[i] || taken[i + 1]) continue;
+    const a = tokens[i] as Token;
+    const b = tokens[i + 1] as Token;
+    if (b.start - a.end > 1) continue;
+    const joined = ctx.vocab.stemIdOf(ctx.vocab.stemOf(a.word + b.word));
+    if (joined === undefined || ctx.docFreq(joined) === 0) continue;
+    spans.push({ first: i, count: 2, alternatives: [{ stems: [joined], weight: ALTERNATIVE_WEIGHTS.joined, kind: "joined", surface: a.word + b.word }] });
+    taken[i] = taken[i + 1] = 1;
+  }
+  return { units, spans };
+}
+
+function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: boolean): QueryUnit {
+  const { vocab } = ctx;
+  const word = tok.word;
+  const out: Alternative[] = [];
+  const live = (stemId: number | undefined): stemId is number => stemId !== undefined && ctx.docFreq(stemId) > 0;
+  const stem = vocab.stemOf(word);
+  const stemId = vocab.stemIdOf(stem);
+  const isKnown = vocab.isKnownWord(word);
+  const isNumeric = /^[0-9]/.test(word);
+  // Meeting a page word only through the stemmer ("trakers" → "traker") is weaker evidence than
+  // the word itself, so corrections compete with it.
+  if (live(stemId)) out.push({ stems: [stemId], weight: isKnown ? ALTERNATIVE_WEIGHTS.exact : ALTERNATIVE_WEIGHTS.stem, kind: isKnown ? "exact" : "stem", surface: word });
+  if (tok.parts && tok.parts.length > 0) {
+    const parts = tok.parts.filter((p) => !isStopWord(p.word)).map((p) => vocab.stemIdOf(vocab.stemOf(p.word)));
+    if (parts.length > 0 && parts.every(live)) out.push({ stems: parts as number[], weight: ALTERNATIVE_WEIGHTS.parts, kind: "parts", surface: tok.parts.map((p) => p.word).join(" ") });
+  }
+  if (!isNumeric) {
+    for (const f of vocab.family(stem)) if (live(f)) out.push({ stems: [f], weight: ALTERNATIVE_WEIGHTS.family, kind: "family", surface: vocab.stemWords[f] as string });
+  }
+  if (isNumeric) return unit(tok, out);
+
+  const hasExact = out.length > 0;
+  if (word.length >= 3 && (allowPrefix || !hasExact)) {
+    for (const sf of vocab.completions(word)) {
+      const w = vocab.surfaceWords[sf] as string;
+      out.push({ stems: [vocab.surfaceStem[sf] as number], weight: completionWeight(word, w, hasExact), kind: "prefix", surface: w });
+    }
+  }
+  // Spelling: a word the pages or the thesaurus use, or any English word, is never changed.
+  let correction: string | undefined;
+  if (!exact && !isKnown && !vocab.isEnglishWord(word)) {
+    const maxDistance = word.length <= 3 ? 0 : word.length <= 5 ? 1 : 2;
+    const found = vocab.corrections(word, maxDistance);
+    // Prefer the correction with the most pages (the word the person most likely meant).
+    found.sort((a, b) => ctx.docFreq(vocab.surfaceStem[b.surfaceId] as number) - ctx.docFreq(vocab.surfaceStem[a.surfaceId] as number));
+    for (const c of found) {
+      const w = vocab.surfaceWords[c.surfaceId] as string;
+      const sid = vocab.surfaceStem[c.surfaceId] as number;
+      // A thesaurus-only word has no pages but still counts as the correction (the thesaurus maps it).
+      correction ??= w;
+      if (live(sid)) out.push({ stems: [sid], weight: c.distance === 1 ? ALTERNATIVE_WEIGHTS.typo : ALTERNATIVE_WEIGHTS.typo2, kind: "typo", surface: w });
+    }
+    if (!hasExact && found.length === 0 && word.length >= 5) splitCompound(word, ctx, out);
+  } else if (!exact && !isKnown && !hasExact && word.length >= 4) {
+    // A real word that no page uses ("flor", "lite"): it stays as typed — no banner claims otherwise —
+    // but page words one edit away count a little, since it is often a slip for one of them.
+    for (const c of vocab.corrections(word, 1)) {
+      const sid = vocab.surfaceStem[c.surfaceId] as number;
+      if (live(sid)) out.push({ stems: [sid], weight: ALTERNATIVE_WEIGHTS.nearWord, kind: "typo", surface: vocab.surfaceWords[c.surfaceId] as string });
+    }
+  }
+  return unit(tok, out, hasExact ? undefined : correction);
+}
+
+/** A run-together word that is not itself a word ("infront", "deadpixel"): split where both halves are. */
+function splitCompound(word: string, ctx: QueryContext, out: Alternative[]): void {
+  const { vocab } = ctx;
+  const known = (w: string): boolean => w.length >= 2 && (vocab.isKnownWord(w) || vocab.isEnglishWord(w));
+  for (let k = 2; k <= word.length - 2; k++) {
+    const a = word.slice(0, k);
+    const b = word.slice(k);
+    if (!known(a) || !known(b)) continue;
+    const stems = [a, b]
+      .filter((w) => !isStopWord(w))
+      .map((w) => vocab.stemIdOf(vocab.stemOf(w)))
+      .filter((s): s is number => s !== undefined && ctx.docFreq(s) > 0);
+    if (stems.length === 0) continue;
+    out.push({ stems, weight: ALTERNATIVE_WEIGHTS.split, kind: "split", surface: `${a} ${b}` });
+    return;
+  }
+}
+
+function unit(tok: Token, alternatives: Alternative[], correction?: string): QueryUnit {
+  // One alternative per stem set (the strongest), then the strongest few: more only adds noise and time.
+  const best = new Map<string, Alternative>();
+  for (const a of alternatives) {
+    const key = a.stems.join(",");
+    const prev = best.get(key);
+    if (!prev || a.weight > prev.weight) best.set(key, a);
+  }
+  const kept = [...best.values()].sort((a, b) => b.weight - a.weight).slice(0, MAX_ALTERNATIVES);
+  return { text: tok.word, start: tok.start, end: tok.end, weight: queryWordWeight(tok.word), alternatives: kept, ...(correction ? { correction } : {}) };
+}

@@ -1,0 +1,119 @@
+/**
+ * What a result shows of why it matched: highlight ranges per field, a body excerpt around the
+ * densest run of matched words, and which query words matched only through the thesaurus.
+ * Highlight ranges come from the same tokenizer and stems as the index, so they mark exactly the
+ * words that matched.
+ */
+import type { QueryPlan } from "./query";
+import type { SearchDocument, SearchField, SearchMatch, SearchVia } from "./types";
+import { tokenize, type Token } from "./text";
+
+export const SNIPPET_CHARS = 180;
+
+/** Cut `text` at word boundaries around `[from, to)`, marking cuts with "…". */
+export function excerpt(text: string, from: number, to: number): { text: string; shift: number } {
+  let s = Math.max(0, from);
+  let e = Math.min(text.length, to);
+  if (s > 0) {
+    const sp = text.indexOf(" ", s);
+    if (sp >= 0 && sp < s + 20) s = sp + 1;
+  }
+  if (e < text.length) {
+    const sp = text.lastIndexOf(" ", e);
+    if (sp > s + 40) e = sp;
+  }
+  const pre = s > 0 ? "…" : "";
+  const post = e < text.length ? "…" : "";
+  return { text: pre + text.slice(s, e).replace(/\s+$/, "") + post, shift: pre.length - s };
+}
+
+type StemOf = (word: string) => string;
+
+/** Ranges of the tokens (and adjacent pairs written apart, "blue screen" for "bluescreen") whose stem matched. */
+function rangesOf(text: string, stems: ReadonlySet<string>, stemOf: StemOf, camel = false): [number, number][] {
+  const toks = tokenize(text, camel);
+  const out: [number, number][] = [];
+  toks.forEach((t, i) => {
+    if (stems.has(stemOf(t.word))) out.push([t.start, t.end]);
+    else for (const p of t.parts ?? []) if (stems.has(stemOf(p.word))) out.push([p.start, p.end]);
+    const next = toks[i + 1];
+    if (next && next.start - t.end === 1 && stems.has(stemOf(t.word + next.word))) out.push([t.start, next.end]);
+  });
+  return out;
+}
+
+/** Highlight ranges per field and the body snippet for one document and the stems a query matched. */
+export function matchesFor(doc: SearchDocument, stems: ReadonlySet<string>, stemOf: StemOf): { matches: SearchMatch[]; snippet: string } {
+  const matches: SearchMatch[] = [];
+  const single = (field: SearchField, value: string, camel = false): void => {
+    const ranges = rangesOf(value, stems, stemOf, camel);
+    if (ranges.length > 0) matches.push({ field, value, ranges });
+  };
+  single("title", doc.title);
+  for (const a of doc.aliases) single("aliases", a);
+  for (const t of doc.tags) for (const v of [t.name, ...t.aliases]) single("tags", v);
+  single("summary", doc.summary);
+  for (const p of doc.parameterNames) single("parameters", p, true);
+  for (const s of doc.shotCodes) single("shots", s);
+
+  const bodyTokens = tokenize(doc.bodyText).filter((t) => stems.has(stemOf(t.word)));
+  if (bodyTokens.length === 0) return { matches, snippet: excerpt(doc.summary, 0, SNIPPET_CHARS).text };
+  // The window holding the most distinct matched words reads best.
+  let bestStart = (bodyTokens[0] as Token).start;
+  let bestCount = 0;
+  for (let i = 0; i < bodyTokens.length && i < 200; i++) {
+    const from = (bodyTokens[i] as Token).start;
+    const seen = new Set<string>();
+    for (let j = i; j < bodyTokens.length && (bodyTokens[j] as Token).end <= from + SNIPPET_CHARS - 40; j++) seen.add(stemOf((bodyTokens[j] as Token).word));
+    if (seen.size > bestCount) {
+      bestCount = seen.size;
+      bestStart = from;
+    }
+  }
+  const cut = excerpt(doc.bodyText, bestStart - 40, bestStart - 40 + SNIPPET_CHARS);
+  const lo = cut.text.startsWith("…") ? 1 : 0;
+  const hi = cut.text.length - (cut.text.endsWith("…") ? 1 : 0);
+  const inside = bodyTokens.map((t) => [t.start + cut.shift, t.end + cut.shift] as [number, number]).filter(([s, e]) => s >= lo && e <= hi);
+  if (inside.length > 0) matches.push({ field: "body", value: cut.text, ranges: inside });
+  return { matches, snippet: cut.text };
+}
+
+/** Every stem a document's searchable fields contain (compound parts and run-together pairs included). */
+export function documentStems(texts: readonly string[], stemOf: StemOf): Set<string> {
+  const out = new Set<string>();
+  for (const text of texts) {
+    const toks = tokenize(text, true);
+    toks.forEach((t, i) => {
+      out.add(stemOf(t.word));
+      for (const p of t.parts ?? []) out.add(stemOf(p.word));
+      const next = toks[i + 1];
+      if (next && next.start - t.end === 1) out.add(stemOf(t.word + next.word));
+    });
+    for (const t of tokenize(text)) out.add(stemOf(t.word));
+  }
+  return out;
+}
+
+/**
+ * Query words this document answers only through the thesaurus, with the term that matched:
+ * "tracker" → "marker". A word that also matched directly (itself, its family, a correction) is not
+ * listed.
+ */
+export function thesaurusMatches(plan: QueryPlan, has: (stemId: number) => boolean, query: string): SearchVia[] {
+  const out: SearchVia[] = [];
+  const direct = (kinds: string): boolean => !["synonym", "broader"].includes(kinds);
+  plan.units.forEach((u) => {
+    if (u.alternatives.some((a) => direct(a.kind) && a.stems.every(has))) return;
+    const via = u.alternatives.find((a) => !direct(a.kind) && a.stems.every(has));
+    if (via) out.push({ word: query.slice(u.start, u.end), term: via.surface, kind: via.kind === "synonym" ? "synonym" : "broader" });
+  });
+  for (const s of plan.spans) {
+    const units = plan.units.slice(s.first, s.first + s.count);
+    if (units.every((u) => u.alternatives.some((a) => direct(a.kind) && a.stems.every(has)))) continue;
+    const via = s.alternatives.find((a) => !direct(a.kind) && a.stems.every(has));
+    const first = units[0];
+    const last = units[units.length - 1];
+    if (via && first && last) out.push({ word: query.slice(first.start, last.end), term: via.surface, kind: via.kind === "synonym" ? "synonym" : "broader" });
+  }
+  return out;
+}

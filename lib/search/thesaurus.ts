@@ -1,0 +1,99 @@
+/**
+ * The trade thesaurus at query time. Leads keep two kinds of entry (table `thesaurus_entries`):
+ * - synonyms: every term means the others ("regrain", "grain restore", "put grain back");
+ * - narrower: each term also means the broader one, but not the other way round ("tracker",
+ *   "tape cross", "dot" → "marker": a search for "marker" does not pull in every page with a dot).
+ * Terms may be phrases. Compiled once per change into rules keyed by the stems of each source term;
+ * the query parser finds the longest rules that its words spell and adds their targets as weaker
+ * alternatives (see scoring.ts for the weights).
+ */
+import { isStopWord, tokenize } from "./text";
+
+export type ThesaurusEntry =
+  | { id?: string; kind: "synonyms"; terms: readonly string[] }
+  | { id?: string; kind: "narrower"; broader: string; terms: readonly string[] };
+
+export type ThesaurusTarget = { stems: string[]; text: string; kind: "synonym" | "broader" };
+export type ThesaurusRule = { source: string[]; text: string; targets: ThesaurusTarget[] };
+
+export type CompiledThesaurus = {
+  /** Rules by the first stem of their source, longest source first. */
+  rulesByFirstStem: Map<string, ThesaurusRule[]>;
+  /** Every word the thesaurus uses, so spelling correction can reach "people" before any page says it. */
+  words: Set<string>;
+  entryCount: number;
+};
+
+export const EMPTY_THESAURUS: CompiledThesaurus = { rulesByFirstStem: new Map(), words: new Set(), entryCount: 0 };
+
+/** Content stems of a phrase, as the query parser sees them (stop words dropped, compounds whole). */
+export function phraseStems(phrase: string, stemOf: (word: string) => string): string[] {
+  return tokenize(phrase)
+    .filter((t) => !isStopWord(t.word))
+    .map((t) => stemOf(t.word));
+}
+
+export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (word: string) => string): CompiledThesaurus {
+  const rules = new Map<string, ThesaurusRule>();
+  const words = new Set<string>();
+  const term = (text: string): { stems: string[]; text: string } | null => {
+    const clean = text.trim().toLowerCase();
+    for (const t of tokenize(clean)) if (!isStopWord(t.word)) words.add(t.word);
+    const stems = phraseStems(clean, stemOf);
+    return stems.length > 0 ? { stems, text: clean } : null;
+  };
+  const addRule = (source: { stems: string[]; text: string }, target: { stems: string[]; text: string }, kind: ThesaurusTarget["kind"]): void => {
+    if (source.stems.join(" ") === target.stems.join(" ")) return;
+    const key = source.stems.join(" ");
+    let rule = rules.get(key);
+    if (!rule) {
+      rule = { source: source.stems, text: source.text, targets: [] };
+      rules.set(key, rule);
+    }
+    const existing = rule.targets.find((t) => t.stems.join(" ") === target.stems.join(" "));
+    // A synonym link is stronger than a narrower one; keep the stronger when both exist.
+    if (existing) {
+      if (kind === "synonym") existing.kind = "synonym";
+    } else rule.targets.push({ stems: target.stems, text: target.text, kind });
+  };
+  for (const entry of entries) {
+    const terms = entry.terms.map(term).filter((t): t is NonNullable<typeof t> => t !== null);
+    if (entry.kind === "synonyms") {
+      for (const a of terms) for (const b of terms) if (a !== b) addRule(a, b, "synonym");
+    } else {
+      const broader = term(entry.broader);
+      if (broader) for (const n of terms) addRule(n, broader, "broader");
+    }
+  }
+  const rulesByFirstStem = new Map<string, ThesaurusRule[]>();
+  for (const rule of rules.values()) {
+    const first = rule.source[0] as string;
+    rulesByFirstStem.set(first, [...(rulesByFirstStem.get(first) ?? []), rule]);
+  }
+  for (const list of rulesByFirstStem.values()) list.sort((a, b) => b.source.length - a.source.length);
+  return { rulesByFirstStem, words, entryCount: entries.length };
+}
+
+export type PhraseMatch = { first: number; count: number; rule: ThesaurusRule };
+
+/**
+ * The thesaurus rules a sequence of query stems spells, longest first and without overlap, left to
+ * right. `stemsAt(i)` gives the stems position i may stand for (its own and any spelling correction).
+ */
+export function findPhrases(length: number, stemsAt: (i: number) => readonly string[], thesaurus: CompiledThesaurus): PhraseMatch[] {
+  const out: PhraseMatch[] = [];
+  for (let i = 0; i < length; ) {
+    let found: PhraseMatch | undefined;
+    for (const first of stemsAt(i)) {
+      for (const rule of thesaurus.rulesByFirstStem.get(first) ?? []) {
+        if (i + rule.source.length > length || (found && found.count >= rule.source.length)) continue;
+        if (rule.source.every((s, k) => stemsAt(i + k).includes(s))) found = { first: i, count: rule.source.length, rule };
+      }
+    }
+    if (found) {
+      out.push(found);
+      i += found.count;
+    } else i++;
+  }
+  return out;
+}

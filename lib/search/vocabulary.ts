@@ -1,0 +1,178 @@
+/**
+ * The vocabulary: every surface word the index has seen (for spelling correction and completion of
+ * partial words) mapped to its stem (what postings are kept by). Stems get dense ids that the
+ * posting store indexes arrays with.
+ */
+import type { Language } from "./language";
+import { familyCandidates, snowballStem } from "./stemming";
+import { editDistance, trigrams } from "./text";
+
+export type Candidate = { surfaceId: number; distance: number };
+
+export class Vocabulary {
+  private readonly surfaceIds = new Map<string, number>();
+  readonly surfaceWords: string[] = [];
+  readonly surfaceStem: number[] = [];
+  /** Documents using each surface, plus thesaurus pins: a word with none is not offered as a correction. */
+  private readonly surfaceRefs: number[] = [];
+  private readonly trigramIndex = new Map<string, number[]>();
+  private sorted: string[] = [];
+  private unsorted: string[] = [];
+
+  private readonly stemIds = new Map<string, number>();
+  readonly stemWords: string[] = [];
+  /** Called with each new stem id, so the posting store can grow with it. */
+  onNewStem: (stemId: number) => void = () => {};
+
+  constructor(private readonly language: Language) {}
+
+  /** The normalised stem of a token: Snowball, then British spelling mapped to American. */
+  stemOf(word: string): string {
+    const known = this.surfaceIds.get(word);
+    if (known !== undefined) return this.stemWords[this.surfaceStem[known] as number] as string;
+    return this.language.normaliseStem(snowballStem(word));
+  }
+
+  /** Id of a stem string, created when missing. */
+  internStem(stem: string): number {
+    let id = this.stemIds.get(stem);
+    if (id === undefined) {
+      id = this.stemWords.length;
+      this.stemIds.set(stem, id);
+      this.stemWords.push(stem);
+      this.onNewStem(id);
+    }
+    return id;
+  }
+
+  stemIdOf(stem: string): number | undefined {
+    return this.stemIds.get(stem);
+  }
+
+  /** Surface id of a token, created (with its stem) when missing. */
+  internSurface(word: string): number {
+    let id = this.surfaceIds.get(word);
+    if (id === undefined) {
+      const stemId = this.internStem(this.language.normaliseStem(snowballStem(word)));
+      id = this.surfaceWords.length;
+      this.surfaceIds.set(word, id);
+      this.surfaceWords.push(word);
+      this.surfaceStem.push(stemId);
+      this.surfaceRefs.push(0);
+      this.unsorted.push(word);
+      for (const g of trigrams(word)) {
+        const list = this.trigramIndex.get(g);
+        if (list) list.push(id);
+        else this.trigramIndex.set(g, [id]);
+      }
+    }
+    return id;
+  }
+
+  surfaceIdOf(word: string): number | undefined {
+    return this.surfaceIds.get(word);
+  }
+
+  addRef(surfaceId: number, delta: number): void {
+    this.surfaceRefs[surfaceId] = (this.surfaceRefs[surfaceId] as number) + delta;
+  }
+
+  isLive(surfaceId: number): boolean {
+    return (this.surfaceRefs[surfaceId] as number) > 0;
+  }
+
+  /** A word that pages or the thesaurus use right now. */
+  isKnownWord(word: string): boolean {
+    const id = this.surfaceIds.get(word);
+    return id !== undefined && this.isLive(id);
+  }
+
+  isEnglishWord(word: string): boolean {
+    return this.language.isEnglishWord(word);
+  }
+
+  /** Live surface words that start with `prefix` (at most `limit`), shortest distance in the sort first. */
+  completions(prefix: string, limit = 200): number[] {
+    const vocab = this.sortedSurfaces();
+    let lo = 0;
+    let hi = vocab.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((vocab[mid] as string) < prefix) lo = mid + 1;
+      else hi = mid;
+    }
+    const out: number[] = [];
+    for (let i = lo; i < vocab.length && i < lo + limit; i++) {
+      const w = vocab[i] as string;
+      if (!w.startsWith(prefix)) break;
+      const id = this.surfaceIds.get(w) as number;
+      if (this.isLive(id) && w !== prefix) out.push(id);
+    }
+    return out;
+  }
+
+  /**
+   * Live words within `maxDistance` edits of `word` (optimal string alignment), comparing stems too:
+   * "flaten" is one edit from "flatten" although the pages only say "flattening". Only the closest
+   * distance found is returned.
+   */
+  corrections(word: string, maxDistance: number): Candidate[] {
+    if (maxDistance <= 0) return [];
+    const grams = trigrams(word);
+    const counts = new Map<number, number>();
+    for (const g of grams) {
+      const list = this.trigramIndex.get(g);
+      if (!list) continue;
+      for (const id of list) counts.set(id, (counts.get(id) ?? 0) + 1);
+    }
+    // One edit destroys at most 3 padded trigrams (4 for a transposition), so fewer shared ones rule a word out.
+    const need = Math.max(1, grams.length - 4 * maxDistance);
+    const queryStem = this.stemOf(word);
+    const within = (a: string, b: string): number => (Math.abs(a.length - b.length) > maxDistance ? maxDistance + 1 : editDistance(a, b, maxDistance));
+    const found: Candidate[] = [];
+    for (const [id, c] of counts) {
+      if (c < need || !this.isLive(id)) continue;
+      const d = Math.min(within(word, this.surfaceWords[id] as string), within(queryStem, this.stemWords[this.surfaceStem[id] as number] as string));
+      if (d <= maxDistance) found.push({ surfaceId: id, distance: d });
+    }
+    // A transposition in a short word can leave no trigram in common ("fcae"/"face"): try those directly.
+    if (word.length <= 5) {
+      for (let i = 0; i + 1 < word.length; i++) {
+        const swapped = word.slice(0, i) + word[i + 1] + word[i] + word.slice(i + 2);
+        const id = this.surfaceIds.get(swapped);
+        if (id !== undefined && swapped !== word && this.isLive(id) && !found.some((f) => f.surfaceId === id)) found.push({ surfaceId: id, distance: 1 });
+      }
+    }
+    const best = Math.min(...found.map((f) => f.distance));
+    return found.filter((f) => f.distance === best);
+  }
+
+  /** Stem ids of the word family of `stem` that the vocabulary has ("dark" ↔ "darken"). */
+  family(stem: string): number[] {
+    const out: number[] = [];
+    for (const c of familyCandidates(stem)) {
+      const id = this.stemIds.get(c);
+      if (id !== undefined) out.push(id);
+    }
+    return out;
+  }
+
+  private sortedSurfaces(): string[] {
+    if (this.unsorted.length > 64) {
+      this.sorted = this.sorted.concat(this.unsorted).sort();
+    } else {
+      for (const w of this.unsorted) {
+        let lo = 0;
+        let hi = this.sorted.length;
+        while (lo < hi) {
+          const mid = (lo + hi) >> 1;
+          if ((this.sorted[mid] as string) < w) lo = mid + 1;
+          else hi = mid;
+        }
+        this.sorted.splice(lo, 0, w);
+      }
+    }
+    this.unsorted = [];
+    return this.sorted;
+  }
+}
