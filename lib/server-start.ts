@@ -4,7 +4,9 @@ import path from "node:path";
 import { runMigrations } from "@/db/migrate";
 import { env } from "@/lib/env";
 import { startMailSender } from "@/lib/mail/sender";
+import { applySearchChange } from "@/lib/search";
 import { rebuildSearchFromDb, syncChangedSince } from "@/lib/techniques/search-sync";
+import { loadThesaurusForSearch, thesaurusSignature } from "@/lib/thesaurus/queries";
 
 /** Start-up work of a server process: schema up to date, search index built, mail sender running. */
 export async function startServerServices(): Promise<void> {
@@ -16,19 +18,27 @@ export async function startServerServices(): Promise<void> {
   }
   await runMigrations();
   const startedAt = new Date();
+  const signature = await thesaurusSignature();
   const count = await rebuildSearchFromDb();
-  if (env.DATABASE_URL) keepSearchInStep(startedAt);
+  if (env.DATABASE_URL) keepSearchInStep(startedAt, signature);
   console.log(`[plateroom] search index built: ${count} techniques`);
   if (env.PLATEROOM_MAIL_SENDER === "on") startMailSender();
 }
 
-/** Other instances write to the same server: pick up their technique changes every 30 s. */
-function keepSearchInStep(from: Date): void {
+/** Other instances write to the same server: pick up their technique and thesaurus changes every 30 s. */
+function keepSearchInStep(from: Date, thesaurusAtStart: string): void {
   let mark = from;
+  let thesaurus = thesaurusAtStart;
+  const catchUp = async (): Promise<void> => {
+    mark = await syncChangedSince(mark);
+    const now = await thesaurusSignature();
+    if (now !== thesaurus) {
+      await applySearchChange({ kind: "thesaurus", entries: await loadThesaurusForSearch() });
+      thesaurus = now;
+    }
+  };
   const timer = setInterval(() => {
-    syncChangedSince(mark)
-      .then((next) => (mark = next))
-      .catch((error) => console.error("[search] catch-up failed:", error));
+    catchUp().catch((error) => console.error("[search] catch-up failed:", error));
   }, 30_000);
   timer.unref();
 }

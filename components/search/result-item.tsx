@@ -2,7 +2,7 @@ import Link from "next/link";
 import { HighlightedText } from "@/components/search/highlighted-text";
 import { HouseMethodBadge, StatusBadge } from "@/components/techniques/status-badge";
 import { TagChips } from "@/components/techniques/tag-chips";
-import type { SearchField, SearchMatch } from "@/lib/search/types";
+import type { SearchField, SearchMatch, SearchVia } from "@/lib/search/types";
 import type { SearchResultDto } from "@/lib/search-ui/params";
 import { formatDate } from "@/lib/utils";
 
@@ -38,6 +38,7 @@ export function ResultItem({ result }: { result: SearchResultDto }) {
         </p>
       ) : null}
       {others.length ? <OtherMatches matches={others} /> : null}
+      {result.via.length ? <ThesaurusNote via={result.via} /> : null}
       <div className="mt-2 flex flex-wrap items-center gap-3">
         <TagChips tags={result.tags} />
         <span className="ml-auto text-xs text-muted">Updated {formatDate(result.updatedAt)}</span>
@@ -54,6 +55,20 @@ function OtherMatches({ matches }: { matches: SearchMatch[] }) {
           {FIELD_LABELS[m.field]} “<HighlightedText text={m.value} ranges={m.ranges} className="text-ink" />”
         </span>
       ))}
+    </p>
+  );
+}
+
+/** Words found only through the department's thesaurus, so the reader sees why this page came up. */
+function ThesaurusNote({ via }: { via: SearchVia[] }) {
+  return (
+    <p className="mt-1 text-xs text-muted" data-testid="search-via">
+      {via.map((v, i) => (
+        <span key={`${v.word}-${v.term}`}>
+          {i > 0 ? "; " : null}“{v.word}” found as <span className="text-ink">“{v.term}”</span>
+        </span>
+      ))}{" "}
+      <span>(thesaurus)</span>
     </p>
   );
 }

@@ -15,7 +15,7 @@ export function SearchBox({ state, userId }: { state: SearchState; userId: strin
     e.preventDefault();
     const query = q.trim();
     if (query) pushRecent(userId, query);
-    navigate(searchHref({ ...state, q: query, offset: 0 }));
+    navigate(searchHref({ ...state, q: query, exact: false, offset: 0 }));
   }
   return (
     <form role="search" onSubmit={submit} className="flex gap-2">

@@ -1,6 +1,10 @@
-import type { SearchState } from "@/lib/search-ui/params";
+import Link from "next/link";
+import { searchHref, type SearchState } from "@/lib/search-ui/params";
 
-/** The results heading, and what was actually searched when the engine corrected misspelt words. */
+/**
+ * The results heading, and what was actually searched when the engine corrected misspelt words,
+ * with a way to search for exactly what was typed (and back).
+ */
 export function SearchSummary({ state, total, corrected, tookMs }: { state: SearchState; total: number; corrected?: string; tookMs: number }) {
   const count = `${total} ${total === 1 ? "technique" : "techniques"}`;
   return (
@@ -10,7 +14,18 @@ export function SearchSummary({ state, total, corrected, tookMs }: { state: Sear
       </h2>
       {corrected ? (
         <p className="text-sm text-muted" data-testid="search-corrected">
-          Searched for <strong className="text-ink">{corrected}</strong> — some words looked misspelt.
+          Searched for <strong className="text-ink">{corrected}</strong> — some words looked misspelt.{" "}
+          <Link href={searchHref({ ...state, exact: true, offset: 0 })} className="text-accent underline" data-testid="search-exact">
+            Search for exactly what I typed
+          </Link>
+        </p>
+      ) : null}
+      {state.exact && state.q ? (
+        <p className="text-sm text-muted" data-testid="search-exact-note">
+          Searched for exactly what you typed.{" "}
+          <Link href={searchHref({ ...state, exact: false, offset: 0 })} className="text-accent underline">
+            Let search correct spelling
+          </Link>
         </p>
       ) : null}
       <p className="sr-only">Search took {Math.round(tookMs)} milliseconds.</p>

@@ -10,6 +10,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/search", label: "Search", permission: "technique:read" },
   { href: "/shows", label: "Shows", permission: "technique:read" },
   { href: "/review", label: "Review", permission: "technique:review", badge: "review" },
+  { href: "/thesaurus", label: "Thesaurus", permission: "thesaurus:manage" },
   { href: "/people", label: "People", permission: "people:manage" },
   { href: "/mail", label: "Mail", permission: "mail:read-outbox" },
   { href: "/audit", label: "Audit", permission: "audit:read" },

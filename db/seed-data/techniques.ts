@@ -1,4 +1,5 @@
 import type { BlockNode, TechniqueDocument } from "@/lib/techniques/document";
+import { LENS_AND_CAMERA_TECHNIQUES } from "@/db/seed-data/techniques-lens-camera";
 import { b, caution, codeBlock, doc, fails, h2, h3, i, link, ol, p, table, ul, works } from "@/db/seed-data/doc";
 
 /*
@@ -721,4 +722,5 @@ export const DEMO_TECHNIQUES: readonly DemoTechnique[] = [
   boomShadowLift,
   crewReflections,
   signAndLogoRemoval,
+  ...LENS_AND_CAMERA_TECHNIQUES,
 ];

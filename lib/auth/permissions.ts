@@ -14,6 +14,7 @@ export const PERMISSIONS = [
   "technique:retire",
   "technique:set-house-method",
   "tag:manage",
+  "thesaurus:manage",
   "show:manage",
   "use:log",
   "use:edit",
@@ -62,6 +63,7 @@ const LEAD: Permission[] = [
   "technique:retire",
   "technique:set-house-method",
   "tag:manage",
+  "thesaurus:manage",
   "show:manage",
 ];
 /** Admins run the installation (people, mail, audit) and otherwise read like artists (shared/PRODUCT.md, roles). */

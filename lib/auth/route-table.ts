@@ -119,6 +119,13 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { path: "/api/tags/[slug]/merge", method: "POST", access: LEAD },
   { path: "/api/tags/[slug]/house-method", method: "PUT", access: LEAD },
 
+  // The trade thesaurus search applies.
+  { path: "/api/thesaurus", method: "GET", access: "signed-in" },
+  { path: "/api/thesaurus", method: "POST", access: LEAD },
+  { path: "/api/thesaurus/[id]", method: "GET", access: "signed-in" },
+  { path: "/api/thesaurus/[id]", method: "PUT", access: LEAD },
+  { path: "/api/thesaurus/[id]", method: "DELETE", access: LEAD },
+
   // Shows, shots and use logs.
   { path: "/api/shows", method: "GET", access: "signed-in" },
   { path: "/api/shows", method: "POST", access: LEAD },

@@ -1,12 +1,13 @@
-import type { SearchMatch } from "@/lib/search/types";
+import { FILLER_WEIGHT, isStopWord, queryWordWeight, tokenize } from "@/lib/search/text";
+import type { SearchMatch, SearchVia } from "@/lib/search/types";
 
-// Short function words carry no problem description; a query is judged on its content words.
-const STOP = new Set(["a", "an", "and", "the", "of", "on", "in", "to", "for", "with", "from", "at", "by", "is", "it", "my", "how", "what", "why", "or", "no", "not", "off", "out", "up"]);
-
-/** The content words of a query, lowercased, in order, without repeats. */
+/**
+ * The content words of a query, lowercased, in order, without repeats: the search's own stop words
+ * and filler words ("how do i get rid of") left out, so a query is judged on what it describes.
+ */
 export function queryWords(query: string): string[] {
-  const words = query.toLowerCase().match(/[\p{L}\p{N}_]+/gu) ?? [];
-  return [...new Set(words.filter((w) => w.length > 1 && !STOP.has(w)))];
+  const words = tokenize(query).map((t) => t.word);
+  return [...new Set(words.filter((w) => !isStopWord(w) && queryWordWeight(w) > FILLER_WEIGHT))];
 }
 
 /** The highlighted pieces of text of a result's matches, lowercased. */
@@ -24,13 +25,15 @@ function sameWord(a: string, b: string): boolean {
 }
 
 /**
- * Which of the query's content words a result's highlighted text accounts for. Pass the corrected
- * query when the engine corrected one, so misspelt words count as found.
+ * Which of the query's content words a result's highlighted text accounts for, or its thesaurus
+ * matches ("tracker" answered by "marker"). Pass the corrected query when the engine corrected one,
+ * so misspelt words count as found.
  */
-export function coveredWords(query: string, matches: readonly SearchMatch[]): { words: string[]; covered: string[] } {
+export function coveredWords(query: string, matches: readonly SearchMatch[], via: readonly SearchVia[] = []): { words: string[]; covered: string[] } {
   const words = queryWords(query);
   const pieces = matchedPieces(matches).flatMap((p) => p.match(/[\p{L}\p{N}_]+/gu) ?? []);
-  return { words, covered: words.filter((w) => pieces.some((p) => sameWord(w, p))) };
+  const viaWords = via.flatMap((v) => tokenize(v.word).map((t) => t.word));
+  return { words, covered: words.filter((w) => viaWords.includes(w) || pieces.some((p) => sameWord(w, p))) };
 }
 
 /**
@@ -38,9 +41,9 @@ export function coveredWords(query: string, matches: readonly SearchMatch[]): { 
  * (e.g. only "flicker" of "zebra crossing flicker"): the page then offers a write-up request
  * as plainly as when nothing was found.
  */
-export function isWeakMatch(query: string, results: ReadonlyArray<{ matches: readonly SearchMatch[] }>): boolean {
+export function isWeakMatch(query: string, results: ReadonlyArray<{ matches: readonly SearchMatch[]; via?: readonly SearchVia[] }>): boolean {
   const total = queryWords(query).length;
   if (total < 2 || results.length === 0) return false;
-  const best = Math.max(...results.slice(0, 5).map((r) => coveredWords(query, r.matches).covered.length));
+  const best = Math.max(...results.slice(0, 5).map((r) => coveredWords(query, r.matches, r.via).covered.length));
   return best * 2 < total;
 }

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import type { SearchFacetTag, SearchMatch, SearchStatus, TitleSuggestion } from "@/lib/search/types";
+import type { SearchFacetTag, SearchMatch, SearchStatus, SearchVia, TitleSuggestion } from "@/lib/search/types";
 
 /**
  * The search query as it travels in URLs (`/search?q=…&tag=…&status=…&sort=…`) and to
@@ -32,6 +32,8 @@ export const searchQuerySchema = z.object({
   limit: single(z.coerce.number().int().min(1).max(100).default(PAGE_SIZE)),
   offset: single(z.coerce.number().int().min(0).max(10_000).default(0)),
   retired: single(flag.default(false)),
+  /** Search for exactly what was typed: no spelling corrections. */
+  exact: single(flag.default(false)),
 });
 export type SearchQuery = z.infer<typeof searchQuerySchema>;
 
@@ -55,6 +57,8 @@ export type SearchResultDto = {
   isHouseMethod: boolean;
   /** Problem tag slugs this technique is the department's approved method for. */
   houseMethodFor: string[];
+  /** Query words this result answers only through the thesaurus, and the term they matched. */
+  via: SearchVia[];
   updatedAt: string;
 };
 
@@ -71,9 +75,9 @@ export type SuggestItem = Pick<TitleSuggestion, "slug" | "title" | "status" | "r
 export type SuggestApiResponse = { items: SuggestItem[]; tookMs: number };
 
 /** The parts of a search that the page keeps in its address. */
-export type SearchState = { q: string; tag: string[]; status: SearchStatus[]; sort: SearchSort; retired: boolean; offset: number };
+export type SearchState = { q: string; tag: string[]; status: SearchStatus[]; sort: SearchSort; retired: boolean; exact: boolean; offset: number };
 
-export const EMPTY_SEARCH: SearchState = { q: "", tag: [], status: [], sort: "relevance", retired: false, offset: 0 };
+export const EMPTY_SEARCH: SearchState = { q: "", tag: [], status: [], sort: "relevance", retired: false, exact: false, offset: 0 };
 
 /** `/search?…` for a state; defaults are left out so shared links stay short. */
 export function searchHref(state: Partial<SearchState>): string {
@@ -84,6 +88,7 @@ export function searchHref(state: Partial<SearchState>): string {
   for (const st of s.status) p.append("status", st);
   if (s.sort !== "relevance") p.set("sort", s.sort);
   if (s.retired) p.set("retired", "1");
+  if (s.exact) p.set("exact", "1");
   if (s.offset > 0) p.set("offset", String(s.offset));
   const qs = p.toString();
   return qs ? `/search?${qs}` : "/search";
@@ -107,5 +112,5 @@ export function parseSearchState(raw: Record<string, string | string[] | undefin
 }
 
 function pick(d: SearchQuery): SearchState {
-  return { q: d.q, tag: d.tag, status: d.status, sort: d.sort, retired: d.retired, offset: d.offset };
+  return { q: d.q, tag: d.tag, status: d.status, sort: d.sort, retired: d.retired, exact: d.exact, offset: d.offset };
 }

@@ -26,6 +26,7 @@ function toDto(r: SearchResult): SearchResultDto {
     tags: r.tags.map(({ slug, name, kind }) => ({ slug, name, kind })),
     isHouseMethod: r.isHouseMethod,
     houseMethodFor: r.houseMethodFor,
+    via: r.via,
     updatedAt: r.updatedAt,
   };
 }
@@ -40,7 +41,7 @@ export function runSearch(user: SessionUser, query: Omit<SearchQuery, "limit"> &
   const t0 = performance.now();
   const index = getSearchIndex();
   const audience = searchAudienceFor(user);
-  const key = JSON.stringify([audience, query.q, query.tag, query.status, query.retired, query.sort, query.limit, query.offset]);
+  const key = JSON.stringify([audience, query.q, query.tag, query.status, query.retired, query.exact, query.sort, query.limit, query.offset]);
   const seen = rememberedSearches.get(key);
   if (seen && seen.index === index && seen.version === index.version()) {
     return { ...seen.response, tookMs: Math.round((performance.now() - t0) * 100) / 100 };
@@ -53,6 +54,7 @@ export function runSearch(user: SessionUser, query: Omit<SearchQuery, "limit"> &
     sort: query.sort,
     limit: query.limit,
     offset: query.offset,
+    exact: query.exact,
   });
   const response: SearchApiResponse = {
     results: res.results.map(toDto),

@@ -2,7 +2,8 @@ import "server-only";
 import { eq, gt, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { houseMethods, revisions, shots, tags, techniques, uses, type Revision, type Technique } from "@/db/schema";
-import { getSearchIndex, rebuildSearchIndex, type SearchDocument, type SearchIndexEntry, type SearchTag } from "@/lib/search";
+import { applySearchChange, rebuildSearchIndex, type SearchDocument, type SearchIndexEntry, type SearchTag } from "@/lib/search";
+import { loadThesaurusForSearch } from "@/lib/thesaurus/queries";
 import { RECIPE_PARAMETER_LABELS } from "@/lib/techniques/recipe-labels";
 
 type TagRow = { id: string; slug: string; name: string; kind: "problem" | "plate"; aliases: string[] };
@@ -86,14 +87,12 @@ export async function loadSearchEntries(ids?: string[]): Promise<SearchIndexEntr
 /** Called after every committed write that changes what search should return for a technique. */
 export async function reindexTechnique(techniqueId: string): Promise<void> {
   const [entry] = await loadSearchEntries([techniqueId]);
-  const index = getSearchIndex();
-  if (!entry) index.remove(techniqueId);
-  else index.upsert(techniqueId, { published: entry.published, working: entry.working });
+  await applySearchChange({ kind: "technique", techniqueId, views: entry ? { published: entry.published, working: entry.working } : null });
 }
 
-/** Rebuilds the whole index from the database (start-up, and after tag renames or merges). */
+/** Rebuilds the whole index and its thesaurus from the database (start-up, and after tag renames or merges). */
 export function rebuildSearchFromDb(): Promise<number> {
-  return rebuildSearchIndex(() => loadSearchEntries());
+  return rebuildSearchIndex(() => loadSearchEntries(), loadThesaurusForSearch);
 }
 
 /**

@@ -18,7 +18,12 @@ export default async function ProblemsPage() {
   ];
   return (
     <div className="space-y-6">
-      <h1 className="text-2xl font-semibold">Browse by problem</h1>
+      <div className="flex flex-wrap items-baseline gap-3">
+        <h1 className="text-2xl font-semibold">Browse by problem</h1>
+        <Link href="/thesaurus" className="text-sm text-accent underline">
+          Words search knows
+        </Link>
+      </div>
       {groups.map((g) => {
         const list = tags.filter((t) => t.kind === g.kind);
         return (

@@ -21,6 +21,7 @@ import { createRequest } from "@/lib/requests";
 import { logUse } from "@/lib/shots/mutations";
 import { createPair } from "@/lib/stills/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
+import { createThesaurusEntry } from "@/lib/thesaurus/mutations";
 import { createPerson, params, sessionCookie, simpleDoc, type TestPerson } from "@/tests/factories";
 import {
   approvedTechnique,
@@ -253,6 +254,30 @@ function cases(): Record<string, Case> {
     "PUT /api/tags/[slug]/house-method": {
       ok: 200,
       prep: async () => ({ url: `/api/tags/${w.tag.slug}/house-method`, params: { slug: w.tag.slug }, body: { technique: null } }),
+    },
+
+    "GET /api/thesaurus": { ok: 200, prep: async () => ({ url: "/api/thesaurus" }) },
+    "POST /api/thesaurus": { ok: 201, prep: async () => ({ url: "/api/thesaurus", body: { kind: "synonyms", terms: [`grit ${uniq()}`, "grain"] } }) },
+    "GET /api/thesaurus/[id]": {
+      ok: 200,
+      prep: async () => {
+        const { id } = await createThesaurusEntry(p.lead, { kind: "synonyms", terms: [`smudge ${uniq()}`, "dirt"], note: "" });
+        return { url: `/api/thesaurus/${id}`, params: { id } };
+      },
+    },
+    "PUT /api/thesaurus/[id]": {
+      ok: 200,
+      prep: async () => {
+        const { id } = await createThesaurusEntry(p.lead, { kind: "synonyms", terms: [`smear ${uniq()}`, "streak"], note: "" });
+        return { url: `/api/thesaurus/${id}`, params: { id }, body: { kind: "narrower", broader: "motion blur", terms: ["smear"] } };
+      },
+    },
+    "DELETE /api/thesaurus/[id]": {
+      ok: 204,
+      prep: async () => {
+        const { id } = await createThesaurusEntry(p.lead, { kind: "synonyms", terms: [`blob ${uniq()}`, "spot"], note: "" });
+        return { url: `/api/thesaurus/${id}`, params: { id } };
+      },
     },
 
     "GET /api/shows": { ok: 200, prep: async () => ({ url: "/api/shows" }) },

@@ -16,7 +16,7 @@ const EXPECTED: Record<Role, Permission[]> = {
   admin: [],
 };
 EXPECTED.senior = [...EXPECTED.artist, "technique:read-working", "technique:write", "technique:submit", "request:claim", "still:upload"];
-EXPECTED.lead = [...EXPECTED.senior, "technique:review", "technique:retire", "technique:set-house-method", "tag:manage", "show:manage"];
+EXPECTED.lead = [...EXPECTED.senior, "technique:review", "technique:retire", "technique:set-house-method", "tag:manage", "thesaurus:manage", "show:manage"];
 EXPECTED.admin = [...EXPECTED.artist, "people:manage", "mail:read-outbox", "audit:read"];
 
 const OWNERSHIP: Permission[] = ["use:edit", "question:answer", "question:resolve", "still:read"];

@@ -70,10 +70,11 @@ describe("people", () => {
 });
 
 describe("tags", () => {
-  it("covers the problem and plate tags PRODUCT.md lists", () => {
+  it("covers the problem and plate tags PRODUCT.md lists, and issue 16's lens and camera problems", () => {
     const expected = [
       "tracking-markers", "wire-or-rig", "dust-and-scratches", "dead-or-stuck-pixels", "boom-or-shadow",
       "reflections", "crew-in-shot", "uneven-screen", "grain-and-noise", "logos-and-signage",
+      "lens-distortion", "vignetting", "rolling-shutter", "flicker", "chromatic-aberration", "moire", "sensor-dust",
       "green-screen", "blue-screen", "sky", "skin", "water", "night-exterior",
     ];
     expect([...tagSlugs].sort()).toEqual([...expected].sort());

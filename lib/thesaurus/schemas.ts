@@ -1,0 +1,51 @@
+import { z } from "zod";
+
+/**
+ * The trade thesaurus as the API and the thesaurus page see it. Client-safe. Terms are lower-case
+ * words or short phrases; a synonym group needs two or more, a narrower entry names its broader term.
+ */
+const term = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .min(2, "A term has at least two characters.")
+  .max(60, "Keep a term under 60 characters.")
+  .regex(/[a-z0-9]/, "A term needs a letter or a digit.")
+  .transform((t) => t.replace(/\s+/g, " "));
+
+const note = z.string().trim().max(300, "Keep the note under 300 characters.").default("");
+const terms = z.array(term).max(30, "At most 30 terms in one entry.");
+
+function noRepeats(values: readonly string[], ctx: z.RefinementCtx): void {
+  const seen = new Set<string>();
+  for (const v of values) {
+    if (seen.has(v)) ctx.addIssue({ code: "custom", path: ["terms"], message: `“${v}” is listed twice.` });
+    seen.add(v);
+  }
+}
+
+export const thesaurusEntryInputSchema = z
+  .discriminatedUnion("kind", [
+    z.object({ kind: z.literal("synonyms"), terms: terms.min(2, "A synonym group needs at least two terms."), note }),
+    z.object({ kind: z.literal("narrower"), broader: term, terms: terms.min(1, "Name at least one narrower term."), note }),
+  ])
+  .superRefine((entry, ctx) => {
+    noRepeats(entry.terms, ctx);
+    if (entry.kind === "narrower" && entry.terms.includes(entry.broader)) {
+      ctx.addIssue({ code: "custom", path: ["broader"], message: "The broader term cannot also be one of its narrower terms." });
+    }
+  });
+export type ThesaurusEntryInput = z.infer<typeof thesaurusEntryInputSchema>;
+
+export type ThesaurusEntryDto = {
+  id: string;
+  kind: "synonyms" | "narrower";
+  /** Narrower entries only. */
+  broader: string | null;
+  terms: string[];
+  note: string;
+  updatedAt: string;
+  updatedBy: string | null;
+};
+
+export type ThesaurusListResponse = { items: ThesaurusEntryDto[] };
