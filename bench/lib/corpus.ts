@@ -6,7 +6,7 @@
  * posting lists have realistic lengths and the vocabulary grows with the corpus.
  */
 import type { SearchDocument, SearchStatus, SearchTag } from "@/lib/search/types";
-import { TAGS } from "@/tests/unit/search/fixtures";
+import { TAGS } from "@/tests/unit/search/quality/pages";
 import { mulberry32 } from "@/lib/random";
 
 export const rng = mulberry32;

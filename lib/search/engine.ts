@@ -20,7 +20,7 @@
 import type { Language } from "./language";
 import { DocumentAnalyser, FIELD_COUNT, fieldTexts, F_ALIASES, F_TAGS, F_TITLE, PostingStore, type AnalysedDocument } from "./postings";
 import { parseQuery, type ParseOptions, type QueryPlan } from "./query";
-import { bestScore, gradedScore, problemTagsHit, promoteHouseMethods, RANKING, rankKey, type RankItem } from "./ranking";
+import { aboveFloor, bestScore, gradedScore, problemTagsHit, promoteHouseMethods, rankKey, type RankItem } from "./ranking";
 import { Scorer } from "./scoring";
 import { documentStems, excerpt, matchesFor, SNIPPET_CHARS, thesaurusMatches } from "./snippets";
 import { compileThesaurus, EMPTY_THESAURUS, phraseStems, type CompiledThesaurus, type ThesaurusEntry } from "./thesaurus";
@@ -255,14 +255,13 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
         id,
         score: gradedScore(scored.scores[i] as number, scored.coverage[i] as number),
         naming: scored.naming[i] as number,
+        coverage: scored.coverage[i] as number,
         isApproved,
         isRetired: (fl & FL_RETIRED) !== 0,
         isHouseHit: isApproved && entry.houseFor.some((slug) => houseHits.has(slug)),
       });
     });
-    // Pages far below the best leave the list (ranking.ts, rule 2).
-    const floor = bestScore(items) * RANKING.floor;
-    return items.filter((it) => it.score >= floor);
+    return aboveFloor(items);
   }
 
   function order(items: RankItem[], k: number): RankItem[] {
@@ -338,7 +337,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
         for (let id = 0; id < nextId; id++) {
           if (!entries[id] || !visible(id, filters, wanted)) continue;
           const fl = flags[id] as number;
-          items.push({ id, score: 0, naming: 0, isApproved: (fl & FL_APPROVED) !== 0, isRetired: (fl & FL_RETIRED) !== 0, isHouseHit: false });
+          items.push({ id, score: 0, naming: 0, coverage: 1, isApproved: (fl & FL_APPROVED) !== 0, isRetired: (fl & FL_RETIRED) !== 0, isHouseHit: false });
         }
       }
     } else {

@@ -103,7 +103,9 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   }
   // Spelling: a word the pages or the thesaurus use, or any English word, is never changed.
   let correction: string | undefined;
-  if (!exact && !isKnown && !vocab.isEnglishWord(word)) {
+  // A run-together word whose halves are words ("infront", "deadpixel") is read as those words first.
+  const isSplit = !hasExact && !isKnown && word.length >= 5 && !vocab.isEnglishWord(word) && splitCompound(word, ctx, out);
+  if (!exact && !isKnown && !isSplit && !vocab.isEnglishWord(word)) {
     const maxDistance = word.length <= 3 ? 0 : word.length <= 5 ? 1 : 2;
     const found = vocab.corrections(word, maxDistance);
     // Prefer the correction with the most pages (the word the person most likely meant).
@@ -115,8 +117,7 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
       correction ??= w;
       if (live(sid)) out.push({ stems: [sid], weight: c.distance === 1 ? ALTERNATIVE_WEIGHTS.typo : ALTERNATIVE_WEIGHTS.typo2, kind: "typo", surface: w });
     }
-    if (!hasExact && found.length === 0 && word.length >= 5) splitCompound(word, ctx, out);
-  } else if (!exact && !isKnown && !hasExact && word.length >= 4) {
+  } else if (!exact && !isKnown && !hasExact && !isSplit && word.length >= 4) {
     // A real word that no page uses ("flor", "lite"): it stays as typed — no banner claims otherwise —
     // but page words one edit away count a little, since it is often a slip for one of them.
     for (const c of vocab.corrections(word, 1)) {
@@ -128,7 +129,7 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
 }
 
 /** A run-together word that is not itself a word ("infront", "deadpixel"): split where both halves are. */
-function splitCompound(word: string, ctx: QueryContext, out: Alternative[]): void {
+function splitCompound(word: string, ctx: QueryContext, out: Alternative[]): boolean {
   const { vocab } = ctx;
   const known = (w: string): boolean => w.length >= 2 && (vocab.isKnownWord(w) || vocab.isEnglishWord(w));
   for (let k = 2; k <= word.length - 2; k++) {
@@ -141,8 +142,9 @@ function splitCompound(word: string, ctx: QueryContext, out: Alternative[]): voi
       .filter((s): s is number => s !== undefined && ctx.docFreq(s) > 0);
     if (stems.length === 0) continue;
     out.push({ stems, weight: ALTERNATIVE_WEIGHTS.split, kind: "split", surface: `${a} ${b}` });
-    return;
+    return true;
   }
+  return false;
 }
 
 function unit(tok: Token, alternatives: Alternative[], correction?: string): QueryUnit {

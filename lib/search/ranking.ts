@@ -1,7 +1,8 @@
 /**
  * Ranking rules: from scores to the order people see.
  * 1. A page's score is scaled by how much of the query it covers (a soft grade, not a gate).
- * 2. Pages far below the best (under FLOOR of it) are left out, so the list stays short.
+ * 2. Pages that answer only part of the query and score far below the best (under FLOOR of it)
+ *    are left out, so the list stays short; a page that answers every word always stays.
  * 3. Among good matches (at least GOOD_MATCH of the best) approved techniques come before drafts
  *    and reviews; weaker unapproved ones count half; retired ones come last.
  * 4. The department's method for a problem the query is about moves up when its score is close to
@@ -16,7 +17,13 @@ export const RANKING = {
   houseClose: 0.8,
 } as const;
 
-export type RankItem = { id: number; score: number; naming: number; isApproved: boolean; isRetired: boolean; isHouseHit: boolean };
+export type RankItem = { id: number; score: number; naming: number; coverage: number; isApproved: boolean; isRetired: boolean; isHouseHit: boolean };
+
+/** Rule 2: which candidates stay in the list. */
+export function aboveFloor(items: readonly RankItem[]): RankItem[] {
+  const floor = bestScore(items) * RANKING.floor;
+  return items.filter((it) => it.coverage >= 1 || it.score >= floor);
+}
 
 /** Score after the coverage grade. */
 export function gradedScore(score: number, coverage: number): number {

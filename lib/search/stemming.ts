@@ -52,14 +52,18 @@ export function familyCandidates(stem: string): string[] {
   out.add(undouble(stem));
   if (!/[aeiou]$/.test(stem)) out.add(stem + stem.slice(-1));
   for (const pre of FAMILY_PREFIXES) {
-    // Porter2 takes "-er" off the longer word only ("deflickering" → "deflick", "flicker" → "flicker").
+    // Porter2 takes "-er" and a final "l" of "ll" off the longer word only ("deflickering" →
+    // "deflick" while "flicker" stays; "despill" → "despil" while "spill" stays).
     if (stem.startsWith(pre) && stem.length - pre.length >= 4) {
-      out.add(stem.slice(pre.length));
-      out.add(`${stem.slice(pre.length)}er`);
+      const rest = stem.slice(pre.length);
+      out.add(rest);
+      out.add(`${rest}er`);
+      if (rest.endsWith("l")) out.add(`${rest}l`);
     }
     if (stem.length >= 4) {
       out.add(pre + stem);
       if (stem.endsWith("er")) out.add(pre + stem.slice(0, -2));
+      if (stem.endsWith("ll")) out.add(pre + stem.slice(0, -1));
     }
   }
   out.delete(stem);

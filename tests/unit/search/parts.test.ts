@@ -1,0 +1,251 @@
+import { describe, expect, it } from "vitest";
+
+import { createLanguage } from "@/lib/search/language";
+import { DocumentAnalyser, FIELD_COUNT, PostingStore, Postings } from "@/lib/search/postings";
+import { parseQuery, type QueryContext } from "@/lib/search/query";
+import { aboveFloor, bestScore, gradedScore, problemTagsHit, promoteHouseMethods, RANKING, rankKey, type RankItem } from "@/lib/search/ranking";
+import { ALTERNATIVE_WEIGHTS, bm25Idf, Scorer } from "@/lib/search/scoring";
+import { matchesFor, thesaurusMatches } from "@/lib/search/snippets";
+import { compileThesaurus, findPhrases, type ThesaurusEntry } from "@/lib/search/thesaurus";
+import type { SearchDocument } from "@/lib/search/types";
+import { Vocabulary } from "@/lib/search/vocabulary";
+
+// Each part of the engine on its own, with a tiny word list. Behaviour is Plateroom's own (issue 16)
+// unless a source is named.
+const language = createLanguage(["flor", "seems", "sideways", "side", "ways", "in", "front", "someone"], [["colour", "color"]]);
+
+const doc = (p: Partial<SearchDocument> & { title: string }): SearchDocument => ({
+  techniqueId: p.title,
+  slug: p.title.toLowerCase().replace(/\W+/g, "-"),
+  summary: "",
+  aliases: [],
+  tags: [],
+  parameterNames: [],
+  shotCodes: [],
+  bodyText: "",
+  status: "approved",
+  houseMethodFor: [],
+  updatedAt: "2026-01-01T00:00:00.000Z",
+  ...p,
+});
+
+/** A small index built from the parts, as engine.ts does. */
+function build(docs: SearchDocument[], thesaurus: ThesaurusEntry[] = []) {
+  const vocab = new Vocabulary(language);
+  const store = new PostingStore();
+  vocab.onNewStem = () => store.addStem();
+  const analyser = new DocumentAnalyser(vocab);
+  docs.forEach((d, id) => {
+    const a = analyser.analyse(d);
+    store.add(id, a);
+    for (const s of a.surfaces) vocab.addRef(s, 1);
+  });
+  const compiled = compileThesaurus(thesaurus, (w) => vocab.stemOf(w));
+  for (const w of compiled.words) vocab.addRef(vocab.internSurface(w), 1);
+  const ctx: QueryContext = { vocab, thesaurus: compiled, docFreq: (s) => store.docFreq(s) };
+  return { vocab, store, ctx, scorer: new Scorer(store) };
+}
+
+describe("vocabulary", () => {
+  const { vocab } = build([doc({ title: "Flattening the colour of a green screen", bodyText: "face tracking dots" })]);
+
+  it("corrects against page words, comparing stems too (flaten → flattening)", () => {
+    const words = (w: string, d: number) => vocab.corrections(w, d).map((c) => vocab.surfaceWords[c.surfaceId]);
+    expect(words("flaten", 2)).toContain("flattening");
+    expect(words("screan", 1)).toEqual(["screen"]);
+  });
+
+  it("finds a transposition in a short word that shares no trigram (fcae → face)", () => {
+    expect(vocab.corrections("fcae", 1).map((c) => vocab.surfaceWords[c.surfaceId])).toEqual(["face"]);
+  });
+
+  it("completes partial words and relates word families", () => {
+    expect(vocab.completions("flat").map((id) => vocab.surfaceWords[id])).toEqual(["flattening"]);
+    expect(vocab.stemOf("color")).toBe(vocab.stemOf("colour"));
+  });
+});
+
+describe("postings", () => {
+  it("packs per-field counts and removes by id", () => {
+    const p = new Postings();
+    p.push(1, 0x11);
+    p.push(4, 0x2);
+    p.push(9, 0x100);
+    p.remove(4);
+    expect(Array.from(p.data.slice(0, p.n * 2))).toEqual([1, 0x11, 9, 0x100]);
+  });
+
+  it("indexes compounds whole and in parts, and run-together pairs in titles only", () => {
+    const { vocab, store } = build([doc({ title: "Blue screen c-stand", bodyText: "blue screen" })]);
+    const df = (w: string) => store.docFreq(vocab.stemIdOf(vocab.stemOf(w)) ?? -1);
+    expect(df("cstand")).toBe(1);
+    expect(df("stand")).toBe(1);
+    expect(df("bluescreen")).toBe(1);
+    // The title and the body count separately: "blue" is in field 0 (title) and field 6 (body).
+    const list = store.lists[vocab.stemIdOf(vocab.stemOf("blue")) as number] as Postings;
+    expect(list.data[1]).toBe(1 | (1 << (6 * 4)));
+    expect(store.lengths.length).toBeGreaterThanOrEqual(FIELD_COUNT);
+  });
+});
+
+describe("thesaurus", () => {
+  const stemOf = (w: string) => w.replace(/s$/, "");
+  const t = compileThesaurus(
+    [
+      { kind: "synonyms", terms: ["regrain", "grain restore", "put grain back"] },
+      { kind: "narrower", broader: "marker", terms: ["tracker", "tape cross"] },
+    ],
+    stemOf,
+  );
+
+  it("makes synonyms mean each other and narrower terms reach their broader one only", () => {
+    expect(t.rulesByFirstStem.get("regrain")?.[0]?.targets.map((x) => x.text)).toEqual(["grain restore", "put grain back"]);
+    expect(t.rulesByFirstStem.get("tracker")?.[0]?.targets).toEqual([{ stems: ["marker"], text: "marker", kind: "broader" }]);
+    expect(t.rulesByFirstStem.get("marker")).toBeUndefined();
+  });
+
+  it("finds the longest phrase a query spells, left to right without overlap", () => {
+    const q = ["put", "grain", "back", "tape", "cros"];
+    const found = findPhrases(q.length, (i) => [q[i] as string], t);
+    expect(found.map((f) => [f.first, f.count, f.rule.text])).toEqual([
+      [0, 3, "put grain back"],
+      [3, 2, "tape cross"],
+    ]);
+  });
+});
+
+describe("query parsing", () => {
+  const { ctx } = build(
+    [doc({ title: "Floor markers", bodyText: "Remove the marker from the floor; sideways light; front of lens; c-stand" })],
+    [{ kind: "narrower", broader: "marker", terms: ["tracker"] }],
+  );
+  const parse = (q: string, exact = false) => parseQuery(q, ctx, { prefix: "none", exact });
+
+  it("never corrects a word of the English word list, and corrects other misspellings", () => {
+    expect(parse("flor markers").units[0]?.correction).toBeUndefined();
+    expect(parse("floar markers").units[0]?.correction).toBe("floor");
+    expect(parse("floar markers", true).units[0]?.correction).toBeUndefined();
+  });
+
+  it("gives a real word that no page uses a weak look at page words one edit away, without a correction", () => {
+    const u = parse("flor").units[0];
+    expect(u?.alternatives.map((a) => [a.surface, a.weight])).toEqual([["floor", ALTERNATIVE_WEIGHTS.nearWord]]);
+  });
+
+  it("splits a run-together word only when the whole is not a word", () => {
+    expect(parse("infront").units[0]?.alternatives.some((a) => a.kind === "split")).toBe(true);
+    expect(parse("sideways").units[0]?.alternatives.some((a) => a.kind === "split")).toBe(false);
+  });
+
+  it("keeps c-stand whole and adds its head word as a weaker alternative", () => {
+    const alts = parse("c-stand").units[0]?.alternatives ?? [];
+    expect(alts.map((a) => a.kind)).toEqual(["exact", "parts"]);
+    expect(alts[1]?.weight).toBeLessThan(alts[0]?.weight as number);
+  });
+
+  it("adds thesaurus terms with less weight than the word typed", () => {
+    const alts = parse("tracker").units[0]?.alternatives ?? [];
+    expect(alts.map((a) => [a.kind, a.surface])).toContainEqual(["broader", "marker"]);
+    expect(ALTERNATIVE_WEIGHTS.broader).toBeLessThan(ALTERNATIVE_WEIGHTS.exact);
+    expect(ALTERNATIVE_WEIGHTS.synonym).toBeLessThan(ALTERNATIVE_WEIGHTS.exact);
+  });
+
+  it("weighs filler words little", () => {
+    const p = parse("how do i get rid of floor markers");
+    expect(p.units.map((u) => [u.text, u.weight])).toEqual([
+      ["get", 0.15],
+      ["rid", 0.15],
+      ["floor", 1],
+      ["markers", 1],
+    ]);
+  });
+});
+
+describe("scoring", () => {
+  it("follows the non-negative BM25 IDF, log(1 + (N − n + 0.5) / (n + 0.5))", () => {
+    // Formula from Lucene's BM25Similarity documentation; ln(1 + 9.5 / 1.5) = ln(7.3333…) = 1.99243 (from memory).
+    expect(bm25Idf(10, 1)).toBeCloseTo(1.99243, 4);
+    expect(bm25Idf(1000, 5)).toBeGreaterThan(bm25Idf(1000, 500));
+  });
+
+  it("keeps every page that matches any word (no coverage gate), a rare title word above common body words", () => {
+    const docs = [
+      doc({ title: "Window reflections", bodyText: "glass" }),
+      doc({ title: "Car bodywork", bodyText: "shiny guy shiny guy in the paint" }),
+      ...Array.from({ length: 8 }, (_, i) => doc({ title: `Other ${i}`, bodyText: "guy in shot" })),
+    ];
+    const { ctx, scorer } = build(docs);
+    const plan = parseQuery("shiny guy window", ctx, { prefix: "none", exact: false });
+    const s = scorer.score(plan, 0b1111111, docs.length);
+    expect(s.ids.length).toBe(10);
+    const at = (id: number) => s.scores[s.ids.indexOf(id)] as number;
+    expect(at(0)).toBeGreaterThan(at(2));
+    expect(s.coverage[s.ids.indexOf(1)]).toBeCloseTo(2 / 3, 5);
+  });
+});
+
+describe("ranking rules", () => {
+  const item = (id: number, score: number, naming: number, extra: Partial<RankItem> = {}): RankItem => ({ id, score, naming, coverage: 1, isApproved: true, isRetired: false, isHouseHit: false, ...extra });
+
+  it("grades by coverage without cutting", () => {
+    expect(gradedScore(10, 1)).toBe(10);
+    expect(gradedScore(10, 0.25)).toBeCloseTo(10 * Math.pow(0.25, RANKING.coveragePower), 9);
+    expect(gradedScore(10, 0.25)).toBeGreaterThan(0);
+  });
+
+  it("leaves out weak partial matches but keeps every page that answers all the words", () => {
+    const kept = aboveFloor([item(1, 100, 0), item(2, 5, 0, { coverage: 0.5 }), item(3, 5, 0, { coverage: 1 }), item(4, 20, 0, { coverage: 0.5 })]);
+    expect(kept.map((x) => x.id)).toEqual([1, 3, 4]);
+  });
+
+  it("puts approved before drafts among good matches, and retired last", () => {
+    const top = 10;
+    const draft = item(1, 10, 0, { isApproved: false });
+    const approved = item(2, 7, 0);
+    const retired = item(3, 12, 0, { isRetired: true });
+    expect(bestScore([draft, approved, retired])).toBe(10);
+    const sorted = [draft, approved, retired].sort((a, b) => rankKey(b, top) - rankKey(a, top));
+    expect(sorted.map((x) => x.id)).toEqual([2, 1, 3]);
+  });
+
+  it("promotes a close department method, but never past a page that names the query better", () => {
+    const better = item(1, 10, 8);
+    const weaker = item(2, 9.5, 2);
+    const house = item(3, 9, 4, { isHouseHit: true });
+    expect(promoteHouseMethods([better, weaker, house], 10).map((x) => x.id)).toEqual([1, 3, 2]);
+    const far = item(4, 5, 9, { isHouseHit: true });
+    expect(promoteHouseMethods([better, weaker, far], 10).map((x) => x.id)).toEqual([1, 2, 4]);
+  });
+
+  it("says which problem tags a query is about, including a tag filter", () => {
+    const phrases = new Map([
+      ["dust-and-scratches", [["dust", "scratch"], ["dust"], ["scratch"]]],
+      ["sensor-dust", [["sensor", "dust"]]],
+    ]);
+    expect([...problemTagsHit(phrases, new Set(["sensor", "dust"]), [])].sort()).toEqual(["dust-and-scratches", "sensor-dust"]);
+    expect([...problemTagsHit(phrases, new Set(["dust"]), [])]).toEqual(["dust-and-scratches"]);
+    expect([...problemTagsHit(phrases, new Set(), ["sensor-dust"])]).toEqual(["sensor-dust"]);
+  });
+});
+
+describe("snippets", () => {
+  const { ctx, vocab } = build([doc({ title: "Marker removal", bodyText: "Sample the markers. ".repeat(20) })], [{ kind: "narrower", broader: "marker", terms: ["tracker"] }]);
+  const d = doc({ title: "Marker removal", summary: "On blue", bodyText: "Start here. ".repeat(20) + "Sample the markers and the screen." });
+
+  it("highlights exactly the matched words and cuts the body around them", () => {
+    const { matches, snippet } = matchesFor(d, new Set(["marker"]), (w) => vocab.stemOf(w));
+    const title = matches.find((m) => m.field === "title");
+    expect(title?.ranges.map(([s, e]) => title.value.slice(s, e))).toEqual(["Marker"]);
+    const body = matches.find((m) => m.field === "body");
+    expect(body?.ranges.map(([s, e]) => body.value.slice(s, e))).toEqual(["markers"]);
+    expect(snippet.startsWith("…")).toBe(true);
+  });
+
+  it("says which query word matched only through the thesaurus", () => {
+    const plan = parseQuery("tracker removal", ctx, { prefix: "none", exact: false });
+    const markerStem = vocab.stemIdOf(vocab.stemOf("marker"));
+    const removalStem = vocab.stemIdOf(vocab.stemOf("removal"));
+    const via = thesaurusMatches(plan, (sid) => sid === markerStem || sid === removalStem, "tracker removal");
+    expect(via).toEqual([{ word: "tracker", term: "marker", kind: "broader" }]);
+  });
+});
