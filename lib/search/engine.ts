@@ -18,11 +18,11 @@
  * lists per stem; typos are corrected against the vocabulary (small, so well under a millisecond).
  */
 import type { Language } from "./language";
-import { DocumentAnalyser, FIELD_COUNT, fieldTexts, F_ALIASES, F_TAGS, F_TITLE, PostingStore, type AnalysedDocument } from "./postings";
+import { DocumentAnalyser, FIELD_COUNT, F_ALIASES, F_TAGS, F_TITLE, PostingStore, type AnalysedDocument } from "./postings";
 import { parseQuery, type ParseOptions, type QueryPlan } from "./query";
-import { aboveFloor, bestScore, gradedScore, problemTagsHit, promoteHouseMethods, rankKey, type RankItem } from "./ranking";
+import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
 import { Scorer } from "./scoring";
-import { documentStems, excerpt, matchesFor, SNIPPET_CHARS, thesaurusMatches } from "./snippets";
+import { excerpt, matchesFor, SNIPPET_CHARS, thesaurusMatches, type MatchedWords } from "./snippets";
 import { compileThesaurus, EMPTY_THESAURUS, phraseStems, type CompiledThesaurus, type ThesaurusEntry } from "./thesaurus";
 import type {
   SearchAudience,
@@ -45,6 +45,8 @@ const FL_PUBLISHED = 1;
 const FL_WORKING = 2;
 const FL_RETIRED = 4;
 const FL_APPROVED = 8;
+/** Department's method for some problem tag. */
+const FL_HOUSE = 16;
 const STATUS_ORDER: readonly SearchStatus[] = ["approved", "in_review", "draft", "retired"];
 const DEFAULT_LIMIT = 20;
 const MAX_LIMIT = 200;
@@ -93,6 +95,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
   const entries: (Entry | undefined)[] = [];
   let flags = new Uint8Array(1024);
   let updatedAt = new Float64Array(1024);
+  let statusOf = new Uint8Array(1024);
   let nextId = 0;
   const techniques = new Map<string, Technique>();
   /** Newest definition of each tag, and the stem phrases that make a query "about" a problem tag. */
@@ -138,14 +141,18 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       const u = new Float64Array(updatedAt.length * 2);
       u.set(updatedAt);
       updatedAt = u;
+      const st = new Uint8Array(statusOf.length * 2);
+      st.set(statusOf);
+      statusOf = st;
     }
     const stored: SearchDocument = { ...doc, tags: internTags(doc.tags) };
     const analysed = analyser.analyse(stored);
     store.add(id, analysed);
     for (const s of analysed.surfaces) vocab.addRef(s, 1);
     const parsed = Date.parse(doc.updatedAt);
-    flags[id] = mask | (doc.status === "retired" ? FL_RETIRED : 0) | (isRankApproved ? FL_APPROVED : 0);
+    flags[id] = mask | (doc.status === "retired" ? FL_RETIRED : 0) | (isRankApproved ? FL_APPROVED : 0) | (doc.houseMethodFor.length > 0 ? FL_HOUSE : 0);
     updatedAt[id] = Number.isNaN(parsed) ? 0 : parsed;
+    statusOf[id] = STATUS_ORDER.indexOf(doc.status);
     const tagIds = Int32Array.from(stored.tags, (t) => {
       let ti = tagIndex.get(t.slug);
       if (ti === undefined) {
@@ -232,6 +239,20 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     return wanted.every((t) => own.includes(t));
   }
 
+  function matchedWords(p: QueryPlan): MatchedWords {
+    const ids = new Set<number>();
+    for (const u of p.units) for (const a of u.alternatives) for (const s of a.stems) ids.add(s);
+    for (const sp of p.spans) for (const a of sp.alternatives) for (const s of a.stems) ids.add(s);
+    const words = new Set<string>();
+    let hasPairs = false;
+    for (const id of ids) {
+      const surfaces = vocab.surfacesOf(id);
+      if (surfaces.length === 0) hasPairs = true;
+      for (const w of surfaces) words.add(w);
+    }
+    return { stems: new Set([...ids].map((id) => vocab.stemWords[id] as string)), words, hasPairs, stemOf };
+  }
+
   function matchedStems(p: QueryPlan): Set<string> {
     const stems = new Set<string>();
     for (const u of p.units) for (const a of u.alternatives) for (const s of a.stems) stems.add(vocab.stemWords[s] as string);
@@ -239,47 +260,91 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     return stems;
   }
 
-  /** Candidates in final order (visible ones above the floor), plus what facets need. */
-  function rank(p: QueryPlan, fieldMask: number, f: Filters): RankItem[] {
+  /**
+   * Visible candidates above the floor (ranking.ts, rule 2), as parallel arrays: a common word can
+   * match most of 10,000 pages, so no object is made per candidate until the page of results.
+   */
+  type Candidates = { ids: number[]; score: Float64Array; naming: Float64Array; coverage: Float64Array; house: Uint8Array };
+  const NO_CANDIDATES: Candidates = { ids: [], score: new Float64Array(0), naming: new Float64Array(0), coverage: new Float64Array(0), house: new Uint8Array(0) };
+
+  function rank(p: QueryPlan, fieldMask: number, f: Filters): Candidates {
     const wanted = f.tags.map((slug) => tagIndex.get(slug) ?? -1);
-    if (wanted.includes(-1)) return [];
+    if (wanted.includes(-1)) return NO_CANDIDATES;
     const scored = scorer.score(p, fieldMask, nextId);
     const houseHits = problemTagsHit(problemPhrases, matchedStems(p), f.tags.filter((t) => problemPhrases.has(t)));
-    const items: RankItem[] = [];
-    scored.ids.forEach((id, i) => {
-      if (!visible(id, f, wanted)) return;
+    const n = scored.ids.length;
+    const graded = new Float64Array(n);
+    const keep = new Uint8Array(n);
+    let top = 0;
+    let topAny = 0;
+    for (let i = 0; i < n; i++) {
+      const id = scored.ids[i] as number;
+      if (!visible(id, f, wanted)) continue;
+      keep[i] = 1;
+      const g = gradedScore(scored.scores[i] as number, scored.coverage[i] as number);
+      graded[i] = g;
+      if (g > topAny) topAny = g;
+      if (g > top && ((flags[id] as number) & FL_RETIRED) === 0) top = g;
+    }
+    const best = top > 0 ? top : topAny;
+    const out: Candidates = { ids: [], score: new Float64Array(n), naming: new Float64Array(n), coverage: new Float64Array(n), house: new Uint8Array(n) };
+    let k = 0;
+    for (let i = 0; i < n; i++) {
+      const cov = scored.coverage[i] as number;
+      if (!keep[i] || !staysInList(graded[i] as number, cov, best)) continue;
+      const id = scored.ids[i] as number;
+      out.ids.push(id);
+      out.score[k] = graded[i] as number;
+      out.naming[k] = scored.naming[i] as number;
+      out.coverage[k] = cov;
       const fl = flags[id] as number;
-      const isApproved = (fl & FL_APPROVED) !== 0;
-      const entry = entries[id] as Entry;
-      items.push({
-        id,
-        score: gradedScore(scored.scores[i] as number, scored.coverage[i] as number),
-        naming: scored.naming[i] as number,
-        coverage: scored.coverage[i] as number,
-        isApproved,
-        isRetired: (fl & FL_RETIRED) !== 0,
-        isHouseHit: isApproved && entry.houseFor.some((slug) => houseHits.has(slug)),
-      });
-    });
-    return aboveFloor(items);
+      out.house[k] = (fl & FL_APPROVED) !== 0 && (fl & FL_HOUSE) !== 0 && (entries[id] as Entry).houseFor.some((slug) => houseHits.has(slug)) ? 1 : 0;
+      k++;
+    }
+    return out;
   }
 
-  function order(items: RankItem[], k: number): RankItem[] {
-    const top = bestScore(items);
-    const keyed = items.map((it) => ({ it, key: rankKey(it, top) }));
-    const byKey = (a: { it: RankItem; key: number }, b: { it: RankItem; key: number }): number => b.key - a.key || a.it.id - b.it.id;
-    const head = (k >= keyed.length ? [...keyed].sort(byKey) : selectTop(keyed, k + RANK_LOOKAHEAD, byKey)).map((x) => x.it);
+  function itemAt(c: Candidates, i: number): RankItem {
+    const id = c.ids[i] as number;
+    const fl = flags[id] as number;
+    return {
+      id,
+      score: c.score[i] as number,
+      naming: c.naming[i] as number,
+      coverage: c.coverage[i] as number,
+      isApproved: (fl & FL_APPROVED) !== 0,
+      isRetired: (fl & FL_RETIRED) !== 0,
+      isHouseHit: c.house[i] === 1,
+    };
+  }
+
+  /** The first `k` in final order among the selected candidates (rules 3 and 4). */
+  function order(c: Candidates, selected: readonly number[], k: number): RankItem[] {
+    let top = 0;
+    let topAny = 0;
+    for (const i of selected) {
+      const sc = c.score[i] as number;
+      if (sc > topAny) topAny = sc;
+      if (sc > top && ((flags[c.ids[i] as number] as number) & FL_RETIRED) === 0) top = sc;
+    }
+    if (top === 0) top = topAny;
+    const keys = new Float64Array(c.ids.length);
+    for (const i of selected) {
+      const fl = flags[c.ids[i] as number] as number;
+      keys[i] = rankKey(c.score[i] as number, (fl & FL_APPROVED) !== 0, (fl & FL_RETIRED) !== 0, top);
+    }
+    const byKey = (a: number, b: number): number => (keys[b] as number) - (keys[a] as number) || (c.ids[a] as number) - (c.ids[b] as number);
+    const head = selectTop(selected, k + RANK_LOOKAHEAD, byKey).map((i) => itemAt(c, i));
     return promoteHouseMethods(head, top).slice(0, k);
   }
 
-  function toResult(item: RankItem, p: QueryPlan | null, stems: Set<string>, query: string): SearchResult {
+  function toResult(item: RankItem, p: QueryPlan | null, matched: MatchedWords | null, query: string): SearchResult {
     const e = entries[item.id] as Entry;
     const doc = e.doc;
-    const shown = p && stems.size > 0 ? matchesFor(doc, stems, stemOf) : { matches: [], snippet: excerpt(doc.summary, 0, SNIPPET_CHARS).text };
+    const shown = p && matched && matched.stems.size > 0 ? matchesFor(doc, matched) : { matches: [], snippet: excerpt(doc.summary, 0, SNIPPET_CHARS).text };
     let via: SearchResult["via"] = [];
     if (p && (p.units.some((u) => u.alternatives.some((a) => a.kind === "synonym" || a.kind === "broader")) || p.spans.length > 0)) {
-      const own = documentStems(fieldTexts(doc), stemOf);
-      via = thesaurusMatches(p, (sid) => own.has(vocab.stemWords[sid] as string), query);
+      via = thesaurusMatches(p, (sid) => store.lists[sid]?.has(item.id) === true, query);
     }
     return {
       slug: doc.slug,
@@ -297,9 +362,9 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     };
   }
 
-  function facetsOf(items: readonly RankItem[], statusCounts: Map<SearchStatus, number>): SearchResponse["facets"] {
+  function facetsOf(ids: readonly number[], statusCounts: Map<SearchStatus, number>): SearchResponse["facets"] {
     const counts = new Int32Array(tagSlugs.length);
-    for (const it of items) for (const t of (entries[it.id] as Entry).tagIds) counts[t] = (counts[t] as number) + 1;
+    for (const id of ids) for (const t of (entries[id] as Entry).tagIds) counts[t] = (counts[t] as number) + 1;
     const problem: SearchFacetTag[] = [];
     const plate: SearchFacetTag[] = [];
     counts.forEach((count, ti) => {
@@ -329,43 +394,52 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const p = plan(query, { prefix: "last", exact: options.exact === true });
     const isEmptyQuery = p.units.length === 0;
 
-    let items: RankItem[];
+    let c: Candidates;
     if (isEmptyQuery) {
       const wanted = filters.tags.map((slug) => tagIndex.get(slug) ?? -1);
-      items = [];
-      if (!wanted.includes(-1)) {
-        for (let id = 0; id < nextId; id++) {
-          if (!entries[id] || !visible(id, filters, wanted)) continue;
-          const fl = flags[id] as number;
-          items.push({ id, score: 0, naming: 0, coverage: 1, isApproved: (fl & FL_APPROVED) !== 0, isRetired: (fl & FL_RETIRED) !== 0, isHouseHit: false });
-        }
-      }
+      const ids: number[] = [];
+      if (!wanted.includes(-1)) for (let id = 0; id < nextId; id++) if (entries[id] && visible(id, filters, wanted)) ids.push(id);
+      c = { ids, score: new Float64Array(ids.length), naming: new Float64Array(ids.length), coverage: new Float64Array(ids.length).fill(1), house: new Uint8Array(ids.length) };
     } else {
-      items = rank(p, ALL_FIELDS, filters);
+      c = rank(p, ALL_FIELDS, filters);
     }
     // Status facet counts ignore the status filter itself, so the UI can show what switching it would give.
-    const statusCounts = new Map<SearchStatus, number>();
-    for (const it of items) {
-      const st = (entries[it.id] as Entry).doc.status;
-      statusCounts.set(st, (statusCounts.get(st) ?? 0) + 1);
+    const perStatus = new Int32Array(STATUS_ORDER.length);
+    const wantedStatus = new Uint8Array(STATUS_ORDER.length).fill(filters.status && filters.status.length > 0 ? 0 : 1);
+    for (const st of filters.status ?? []) wantedStatus[STATUS_ORDER.indexOf(st)] = 1;
+    const selected: number[] = [];
+    const selectedIds: number[] = [];
+    for (let i = 0; i < c.ids.length; i++) {
+      const id = c.ids[i] as number;
+      const st = statusOf[id] as number;
+      perStatus[st] = (perStatus[st] as number) + 1;
+      if (wantedStatus[st]) {
+        selected.push(i);
+        selectedIds.push(id);
+      }
     }
-    const selected = filters.status && filters.status.length > 0 ? items.filter((it) => filters.status?.includes((entries[it.id] as Entry).doc.status)) : items;
+    const statusCounts = new Map<SearchStatus, number>();
+    STATUS_ORDER.forEach((st, k) => {
+      if ((perStatus[k] as number) > 0) statusCounts.set(st, perStatus[k] as number);
+    });
     let page: RankItem[];
     if (isEmptyQuery || options.sort === "recent") {
-      const recency = (it: RankItem): number => (it.isRetired ? 0 : 1e14) + (updatedAt[it.id] as number);
-      page = selectTop(selected, offset + limit, (a, b) => recency(b) - recency(a) || a.id - b.id).slice(offset);
+      const recency = (i: number): number => ((((flags[c.ids[i] as number] as number) & FL_RETIRED) === 0 ? 1e14 : 0) + (updatedAt[c.ids[i] as number] as number));
+      page = selectTop(selected, offset + limit, (a, b) => recency(b) - recency(a) || (c.ids[a] as number) - (c.ids[b] as number))
+        .slice(offset)
+        .map((i) => itemAt(c, i));
     } else {
-      page = order(selected, offset + limit).slice(offset);
+      page = order(c, selected, offset + limit).slice(offset);
     }
-    const stems = isEmptyQuery ? new Set<string>() : matchedStems(p);
-    const results = page.map((it) => toResult(it, isEmptyQuery ? null : p, stems, query));
+    const matched = isEmptyQuery ? null : matchedWords(p);
+    const results = page.map((it) => toResult(it, isEmptyQuery ? null : p, matched, query));
 
     let corrected = query;
     for (const u of [...p.units].reverse()) if (u.correction) corrected = corrected.slice(0, u.start) + u.correction + corrected.slice(u.end);
     return {
       results,
       total: selected.length,
-      facets: facetsOf(selected, statusCounts),
+      facets: facetsOf(selectedIds, statusCounts),
       ...(corrected !== query ? { corrected } : {}),
       tookMs: Math.round((performance.now() - t0) * 100) / 100,
     };
@@ -375,8 +449,9 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const p = plan(query, { prefix: "all", exact: false });
     if (p.units.length === 0) return [];
     const filters: Filters = { audience, tags: [], status: undefined, includeRetired: false };
-    const ranked = order(rank(p, NAME_FIELDS, filters), Math.max(0, Math.min(50, limit)));
-    const stems = matchedStems(p);
+    const c = rank(p, NAME_FIELDS, filters);
+    const ranked = order(c, c.ids.map((_, i) => i), Math.max(0, Math.min(50, limit)));
+    const matched = matchedWords(p);
     return ranked.map((it) => {
       const doc = (entries[it.id] as Entry).doc;
       return {
@@ -384,7 +459,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
         title: doc.title,
         status: doc.status,
         score: Math.round(it.score * 1000) / 1000,
-        ranges: (matchesFor({ ...doc, aliases: [], tags: [], summary: "", parameterNames: [], shotCodes: [], bodyText: "" }, stems, stemOf).matches[0]?.ranges ?? []),
+        ranges: matchesFor({ ...doc, aliases: [], tags: [], summary: "", parameterNames: [], shotCodes: [], bodyText: "" }, matched).matches[0]?.ranges ?? [],
         isHouseMethod: it.isHouseHit,
       };
     });

@@ -59,6 +59,18 @@ export class Postings {
       else hi = mid - 1;
     }
   }
+  has(id: number): boolean {
+    let lo = 0;
+    let hi = this.n - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const v = this.data[mid * 2] as number;
+      if (v === id) return true;
+      if (v < id) lo = mid + 1;
+      else hi = mid - 1;
+    }
+    return false;
+  }
   trim(): void {
     if (this.data.length > this.n * 2 + 2) this.data = this.data.slice(0, Math.max(4, this.n * 2));
   }

@@ -7,7 +7,7 @@
  */
 import { ALTERNATIVE_WEIGHTS, completionWeight, MAX_UNITS } from "./scoring";
 import { findPhrases, type CompiledThesaurus } from "./thesaurus";
-import { isStopWord, queryWordWeight, tokenize, type Token } from "./text";
+import { FILLER_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
 import type { Vocabulary } from "./vocabulary";
 
 export type AlternativeKind = "exact" | "stem" | "family" | "parts" | "prefix" | "typo" | "split" | "joined" | "synonym" | "broader";
@@ -15,7 +15,19 @@ export type AlternativeKind = "exact" | "stem" | "family" | "parts" | "prefix" |
 /** One way a page can answer a unit or span: all `stems` present (one stem for most kinds). */
 export type Alternative = { stems: number[]; weight: number; kind: AlternativeKind; surface: string };
 
-export type QueryUnit = { text: string; start: number; end: number; weight: number; alternatives: Alternative[]; correction?: string };
+export type QueryUnit = {
+  text: string;
+  start: number;
+  end: number;
+  weight: number;
+  alternatives: Alternative[];
+  correction?: string;
+  /**
+   * A filler word ("get", "out", "way"): not looked up on its own — it is on most pages and would
+   * only cost time — but it still spells thesaurus phrases ("get rid of", "put grain back").
+   */
+  isFiller?: boolean;
+};
 export type QuerySpan = { first: number; count: number; alternatives: Alternative[] };
 export type QueryPlan = { units: QueryUnit[]; spans: QuerySpan[] };
 
@@ -34,7 +46,9 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
   const raw = tokenize(query);
   const content = raw.filter((t) => !isStopWord(t.word));
   const tokens = (content.length > 0 ? content : raw).slice(0, MAX_UNITS);
-  const units = tokens.map((tok, i) => parseWord(tok, ctx, options.prefix === "all" || (options.prefix === "last" && i === tokens.length - 1), options.exact));
+  // A query of filler words only ("take out") is looked up word by word after all.
+  const onlyFiller = tokens.every((t) => queryWordWeight(t.word) <= FILLER_WEIGHT);
+  const units = tokens.map((tok, i) => parseWord(tok, ctx, options.prefix === "all" || (options.prefix === "last" && i === tokens.length - 1), options.exact, onlyFiller));
   const spans: QuerySpan[] = [];
   const taken = new Uint8Array(units.length);
 
@@ -73,7 +87,8 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
   return { units, spans };
 }
 
-function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: boolean): QueryUnit {
+function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: boolean, lookUpFiller: boolean): QueryUnit {
+  if (!lookUpFiller && queryWordWeight(tok.word) <= FILLER_WEIGHT) return { text: tok.word, start: tok.start, end: tok.end, weight: queryWordWeight(tok.word), alternatives: [], isFiller: true };
   const { vocab } = ctx;
   const word = tok.word;
   const out: Alternative[] = [];
@@ -148,6 +163,7 @@ function splitCompound(word: string, ctx: QueryContext, out: Alternative[]): boo
 }
 
 function unit(tok: Token, alternatives: Alternative[], correction?: string): QueryUnit {
+  const weight = queryWordWeight(tok.word);
   // One alternative per stem set (the strongest), then the strongest few: more only adds noise and time.
   const best = new Map<string, Alternative>();
   for (const a of alternatives) {
@@ -156,5 +172,5 @@ function unit(tok: Token, alternatives: Alternative[], correction?: string): Que
     if (!prev || a.weight > prev.weight) best.set(key, a);
   }
   const kept = [...best.values()].sort((a, b) => b.weight - a.weight).slice(0, MAX_ALTERNATIVES);
-  return { text: tok.word, start: tok.start, end: tok.end, weight: queryWordWeight(tok.word), alternatives: kept, ...(correction ? { correction } : {}) };
+  return { text: tok.word, start: tok.start, end: tok.end, weight, alternatives: kept, ...(correction ? { correction } : {}) };
 }

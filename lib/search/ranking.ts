@@ -19,10 +19,14 @@ export const RANKING = {
 
 export type RankItem = { id: number; score: number; naming: number; coverage: number; isApproved: boolean; isRetired: boolean; isHouseHit: boolean };
 
-/** Rule 2: which candidates stay in the list. */
+/** Rule 2: whether a candidate stays in the list, given the best score among them. */
+export function staysInList(score: number, coverage: number, best: number): boolean {
+  return coverage >= 1 || score >= best * RANKING.floor;
+}
+
 export function aboveFloor(items: readonly RankItem[]): RankItem[] {
-  const floor = bestScore(items) * RANKING.floor;
-  return items.filter((it) => it.coverage >= 1 || it.score >= floor);
+  const best = bestScore(items);
+  return items.filter((it) => staysInList(it.score, it.coverage, best));
 }
 
 /** Score after the coverage grade. */
@@ -42,10 +46,10 @@ export function bestScore(items: readonly RankItem[]): number {
 }
 
 /** Sort key: status band × 1e9 + score (rule 3). */
-export function rankKey(it: RankItem, top: number): number {
-  if (it.isRetired) return it.score;
-  if (it.score >= RANKING.goodMatch * top) return (it.isApproved ? 3e9 : 2e9) + it.score;
-  return 1e9 + (it.isApproved ? it.score : it.score * 0.5);
+export function rankKey(score: number, isApproved: boolean, isRetired: boolean, top: number): number {
+  if (isRetired) return score;
+  if (score >= RANKING.goodMatch * top) return (isApproved ? 3e9 : 2e9) + score;
+  return 1e9 + (isApproved ? score : score * 0.5);
 }
 
 /**

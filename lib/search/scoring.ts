@@ -6,19 +6,18 @@
  * its kind (a synonym less than the word typed). Nothing is dropped here for matching too few words:
  * how much of the query a page covers scales its score (ranking.ts decides the order).
  */
-import { FIELD_COUNT, F_ALIASES, F_TITLE, type PostingStore } from "./postings";
+import { FIELD_COUNT, F_ALIASES, type PostingStore } from "./postings";
 import type { Alternative, QueryPlan } from "./query";
 
 /** Query words past this are ignored (a 200-character query has far fewer content words). */
-export const MAX_UNITS = 12;
+export const MAX_UNITS = 10;
 
 /** title > aliases ≈ tags > summary > parameters ≈ shots > body (issue 6). */
 export const FIELD_WEIGHTS: readonly number[] = [6, 4, 4, 2.5, 1.5, 1.5, 1];
 /** BM25 length normalisation per field: short list-like fields barely normalise. */
 const FIELD_B: readonly number[] = [0.5, 0.3, 0.3, 0.75, 0.3, 0.2, 0.75];
 const K1 = 1.2;
-/** Title and aliases: the fields that name a page's problem (ranking.ts compares pages by them). */
-const NAMING_FIELDS = (1 << F_TITLE) | (1 << F_ALIASES);
+// Title and aliases (fields 0 and 1) name a page's problem: ranking.ts compares pages by them.
 
 /** How much an alternative counts against the word as typed (1). */
 export const ALTERNATIVE_WEIGHTS = {
@@ -100,20 +99,48 @@ export class Scorer {
     const weights = FIELD_WEIGHTS.map((w, f) => ((fieldMask >> f) & 1 ? w : 0));
     const rows = this.rows;
 
-    /** BM25 of one posting, summed over fields with weights; [all fields, naming fields]. */
-    const fieldScore = (id: number, packed: number): [number, number] => {
-      let sum = 0;
-      let naming = 0;
-      for (let f = 0; packed !== 0; f++, packed >>>= 4) {
-        const tf = packed & 15;
-        if (tf === 0) continue;
-        const b = FIELD_B[f] as number;
-        const norm = 1 - b + (b * (store.lengths[id * FIELD_COUNT + f] as number)) / (avg[f] as number);
-        const s = ((weights[f] as number) * tf * (K1 + 1)) / (tf + K1 * norm);
-        sum += s;
-        if ((NAMING_FIELDS >> f) & 1) naming += s;
+    /**
+     * BM25 of each posting of a stem, fields summed with weights (and the naming fields' part apart),
+     * computed once per stem per query: several alternatives often share a stem ("lens distortion",
+     * "barrel distortion", "pincushion distortion").
+     */
+    type StemScores = { ids: Uint32Array; n: number; sum: Float64Array; naming: Float64Array };
+    const byStem = new Map<number, StemScores | null>();
+    const lengths = store.lengths;
+    const stemScores = (sid: number): StemScores | null => {
+      let cached = byStem.get(sid);
+      if (cached !== undefined) return cached;
+      const list = store.lists[sid];
+      if (!list || list.n === 0) {
+        byStem.set(sid, null);
+        return null;
       }
-      return [sum, naming];
+      const n = list.n;
+      const data = list.data;
+      const ids = new Uint32Array(n);
+      const sum = new Float64Array(n);
+      const naming = new Float64Array(n);
+      for (let k = 0; k < n; k++) {
+        const id = data[k * 2] as number;
+        let packed = data[k * 2 + 1] as number;
+        ids[k] = id;
+        let total = 0;
+        let named = 0;
+        for (let f = 0; packed !== 0; f++, packed >>>= 4) {
+          const tf = packed & 15;
+          if (tf === 0) continue;
+          const b = FIELD_B[f] as number;
+          const norm = 1 - b + (b * (lengths[id * FIELD_COUNT + f] as number)) / (avg[f] as number);
+          const v = ((weights[f] as number) * tf * (K1 + 1)) / (tf + K1 * norm);
+          total += v;
+          if (f <= F_ALIASES) named += v;
+        }
+        sum[k] = total;
+        naming[k] = named;
+      }
+      cached = { ids, n, sum, naming };
+      byStem.set(sid, cached);
+      return cached;
     };
     const touch = (id: number): number => {
       if (this.stamp[id] !== queryStamp) {
@@ -146,14 +173,24 @@ export class Scorer {
         const namingShare = alt.kind === "synonym" || alt.kind === "broader" ? 0 : 1;
         if (alt.stems.length === 1) {
           const sid = alt.stems[0] as number;
-          const list = store.lists[sid];
-          if (!list) continue;
+          const sc = stemScores(sid);
+          if (!sc) continue;
           const scale = idfOf(sid) * alt.weight;
-          const data = list.data;
-          for (let k = 0; k < list.n; k++) {
-            const id = data[k * 2] as number;
-            const [s, naming] = fieldScore(id, data[k * 2 + 1] as number);
-            if (s > 0) keep(id, column, s * scale, naming * scale * namingShare);
+          const nameScale = scale * namingShare;
+          const { ids, sum, naming } = sc;
+          for (let k = 0; k < sc.n; k++) {
+            const v = sum[k] as number;
+            if (v === 0) continue;
+            const id = ids[k] as number;
+            if (this.stamp[id] !== queryStamp) {
+              this.stamp[id] = queryStamp;
+              rows.fill(0, id * ROW, (id + 1) * ROW);
+              touched.push(id);
+            }
+            const at = id * ROW + column;
+            if (v * scale > (rows[at] as number)) rows[at] = v * scale;
+            const nm = (naming[k] as number) * nameScale;
+            if (nm > (rows[at + MAX_COLUMNS] as number)) rows[at + MAX_COLUMNS] = nm;
           }
           continue;
         }
@@ -162,13 +199,13 @@ export class Scorer {
         const altStamp = ++this.counter;
         const hits: number[] = [];
         for (const sid of alt.stems) {
-          const list = store.lists[sid];
-          if (!list) continue;
+          const sc = stemScores(sid);
+          if (!sc) continue;
           const idf = idfOf(sid);
-          const data = list.data;
-          for (let k = 0; k < list.n; k++) {
-            const id = data[k * 2] as number;
-            const [s, naming] = fieldScore(id, data[k * 2 + 1] as number);
+          for (let k = 0; k < sc.n; k++) {
+            const id = sc.ids[k] as number;
+            const s = sc.sum[k] as number;
+            const naming = sc.naming[k] as number;
             if (s === 0) continue;
             if (this.altStamp[id] !== altStamp) {
               this.altStamp[id] = altStamp;
@@ -199,7 +236,8 @@ export class Scorer {
     spans.forEach((s, si) => {
       for (let k = s.first; k < s.first + s.count; k++) inSpan[k] = si;
     });
-    const totalWeight = units.reduce((sum, u) => sum + u.weight, 0) || 1;
+    // Filler words are not looked up (query.ts) and do not count toward coverage either.
+    const totalWeight = units.reduce((sum, u) => sum + (u.isFiller ? 0 : u.weight), 0) || 1;
     const scores = new Float64Array(touched.length);
     const naming = new Float64Array(touched.length);
     const coverage = new Float64Array(touched.length);

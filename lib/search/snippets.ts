@@ -29,24 +29,60 @@ export function excerpt(text: string, from: number, to: number): { text: string;
 
 type StemOf = (word: string) => string;
 
+/**
+ * What a query matched, in the forms highlighting needs: the stems, the page words that have those
+ * stems (so most tokens are checked by one set lookup), and whether some stem exists only as a
+ * run-together pair ("bluescreen"), which needs adjacent tokens checked too.
+ */
+export type MatchedWords = { stems: ReadonlySet<string>; words: ReadonlySet<string>; hasPairs: boolean; stemOf: StemOf; bodyPattern?: RegExp | null };
+
 /** Ranges of the tokens (and adjacent pairs written apart, "blue screen" for "bluescreen") whose stem matched. */
-function rangesOf(text: string, stems: ReadonlySet<string>, stemOf: StemOf, camel = false): [number, number][] {
+function rangesOf(text: string, m: MatchedWords, camel = false): [number, number][] {
   const toks = tokenize(text, camel);
   const out: [number, number][] = [];
+  // Every page token is a vocabulary surface, so the matched stems' surfaces are all it takes.
+  const hit = (w: string): boolean => m.words.has(w);
   toks.forEach((t, i) => {
-    if (stems.has(stemOf(t.word))) out.push([t.start, t.end]);
-    else for (const p of t.parts ?? []) if (stems.has(stemOf(p.word))) out.push([p.start, p.end]);
+    if (hit(t.word)) out.push([t.start, t.end]);
+    else for (const p of t.parts ?? []) if (hit(p.word)) out.push([p.start, p.end]);
     const next = toks[i + 1];
-    if (next && next.start - t.end === 1 && stems.has(stemOf(t.word + next.word))) out.push([t.start, next.end]);
+    if (m.hasPairs && next && next.start - t.end === 1 && m.stems.has(m.stemOf(t.word + next.word))) out.push([t.start, next.end]);
   });
   return out;
 }
 
-/** Highlight ranges per field and the body snippet for one document and the stems a query matched. */
-export function matchesFor(doc: SearchDocument, stems: ReadonlySet<string>, stemOf: StemOf): { matches: SearchMatch[]; snippet: string } {
+const escapeRegExp = (w: string): string => w.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
+
+/** Matched body words in order. Plain ASCII bodies are scanned by one regular expression of the matched words. */
+function bodyHits(body: string, m: MatchedWords): { tokens: Token[]; stems: string[] } {
+  const tokens: Token[] = [];
+  const stems: string[] = [];
+  // Made once per query; a hyphen counts as a boundary, so "busting" is found in "dust-busting".
+  m.bodyPattern ??= m.words.size > 0 && m.words.size <= 500 ? new RegExp(`(?<![A-Za-z0-9'])(?:${[...m.words].map(escapeRegExp).join("|")})(?![A-Za-z0-9'])`, "gi") : null;
+  const re = m.bodyPattern;
+  if (re && /^[\x00-\x7f]*$/.test(body)) {
+    re.lastIndex = 0;
+    for (let x = re.exec(body); x !== null; x = re.exec(body)) {
+      const word = x[0].toLowerCase();
+      tokens.push({ word, start: x.index, end: x.index + x[0].length });
+      stems.push(m.stemOf(word));
+    }
+    return { tokens, stems };
+  }
+  for (const t of tokenize(body)) {
+    const s = m.stemOf(t.word);
+    if (!m.stems.has(s)) continue;
+    tokens.push(t);
+    stems.push(s);
+  }
+  return { tokens, stems };
+}
+
+/** Highlight ranges per field and the body snippet for one document and what a query matched. */
+export function matchesFor(doc: SearchDocument, m: MatchedWords): { matches: SearchMatch[]; snippet: string } {
   const matches: SearchMatch[] = [];
   const single = (field: SearchField, value: string, camel = false): void => {
-    const ranges = rangesOf(value, stems, stemOf, camel);
+    const ranges = rangesOf(value, m, camel);
     if (ranges.length > 0) matches.push({ field, value, ranges });
   };
   single("title", doc.title);
@@ -56,7 +92,7 @@ export function matchesFor(doc: SearchDocument, stems: ReadonlySet<string>, stem
   for (const p of doc.parameterNames) single("parameters", p, true);
   for (const s of doc.shotCodes) single("shots", s);
 
-  const bodyTokens = tokenize(doc.bodyText).filter((t) => stems.has(stemOf(t.word)));
+  const { tokens: bodyTokens, stems: bodyStems } = bodyHits(doc.bodyText, m);
   if (bodyTokens.length === 0) return { matches, snippet: excerpt(doc.summary, 0, SNIPPET_CHARS).text };
   // The window holding the most distinct matched words reads best.
   let bestStart = (bodyTokens[0] as Token).start;
@@ -64,7 +100,7 @@ export function matchesFor(doc: SearchDocument, stems: ReadonlySet<string>, stem
   for (let i = 0; i < bodyTokens.length && i < 200; i++) {
     const from = (bodyTokens[i] as Token).start;
     const seen = new Set<string>();
-    for (let j = i; j < bodyTokens.length && (bodyTokens[j] as Token).end <= from + SNIPPET_CHARS - 40; j++) seen.add(stemOf((bodyTokens[j] as Token).word));
+    for (let j = i; j < bodyTokens.length && (bodyTokens[j] as Token).end <= from + SNIPPET_CHARS - 40; j++) seen.add(bodyStems[j] as string);
     if (seen.size > bestCount) {
       bestCount = seen.size;
       bestStart = from;
@@ -76,22 +112,6 @@ export function matchesFor(doc: SearchDocument, stems: ReadonlySet<string>, stem
   const inside = bodyTokens.map((t) => [t.start + cut.shift, t.end + cut.shift] as [number, number]).filter(([s, e]) => s >= lo && e <= hi);
   if (inside.length > 0) matches.push({ field: "body", value: cut.text, ranges: inside });
   return { matches, snippet: cut.text };
-}
-
-/** Every stem a document's searchable fields contain (compound parts and run-together pairs included). */
-export function documentStems(texts: readonly string[], stemOf: StemOf): Set<string> {
-  const out = new Set<string>();
-  for (const text of texts) {
-    const toks = tokenize(text, true);
-    toks.forEach((t, i) => {
-      out.add(stemOf(t.word));
-      for (const p of t.parts ?? []) out.add(stemOf(p.word));
-      const next = toks[i + 1];
-      if (next && next.start - t.end === 1) out.add(stemOf(t.word + next.word));
-    });
-    for (const t of tokenize(text)) out.add(stemOf(t.word));
-  }
-  return out;
 }
 
 /**

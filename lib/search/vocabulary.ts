@@ -9,6 +9,9 @@ import { editDistance, trigrams } from "./text";
 
 export type Candidate = { surfaceId: number; distance: number };
 
+/** Stems remembered for words that are not surfaces; ~4 MB at most. */
+const STEM_CACHE_SIZE = 50_000;
+
 export class Vocabulary {
   private readonly surfaceIds = new Map<string, number>();
   readonly surfaceWords: string[] = [];
@@ -21,8 +24,12 @@ export class Vocabulary {
 
   private readonly stemIds = new Map<string, number>();
   readonly stemWords: string[] = [];
+  /** Surface ids of each stem ("marker", "markers" for "marker"). */
+  private readonly stemSurfaces: number[][] = [];
   /** Called with each new stem id, so the posting store can grow with it. */
   onNewStem: (stemId: number) => void = () => {};
+
+  private readonly stemCache = new Map<string, string>();
 
   constructor(private readonly language: Language) {}
 
@@ -30,7 +37,14 @@ export class Vocabulary {
   stemOf(word: string): string {
     const known = this.surfaceIds.get(word);
     if (known !== undefined) return this.stemWords[this.surfaceStem[known] as number] as string;
-    return this.language.normaliseStem(snowballStem(word));
+    // Words that are not surfaces (run-together pairs, query words) repeat a lot; Porter2 is regex work.
+    let stem = this.stemCache.get(word);
+    if (stem === undefined) {
+      if (this.stemCache.size >= STEM_CACHE_SIZE) this.stemCache.clear();
+      stem = this.language.normaliseStem(snowballStem(word));
+      this.stemCache.set(word, stem);
+    }
+    return stem;
   }
 
   /** Id of a stem string, created when missing. */
@@ -40,6 +54,7 @@ export class Vocabulary {
       id = this.stemWords.length;
       this.stemIds.set(stem, id);
       this.stemWords.push(stem);
+      this.stemSurfaces.push([]);
       this.onNewStem(id);
     }
     return id;
@@ -53,11 +68,12 @@ export class Vocabulary {
   internSurface(word: string): number {
     let id = this.surfaceIds.get(word);
     if (id === undefined) {
-      const stemId = this.internStem(this.language.normaliseStem(snowballStem(word)));
+      const stemId = this.internStem(this.stemOf(word));
       id = this.surfaceWords.length;
       this.surfaceIds.set(word, id);
       this.surfaceWords.push(word);
       this.surfaceStem.push(stemId);
+      (this.stemSurfaces[stemId] as number[]).push(id);
       this.surfaceRefs.push(0);
       this.unsorted.push(word);
       for (const g of trigrams(word)) {
@@ -67,6 +83,11 @@ export class Vocabulary {
       }
     }
     return id;
+  }
+
+  /** The surface words of a stem; none for a stem that exists only as a run-together pair. */
+  surfacesOf(stemId: number): string[] {
+    return (this.stemSurfaces[stemId] ?? []).map((id) => this.surfaceWords[id] as string);
   }
 
   surfaceIdOf(word: string): number | undefined {

@@ -204,7 +204,8 @@ describe("ranking rules", () => {
     const approved = item(2, 7, 0);
     const retired = item(3, 12, 0, { isRetired: true });
     expect(bestScore([draft, approved, retired])).toBe(10);
-    const sorted = [draft, approved, retired].sort((a, b) => rankKey(b, top) - rankKey(a, top));
+    const key = (x: RankItem) => rankKey(x.score, x.isApproved, x.isRetired, top);
+    const sorted = [draft, approved, retired].sort((a, b) => key(b) - key(a));
     expect(sorted.map((x) => x.id)).toEqual([2, 1, 3]);
   });
 
@@ -233,7 +234,8 @@ describe("snippets", () => {
   const d = doc({ title: "Marker removal", summary: "On blue", bodyText: "Start here. ".repeat(20) + "Sample the markers and the screen." });
 
   it("highlights exactly the matched words and cuts the body around them", () => {
-    const { matches, snippet } = matchesFor(d, new Set(["marker"]), (w) => vocab.stemOf(w));
+    const stemOf = (w: string) => vocab.stemOf(w);
+    const { matches, snippet } = matchesFor(d, { stems: new Set(["marker"]), words: new Set(["marker", "markers"]), hasPairs: false, stemOf });
     const title = matches.find((m) => m.field === "title");
     expect(title?.ranges.map(([s, e]) => title.value.slice(s, e))).toEqual(["Marker"]);
     const body = matches.find((m) => m.field === "body");
