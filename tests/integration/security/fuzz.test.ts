@@ -7,6 +7,7 @@ import { createRequest } from "@/lib/requests";
 import { askQuestion } from "@/lib/questions";
 import { logUse } from "@/lib/shots/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
+import { createThesaurusEntry } from "@/lib/thesaurus/mutations";
 import { createPerson, params, simpleDoc, type TestPerson } from "@/tests/factories";
 import { approvedTechnique, buildWorld, draftTechnique, expectErrorShape, inReviewTechnique, uniq, useTempFolders, type World } from "./world";
 
@@ -42,6 +43,7 @@ let inReviewSlug = "";
 let retireSlug = "";
 let mergeTag = "";
 let personId = "";
+let thesaurusId = "";
 
 /** The routes fuzzed here; one generated test each. */
 const FUZZED = [
@@ -51,7 +53,7 @@ const FUZZED = [
   "POST /api/tags/[slug]/merge", "PUT /api/tags/[slug]/house-method", "POST /api/shows", "PATCH /api/shows/[code]",
   "POST /api/shows/[code]/shots", "POST /api/stills/pairs", "POST /api/lab/run", "POST /api/lab/analyse", "POST /api/lab/sample",
   "POST /api/lab/solve", "POST /api/people", "PATCH /api/people/[id]", "POST /api/tokens", "POST /api/subscriptions",
-  "DELETE /api/subscriptions", "PUT /api/subscriptions/mode",
+  "DELETE /api/subscriptions", "PUT /api/subscriptions/mode", "POST /api/thesaurus", "PUT /api/thesaurus/[id]",
 ] as const;
 
 function targets(): Target[] {
@@ -94,6 +96,8 @@ function targets(): Target[] {
     t("POST", "/api/subscriptions", () => p.artist, () => "/api/subscriptions", none, () => ({ target: { kind: "technique", key: w.approved }, mode: "daily" })),
     t("DELETE", "/api/subscriptions", () => p.artist, () => "/api/subscriptions", none, () => ({ target: { kind: "show", key: w.showCode } })),
     t("PUT", "/api/subscriptions/mode", () => p.artist, () => "/api/subscriptions/mode", none, () => ({ mode: "immediate" })),
+    t("POST", "/api/thesaurus", () => p.lead, () => "/api/thesaurus", none, () => ({ kind: "narrower", broader: "marker", terms: ["tape cross", "dot"], note: "On screens." })),
+    t("PUT", "/api/thesaurus/[id]", () => p.lead, () => `/api/thesaurus/${thesaurusId}`, () => ({ id: thesaurusId }), () => ({ kind: "synonyms", terms: ["regrain", "grain restore"] })),
   ];
 }
 
@@ -184,6 +188,7 @@ beforeAll(async () => {
   questionId = (await askQuestion(p.artist, w.approved, doc)).id;
   mergeTag = (await createTagRow(p.lead, { kind: "problem", name: `Boom shadow ${uniq()}`, description: "", aliases: [] })).slug;
   personId = (await createPerson("artist")).id;
+  thesaurusId = (await createThesaurusEntry(p.lead, { kind: "synonyms", terms: ["seam", "join"], note: "" })).id;
   await createRequest(p.artist, { query: "Lens flare over markers", note: "" });
 }, 120_000);
 
@@ -199,7 +204,7 @@ describe("every JSON route's handler under arbitrary and mutated bodies", () => 
       "POST /api/[...unknown]", "PUT /api/[...unknown]", "PATCH /api/[...unknown]", "DELETE /api/[...unknown]",
       "POST /api/auth/[...nextauth]", "POST /api/unsubscribe", "POST /api/stills", "POST /api/techniques/[slug]/submit",
       "POST /api/questions/[id]/resolve", "POST /api/requests/[id]/claim", "DELETE /api/tokens/[id]", "DELETE /api/uses/[id]",
-      "DELETE /api/stills/pairs/[id]", "POST /api/admin/outbox/[id]/retry",
+      "DELETE /api/stills/pairs/[id]", "POST /api/admin/outbox/[id]/retry", "DELETE /api/thesaurus/[id]",
     ]);
     expect(jsonRoutes.filter((k) => !bodyless.has(k) && !fuzzed.has(k))).toEqual([]);
   });
