@@ -4,7 +4,9 @@ const nextConfig: NextConfig = {
   // Lets parallel test runs keep separate builds (tests/e2e/harness.ts); the default is .next.
   distDir: process.env.PLATEROOM_DIST_DIR || ".next",
   // PGlite ships a WebAssembly build of PostgreSQL that must be loaded from node_modules, not bundled.
-  serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser"],
+  // The English word list and Hunspell dictionaries search reads are data files found from their own
+  // package folders at run time.
+  serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser", "word-list", "dictionary-en", "dictionary-en-gb"],
   poweredByHeader: false,
   async headers() {
     const common = [
