@@ -61,11 +61,15 @@ function OtherMatches({ matches }: { matches: SearchMatch[] }) {
 
 /** Words found only through the department's thesaurus, so the reader sees why this page came up. */
 function ThesaurusNote({ via }: { via: SearchVia[] }) {
+  // "tracker" and "dots" both reaching "marker" read as one note.
+  const byTerm = new Map<string, string[]>();
+  for (const v of via) byTerm.set(v.term, [...(byTerm.get(v.term) ?? []), v.word]);
   return (
     <p className="mt-1 text-xs text-muted" data-testid="search-via">
-      {via.map((v, i) => (
-        <span key={`${v.word}-${v.term}`}>
-          {i > 0 ? "; " : null}“{v.word}” found as <span className="text-ink">“{v.term}”</span>
+      {[...byTerm].map(([term, words], i) => (
+        <span key={term}>
+          {i > 0 ? "; " : null}
+          {words.map((w) => `“${w}”`).join(", ")} found as <span className="text-ink">“{term}”</span>
         </span>
       ))}{" "}
       <span>(thesaurus)</span>

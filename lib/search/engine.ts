@@ -18,7 +18,7 @@
  * lists per stem; typos are corrected against the vocabulary (small, so well under a millisecond).
  */
 import type { Language } from "./language";
-import { DocumentAnalyser, FIELD_COUNT, F_ALIASES, F_TAGS, F_TITLE, PostingStore, type AnalysedDocument } from "./postings";
+import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore, type AnalysedDocument } from "./postings";
 import { parseQuery, type ParseOptions, type QueryPlan } from "./query";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
 import { Scorer } from "./scoring";
@@ -344,7 +344,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const shown = p && matched && matched.stems.size > 0 ? matchesFor(doc, matched) : { matches: [], snippet: excerpt(doc.summary, 0, SNIPPET_CHARS).text };
     let via: SearchResult["via"] = [];
     if (p && (p.units.some((u) => u.alternatives.some((a) => a.kind === "synonym" || a.kind === "broader")) || p.spans.length > 0)) {
-      via = thesaurusMatches(p, (sid) => store.lists[sid]?.has(item.id) === true, query);
+      via = thesaurusMatches(p, (sid, inShortFields) => ((store.lists[sid]?.countsOf(item.id) ?? 0) & (inShortFields ? SHORT_FIELDS_MASK : 0xffffffff)) !== 0, query);
     }
     return {
       slug: doc.slug,

@@ -12,6 +12,9 @@ export const FIELD_COUNT = FIELDS.length;
 export const F_TITLE = 0;
 export const F_ALIASES = 1;
 export const F_TAGS = 2;
+export const F_SUMMARY = 3;
+/** Title, aliases, tags and summary in packed counts: where a thesaurus phrase counts (scoring.ts). */
+export const SHORT_FIELDS_MASK = 0xffff;
 export const F_PARAMETERS = 4;
 const TF_MAX = 15;
 /** Longest run-together pair indexed ("bluescreen", "cleanplate"); longer ones are never typed. */
@@ -59,17 +62,18 @@ export class Postings {
       else hi = mid - 1;
     }
   }
-  has(id: number): boolean {
+  /** The packed per-field counts of document `id`, 0 when the stem is not on it. */
+  countsOf(id: number): number {
     let lo = 0;
     let hi = this.n - 1;
     while (lo <= hi) {
       const mid = (lo + hi) >> 1;
       const v = this.data[mid * 2] as number;
-      if (v === id) return true;
+      if (v === id) return this.data[mid * 2 + 1] as number;
       if (v < id) lo = mid + 1;
       else hi = mid - 1;
     }
-    return false;
+    return 0;
   }
   trim(): void {
     if (this.data.length > this.n * 2 + 2) this.data = this.data.slice(0, Math.max(4, this.n * 2));

@@ -6,7 +6,7 @@
  * its kind (a synonym less than the word typed). Nothing is dropped here for matching too few words:
  * how much of the query a page covers scales its score (ranking.ts decides the order).
  */
-import { FIELD_COUNT, F_ALIASES, type PostingStore } from "./postings";
+import { FIELD_COUNT, F_ALIASES, F_SUMMARY, type PostingStore } from "./postings";
 import type { Alternative, QueryPlan } from "./query";
 
 /** Query words past this are ignored (a 200-character query has far fewer content words). */
@@ -104,7 +104,7 @@ export class Scorer {
      * computed once per stem per query: several alternatives often share a stem ("lens distortion",
      * "barrel distortion", "pincushion distortion").
      */
-    type StemScores = { ids: Uint32Array; n: number; sum: Float64Array; naming: Float64Array };
+    type StemScores = { ids: Uint32Array; n: number; sum: Float64Array; naming: Float64Array; short: Float64Array };
     const byStem = new Map<number, StemScores | null>();
     const lengths = store.lengths;
     const stemScores = (sid: number): StemScores | null => {
@@ -120,12 +120,14 @@ export class Scorer {
       const ids = new Uint32Array(n);
       const sum = new Float64Array(n);
       const naming = new Float64Array(n);
+      const short = new Float64Array(n);
       for (let k = 0; k < n; k++) {
         const id = data[k * 2] as number;
         let packed = data[k * 2 + 1] as number;
         ids[k] = id;
         let total = 0;
         let named = 0;
+        let inShort = 0;
         for (let f = 0; packed !== 0; f++, packed >>>= 4) {
           const tf = packed & 15;
           if (tf === 0) continue;
@@ -134,11 +136,13 @@ export class Scorer {
           const v = ((weights[f] as number) * tf * (K1 + 1)) / (tf + K1 * norm);
           total += v;
           if (f <= F_ALIASES) named += v;
+          if (f <= F_SUMMARY) inShort += v;
         }
         sum[k] = total;
         naming[k] = named;
+        short[k] = inShort;
       }
-      cached = { ids, n, sum, naming };
+      cached = { ids, n, sum, naming, short };
       byStem.set(sid, cached);
       return cached;
     };
@@ -196,15 +200,19 @@ export class Scorer {
         }
         // Several stems (a phrase from the thesaurus, the parts of a compound): all must be on the
         // page; the alternative scores the mean of its stems.
+        // A thesaurus phrase counts where its words are likely to stand together, in the short fields:
+        // "blue" and "backing" far apart in a body are not "blue backing".
+        const isPhrase = alt.kind === "synonym" || alt.kind === "broader";
         const altStamp = ++this.counter;
         const hits: number[] = [];
         for (const sid of alt.stems) {
           const sc = stemScores(sid);
           if (!sc) continue;
           const idf = idfOf(sid);
+          const scores = isPhrase ? sc.short : sc.sum;
           for (let k = 0; k < sc.n; k++) {
             const id = sc.ids[k] as number;
-            const s = sc.sum[k] as number;
+            const s = scores[k] as number;
             const naming = sc.naming[k] as number;
             if (s === 0) continue;
             if (this.altStamp[id] !== altStamp) {

@@ -4,7 +4,7 @@
  * Highlight ranges come from the same tokenizer and stems as the index, so they mark exactly the
  * words that matched.
  */
-import type { QueryPlan } from "./query";
+import type { Alternative, QueryPlan } from "./query";
 import type { SearchDocument, SearchField, SearchMatch, SearchVia } from "./types";
 import { tokenize, type Token } from "./text";
 
@@ -119,18 +119,20 @@ export function matchesFor(doc: SearchDocument, m: MatchedWords): { matches: Sea
  * "tracker" → "marker". A word that also matched directly (itself, its family, a correction) is not
  * listed.
  */
-export function thesaurusMatches(plan: QueryPlan, has: (stemId: number) => boolean, query: string): SearchVia[] {
+export function thesaurusMatches(plan: QueryPlan, has: (stemId: number, inShortFields: boolean) => boolean, query: string): SearchVia[] {
   const out: SearchVia[] = [];
   const direct = (kinds: string): boolean => !["synonym", "broader"].includes(kinds);
+  // Thesaurus phrases count in the short fields only, as scoring.ts counts them.
+  const found = (a: Alternative): boolean => a.stems.every((s) => has(s, !direct(a.kind) && a.stems.length > 1));
   plan.units.forEach((u) => {
-    if (u.alternatives.some((a) => direct(a.kind) && a.stems.every(has))) return;
-    const via = u.alternatives.find((a) => !direct(a.kind) && a.stems.every(has));
+    if (u.alternatives.some((a) => direct(a.kind) && found(a))) return;
+    const via = u.alternatives.find((a) => !direct(a.kind) && found(a));
     if (via) out.push({ word: query.slice(u.start, u.end), term: via.surface, kind: via.kind === "synonym" ? "synonym" : "broader" });
   });
   for (const s of plan.spans) {
     const units = plan.units.slice(s.first, s.first + s.count);
-    if (units.every((u) => u.alternatives.some((a) => direct(a.kind) && a.stems.every(has)))) continue;
-    const via = s.alternatives.find((a) => !direct(a.kind) && a.stems.every(has));
+    if (units.every((u) => u.alternatives.some((a) => direct(a.kind) && found(a)))) continue;
+    const via = s.alternatives.find((a) => !direct(a.kind) && found(a));
     const first = units[0];
     const last = units[units.length - 1];
     if (via && first && last) out.push({ word: query.slice(first.start, last.end), term: via.surface, kind: via.kind === "synonym" ? "synonym" : "broader" });
