@@ -90,4 +90,33 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
     await screenshot(senior.page, "search-request-on-senior-home");
     await senior.context.close();
   });
+
+  it("a lead adds a thesaurus entry and an artist's search uses it at once, saying through which word", async () => {
+    const lead = await signIn(running.browser, running.app.baseUrl, "lead@kestrel.test");
+    await lead.page.goto("/thesaurus");
+    const form = lead.page.getByRole("form", { name: "New thesaurus entry" });
+    await form.getByLabel("Kind").selectOption("narrower");
+    await form.getByLabel("Broader term").fill("rolling shutter");
+    await form.getByLabel("Narrower terms").fill("Judder, rubbery picture");
+    await form.getByRole("button", { name: "Add entry" }).click();
+    expect(await isShown(lead.page.getByText("Added. Search uses the new words from now on."))).toBe(true);
+    // A group of one term is refused with the reason under the field.
+    await form.getByLabel("Kind").selectOption("synonyms");
+    await form.getByLabel("Terms that mean the same").fill("lonely");
+    await form.getByRole("button", { name: "Add entry" }).click();
+    expect(await isShown(lead.page.locator("#new-terms-error"))).toBe(true);
+    await screenshot(lead.page, "thesaurus-lead");
+    await lead.context.close();
+
+    const artist = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
+    await artist.page.goto("/search?q=judder");
+    const first = artist.page.getByTestId("search-result").first();
+    await expect(first.getByRole("link").first().textContent()).resolves.toBe("Rolling shutter skew correction");
+    await expect(first.getByTestId("search-via").textContent()).resolves.toContain("“judder” found as “rolling shutter”");
+    // The thesaurus is readable, not editable, for artists.
+    await artist.page.goto("/thesaurus");
+    expect(await isShown(artist.page.getByTestId("thesaurus-entry"))).toBe(true);
+    expect(await artist.page.getByRole("form", { name: "New thesaurus entry" }).count()).toBe(0);
+    await artist.context.close();
+  });
 });
