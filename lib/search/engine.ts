@@ -18,7 +18,7 @@
  * lists per stem; typos are corrected against the vocabulary (small, so well under a millisecond).
  */
 import type { Language } from "./language";
-import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore, type AnalysedDocument } from "./postings";
+import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore } from "./postings";
 import { parseQuery, type ParseOptions, type QueryPlan } from "./query";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
 import { Scorer } from "./scoring";
@@ -55,7 +55,7 @@ const NAME_FIELDS = (1 << F_TITLE) | (1 << F_ALIASES) | (1 << F_TAGS);
 /** Ordering rules look a little past the page asked for, so a promotion from just below is not missed. */
 const RANK_LOOKAHEAD = 32;
 
-type Entry = { doc: SearchDocument; analysed: AnalysedDocument; tagIds: Int32Array; houseFor: readonly string[] };
+type Entry = { doc: SearchDocument; tagIds: Int32Array; houseFor: readonly string[] };
 type Technique = { published?: number; working?: number };
 type Filters = { audience: SearchAudience; tags: readonly string[]; status: readonly SearchStatus[] | undefined; includeRetired: boolean };
 
@@ -162,15 +162,17 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       }
       return ti;
     });
-    entries[id] = { doc: stored, analysed, tagIds, houseFor: doc.houseMethodFor };
+    // The analysis is not kept (≈5 KB a page): removal analyses the stored text again.
+    entries[id] = { doc: stored, tagIds, houseFor: doc.houseMethodFor };
     return id;
   }
 
   function removeEntry(id: number): void {
     const entry = entries[id];
     if (!entry) return;
-    store.remove(id, entry.analysed);
-    for (const s of entry.analysed.surfaces) vocab.addRef(s, -1);
+    const analysed = analyser.analyse(entry.doc);
+    store.remove(id, analysed);
+    for (const s of analysed.surfaces) vocab.addRef(s, -1);
     entries[id] = undefined;
     flags[id] = 0;
   }
