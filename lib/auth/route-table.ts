@@ -44,10 +44,10 @@ export type RouteEntry = {
   method: HttpMethod;
   access: Access;
   /**
-   * Set for reads whose rows may be private trials: a trial still is its uploader's and the
-   * leads'; anyone else gets 404, so nobody learns it exists ("still:read").
+   * Set for reads whose rows may be private trials: a trial still is its uploader's alone;
+   * anyone else (leads and admins too) gets 404, so nobody learns it exists ("still:read").
    */
-  trialStills?: { access: "owner-or-lead"; deniedAs: 404 };
+  trialStills?: { access: "owner"; deniedAs: 404 };
   /** How a refusal after the role gate answers, when not 403 (hidden as "not found"). */
   deniedAs?: 403 | 404;
   note?: string;
@@ -56,7 +56,7 @@ export type RouteEntry = {
 const SENIOR = { minRole: "senior" } as const;
 const LEAD = { minRole: "lead" } as const;
 const ADMIN = { roles: ["admin"] } as const;
-const TRIAL = { access: "owner-or-lead", deniedAs: 404 } as const;
+const TRIAL = { access: "owner", deniedAs: 404 } as const;
 
 const unknownNote = "Any unknown /api path: 404 in the API error shape, never the HTML page.";
 

@@ -1,7 +1,7 @@
 import "server-only";
 import fs from "node:fs/promises";
 import { eq, sql } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Database } from "@/db/client";
 import { stillPairs, stills, type Still } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { parseWith } from "@/lib/api/handler";
@@ -183,4 +183,20 @@ export async function deletePair(user: SessionUser, id: string): Promise<void> {
     if (!row) throw new AppError("not_found", "No pair at this address.");
     await writeAudit(tx, { actorId: user.id, action: "still_pair.delete", targetType: "still_pair", targetId: row.id, detail: { techniqueId: row.techniqueId } });
   });
+}
+
+type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+/**
+ * Shares a private trial by copy: a new still row (owner "use") over the same stored file, so
+ * those who read the use log see it while the trial itself stays its uploader's alone. Only the
+ * uploader may share their trial; pass the transaction that writes the use log.
+ */
+export async function copyTrialForUse(tx: Tx, user: SessionUser, trial: Still): Promise<Still> {
+  if (trial.owner !== "trial" || trial.uploaderId !== user.id) throw new AppError("not_found", "No still at this address.");
+  const { id: _id, createdAt: _createdAt, ...fields } = trial;
+  const [copy] = await tx.insert(stills).values({ ...fields, owner: "use", techniqueId: null }).returning();
+  if (!copy) throw new Error("Insert returned no row.");
+  await writeAudit(tx, { actorId: user.id, action: "still.share", targetType: "still", targetId: copy.id, detail: { from: trial.id, sha256: trial.sha256 } });
+  return copy;
 }

@@ -35,7 +35,7 @@ function techniqueVisible(user: SessionUser, t: { approvedRevisionId: string | n
 }
 
 /**
- * Whether this person may see this still: private trials only their uploader and leads
+ * Whether this person may see this still: a private trial only its uploader
  * (lib/auth/permissions.ts "still:read"); stills tied to a technique whoever may see the
  * technique; the uploader always sees their own.
  */
