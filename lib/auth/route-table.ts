@@ -66,6 +66,7 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { path: "/api/auth/[...nextauth]", method: "GET", access: "public", note: "Auth.js: csrf, session, providers." },
   { path: "/api/auth/[...nextauth]", method: "POST", access: "public", note: "Auth.js sign-in/out; credentials sign-in is rate limited." },
   { path: "/api/health", method: "GET", access: "public" },
+  { path: "/api/password-resets", method: "POST", access: "public", note: "Same answer for every address; limited per e-mail and per client address." },
   { path: "/api/unsubscribe", method: "GET", access: "public", note: "Redirects to the confirmation page; changes nothing." },
   { path: "/api/unsubscribe", method: "POST", access: "public", note: "RFC 8058 one-click: the signed token in the URL is the only authority." },
 

@@ -119,6 +119,7 @@ function cases(): Record<string, Case> {
   const stillOf = async (owner?: TestPerson) => (owner ? uploadStill(owner, { owner: "trial" }) : w.still);
   const c: Record<string, Case> = {
     "GET /api/health": { ok: 200, prep: async () => ({ url: "/api/health" }) },
+    "POST /api/password-resets": { ok: 202, prep: async () => ({ url: "/api/password-resets", body: { email: `someone-${crypto.randomUUID()}@kestrel.test` } }) },
     "GET /api/unsubscribe": { ok: 303, prep: async () => ({ url: "/api/unsubscribe?token=abc" }) },
     "POST /api/unsubscribe": {
       ok: 200,
