@@ -1,10 +1,12 @@
 import "server-only";
+import crypto from "node:crypto";
 import fs from "node:fs/promises";
 import sharp, { type Metadata } from "sharp";
 import { AppError } from "@/lib/api/errors";
 import { decodeStill } from "@/lib/lab/engine";
 import { megapixels, STILL_PIXEL_LIMIT } from "@/lib/stills/limits";
 import type { StillFormat } from "@/lib/stills/schemas";
+import { StripError, stripMetadata } from "@/lib/stills/strip-metadata";
 
 /** Decompression-bomb guard, the same limit the lab opens up to (lib/stills/limits.ts). */
 export const PIXEL_LIMIT = STILL_PIXEL_LIMIT;
@@ -144,4 +146,31 @@ export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
     throw new AppError("unsupported_type", "The still lab cannot open this image; export it as 8- or 16-bit RGB or grey.", { cause: error });
   }
   return { format: sniffed, width, height, bitDepth, channels: channels as StillFacts["channels"], space: meta.space ?? "srgb" };
+}
+
+export type PreparedOriginal = { facts: StillFacts; path: string; sha256: string; size: number };
+
+/**
+ * The original as it will be stored: identifying metadata removed (lib/stills/strip-metadata.ts),
+ * then checked like any upload. Writes the cleaned bytes to `target` (a fresh incoming path,
+ * created here); the caller owns it. A file whose structure cannot be taken apart is refused
+ * with the message its decode gives, or 415 if it decodes.
+ */
+export async function prepareOriginal(file: string, target: string): Promise<PreparedOriginal> {
+  const sniffed = sniffFormat(await readHead(file));
+  if (!sniffed) {
+    await inspectStill(file);
+    throw new AppError("unsupported_type", `This is not a ${ALLOWED_LIST} image.`);
+  }
+  let cleaned: Buffer;
+  try {
+    cleaned = stripMetadata(await fs.readFile(file), sniffed);
+  } catch (error) {
+    if (!(error instanceof StripError)) throw error;
+    await inspectStill(file);
+    throw new AppError("unsupported_type", "Plateroom cannot take this file's metadata apart from its pixels; export it again as a plain file.", { cause: error });
+  }
+  const facts = await inspectStill(cleaned);
+  await fs.writeFile(target, cleaned, { flag: "wx", mode: 0o600 });
+  return { facts, path: target, sha256: crypto.createHash("sha256").update(cleaned).digest("hex"), size: cleaned.length };
 }

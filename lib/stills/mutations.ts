@@ -9,7 +9,7 @@ import { writeAudit } from "@/lib/audit/log";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { requireVisibleTechnique } from "@/lib/techniques/queries";
-import { inspectStill } from "@/lib/stills/inspect";
+import { prepareOriginal } from "@/lib/stills/inspect";
 import { getStillForRead, referencedHashes, toStillResponse } from "@/lib/stills/queries";
 import {
   createPairSchema,
@@ -20,7 +20,7 @@ import {
   type StillPairResponse,
   type StillRole,
 } from "@/lib/stills/schemas";
-import { ensureDerived, removeStored, storeOriginal } from "@/lib/stills/storage";
+import { ensureDerived, newIncomingPath, removeStored, storeOriginal } from "@/lib/stills/storage";
 
 export type CreateStillInput = {
   /** A received upload: temp file path, its sha256 and size. createStill consumes the file. */
@@ -55,10 +55,12 @@ function withHashLock<T>(sha: string, work: () => Promise<T>): Promise<T> {
 /**
  * Stores one uploaded still and records it. Seniors and up attach stills to techniques;
  * anyone signed in uploads stills for their use logs and private trials. The file is
- * checked by content, moved to its content address (atomic), previews made, then the row
- * written; on any failure the temp file is gone and no row or unreferenced file remains.
+ * stripped of identifying metadata and checked by content, moved to the content address of
+ * what remains (atomic), previews made, then the row written; on any failure the temp files
+ * are gone and no row or unreferenced file remains.
  */
 export async function createStill(user: SessionUser, input: CreateStillInput, options: { root?: string } = {}): Promise<StillCreatedResponse> {
+  const cleanPath = await newIncomingPath(options.root);
   try {
     const fields = parseWith(stillFieldsSchema, {
       alt: input.alt,
@@ -74,24 +76,24 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
       throw new AppError("validation_failed", "Name the technique this still belongs to.", { fields: { technique: "Required for technique stills." } });
     }
     const technique = fields.technique ? (await requireVisibleTechnique(user, fields.technique)).technique : null;
-    const facts = await inspectStill(input.file.path);
+    const { facts, ...stored } = await prepareOriginal(input.file.path, cleanPath);
 
-    return await withHashLock(input.file.sha256, async () => {
-      await storeOriginal(input.file.path, input.file.sha256, options.root);
+    return await withHashLock(stored.sha256, async () => {
+      await storeOriginal(stored.path, stored.sha256, options.root);
       let row: Still;
       try {
-        await ensureDerived(input.file.sha256, options.root);
+        await ensureDerived(stored.sha256, options.root);
         row = await getDb().transaction(async (tx) => {
           const [inserted] = await tx
             .insert(stills)
             .values({
-              sha256: input.file.sha256,
+              sha256: stored.sha256,
               width: facts.width,
               height: facts.height,
               format: facts.format,
               bitDepth: facts.bitDepth,
               channels: facts.channels,
-              sizeBytes: input.file.size,
+              sizeBytes: stored.size,
               originalName: input.file.originalName ?? "",
               uploaderId: user.id,
               alt: fields.alt,
@@ -108,14 +110,14 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
             action: "still.upload",
             targetType: "still",
             targetId: inserted.id,
-            detail: { owner, techniqueId: technique?.id ?? null, sha256: input.file.sha256, sizeBytes: input.file.size },
+            detail: { owner, techniqueId: technique?.id ?? null, sha256: stored.sha256, sizeBytes: stored.size },
           });
           return inserted;
         });
       } catch (error) {
         // Leave no file behind that no row points at; a shared file stays for its other rows.
-        const inUse = await referencedHashes([input.file.sha256]).catch(() => new Set([input.file.sha256]));
-        if (!inUse.has(input.file.sha256)) await removeStored(input.file.sha256, options.root);
+        const inUse = await referencedHashes([stored.sha256]).catch(() => new Set([stored.sha256]));
+        if (!inUse.has(stored.sha256)) await removeStored(stored.sha256, options.root);
         throw error;
       }
       return {
@@ -130,6 +132,7 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
     });
   } finally {
     await fs.rm(input.file.path, { force: true });
+    await fs.rm(cleanPath, { force: true });
   }
 }
 
