@@ -241,9 +241,14 @@ function readUnsigned(entry: TiffEntry, i: number, le: boolean): number {
 }
 
 function writeUnsigned(buf: Buffer, at: number, value: number, size: number, le: boolean): void {
-  if (size === 2) le ? buf.writeUInt16LE(value, at) : buf.writeUInt16BE(value, at);
-  else if (size === 4) le ? buf.writeUInt32LE(value, at) : buf.writeUInt32BE(value, at);
-  else le ? buf.writeBigUInt64LE(BigInt(value), at) : buf.writeBigUInt64BE(BigInt(value), at);
+  if (size === 2) {
+    if (le) buf.writeUInt16LE(value, at);
+    else buf.writeUInt16BE(value, at);
+  } else if (size === 4) {
+    if (le) buf.writeUInt32LE(value, at);
+    else buf.writeUInt32BE(value, at);
+  } else if (le) buf.writeBigUInt64LE(BigInt(value), at);
+  else buf.writeBigUInt64BE(BigInt(value), at);
 }
 
 // ---- WebP (RIFF container, RFC 9649) ----
