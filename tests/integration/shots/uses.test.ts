@@ -218,15 +218,15 @@ describe("shot page and follow-up", () => {
     const created = await logUse(approved.slug, ann, { shot: "SLM_050_0010", outcome: "clean", beforeStill: before.id, afterStill: trial.id });
     expect(created.status).toBe(201);
     const id = ((await created.json()) as UseResponse).id;
-    const useOnShot = async (as: Person) => {
+    const usesOnShot = async (as: Person) => {
       const res = await shotRoute.GET(request("GET", "/api/shots/SLM_050_0010", { as }), ctx({ code: "SLM_050_0010" }));
       return ((await res.json()) as ShotDetailResponse).uses.find((u) => u.id === id)!;
     };
-    const shared = (await useOnShot(ann)).afterStill;
+    const shared = (await usesOnShot(ann)).afterStill;
     expect(shared).not.toBeNull();
     expect(shared).not.toBe(trial.id);
     for (const reader of [ann, lead, bob]) {
-      expect(await useOnShot(reader)).toMatchObject({ beforeStill: before.id, beforeStillAlt: before.alt, afterStill: shared, afterStillAlt: trial.alt });
+      expect(await usesOnShot(reader)).toMatchObject({ beforeStill: before.id, beforeStillAlt: before.alt, afterStill: shared, afterStillAlt: trial.alt });
     }
     const [copy] = await getDb().select().from(stills).where(eq(stills.id, shared!));
     expect(copy).toMatchObject({ owner: "use", sha256: trial.sha256, uploaderId: ann.id });
