@@ -7,7 +7,7 @@ import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { shotsToCsv } from "@/lib/shots/csv";
-import { requireVisibleTechnique, visibleRevisionId } from "@/lib/techniques/queries";
+import { requireVisibleTechnique, techniqueRowById, visibleRevisionId } from "@/lib/techniques/queries";
 import {
   type FollowUp,
   type FollowUpShot,
@@ -316,7 +316,7 @@ export async function listUsesForTechnique(
 ): Promise<{ items: UseResponse[]; total: number }> {
   assertCan(actor, "technique:read");
   const db = getDb();
-  const [t] = await db.select().from(techniques).where(eq(techniques.id, techniqueId)).limit(1);
+  const t = await techniqueRowById(techniqueId);
   if (!t || !isTechniqueVisible(actor, t)) throw new AppError("not_found", "No such technique.");
   const ref = (await techniqueRefs(actor, [t])).get(t.id)!;
 
