@@ -193,7 +193,7 @@ describe("every JSON route's handler under arbitrary and mutated bodies", () => 
   it("covers every route that reads a JSON body", () => {
     const fuzzed = new Set(targets().map((t) => `${t.method} ${t.path}`));
     expect([...fuzzed].sort()).toEqual([...FUZZED].sort());
-    // Routes whose handlers call parseJson, from the route table (kept in step by hand; a new JSON route belongs here).
+    // Routes whose handlers read a JSON body (`json()`), from the route table (kept in step by hand; a new JSON route belongs here).
     const jsonRoutes = ROUTE_TABLE.filter((e) => ["POST", "PUT", "PATCH", "DELETE"].includes(e.method)).map((e) => `${e.method} ${e.path}`);
     const bodyless = new Set([
       "POST /api/[...unknown]", "PUT /api/[...unknown]", "PATCH /api/[...unknown]", "DELETE /api/[...unknown]",
