@@ -4,7 +4,7 @@ import crypto from "node:crypto";
 import { inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { users } from "@/db/schema";
-import { DEMO_TECHNIQUES, type DemoTechnique } from "@/db/seed-data/techniques";
+import { DEMO_TECHNIQUES, type DemoTechnique } from "@/scripts/seed/data/techniques";
 import type { SessionUser } from "@/lib/auth/roles";
 import { runRecipe } from "@/lib/lab/engine";
 import { recipeSchema, type RecipeStep } from "@/lib/lab/recipe";

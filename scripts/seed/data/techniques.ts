@@ -1,5 +1,5 @@
 import type { BlockNode, TechniqueDocument } from "@/lib/techniques/document";
-import { b, caution, codeBlock, doc, fails, h2, h3, i, link, ol, p, table, ul, works } from "@/db/seed-data/doc";
+import { b, caution, codeBlock, doc, fails, h2, h3, i, link, ol, p, table, ul, works } from "@/scripts/seed/data/doc";
 
 /*
  * Demo techniques for Kestrel Yard's paint and prep department. Invented write-ups in our own

@@ -2,7 +2,7 @@ import crypto from "node:crypto";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { BODY_LIMITS } from "@/lib/api/body-limits";
-import { ROUTE_TABLE, rolesPassing, routeFileOf, type RouteEntry } from "@/lib/auth/route-table";
+import { ROUTE_TABLE, rolesPassing, routeFileOf, type RouteEntry } from "@/tests/integration/security/route-table";
 import { MAX_UPLOAD_BODY_BYTES } from "@/lib/stills/upload";
 import { createPerson, params, type TestPerson } from "@/tests/factories";
 import { expectErrorShape } from "./world";

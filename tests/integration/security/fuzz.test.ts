@@ -1,7 +1,7 @@
 import path from "node:path";
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { ROUTE_TABLE, routeFileOf } from "@/lib/auth/route-table";
+import { ROUTE_TABLE, routeFileOf } from "@/tests/integration/security/route-table";
 import { createUnsubscribeToken } from "@/lib/mail/unsubscribe";
 import { createRequest } from "@/lib/requests";
 import { askQuestion } from "@/lib/questions";

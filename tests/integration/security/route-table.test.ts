@@ -12,7 +12,7 @@ import {
   rolesPassing,
   routeFileOf,
   type RouteEntry,
-} from "@/lib/auth/route-table";
+} from "@/tests/integration/security/route-table";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { createUnsubscribeToken } from "@/lib/mail/unsubscribe";
 import { createApiToken } from "@/lib/people/mutations";
@@ -37,7 +37,7 @@ import {
 } from "./world";
 
 /*
- * Access control, complete (issue 9). Every route in lib/auth/route-table.ts is called as signed
+ * Access control, complete (issue 9). Every route in tests/integration/security/route-table.ts is called as signed
  * out, artist, senior, lead and admin, and as owner and non-owner where ownership decides.
  * Source: OWASP ASVS 4.0.3 V4.1.1 (access rules enforced on the server side, on every request)
  * and V4.1.3/V4.1.5 (least privilege, deny by default, fail securely) — section numbers from memory.
@@ -86,7 +86,7 @@ describe("the route table is complete (a new route missing from it fails here)",
     for (const file of files) for (const m of await declaredMethods(file)) inCode.add(`${m} ${file}`);
     const inTable = new Set(ROUTE_TABLE.map((e) => `${e.method} ${routeFileOf(e.path)}`));
     // Deny by default (ASVS V4.1.3, from memory): a handler nobody classified is a defect.
-    expect([...inCode].filter((k) => !inTable.has(k)), "declared but not in lib/auth/route-table.ts").toEqual([]);
+    expect([...inCode].filter((k) => !inTable.has(k)), "declared but not in tests/integration/security/route-table.ts").toEqual([]);
     expect([...inTable].filter((k) => !inCode.has(k)), "in the table but not declared").toEqual([]);
     expect(ROUTE_TABLE.length).toBe(inTable.size);
   });
@@ -467,7 +467,7 @@ async function expectStatus(res: Response, status: number, label: string): Promi
 beforeAll(async () => {
   folders = useTempFolders();
   w = await buildWorld();
-  // One received message in the local inbox, as lib/mail/fake-smtp.ts files them.
+  // One received message in the local inbox, as scripts/fake-smtp/server.ts files them.
   const inbox = path.join(folders.data, "mail-inbox");
   fs.mkdirSync(inbox, { recursive: true });
   fs.writeFileSync(
