@@ -1,7 +1,8 @@
 import "server-only";
 import type { SessionUser } from "@/lib/auth/roles";
 import { diffRevisions, type FieldDiff } from "@/lib/techniques/diff";
-import { getRevisionsByNumber, loadTagMap } from "@/lib/techniques/queries";
+import { loadTagMap } from "@/lib/tags/queries";
+import { getRevisionsByNumber } from "@/lib/techniques/queries";
 
 export type RevisionDiffResponse = { slug: string; from: number; to: number; fields: FieldDiff[] };
 

@@ -1,16 +1,16 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { getDb, type Database } from "@/db/client";
-import { houseMethods, revisions, tags, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
+import { houseMethods, revisions, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { emptyDocument, type TechniqueDocument } from "@/lib/techniques/document";
 import type { RecipeStep } from "@/lib/lab/recipe";
+import { loadTagMap, tagRefs } from "@/lib/tags/queries";
 import type {
   PersonRef,
   RevisionSummary,
-  TagRef,
   TechniqueListItem,
   TechniqueResponse,
   TechniqueStatus,
@@ -19,18 +19,6 @@ import type {
 /** Seniors and leads work on the newest revision; everyone else reads the approved one. */
 export function readsWorkingCopy(user: SessionUser): boolean {
   return can(user, "technique:read-working");
-}
-
-export async function loadTagMap(): Promise<Map<string, TagRef & { id: string }>> {
-  const rows = await getDb().select({ id: tags.id, slug: tags.slug, name: tags.name, kind: tags.kind }).from(tags);
-  return new Map(rows.map((t) => [t.id, t]));
-}
-
-export function tagRefs(tagIds: string[], tagMap: Map<string, TagRef & { id: string }>): TagRef[] {
-  return tagIds
-    .map((id) => tagMap.get(id))
-    .filter((t): t is TagRef & { id: string } => Boolean(t))
-    .map(({ slug, name, kind }) => ({ slug, name, kind }));
 }
 
 async function people(ids: (string | null | undefined)[]): Promise<Map<string, { id: string; name: string }>> {
@@ -262,18 +250,4 @@ export async function getRevisionsByNumber(user: SessionUser, slug: string, numb
     if (!r) throw new AppError("not_found", `No revision ${n} of this technique.`);
     return r;
   });
-}
-
-export async function listTags(): Promise<Array<TagRef & { id: string; description: string; aliases: string[] }>> {
-  return getDb()
-    .select({ id: tags.id, slug: tags.slug, name: tags.name, kind: tags.kind, description: tags.description, aliases: tags.aliases })
-    .from(tags)
-    .orderBy(asc(tags.kind), asc(tags.name));
-}
-
-export async function getTag(slug: string) {
-  const [tag] = await getDb().select().from(tags).where(eq(tags.slug, slug)).limit(1);
-  if (!tag) throw new AppError("not_found", "No such tag.");
-  const [house] = await getDb().select().from(houseMethods).where(eq(houseMethods.tagId, tag.id)).limit(1);
-  return { tag, houseMethodTechniqueId: house?.techniqueId ?? null };
 }

@@ -1,10 +1,10 @@
 import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { createTag } from "@/lib/tags/mutations";
+import { listTags } from "@/lib/tags/queries";
 import { tagInputSchema } from "@/lib/tags/schemas";
-import { listTags } from "@/lib/techniques/queries";
 
-export const GET = authedRoute("technique:read", async () => {
-  return Response.json({ items: (await listTags()).map(({ id: _id, ...t }) => t) });
+export const GET = authedRoute(async (req, { user }) => {
+  return Response.json({ items: (await listTags(user)).map(({ id: _id, ...t }) => t) });
 });
 
 export const POST = authedRoute("tag:manage", async (req, { user, json }) => {
