@@ -1,7 +1,8 @@
 import { z } from "zod";
 import { authedRoute, otherMethods, parseWith, searchParamsOf } from "@/lib/api/handler";
-import { createRequest, listRequests } from "@/lib/requests";
-import { requestSchema } from "@/lib/techniques/schemas";
+import { createRequest } from "@/lib/requests/mutations";
+import { listRequests } from "@/lib/requests/queries";
+import { requestSchema } from "@/lib/requests/schemas";
 
 const listSchema = z.object({ scope: z.enum(["open", "mine"]).default("open") });
 

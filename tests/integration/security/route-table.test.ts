@@ -16,8 +16,8 @@ import {
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { createUnsubscribeToken } from "@/lib/mail/unsubscribe";
 import { createApiToken } from "@/lib/people/mutations";
-import { askQuestion } from "@/lib/questions";
-import { createRequest } from "@/lib/requests";
+import { askQuestion } from "@/lib/questions/mutations";
+import { createRequest } from "@/lib/requests/mutations";
 import { logUse } from "@/lib/shots/mutations";
 import { createPair } from "@/lib/stills/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";

@@ -1,7 +1,7 @@
 import { BODY_LIMITS } from "@/lib/api/body-limits";
 import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
-import { answerQuestion } from "@/lib/questions";
-import { answerSchema } from "@/lib/techniques/schemas";
+import { answerQuestion } from "@/lib/questions/mutations";
+import { answerSchema } from "@/lib/questions/schemas";
 
 export const POST = authedRoute<{ id: string }>({ bodyLimit: BODY_LIMITS.document }, async (req, { user, params, json }) => {
   const id = parseWith(uuidParam, params.id);

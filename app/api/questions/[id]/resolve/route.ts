@@ -1,5 +1,5 @@
 import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
-import { resolveQuestion } from "@/lib/questions";
+import { resolveQuestion } from "@/lib/questions/mutations";
 
 export const POST = authedRoute<{ id: string }>(async (req, { user, params }) => {
   await resolveQuestion(user, parseWith(uuidParam, params.id));

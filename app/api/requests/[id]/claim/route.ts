@@ -1,5 +1,5 @@
 import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
-import { claimRequest } from "@/lib/requests";
+import { claimRequest } from "@/lib/requests/mutations";
 
 export const POST = authedRoute<{ id: string }>("request:claim", async (req, { user, params }) => {
   await claimRequest(user, parseWith(uuidParam, params.id));

@@ -1,7 +1,8 @@
 import { BODY_LIMITS } from "@/lib/api/body-limits";
 import { authedRoute, otherMethods } from "@/lib/api/handler";
-import { askQuestion, listQuestions } from "@/lib/questions";
-import { questionSchema } from "@/lib/techniques/schemas";
+import { askQuestion } from "@/lib/questions/mutations";
+import { listQuestions } from "@/lib/questions/queries";
+import { questionSchema } from "@/lib/questions/schemas";
 
 export const GET = authedRoute<{ slug: string }>(async (req, { user, params }) => {
   return Response.json({ items: await listQuestions(user, params.slug) });
