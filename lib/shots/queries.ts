@@ -7,7 +7,7 @@ import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { shotsToCsv } from "@/lib/shots/csv";
-import { requireVisibleTechnique, visibleRevisionId } from "@/lib/techniques/queries";
+import { isTechniqueVisible, requireVisibleTechnique, visibleRevisionId } from "@/lib/techniques/queries";
 import {
   type FollowUp,
   type FollowUpShot,
@@ -60,11 +60,6 @@ export function toShotResponse(s: Shot, showCode: string): ShotResponse {
 }
 
 // ---- techniques: lookup and visibility come from the technique DAL ----
-
-/** Seniors and leads read working copies; everyone else sees a technique once it has an approved revision. */
-export function isTechniqueVisible(actor: SessionUser, t: Technique): boolean {
-  return visibleRevisionId(actor, t) !== null;
-}
 
 async function titlesOf(revisionIds: string[]): Promise<Map<string, string>> {
   const ids = [...new Set(revisionIds)];

@@ -49,9 +49,17 @@ export async function findTechniqueBySlug(
 }
 
 /** The revision this person should see, or null when the technique is not visible to them. */
-export function visibleRevisionId(user: SessionUser, t: Technique): string | null {
+export function visibleRevisionId(user: SessionUser, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId">): string | null {
   if (readsWorkingCopy(user)) return t.latestRevisionId ?? t.approvedRevisionId;
   return t.approvedRevisionId;
+}
+
+/**
+ * The one visibility rule for a technique and what hangs off it (stills, pairs, use logs):
+ * seniors and leads read working copies; everyone else sees it once it has an approved revision.
+ */
+export function isTechniqueVisible(user: SessionUser, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId">): boolean {
+  return visibleRevisionId(user, t) !== null;
 }
 
 /** Resolves a slug to a technique this person may see; 404 otherwise (no hint that drafts exist). */
