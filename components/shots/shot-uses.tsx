@@ -11,7 +11,7 @@ import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Field, TextArea } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import { USE_OUTCOME_LABELS, type ShotUseResponse, type UpdateUseInput, type UseOutcome, type UseResponse } from "@/lib/shots/schemas";
+import { USE_OUTCOME_LABELS, type ShotUseResponse, type UpdateUseInput, type UseOutcome, type UseResponse } from "@/lib/uses/schemas";
 import { formatDate } from "@/lib/utils";
 import { OutcomeRadios } from "@/components/shots/outcome-radios";
 

@@ -1,18 +1,6 @@
 import Papa from "papaparse";
-import {
-  compileShotPattern,
-  sequenceFromCode,
-  shotRowSchema,
-  SHOT_FIELD_LABELS,
-  SHOT_FIELDS,
-  type ColumnMapping,
-  type ImportPlan,
-  type ImportRowError,
-  type PlannedShot,
-  type ShotChange,
-  type ShotField,
-  type ShotState,
-} from "@/lib/shots/schemas";
+import { sequenceFromCode, shotRowSchema, SHOT_FIELD_LABELS, SHOT_FIELDS, type ColumnMapping, type ImportPlan, type ImportRowError, type PlannedShot, type ShotChange, type ShotField, type ShotState } from "@/lib/shots/schemas";
+import { compileShotPattern } from "@/lib/shows/schemas";
 
 /*
  * Shot lists as CSV: reading (with the lead's column mapping), planning an import against the

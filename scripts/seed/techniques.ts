@@ -9,7 +9,7 @@ import type { SessionUser } from "@/lib/auth/roles";
 import { runRecipe } from "@/lib/lab/engine";
 import { recipeSchema, type RecipeStep } from "@/lib/lab/recipe";
 import { demoCleanupRecipe, generateSyntheticPlate } from "@/lib/lab/synthetic";
-import { logUse } from "@/lib/shots/mutations";
+import { logUse } from "@/lib/uses/mutations";
 import { createPair, createStill } from "@/lib/stills/mutations";
 import { newIncomingPath } from "@/lib/stills/storage";
 import { createTechnique, retireTechnique, reviewTechnique, setHouseMethod, submitTechnique, updateTechnique } from "@/lib/techniques/mutations";

@@ -1,7 +1,7 @@
 import { authedRoute, otherMethods } from "@/lib/api/handler";
-import { createShow } from "@/lib/shots/mutations";
-import { listShows } from "@/lib/shots/queries";
-import { createShowSchema, type ShowResponse, type ShowsResponse } from "@/lib/shots/schemas";
+import { createShow } from "@/lib/shows/mutations";
+import { listShows } from "@/lib/shows/queries";
+import { createShowSchema, type ShowResponse, type ShowsResponse } from "@/lib/shows/schemas";
 
 export const GET = authedRoute(async (req, { user }) => {
   return Response.json({ items: await listShows(user) } satisfies ShowsResponse);

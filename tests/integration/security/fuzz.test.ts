@@ -5,7 +5,7 @@ import { ROUTE_TABLE, routeFileOf } from "@/tests/integration/security/route-tab
 import { createUnsubscribeToken } from "@/lib/mail/unsubscribe";
 import { createRequest } from "@/lib/requests/mutations";
 import { askQuestion } from "@/lib/questions/mutations";
-import { logUse } from "@/lib/shots/mutations";
+import { logUse } from "@/lib/uses/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
 import { createPerson, params, simpleDoc, type TestPerson } from "@/tests/factories";
 import { approvedTechnique, buildWorld, draftTechnique, expectErrorShape, inReviewTechnique, uniq, useTempFolders, type World } from "./world";

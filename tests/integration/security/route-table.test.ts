@@ -18,7 +18,7 @@ import { createUnsubscribeToken } from "@/lib/mail/unsubscribe";
 import { createApiToken } from "@/lib/people/mutations";
 import { askQuestion } from "@/lib/questions/mutations";
 import { createRequest } from "@/lib/requests/mutations";
-import { logUse } from "@/lib/shots/mutations";
+import { logUse } from "@/lib/uses/mutations";
 import { createPair } from "@/lib/stills/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
 import { createPerson, params, sessionCookie, simpleDoc, type TestPerson } from "@/tests/factories";

@@ -9,7 +9,9 @@ import { documentToPlainText } from "@/lib/techniques/plain-text";
 import { createTechniqueSchema, updateTechniqueSchema } from "@/lib/techniques/schemas";
 import { slugify } from "@/lib/techniques/slug";
 import { tagInputSchema } from "@/lib/tags/schemas";
-import { logUseSchema, shotRowSchema, showSchema } from "@/lib/shots/schemas";
+import { shotRowSchema } from "@/lib/shots/schemas";
+import { showSchema } from "@/lib/shows/schemas";
+import { logUseSchema } from "@/lib/uses/schemas";
 import { MARKER_COLOURS, SCREEN_COLOURS } from "@/lib/lab/synthetic";
 import { solveRow } from "@/lib/lab/solver";
 

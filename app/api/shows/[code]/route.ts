@@ -1,7 +1,7 @@
 import { authedRoute, otherMethods } from "@/lib/api/handler";
-import { updateShow } from "@/lib/shots/mutations";
-import { getShow } from "@/lib/shots/queries";
-import { updateShowSchema, type ShowResponse } from "@/lib/shots/schemas";
+import { updateShow } from "@/lib/shows/mutations";
+import { getShow } from "@/lib/shows/queries";
+import { updateShowSchema, type ShowResponse } from "@/lib/shows/schemas";
 
 type Params = { code: string };
 

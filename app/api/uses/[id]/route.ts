@@ -1,7 +1,7 @@
 import { authedRoute, otherMethods } from "@/lib/api/handler";
-import { deleteUse, updateUse } from "@/lib/shots/mutations";
-import { getUse } from "@/lib/shots/queries";
-import { updateUseSchema, type UseResponse } from "@/lib/shots/schemas";
+import { deleteUse, updateUse } from "@/lib/uses/mutations";
+import { getUse } from "@/lib/uses/queries";
+import { updateUseSchema, type UseResponse } from "@/lib/uses/schemas";
 
 type Params = { id: string };
 

@@ -1,7 +1,7 @@
 import { authedRoute, otherMethods, parseWith, searchParamsOf } from "@/lib/api/handler";
-import { logUse } from "@/lib/shots/mutations";
-import { listTechniqueUses } from "@/lib/shots/queries";
-import { listUsesQuerySchema, logUseSchema, type TechniqueUsesResponse, type UseResponse } from "@/lib/shots/schemas";
+import { logUse } from "@/lib/uses/mutations";
+import { listTechniqueUses } from "@/lib/uses/queries";
+import { listUsesQuerySchema, logUseSchema, type TechniqueUsesResponse, type UseResponse } from "@/lib/uses/schemas";
 
 type Params = { slug: string };
 
