@@ -10,7 +10,7 @@ const PUBLIC_PATHS = ["/login", "/set-password", "/forgot-password", "/unsubscri
  * scripts, and 'strict-dynamic' lets those load the rest. No 'unsafe-eval' outside development
  * (React's dev tooling needs it there).
  */
-export function contentSecurityPolicy(nonce: string, isDev = process.env.NODE_ENV === "development"): string {
+function contentSecurityPolicy(nonce: string, isDev = process.env.NODE_ENV === "development"): string {
   return [
     "default-src 'self'",
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${isDev ? " 'unsafe-eval'" : ""}`,

@@ -24,7 +24,7 @@ const envSchema = z.object({
   PLATEROOM_MAIL_SENDER: z.enum(["on", "off"]).default("on"),
 });
 
-export type Env = z.infer<typeof envSchema>;
+type Env = z.infer<typeof envSchema>;
 
 function readEnv(): Env {
   if (process.env.SKIP_ENV_VALIDATION) return envSchema.parse({});

@@ -18,7 +18,7 @@ import { OutcomeRadios } from "@/components/shots/outcome-radios";
 const OUTCOME_TONE = { clean: "ok", "touch-up": "warn", failed: "bad" } as const;
 
 /** The changes an edit makes, and nothing else: an untouched field is not sent. */
-export function editBody(
+function editBody(
   use: Pick<ShotUseResponse, "outcome" | "note" | "beforeStill" | "afterStill">,
   edit: { outcome: UseOutcome; note: string; dropBefore: boolean; dropAfter: boolean },
 ): UpdateUseInput | null {

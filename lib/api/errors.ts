@@ -1,7 +1,7 @@
 import type { z } from "zod";
 
 /** Error codes of the API contract (shared/API.md) with their HTTP status. */
-export const ERROR_STATUS = {
+const ERROR_STATUS = {
   validation_failed: 400,
   bad_request: 400,
   unauthorized: 401,

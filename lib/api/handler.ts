@@ -24,16 +24,16 @@ import { requireUser } from "@/lib/auth/session";
 
 const DECLARABLE = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 type Declarable = (typeof DECLARABLE)[number];
-export const ROUTE_METHODS = ["GET", "HEAD", "OPTIONS", "POST", "PUT", "PATCH", "DELETE"] as const;
-export type RouteMethod = (typeof ROUTE_METHODS)[number];
+const ROUTE_METHODS = ["GET", "HEAD", "OPTIONS", "POST", "PUT", "PATCH", "DELETE"] as const;
+type RouteMethod = (typeof ROUTE_METHODS)[number];
 
 /** What Next.js passes a route handler besides the request. */
-export type RouteContext<P> = { params: Promise<P> };
+type RouteContext<P> = { params: Promise<P> };
 // The context is optional for callers (tests, the catch-all); Next.js always passes it.
-export type RouteHandler<P = Record<string, never>> = (req: Request, ctx?: RouteContext<P>) => Promise<Response>;
+type RouteHandler<P = Record<string, never>> = (req: Request, ctx?: RouteContext<P>) => Promise<Response>;
 
 /** The request body, read only when asked for and never past the route's limit. */
-export type BodyReaders = {
+type BodyReaders = {
   /** The JSON body validated by `schema`: 415 for another content type, 400 for bad JSON or shape, 413 when too large. */
   json<S extends z.ZodType>(schema: S): Promise<z.infer<S>>;
   /** The body as UTF-8 text (e.g. a CSV upload). */
@@ -43,10 +43,10 @@ export type BodyReaders = {
   /** The raw bytes. */
   bytes(): Promise<Uint8Array<ArrayBuffer>>;
 };
-export type PublicContext<P> = BodyReaders & { params: P };
-export type AuthedContext<P> = PublicContext<P> & { user: SessionUser };
+type PublicContext<P> = BodyReaders & { params: P };
+type AuthedContext<P> = PublicContext<P> & { user: SessionUser };
 
-export type RouteOptions = {
+type RouteOptions = {
   /** Checked after sign-in and before the body is read: a role that may not act gets 403, never field errors. */
   permission?: Permission;
   /** Bytes of body this route reads at most (lib/api/body-limits.ts); default BODY_LIMITS.json. */
@@ -174,7 +174,7 @@ function refuseDeclaredTooLarge(req: Request, limit: number): void {
  * The body, counted while it streams in: the moment it passes `limit` the stream is cancelled
  * and 413 thrown, so an oversized body is never held in memory (issue 19: 300 MB bodies were).
  */
-export async function readBody(req: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
+async function readBody(req: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
   refuseDeclaredTooLarge(req, limit);
   if (!req.body) return new Uint8Array();
   const reader = req.body.getReader();
@@ -201,7 +201,7 @@ export async function readBody(req: Request, limit: number): Promise<Uint8Array<
 }
 
 /** Reads (up to `limit` bytes) and validates a JSON body; malformed JSON and wrong shapes are 400 with field messages. */
-export async function readJson<S extends z.ZodType>(req: Request, schema: S, limit: number = BODY_LIMITS.json): Promise<z.infer<S>> {
+async function readJson<S extends z.ZodType>(req: Request, schema: S, limit: number = BODY_LIMITS.json): Promise<z.infer<S>> {
   const type = req.headers.get("content-type") ?? "";
   if (type && !type.includes("json")) throw new AppError("unsupported_type", "Send JSON (Content-Type: application/json).");
   const text = new TextDecoder().decode(await readBody(req, limit));
@@ -223,7 +223,7 @@ async function readForm(req: Request, limit: number): Promise<FormData> {
   }
 }
 
-export function errorResponse(error: unknown): Response {
+function errorResponse(error: unknown): Response {
   if (error instanceof AppError) {
     if (error.cause) console.error(`[api] ${error.code}:`, error.cause);
     const headers: Record<string, string> = {};

@@ -12,7 +12,7 @@ import { reindexAll } from "@/lib/uses/mutations";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
-export type ImportShotsRequest = {
+type ImportShotsRequest = {
   /** JSON items with the shot fields (code, sequence, description, frameStart, frameEnd, state). */
   rows?: Record<string, unknown>[];
   /** CSV text with a header row; `mapping` names the columns, else they are guessed from the headers. */

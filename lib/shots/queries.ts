@@ -12,7 +12,7 @@ import { requireShow } from "@/lib/shows/queries";
 import { followUpFor, techniqueRefs } from "@/lib/uses/queries";
 import { escapeLike } from "@/lib/utils";
 
-export function toShotResponse(s: Shot, showCode: string): ShotResponse {
+function toShotResponse(s: Shot, showCode: string): ShotResponse {
   return {
     id: s.id,
     code: s.code,

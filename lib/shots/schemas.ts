@@ -8,7 +8,7 @@ import type { ShotUseResponse } from "@/lib/uses/schemas";
  * Shows are in lib/shows, use logs in lib/uses.
  */
 
-export const SHOT_STATES = ["waiting", "in_prep", "cleaned", "on_hold"] as const;
+const SHOT_STATES = ["waiting", "in_prep", "cleaned", "on_hold"] as const;
 export type ShotState = (typeof SHOT_STATES)[number];
 
 export const SHOT_STATE_LABELS: Record<ShotState, string> = {
@@ -17,7 +17,7 @@ export const SHOT_STATE_LABELS: Record<ShotState, string> = {
   cleaned: "Cleaned",
   on_hold: "On hold",
 };
-export const SHOT_CODE_MAX = 64;
+const SHOT_CODE_MAX = 64;
 /** PostgreSQL `integer` upper bound; frame numbers are stored in that column. */
 const FRAME_MAX = 2_147_483_647;
 
@@ -77,8 +77,6 @@ export const shotRowSchema = z.object({
   state: shotStateInputSchema,
 });
 // The frame order is checked by planImport on the merged values, where a row may give one end only.
-export type ShotRowInput = z.input<typeof shotRowSchema>;
-export type ShotRow = z.output<typeof shotRowSchema>;
 
 export const SHOT_FIELDS = ["code", "sequence", "description", "frameStart", "frameEnd", "state"] as const;
 export type ShotField = (typeof SHOT_FIELDS)[number];
@@ -114,7 +112,6 @@ export const importShotsSchema = z
     dryRun: z.boolean().default(false),
   })
   .refine((v) => (v.rows === undefined) !== (v.csv === undefined), { message: "Send either rows or csv." });
-export type ImportShotsInput = z.infer<typeof importShotsSchema>;
 
 export const listShotsQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),

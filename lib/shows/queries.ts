@@ -7,7 +7,7 @@ import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import type { ShowResponse } from "@/lib/shows/schemas";
 
-export function toShowResponse(s: Show, shotCount: number): ShowResponse {
+function toShowResponse(s: Show, shotCount: number): ShowResponse {
   return {
     id: s.id,
     code: s.code,

@@ -37,7 +37,7 @@ export const showCodeSchema = z
   .toUpperCase()
   .regex(/^[A-Z0-9]{2,8}$/, "Use 2 to 8 letters or digits, e.g. SLM.");
 
-export const shotPatternSchema = z
+const shotPatternSchema = z
   .string()
   .trim()
   .min(1, "Enter a pattern.")

@@ -41,7 +41,7 @@ const visibilityColumns = { approvedRevisionId: techniques.approvedRevisionId, l
  * (lib/auth/permissions.ts "still:read"); stills tied to a technique whoever may see the
  * technique; the uploader always sees their own.
  */
-export async function canReadStill(user: SessionUser, s: Still): Promise<boolean> {
+async function canReadStill(user: SessionUser, s: Still): Promise<boolean> {
   if (!can(user, "still:read", { stillOwner: s.owner, ownerId: s.uploaderId })) return false;
   if (s.uploaderId === user.id) return true;
   if (s.owner === "trial") return true;

@@ -17,14 +17,14 @@ import type { StillVariant } from "@/lib/stills/schemas";
  * Every function takes the root as a parameter (tests use a temporary folder).
  */
 
-export const PREVIEW_MAX = 2048;
-export const THUMB_MAX = 400;
+const PREVIEW_MAX = 2048;
+const THUMB_MAX = 400;
 /** Files younger than this are never swept: an upload may be between its file and its row. */
 export const SWEEP_GRACE_MS = 60 * 60 * 1000;
 
 const SHA_RE = /^[0-9a-f]{64}$/;
 
-export function uploadsRoot(root?: string): string {
+function uploadsRoot(root?: string): string {
   return path.resolve(root ?? env.PLATEROOM_UPLOADS_DIR);
 }
 
@@ -41,7 +41,7 @@ export function variantPath(sha: string, variant: StillVariant, root?: string): 
   return path.join(base, variant === "preview" ? "previews" : "thumbs", shard, `${sha}.webp`);
 }
 
-export function incomingDir(root?: string): string {
+function incomingDir(root?: string): string {
   return path.join(uploadsRoot(root), "tmp");
 }
 
@@ -78,7 +78,7 @@ export async function exists(p: string): Promise<boolean> {
 }
 
 /** Writes bytes atomically: a temp file in the target's own folder, fsync, rename, fsync the folder. */
-export async function writeFileAtomic(target: string, data: Uint8Array): Promise<void> {
+async function writeFileAtomic(target: string, data: Uint8Array): Promise<void> {
   const dir = path.dirname(target);
   await fs.mkdir(dir, { recursive: true, mode: 0o700 });
   const temp = path.join(dir, `.${path.basename(target)}.${crypto.randomUUID()}.tmp`);

@@ -17,7 +17,7 @@ import type {
 } from "@/lib/techniques/schemas";
 
 /** Seniors and leads work on the newest revision; everyone else reads the approved one. */
-export function readsWorkingCopy(user: SessionUser): boolean {
+function readsWorkingCopy(user: SessionUser): boolean {
   return can(user, "technique:read-working");
 }
 
@@ -73,7 +73,7 @@ export async function requireVisibleTechnique(user: SessionUser, slug: string): 
   return { technique: found.technique, revision, renamedFrom: found.renamedFrom };
 }
 
-export function toRevisionSummary(r: Revision, names: Map<string, { id: string; name: string }>): RevisionSummary {
+function toRevisionSummary(r: Revision, names: Map<string, { id: string; name: string }>): RevisionSummary {
   return {
     number: r.number,
     state: r.state,
@@ -190,7 +190,7 @@ export async function listTechniques(user: SessionUser, options: ListOptions = {
   return { items, total: countRows[0]?.n ?? 0 };
 }
 
-export type ReviewQueueItem = { slug: string; title: string; revision: number; author: PersonRef; submittedAt: string; isEdit: boolean };
+type ReviewQueueItem = { slug: string; title: string; revision: number; author: PersonRef; submittedAt: string; isEdit: boolean };
 
 /** Revisions waiting for a lead. */
 export async function listReviewQueue(user: SessionUser): Promise<ReviewQueueItem[]> {
@@ -222,7 +222,7 @@ export async function countReviewQueue(user: SessionUser): Promise<number> {
   return row?.n ?? 0;
 }
 
-export type MyDraftItem = { slug: string; title: string; revision: number; state: Revision["state"]; reviewNote: string | null; updatedAt: string };
+type MyDraftItem = { slug: string; title: string; revision: number; state: Revision["state"]; reviewNote: string | null; updatedAt: string };
 
 /** A writer's own unfinished revisions: drafts, and revisions a lead sent back. */
 export async function listMyDrafts(user: SessionUser): Promise<MyDraftItem[]> {

@@ -60,8 +60,6 @@ export const retireSchema = z.object({
 });
 export type RetireInput = z.infer<typeof retireSchema>;
 
-export const houseMethodSchema = z.object({ tag: slugSchema, technique: slugSchema.nullable() });
-
 export const listTechniquesQuerySchema = z.object({
   status: z.enum(TECHNIQUE_STATUSES).optional(),
   tag: slugSchema.optional(),

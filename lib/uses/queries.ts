@@ -47,7 +47,7 @@ const SORT_COLUMNS = {
 } as const;
 
 /** Internal: one use as the API shows it. */
-export function toUseResponse(
+function toUseResponse(
   actor: SessionUser,
   r: { use: typeof uses.$inferSelect; shot: { code: string; sequence: string }; showCode: string; user: { id: string; name: string } | null },
   technique: TechniqueRef,
@@ -72,7 +72,7 @@ export function toUseResponse(
  * A technique's uses, sorted, filtered and paged for its shot table. The caller has checked that
  * the actor may see the technique (see listTechniqueUses).
  */
-export async function listUsesForTechnique(
+async function listUsesForTechnique(
   actor: SessionUser,
   techniqueId: string,
   query: Partial<ListUsesQuery> = {},
@@ -117,7 +117,7 @@ export async function listUsesForTechnique(
 }
 
 /** How a technique has fared: uses per outcome. No permission check; callers have one. */
-export async function outcomeCounts(techniqueId: string): Promise<OutcomeCounts> {
+async function outcomeCounts(techniqueId: string): Promise<OutcomeCounts> {
   const rows = await getDb()
     .select({ outcome: uses.outcome, n: count() })
     .from(uses)

@@ -37,7 +37,7 @@ export const updateUseSchema = z
   .refine((v) => Object.values(v).some((x) => x !== undefined), { message: "Nothing to change." });
 export type UpdateUseInput = z.infer<typeof updateUseSchema>;
 
-export const USE_SORTS = ["createdAt", "shot", "outcome", "user"] as const;
+const USE_SORTS = ["createdAt", "shot", "outcome", "user"] as const;
 export const listUsesQuerySchema = z.object({
   sort: z.enum(USE_SORTS).default("createdAt"),
   dir: z.enum(["asc", "desc"]).default("desc"),

@@ -9,7 +9,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { seedTechniques } from "@/scripts/seed/techniques";
 
 /** Default shot-code pattern: SHOW_SEQ_SHOT, e.g. SLM_040_0120 (common practice). */
-export function defaultShotPattern(code: string): string {
+function defaultShotPattern(code: string): string {
   return `^${code}_\\d{3}_\\d{4}$`;
 }
 
