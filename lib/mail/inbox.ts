@@ -32,7 +32,8 @@ export async function getInboxRaw(actor: SessionUser, id: string): Promise<Buffe
 export async function readInbox(dir: string = inboxDir(), opts: { limit?: number } = {}): Promise<InboxMessage[]> {
   let names: string[];
   try {
-    names = await fs.readdir(dir);
+    // The folder is configuration (PLATEROOM_DATA_DIR), known only at run time.
+    names = await fs.readdir(/* turbopackIgnore: true */ dir);
   } catch {
     return [];
   }
