@@ -1,9 +1,9 @@
 /*
- * `npm run bench`: the still lab, search, load, password-reset timing and soak benchmarks in turn,
- * each in its own process (so one's heap, worker threads and server do not weigh on the next),
- * then one summary from bench/results.json. `npm run bench -- --quick` passes --quick to lab and
- * search, runs the load targets for 10 s with 20 connections, 40 reset pairs and a 60 s soak;
- * LOAD_DURATION / LOAD_CONNECTIONS, RESET_PAIRS, SOAK_DURATION / SOAK_CONNECTIONS override.
+ * `npm run bench`: the still lab, search, load, oversized-body, password-reset timing and soak
+ * benchmarks in turn, each in its own process (so one's heap, worker threads and server do not
+ * weigh on the next), then one summary from bench/results.json. `npm run bench -- --quick` passes
+ * --quick to lab and search, runs the load targets for 10 s with 20 connections, 40 reset pairs
+ * and a 60 s soak; LOAD_DURATION / LOAD_CONNECTIONS, RESET_PAIRS, SOAK_DURATION / SOAK_CONNECTIONS override.
  */
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
@@ -20,6 +20,7 @@ const steps: { name: string; script: string; args: string[]; env?: Record<string
   { name: "lab", script: "bench/lab.ts", args: quick ? ["--quick"] : [] },
   { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
   { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
+  { name: "bodies", script: "bench/bodies.ts", args: [] },
   { name: "reset-timing", script: "bench/reset-timing.ts", args: [], env: quick ? { RESET_PAIRS: process.env.RESET_PAIRS ?? "40" } : {} },
   { name: "soak", script: "bench/soak.ts", args: [], env: quick ? { SOAK_DURATION: process.env.SOAK_DURATION ?? "60", SOAK_CONNECTIONS: process.env.SOAK_CONNECTIONS ?? "20" } : {} },
 ];
@@ -71,6 +72,12 @@ if (load) {
         : { target: name, "req/s": t.requestsPerSec, "p50 ms": t.p50, "p95 ms": t.p95, "p99 ms": t.p99, errors: Number(t.errors) + Number(t.timeouts), non2xx: t.non2xx, "p95 target": t.targetP95Ms ? (t.metTarget ? "met" : "not met") : "" },
     ),
   );
+}
+
+const bodies = results.bodies;
+if (bodies) {
+  console.log("Oversized bodies (server memory, MB)");
+  console.table(["streamed", "declared"].map((k) => ({ round: k, ...(get(bodies, k) as Json) })));
 }
 
 const reset = results.resetTiming;

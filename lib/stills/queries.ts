@@ -2,12 +2,12 @@ import "server-only";
 import { asc, eq, inArray } from "drizzle-orm";
 import { cache } from "react";
 import { getDb } from "@/db/client";
-import { stillPairs, stills, type Still } from "@/db/schema";
+import { stillPairs, stills, type Still, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import type { StillFormat, StillPairResponse, StillResponse } from "@/lib/stills/schemas";
-import { techniqueRowById } from "@/lib/techniques/queries";
+import { isTechniqueVisible, techniqueRowById } from "@/lib/techniques/queries";
 
 export function toStillResponse(s: Still): StillResponse {
   return {
@@ -30,10 +30,9 @@ export function toStillResponse(s: Still): StillResponse {
   };
 }
 
-/** A technique's stills are visible once it has an approved revision, or to those who read working copies. */
-function techniqueVisible(user: SessionUser, t: { approvedRevisionId: string | null } | undefined): boolean {
-  if (!t) return false;
-  return t.approvedRevisionId !== null || can(user, "technique:read-working");
+/** A technique's stills are visible to whoever may see the technique (lib/techniques/queries.ts). */
+function techniqueVisible(user: SessionUser, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId"> | undefined): boolean {
+  return t !== undefined && isTechniqueVisible(user, t);
 }
 
 /**
@@ -41,7 +40,7 @@ function techniqueVisible(user: SessionUser, t: { approvedRevisionId: string | n
  * (lib/auth/permissions.ts "still:read"); stills tied to a technique whoever may see the
  * technique; the uploader always sees their own.
  */
-export async function canReadStill(user: SessionUser, s: Still): Promise<boolean> {
+async function canReadStill(user: SessionUser, s: Still): Promise<boolean> {
   if (!can(user, "still:read", { stillOwner: s.owner, ownerId: s.uploaderId })) return false;
   if (s.uploaderId === user.id) return true;
   if (s.owner === "trial") return true;

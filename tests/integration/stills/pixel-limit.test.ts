@@ -7,7 +7,7 @@ import { getDb } from "@/db/client";
 import { stills } from "@/db/schema";
 import { env } from "@/lib/env";
 import { STILL_PIXEL_LIMIT } from "@/lib/stills/limits";
-import { variantPath, writeFileAtomic } from "@/lib/stills/storage";
+import { variantPath } from "@/lib/stills/storage";
 import { POST as stillsPost } from "@/app/api/stills/route";
 import { POST as run } from "@/app/api/lab/run/route";
 import { POST as analyse } from "@/app/api/lab/analyse/route";
@@ -78,7 +78,8 @@ describe("one pixel limit for upload and lab (OWASP File Upload Cheat Sheet)", (
   it("answers 400, never 500, from every lab route for a still stored before the limit existed", { timeout: 120_000 }, async () => {
     const png = await flatPng(9000, 9000);
     const sha = "9".repeat(64);
-    await writeFileAtomic(variantPath(sha, "original"), png);
+    await fs.mkdir(path.dirname(variantPath(sha, "original")), { recursive: true });
+    await fs.writeFile(variantPath(sha, "original"), png);
     const [row] = await getDb()
       .insert(stills)
       .values({ sha256: sha, width: 9000, height: 9000, format: "png", bitDepth: 8, channels: 3, sizeBytes: png.length, uploaderId: senior.user.id, alt: "Old plate", owner: "trial" })
