@@ -5,7 +5,7 @@
  */
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
-import { STARTER_THESAURUS } from "@/db/seed-data/thesaurus";
+import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { QUALITY_PAGES } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
 

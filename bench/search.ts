@@ -15,7 +15,7 @@ import { runInNewContext } from "node:vm";
 
 import Fuse from "fuse.js";
 
-import { STARTER_THESAURUS } from "@/db/seed-data/thesaurus";
+import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
 import type { SearchDocument } from "@/lib/search/types";

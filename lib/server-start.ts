@@ -4,9 +4,8 @@ import path from "node:path";
 import { runMigrations } from "@/db/migrate";
 import { env } from "@/lib/env";
 import { startMailSender } from "@/lib/mail/sender";
-import { applySearchChange } from "@/lib/search";
-import { rebuildSearchFromDb, syncChangedSince } from "@/lib/techniques/search-sync";
-import { loadThesaurusForSearch, thesaurusSignature } from "@/lib/thesaurus/queries";
+import { followSearchChanges } from "@/lib/techniques/search-follow";
+import { rebuildSearchFromDb } from "@/lib/techniques/search-sync";
 
 /** Start-up work of a server process: schema up to date, search index built, mail sender running. */
 export async function startServerServices(): Promise<void> {
@@ -18,27 +17,9 @@ export async function startServerServices(): Promise<void> {
   }
   await runMigrations();
   const startedAt = new Date();
-  const signature = await thesaurusSignature();
   const count = await rebuildSearchFromDb();
-  if (env.DATABASE_URL) keepSearchInStep(startedAt, signature);
+  // Other instances write to the same server: their changes reach this index within a second.
+  if (env.DATABASE_URL) followSearchChanges(env.DATABASE_URL, startedAt);
   console.log(`[plateroom] search index built: ${count} techniques`);
   if (env.PLATEROOM_MAIL_SENDER === "on") startMailSender();
-}
-
-/** Other instances write to the same server: pick up their technique and thesaurus changes every 30 s. */
-function keepSearchInStep(from: Date, thesaurusAtStart: string): void {
-  let mark = from;
-  let thesaurus = thesaurusAtStart;
-  const catchUp = async (): Promise<void> => {
-    mark = await syncChangedSince(mark);
-    const now = await thesaurusSignature();
-    if (now !== thesaurus) {
-      await applySearchChange({ kind: "thesaurus", entries: await loadThesaurusForSearch() });
-      thesaurus = now;
-    }
-  };
-  const timer = setInterval(() => {
-    catchUp().catch((error) => console.error("[search] catch-up failed:", error));
-  }, 30_000);
-  timer.unref();
 }

@@ -19,7 +19,6 @@ export const users = pgTable("users", {
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
 export type User = typeof users.$inferSelect;
-export type NewUser = typeof users.$inferInsert;
 
 export const apiTokens = pgTable("api_tokens", {
   id: uuid("id").primaryKey().defaultRandom(),
@@ -31,7 +30,6 @@ export const apiTokens = pgTable("api_tokens", {
   lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
   revokedAt: timestamp("revoked_at", { withTimezone: true }),
 });
-export type ApiToken = typeof apiTokens.$inferSelect;
 
 export const oneTimeTokenPurposeEnum = pgEnum("one_time_token_purpose", ["invite", "reset"]);
 
@@ -57,6 +55,21 @@ export const signInFailures = pgTable(
   (t) => [index("sign_in_failures_email_at").on(t.email, t.at), index("sign_in_failures_address_at").on(t.address, t.at)],
 );
 
+/**
+ * "Forgot password" requests, for their limits per e-mail typed and per client address
+ * (lib/people/password-reset.ts); kept in the database so the limits hold across instances.
+ */
+export const passwordResetRequests = pgTable(
+  "password_reset_requests",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    email: text("email").notNull(),
+    address: text("address").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("password_reset_requests_email_at").on(t.email, t.at), index("password_reset_requests_address_at").on(t.address, t.at)],
+);
+
 export const auditLog = pgTable(
   "audit_log",
   {
@@ -70,4 +83,3 @@ export const auditLog = pgTable(
   },
   (t) => [index("audit_log_at").on(t.at)],
 );
-export type AuditEntry = typeof auditLog.$inferSelect;

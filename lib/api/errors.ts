@@ -1,12 +1,13 @@
 import type { z } from "zod";
 
 /** Error codes of the API contract (shared/API.md) with their HTTP status. */
-export const ERROR_STATUS = {
+const ERROR_STATUS = {
   validation_failed: 400,
   bad_request: 400,
   unauthorized: 401,
   forbidden: 403,
   not_found: 404,
+  method_not_allowed: 405,
   conflict: 409,
   too_large: 413,
   unsupported_type: 415,
@@ -23,6 +24,7 @@ const DEFAULT_MESSAGES: Record<ErrorCode, string> = {
   unauthorized: "Please sign in.",
   forbidden: "Your role does not allow this.",
   not_found: "Not found.",
+  method_not_allowed: "This method is not allowed here.",
   conflict: "This conflicts with a newer change.",
   too_large: "That is too large.",
   unsupported_type: "That file type is not supported.",
@@ -41,17 +43,20 @@ export class AppError extends Error {
   readonly code: ErrorCode;
   readonly fields?: Record<string, string>;
   readonly details?: Record<string, unknown>;
+  /** For rate_limited: seconds until a retry may succeed (the Retry-After header). */
+  readonly retryAfterSeconds?: number;
 
   constructor(
     code: ErrorCode,
     message?: string,
-    options?: { fields?: Record<string, string>; cause?: unknown; details?: Record<string, unknown> },
+    options?: { fields?: Record<string, string>; cause?: unknown; details?: Record<string, unknown>; retryAfterSeconds?: number },
   ) {
     super(message ?? DEFAULT_MESSAGES[code], { cause: options?.cause });
     this.name = "AppError";
     this.code = code;
     this.fields = options?.fields;
     this.details = options?.details;
+    this.retryAfterSeconds = options?.retryAfterSeconds;
   }
 
   get status(): number {

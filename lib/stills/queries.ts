@@ -1,11 +1,13 @@
 import "server-only";
 import { asc, eq, inArray } from "drizzle-orm";
+import { cache } from "react";
 import { getDb } from "@/db/client";
-import { stillPairs, stills, techniques, type Still } from "@/db/schema";
+import { stillPairs, stills, type Still, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import type { StillFormat, StillPairResponse, StillResponse } from "@/lib/stills/schemas";
+import { isTechniqueVisible, techniqueRowById } from "@/lib/techniques/queries";
 
 export function toStillResponse(s: Still): StillResponse {
   return {
@@ -28,24 +30,22 @@ export function toStillResponse(s: Still): StillResponse {
   };
 }
 
-/** A technique's stills are visible once it has an approved revision, or to those who read working copies. */
-function techniqueVisible(user: SessionUser, t: { approvedRevisionId: string | null } | undefined): boolean {
-  if (!t) return false;
-  return t.approvedRevisionId !== null || can(user, "technique:read-working");
+/** A technique's stills are visible to whoever may see the technique (lib/techniques/queries.ts). */
+function techniqueVisible(user: SessionUser, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId"> | undefined): boolean {
+  return t !== undefined && isTechniqueVisible(user, t);
 }
 
 /**
- * Whether this person may see this still: private trials only their uploader and leads
+ * Whether this person may see this still: a private trial only its uploader
  * (lib/auth/permissions.ts "still:read"); stills tied to a technique whoever may see the
  * technique; the uploader always sees their own.
  */
-export async function canReadStill(user: SessionUser, s: Still): Promise<boolean> {
+async function canReadStill(user: SessionUser, s: Still): Promise<boolean> {
   if (!can(user, "still:read", { stillOwner: s.owner, ownerId: s.uploaderId })) return false;
   if (s.uploaderId === user.id) return true;
   if (s.owner === "trial") return true;
   if (!s.techniqueId) return s.owner === "use" || can(user, "technique:read-working");
-  const [t] = await getDb().select({ approvedRevisionId: techniques.approvedRevisionId }).from(techniques).where(eq(techniques.id, s.techniqueId)).limit(1);
-  return techniqueVisible(user, t);
+  return techniqueVisible(user, (await techniqueRowById(s.techniqueId)) ?? undefined);
 }
 
 /**
@@ -58,11 +58,13 @@ export async function getStillForRead(user: SessionUser, id: string): Promise<St
   return s;
 }
 
+/** A technique's still rows, once per render (the evidence and lab sections both list them). */
+const stillRowsOfTechnique = cache((techniqueId: string) => getDb().select().from(stills).where(eq(stills.techniqueId, techniqueId)).orderBy(asc(stills.createdAt)));
+
 /** Stills attached to a technique (not private trials of others), newest last. */
 export async function listStillsForTechnique(user: SessionUser, techniqueId: string): Promise<StillResponse[]> {
-  const [t] = await getDb().select({ approvedRevisionId: techniques.approvedRevisionId }).from(techniques).where(eq(techniques.id, techniqueId)).limit(1);
-  if (!techniqueVisible(user, t)) throw new AppError("not_found", "No technique at this address.");
-  const rows = await getDb().select().from(stills).where(eq(stills.techniqueId, techniqueId)).orderBy(asc(stills.createdAt));
+  if (!techniqueVisible(user, (await techniqueRowById(techniqueId)) ?? undefined)) throw new AppError("not_found", "No technique at this address.");
+  const rows = await stillRowsOfTechnique(techniqueId);
   const visible: StillResponse[] = [];
   for (const s of rows) if (await canReadStill(user, s)) visible.push(toStillResponse(s));
   return visible;
@@ -71,12 +73,14 @@ export async function listStillsForTechnique(user: SessionUser, techniqueId: str
 /** Before/after pairs shown on a technique page, in their order. */
 export async function listPairsForTechnique(user: SessionUser, techniqueId: string): Promise<StillPairResponse[]> {
   const db = getDb();
-  const [t] = await db.select({ approvedRevisionId: techniques.approvedRevisionId }).from(techniques).where(eq(techniques.id, techniqueId)).limit(1);
-  if (!techniqueVisible(user, t)) throw new AppError("not_found", "No technique at this address.");
+  if (!techniqueVisible(user, (await techniqueRowById(techniqueId)) ?? undefined)) throw new AppError("not_found", "No technique at this address.");
   const pairs = await db.select().from(stillPairs).where(eq(stillPairs.techniqueId, techniqueId)).orderBy(asc(stillPairs.position), asc(stillPairs.createdAt));
   if (!pairs.length) return [];
   const ids = [...new Set(pairs.flatMap((p) => [p.beforeStillId, p.afterStillId]))];
-  const rows = await db.select().from(stills).where(inArray(stills.id, ids));
+  // Pairs are made of the technique's own stills (createPair checks), already read for this render.
+  const own = await stillRowsOfTechnique(techniqueId);
+  const missing = ids.filter((id) => !own.some((s) => s.id === id));
+  const rows = missing.length ? [...own, ...(await db.select().from(stills).where(inArray(stills.id, missing)))] : own;
   const byId = new Map(rows.map((s) => [s.id, s]));
   const out: StillPairResponse[] = [];
   for (const p of pairs) {

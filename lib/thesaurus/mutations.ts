@@ -5,18 +5,14 @@ import { thesaurusEntries } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { writeAudit } from "@/lib/audit/log";
 import { assertCan } from "@/lib/auth/permissions";
+import { isUuid } from "@/lib/utils";
 import type { SessionUser } from "@/lib/auth/roles";
-import { applySearchChange } from "@/lib/search";
-import { getThesaurusEntry, isUuid, loadThesaurusForSearch } from "@/lib/thesaurus/queries";
+import { reloadSearchThesaurus } from "@/lib/techniques/search-sync";
+import { getThesaurusEntry } from "@/lib/thesaurus/queries";
 import type { ThesaurusEntryDto, ThesaurusEntryInput } from "@/lib/thesaurus/schemas";
 
 function columns(input: ThesaurusEntryInput) {
   return { kind: input.kind, broader: input.kind === "narrower" ? input.broader : null, terms: input.terms, note: input.note };
-}
-
-/** The index applies the thesaurus at query time: after a change it takes the whole (small) list again. */
-async function refreshSearch(): Promise<void> {
-  await applySearchChange({ kind: "thesaurus", entries: await loadThesaurusForSearch() });
 }
 
 export async function createThesaurusEntry(actor: SessionUser, input: ThesaurusEntryInput): Promise<ThesaurusEntryDto> {
@@ -29,7 +25,7 @@ export async function createThesaurusEntry(actor: SessionUser, input: ThesaurusE
     await writeAudit(tx, { actorId: actor.id, action: "thesaurus.create", targetType: "thesaurus_entry", targetId: row!.id, detail: columns(input) });
     return row!.id;
   });
-  await refreshSearch();
+  await reloadSearchThesaurus();
   return getThesaurusEntry(actor, id);
 }
 
@@ -51,7 +47,7 @@ export async function updateThesaurusEntry(actor: SessionUser, id: string, input
       detail: { before: { kind: before.kind, broader: before.broader, terms: before.terms, note: before.note }, after: columns(input) },
     });
   });
-  await refreshSearch();
+  await reloadSearchThesaurus();
   return getThesaurusEntry(actor, id);
 }
 
@@ -69,5 +65,5 @@ export async function deleteThesaurusEntry(actor: SessionUser, id: string): Prom
       detail: { kind: gone.kind, broader: gone.broader, terms: gone.terms, note: gone.note },
     });
   });
-  await refreshSearch();
+  await reloadSearchThesaurus();
 }

@@ -7,8 +7,7 @@ import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import type { ThesaurusEntry } from "@/lib/search";
 import type { ThesaurusEntryDto } from "@/lib/thesaurus/schemas";
-
-export const isUuid = (id: string): boolean => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id);
+import { isUuid } from "@/lib/utils";
 
 function toDto(row: typeof thesaurusEntries.$inferSelect, updatedBy: string | null): ThesaurusEntryDto {
   return { id: row.id, kind: row.kind, broader: row.broader, terms: row.terms, note: row.note, updatedAt: row.updatedAt.toISOString(), updatedBy };
@@ -44,7 +43,7 @@ export async function loadThesaurusForSearch(): Promise<ThesaurusEntry[]> {
   return rows.map((r) => (r.kind === "narrower" && r.broader ? { id: r.id, kind: "narrower", broader: r.broader, terms: r.terms } : { id: r.id, kind: "synonyms", terms: r.terms }));
 }
 
-/** Changes when any entry is added, edited or deleted: lets other app instances notice (lib/server-start.ts). */
+/** Changes when any entry is added, edited or deleted: the poll of lib/techniques/search-follow.ts compares it. */
 export async function thesaurusSignature(): Promise<string> {
   const [row] = await getDb().select({ n: count(), last: max(thesaurusEntries.updatedAt) }).from(thesaurusEntries);
   return `${row?.n ?? 0}:${row?.last?.toISOString() ?? ""}`;

@@ -1,17 +1,16 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { createThesaurusEntry } from "@/lib/thesaurus/mutations";
 import { listThesaurusEntries } from "@/lib/thesaurus/queries";
 import { thesaurusEntryInputSchema, type ThesaurusEntryDto, type ThesaurusListResponse } from "@/lib/thesaurus/schemas";
 
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute(async (req, { user }) => {
   return Response.json({ items: await listThesaurusEntries(user) } satisfies ThesaurusListResponse);
 });
 
 /** Leads only. */
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, thesaurusEntryInputSchema);
+export const POST = authedRoute("thesaurus:manage", async (req, { user, json }) => {
+  const input = await json(thesaurusEntryInputSchema);
   return Response.json((await createThesaurusEntry(user, input)) satisfies ThesaurusEntryDto, { status: 201 });
 });
+
+export const { HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ GET, POST });

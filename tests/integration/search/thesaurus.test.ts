@@ -5,7 +5,7 @@ import * as listRoute from "@/app/api/thesaurus/route";
 import * as searchRoute from "@/app/api/search/route";
 import { getDb } from "@/db/client";
 import { auditLog, thesaurusEntries } from "@/db/schema";
-import { STARTER_THESAURUS } from "@/db/seed-data/thesaurus";
+import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import type { SearchApiResponse } from "@/lib/search-ui/params";
 import { createTechnique, reviewTechnique, submitTechnique } from "@/lib/techniques/mutations";
 import { rebuildSearchFromDb } from "@/lib/techniques/search-sync";
@@ -53,7 +53,7 @@ beforeAll(async () => {
 });
 
 describe("the starter thesaurus", () => {
-  it("is in every database after migrating, equal to db/seed-data/thesaurus.ts, with at least 60 entries", async () => {
+  it("is in every database after migrating, equal to scripts/seed/data/thesaurus.ts, with at least 60 entries", async () => {
     const rows = await getDb().select().from(thesaurusEntries);
     const key = (e: { kind: string; broader?: string | null; terms: readonly string[] }) => JSON.stringify([e.kind, e.broader ?? null, e.terms]);
     expect(rows.map(key).sort()).toEqual(STARTER_THESAURUS.map((e) => key({ ...e, broader: e.kind === "narrower" ? e.broader : null })).sort());

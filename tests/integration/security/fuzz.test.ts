@@ -1,11 +1,11 @@
 import path from "node:path";
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { ROUTE_TABLE, routeFileOf } from "@/lib/auth/route-table";
+import { ROUTE_TABLE, routeFileOf } from "@/tests/integration/security/route-table";
 import { createUnsubscribeToken } from "@/lib/mail/unsubscribe";
-import { createRequest } from "@/lib/requests";
-import { askQuestion } from "@/lib/questions";
-import { logUse } from "@/lib/shots/mutations";
+import { createRequest } from "@/lib/requests/mutations";
+import { askQuestion } from "@/lib/questions/mutations";
+import { logUse } from "@/lib/uses/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
 import { createThesaurusEntry } from "@/lib/thesaurus/mutations";
 import { createPerson, params, simpleDoc, type TestPerson } from "@/tests/factories";
@@ -53,7 +53,7 @@ const FUZZED = [
   "POST /api/tags/[slug]/merge", "PUT /api/tags/[slug]/house-method", "POST /api/shows", "PATCH /api/shows/[code]",
   "POST /api/shows/[code]/shots", "POST /api/stills/pairs", "POST /api/lab/run", "POST /api/lab/analyse", "POST /api/lab/sample",
   "POST /api/lab/solve", "POST /api/people", "PATCH /api/people/[id]", "POST /api/tokens", "POST /api/subscriptions",
-  "DELETE /api/subscriptions", "PUT /api/subscriptions/mode", "POST /api/thesaurus", "PUT /api/thesaurus/[id]",
+  "DELETE /api/subscriptions", "PUT /api/subscriptions/mode", "POST /api/password-resets", "POST /api/thesaurus", "PUT /api/thesaurus/[id]",
 ] as const;
 
 function targets(): Target[] {
@@ -98,6 +98,7 @@ function targets(): Target[] {
     t("PUT", "/api/subscriptions/mode", () => p.artist, () => "/api/subscriptions/mode", none, () => ({ mode: "immediate" })),
     t("POST", "/api/thesaurus", () => p.lead, () => "/api/thesaurus", none, () => ({ kind: "narrower", broader: "marker", terms: ["tape cross", "dot"], note: "On screens." })),
     t("PUT", "/api/thesaurus/[id]", () => p.lead, () => `/api/thesaurus/${thesaurusId}`, () => ({ id: thesaurusId }), () => ({ kind: "synonyms", terms: ["regrain", "grain restore"] })),
+    t("POST", "/api/password-resets", () => p.artist, () => "/api/password-resets", none, () => ({ email: "someone@kestrel.test" })),
   ];
 }
 
@@ -198,7 +199,7 @@ describe("every JSON route's handler under arbitrary and mutated bodies", () => 
   it("covers every route that reads a JSON body", () => {
     const fuzzed = new Set(targets().map((t) => `${t.method} ${t.path}`));
     expect([...fuzzed].sort()).toEqual([...FUZZED].sort());
-    // Routes whose handlers call parseJson, from the route table (kept in step by hand; a new JSON route belongs here).
+    // Routes whose handlers read a JSON body (`json()`), from the route table (kept in step by hand; a new JSON route belongs here).
     const jsonRoutes = ROUTE_TABLE.filter((e) => ["POST", "PUT", "PATCH", "DELETE"].includes(e.method)).map((e) => `${e.method} ${e.path}`);
     const bodyless = new Set([
       "POST /api/[...unknown]", "PUT /api/[...unknown]", "PATCH /api/[...unknown]", "DELETE /api/[...unknown]",

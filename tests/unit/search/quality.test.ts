@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 
 import { evaluateQuality, hunspellJudge } from "@/bench/lib/quality";
-import { STARTER_THESAURUS } from "@/db/seed-data/thesaurus";
+import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
 

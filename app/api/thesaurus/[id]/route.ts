@@ -1,25 +1,23 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { deleteThesaurusEntry, updateThesaurusEntry } from "@/lib/thesaurus/mutations";
 import { getThesaurusEntry } from "@/lib/thesaurus/queries";
 import { thesaurusEntryInputSchema, type ThesaurusEntryDto } from "@/lib/thesaurus/schemas";
 
 type Params = { id: string };
 
-export const GET = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  return Response.json((await getThesaurusEntry(user, (await ctx.params).id)) satisfies ThesaurusEntryDto);
+export const GET = authedRoute<Params>(async (req, { user, params }) => {
+  return Response.json((await getThesaurusEntry(user, params.id)) satisfies ThesaurusEntryDto);
 });
 
 /** Leads only: replaces the entry's kind, terms and note. */
-export const PUT = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, thesaurusEntryInputSchema);
-  return Response.json((await updateThesaurusEntry(user, (await ctx.params).id, input)) satisfies ThesaurusEntryDto);
+export const PUT = authedRoute<Params>("thesaurus:manage", async (req, { user, params, json }) => {
+  const input = await json(thesaurusEntryInputSchema);
+  return Response.json((await updateThesaurusEntry(user, params.id, input)) satisfies ThesaurusEntryDto);
 });
 
-export const DELETE = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  await deleteThesaurusEntry(user, (await ctx.params).id);
+export const DELETE = authedRoute<Params>("thesaurus:manage", async (req, { user, params }) => {
+  await deleteThesaurusEntry(user, params.id);
   return new Response(null, { status: 204 });
 });
+
+export const { HEAD, OPTIONS, POST, PATCH } = otherMethods({ GET, PUT, DELETE });

@@ -1,5 +1,5 @@
-import { caution, doc, fails, h2, ol, p, table, works } from "@/db/seed-data/doc";
-import type { DemoTechnique } from "@/db/seed-data/techniques";
+import { caution, doc, fails, h2, ol, p, table, works } from "@/scripts/seed/data/doc";
+import type { DemoTechnique } from "@/scripts/seed/data/techniques";
 
 /*
  * Demo write-ups for the lens and camera problems (issue 16): sensor dust, lens distortion,

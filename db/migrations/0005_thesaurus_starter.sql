@@ -1,7 +1,7 @@
 -- The thesaurus page shows these rows: raise the change stamp like every such table (0001_change_stamp.sql).
 CREATE TRIGGER "bump_change_stamp" AFTER INSERT OR UPDATE OR DELETE OR TRUNCATE ON "thesaurus_entries" FOR EACH STATEMENT EXECUTE FUNCTION "bump_change_stamp"();
 --> statement-breakpoint
--- The department's starter thesaurus (db/seed-data/thesaurus.ts, kept equal by
+-- The department's starter thesaurus (scripts/seed/data/thesaurus.ts, kept equal by
 -- tests/integration/search/thesaurus.test.ts); leads edit it from here on.
 INSERT INTO "thesaurus_entries" ("kind", "broader", "terms", "note") VALUES
   ('narrower', 'marker', ARRAY['tracker', 'tracking dot', 'tracking point', 'tape cross', 'tape mark', 'x mark', 'cross', 'dot', 'ping pong ball', 'witness mark']::text[], 'What gets stuck on screens and sets for the camera track.'),
@@ -96,3 +96,14 @@ INSERT INTO "thesaurus_entries" ("kind", "broader", "terms", "note") VALUES
   ('synonyms', NULL, ARRAY['smoke', 'haze', 'atmos', 'fog', 'mist']::text[], ''),
   ('synonyms', NULL, ARRAY['hair', 'flyaway hair', 'fine hair', 'strands', 'wisps']::text[], ''),
   ('synonyms', NULL, ARRAY['artefact', 'artifact', 'glitch']::text[], '');
+--> statement-breakpoint
+-- Several instances on one PostgreSQL server (0003_search_change_notices.sql): a thesaurus edit makes
+-- every instance take the whole thesaurus again (lib/techniques/search-follow.ts).
+CREATE FUNCTION "notify_search_thesaurus"() RETURNS trigger LANGUAGE plpgsql AS $$
+BEGIN
+  PERFORM pg_notify('plateroom_changes', 'search:thesaurus');
+  RETURN NULL;
+END;
+$$;
+--> statement-breakpoint
+CREATE TRIGGER "notify_search_thesaurus" AFTER INSERT OR UPDATE OR DELETE OR TRUNCATE ON "thesaurus_entries" FOR EACH STATEMENT EXECUTE FUNCTION "notify_search_thesaurus"();
