@@ -10,8 +10,12 @@
  *    query's words better than its own do.
  */
 export const RANKING = {
-  /** score × coverage^COVERAGE_POWER: covering every query word helps without swamping a strong title match. */
-  coveragePower: 0.5,
+  /**
+   * score × coverage^coveragePower: a page answering half the query's content words keeps half its
+   * score. Long "describe what you see" queries are answered by the page that meets most of them,
+   * not by one that meets a single word in its title.
+   */
+  coveragePower: 1,
   floor: 0.12,
   goodMatch: 0.6,
   houseClose: 0.8,

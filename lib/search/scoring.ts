@@ -12,8 +12,12 @@ import type { Alternative, QueryPlan } from "./query";
 /** Query words past this are ignored (a 200-character query has far fewer content words). */
 export const MAX_UNITS = 10;
 
-/** title > aliases ≈ tags > summary > parameters ≈ shots > body (issue 6). */
-export const FIELD_WEIGHTS: readonly number[] = [6, 4, 4, 2.5, 1.5, 1.5, 1];
+/**
+ * title > aliases ≈ tags ≈ summary > parameters ≈ shots > body. The summary is the page's one-sentence
+ * statement of the problem, the field that "describe what you see" queries meet most often, so it
+ * weighs as much as the list-like naming fields.
+ */
+export const FIELD_WEIGHTS: readonly number[] = [6, 4, 4, 4, 1.5, 1.5, 1];
 /** BM25 length normalisation per field: short list-like fields barely normalise. */
 const FIELD_B: readonly number[] = [0.5, 0.3, 0.3, 0.75, 0.3, 0.2, 0.75];
 const K1 = 1.2;
@@ -38,9 +42,13 @@ export const ALTERNATIVE_WEIGHTS = {
   split: 0.9,
   /** Two typed words written as one on the page ("foot prints" → footprints). */
   joined: 0.9,
-  synonym: 0.7,
-  /** A narrower thesaurus term reaching its broader one ("tracker" → marker). */
-  broader: 0.6,
+  /**
+   * A thesaurus term, well under the word typed: a page that says the query's own word is the
+   * likelier answer than one that only says a synonym of it.
+   */
+  synonym: 0.5,
+  /** A narrower thesaurus term reaching its broader one ("tracker" → marker): looser still. */
+  broader: 0.4,
 } as const;
 
 /** A partial word completed: the more of it typed, the likelier; a complete word less likely a start. */
