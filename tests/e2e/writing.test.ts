@@ -1,0 +1,126 @@
+import type { Page } from "playwright-core";
+import sharp from "sharp";
+import { describe, expect, it } from "vitest";
+import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
+import { useAppAndBrowser } from "@/tests/e2e/running-app";
+
+/*
+ * Issue 13 in Chromium: writing and reviewing without losing work. The editor's dialogs keep the
+ * technique form (their own form never submits the outer one).
+ */
+
+const SENIOR = "senior@kestrel.test";
+const SLUG = "marker-channel-cleanup";
+
+/** The editable body of the technique form, once Tiptap has mounted. */
+async function editorBody(page: Page) {
+  const toolbar = page.getByRole("toolbar", { name: "Formatting" });
+  await toolbar.waitFor();
+  return { toolbar, body: page.getByRole("textbox", { name: "Write-up" }) };
+}
+
+/** Marks the loaded document; a reload or a full navigation loses the mark. */
+async function markDocument(page: Page): Promise<void> {
+  await page.evaluate(() => ((window as unknown as { plateroomKept: boolean }).plateroomKept = true));
+}
+async function documentKept(page: Page): Promise<boolean> {
+  return page.evaluate(() => (window as unknown as { plateroomKept?: boolean }).plateroomKept === true);
+}
+
+/** A small PNG a person might drop: a grey ramp. */
+async function samplePng(): Promise<Buffer> {
+  const w = 32;
+  const h = 24;
+  const px = Buffer.alloc(w * h * 3);
+  for (let i = 0; i < w * h; i++) px.fill(((i % w) * 8) & 255, i * 3, i * 3 + 3);
+  return sharp(px, { raw: { width: w, height: h, channels: 3 } }).png().toBuffer();
+}
+
+/** Types a word at the end of the body and selects it with the keyboard. */
+async function typeAndSelect(page: Page, word: string): Promise<void> {
+  const { body } = await editorBody(page);
+  await body.click();
+  await page.keyboard.press("Control+End");
+  await page.keyboard.press("Enter");
+  await page.keyboard.type(`Read the ${word}`);
+  for (let i = 0; i < word.length; i++) await page.keyboard.press("Shift+ArrowLeft");
+}
+
+describe.skipIf(!hasChromium())("writing: editor dialogs keep the form", () => {
+  const running = useAppAndBrowser();
+
+  it("Ctrl+K on the edit page makes a link; the page does not reload and the form keeps its text", async () => {
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+    await page.goto(`/techniques/${SLUG}/edit`);
+    const { body } = await editorBody(page);
+    const summary = "A summary typed before the link was added.";
+    await page.getByLabel("One-line summary").fill(summary);
+    await markDocument(page);
+
+    await typeAndSelect(page, "notes");
+    await page.keyboard.press("Control+k");
+    const dialog = page.getByRole("dialog", { name: "Add link" });
+    await dialog.waitFor();
+    await dialog.getByLabel("Address").fill("/techniques/grain-restore-after-denoise");
+    await page.keyboard.press("Enter");
+    await dialog.waitFor({ state: "hidden" });
+
+    expect(await isShown(body.locator('a[href="/techniques/grain-restore-after-denoise"]', { hasText: "notes" }))).toBe(true);
+    expect(await documentKept(page)).toBe(true);
+    expect(new URL(page.url()).pathname).toBe(`/techniques/${SLUG}/edit`);
+    expect(new URL(page.url()).search).toBe("");
+    expect(await page.getByLabel("One-line summary").inputValue()).toBe(summary);
+    await context.close();
+  });
+
+  it("'Upload and insert' in the still dialog uploads the still into the body and keeps the form", async () => {
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+    await page.goto(`/techniques/${SLUG}/edit`);
+    const { toolbar, body } = await editorBody(page);
+    const summary = "A summary typed before the still was added.";
+    await page.getByLabel("One-line summary").fill(summary);
+    await body.click();
+    await page.keyboard.press("Control+End");
+    await markDocument(page);
+    const before = await body.locator("figure.still").count();
+
+    await toolbar.getByRole("button", { name: "Add a still" }).click();
+    const dialog = page.getByRole("dialog", { name: "Add a still" });
+    await dialog.waitFor();
+    await dialog.getByLabel("Image file").setInputFiles({ name: "ramp.png", mimeType: "image/png", buffer: await samplePng() });
+    await dialog.getByLabel(/Description/).fill("A grey ramp for the test");
+    await dialog.getByRole("button", { name: "Upload and insert" }).click();
+    await dialog.waitFor({ state: "hidden", timeout: 30_000 });
+
+    await expect.poll(() => body.locator("figure.still").count(), { timeout: 15_000 }).toBe(before + 1);
+    expect(await body.locator('figure.still img[alt="A grey ramp for the test"]').count()).toBe(1);
+    expect(await documentKept(page)).toBe(true);
+    expect(new URL(page.url()).pathname).toBe(`/techniques/${SLUG}/edit`);
+    expect(await page.getByLabel("One-line summary").inputValue()).toBe(summary);
+    await screenshot(page, "writing-still-inserted");
+    await context.close();
+  });
+
+  it("on a new technique, adding a link keeps the typed title and body", async () => {
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+    await page.goto("/techniques/new");
+    const { body } = await editorBody(page);
+    const title = "Rig arm paint-out against a moving sky";
+    await page.getByLabel("Title").fill(title);
+    await markDocument(page);
+    await typeAndSelect(page, "reference");
+    await page.keyboard.press("Control+k");
+    const dialog = page.getByRole("dialog", { name: "Add link" });
+    await dialog.waitFor();
+    await dialog.getByLabel("Address").fill("https://intranet.kestrel.test/sky");
+    await dialog.getByRole("button", { name: "Apply" }).click();
+    await dialog.waitFor({ state: "hidden" });
+
+    expect(await isShown(body.locator('a[href="https://intranet.kestrel.test/sky"]', { hasText: "reference" }))).toBe(true);
+    expect(await documentKept(page)).toBe(true);
+    expect(new URL(page.url()).pathname).toBe("/techniques/new");
+    expect(await page.getByLabel("Title").inputValue()).toBe(title);
+    expect(await body.textContent()).toContain("Read the reference");
+    await context.close();
+  });
+});
