@@ -10,6 +10,9 @@ import { useAppAndBrowser } from "@/tests/e2e/running-app";
  */
 
 const SENIOR = "senior@kestrel.test";
+const ARTIST = "artist@kestrel.test";
+const LEAD = "lead@kestrel.test";
+const ADMIN = "admin@kestrel.test";
 const SLUG = "marker-channel-cleanup";
 
 /** The editable body of the technique form, once Tiptap has mounted. */
@@ -46,81 +49,135 @@ async function typeAndSelect(page: Page, word: string): Promise<void> {
   for (let i = 0; i < word.length; i++) await page.keyboard.press("Shift+ArrowLeft");
 }
 
-describe.skipIf(!hasChromium())("writing: editor dialogs keep the form", () => {
+describe.skipIf(!hasChromium())("issue 13 in Chromium", () => {
   const running = useAppAndBrowser();
 
-  it("Ctrl+K on the edit page makes a link; the page does not reload and the form keeps its text", async () => {
-    const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
-    await page.goto(`/techniques/${SLUG}/edit`);
-    const { body } = await editorBody(page);
-    const summary = "A summary typed before the link was added.";
-    await page.getByLabel("One-line summary").fill(summary);
-    await markDocument(page);
+  describe("editor dialogs keep the form", () => {
 
-    await typeAndSelect(page, "notes");
-    await page.keyboard.press("Control+k");
-    const dialog = page.getByRole("dialog", { name: "Add link" });
-    await dialog.waitFor();
-    await dialog.getByLabel("Address").fill("/techniques/grain-restore-after-denoise");
-    await page.keyboard.press("Enter");
-    await dialog.waitFor({ state: "hidden" });
+    it("Ctrl+K on the edit page makes a link; the page does not reload and the form keeps its text", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      await page.goto(`/techniques/${SLUG}/edit`);
+      const { body } = await editorBody(page);
+      const summary = "A summary typed before the link was added.";
+      await page.getByLabel("One-line summary").fill(summary);
+      await markDocument(page);
 
-    expect(await isShown(body.locator('a[href="/techniques/grain-restore-after-denoise"]', { hasText: "notes" }))).toBe(true);
-    expect(await documentKept(page)).toBe(true);
-    expect(new URL(page.url()).pathname).toBe(`/techniques/${SLUG}/edit`);
-    expect(new URL(page.url()).search).toBe("");
-    expect(await page.getByLabel("One-line summary").inputValue()).toBe(summary);
-    await context.close();
+      await typeAndSelect(page, "notes");
+      await page.keyboard.press("Control+k");
+      const dialog = page.getByRole("dialog", { name: "Add link" });
+      await dialog.waitFor();
+      await dialog.getByLabel("Address").fill("/techniques/grain-restore-after-denoise");
+      await page.keyboard.press("Enter");
+      await dialog.waitFor({ state: "hidden" });
+
+      expect(await isShown(body.locator('a[href="/techniques/grain-restore-after-denoise"]', { hasText: "notes" }))).toBe(true);
+      expect(await documentKept(page)).toBe(true);
+      expect(new URL(page.url()).pathname).toBe(`/techniques/${SLUG}/edit`);
+      expect(new URL(page.url()).search).toBe("");
+      expect(await page.getByLabel("One-line summary").inputValue()).toBe(summary);
+      await context.close();
+    });
+
+    it("'Upload and insert' in the still dialog uploads the still into the body and keeps the form", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      await page.goto(`/techniques/${SLUG}/edit`);
+      const { toolbar, body } = await editorBody(page);
+      const summary = "A summary typed before the still was added.";
+      await page.getByLabel("One-line summary").fill(summary);
+      await body.click();
+      await page.keyboard.press("Control+End");
+      await markDocument(page);
+      const before = await body.locator("figure.still").count();
+
+      await toolbar.getByRole("button", { name: "Add a still" }).click();
+      const dialog = page.getByRole("dialog", { name: "Add a still" });
+      await dialog.waitFor();
+      await dialog.getByLabel("Image file").setInputFiles({ name: "ramp.png", mimeType: "image/png", buffer: await samplePng() });
+      await dialog.getByLabel(/Description/).fill("A grey ramp for the test");
+      await dialog.getByRole("button", { name: "Upload and insert" }).click();
+      await dialog.waitFor({ state: "hidden", timeout: 30_000 });
+
+      await expect.poll(() => body.locator("figure.still").count(), { timeout: 15_000 }).toBe(before + 1);
+      expect(await body.locator('figure.still img[alt="A grey ramp for the test"]').count()).toBe(1);
+      expect(await documentKept(page)).toBe(true);
+      expect(new URL(page.url()).pathname).toBe(`/techniques/${SLUG}/edit`);
+      expect(await page.getByLabel("One-line summary").inputValue()).toBe(summary);
+      await screenshot(page, "writing-still-inserted");
+      await context.close();
+    });
+
+    it("on a new technique, adding a link keeps the typed title and body", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      await page.goto("/techniques/new");
+      const { body } = await editorBody(page);
+      const title = "Rig arm paint-out against a moving sky";
+      await page.getByLabel("Title").fill(title);
+      await markDocument(page);
+      await typeAndSelect(page, "reference");
+      await page.keyboard.press("Control+k");
+      const dialog = page.getByRole("dialog", { name: "Add link" });
+      await dialog.waitFor();
+      await dialog.getByLabel("Address").fill("https://intranet.kestrel.test/sky");
+      await dialog.getByRole("button", { name: "Apply" }).click();
+      await dialog.waitFor({ state: "hidden" });
+
+      expect(await isShown(body.locator('a[href="https://intranet.kestrel.test/sky"]', { hasText: "reference" }))).toBe(true);
+      expect(await documentKept(page)).toBe(true);
+      expect(new URL(page.url()).pathname).toBe("/techniques/new");
+      expect(await page.getByLabel("Title").inputValue()).toBe(title);
+      expect(await body.textContent()).toContain("Read the reference");
+      await context.close();
+    });
   });
 
-  it("'Upload and insert' in the still dialog uploads the still into the body and keeps the form", async () => {
-    const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
-    await page.goto(`/techniques/${SLUG}/edit`);
-    const { toolbar, body } = await editorBody(page);
-    const summary = "A summary typed before the still was added.";
-    await page.getByLabel("One-line summary").fill(summary);
-    await body.click();
-    await page.keyboard.press("Control+End");
-    await markDocument(page);
-    const before = await body.locator("figure.still").count();
+  describe("page status codes", () => {
+    let draftSlug = "";
 
-    await toolbar.getByRole("button", { name: "Add a still" }).click();
-    const dialog = page.getByRole("dialog", { name: "Add a still" });
-    await dialog.waitFor();
-    await dialog.getByLabel("Image file").setInputFiles({ name: "ramp.png", mimeType: "image/png", buffer: await samplePng() });
-    await dialog.getByLabel(/Description/).fill("A grey ramp for the test");
-    await dialog.getByRole("button", { name: "Upload and insert" }).click();
-    await dialog.waitFor({ state: "hidden", timeout: 30_000 });
+    it("missing pages and someone else's draft answer 404 with the one friendly page", async () => {
+      const senior = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      const created = await senior.page.request.post("/api/techniques", {
+        data: { title: "Unfinished notes on lens dirt", summary: "Half written.", aliases: [], tags: [], recipe: [] },
+      });
+      expect(created.status()).toBe(201);
+      draftSlug = ((await created.json()) as { slug: string }).slug;
+      // The senior sees their own draft; a missing page under edit is a 404 for them too.
+      expect((await senior.page.goto(`/techniques/${draftSlug}`))?.status()).toBe(200);
+      expect((await senior.page.goto("/techniques/no-such-thing/edit"))?.status()).toBe(404);
+      await senior.context.close();
 
-    await expect.poll(() => body.locator("figure.still").count(), { timeout: 15_000 }).toBe(before + 1);
-    expect(await body.locator('figure.still img[alt="A grey ramp for the test"]').count()).toBe(1);
-    expect(await documentKept(page)).toBe(true);
-    expect(new URL(page.url()).pathname).toBe(`/techniques/${SLUG}/edit`);
-    expect(await page.getByLabel("One-line summary").inputValue()).toBe(summary);
-    await screenshot(page, "writing-still-inserted");
-    await context.close();
-  });
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, ARTIST);
+      for (const path of ["/techniques/no-such-thing", `/techniques/${draftSlug}`, `/techniques/${draftSlug}/history`, "/problems/nope", "/shots/NOPE_000_0000", "/shows/NOPE", "/no/such/page"]) {
+        const res = await page.goto(path);
+        expect(res?.status(), path).toBe(404);
+        expect(await isShown(page.getByRole("heading", { name: "Nothing here" })), path).toBe(true);
+      }
+      // Inside the app the page keeps its navigation.
+      await page.goto("/problems/nope");
+      expect(await isShown(page.getByRole("navigation").first())).toBe(true);
+      await screenshot(page, "status-404");
+      await context.close();
+    });
 
-  it("on a new technique, adding a link keeps the typed title and body", async () => {
-    const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
-    await page.goto("/techniques/new");
-    const { body } = await editorBody(page);
-    const title = "Rig arm paint-out against a moving sky";
-    await page.getByLabel("Title").fill(title);
-    await markDocument(page);
-    await typeAndSelect(page, "reference");
-    await page.keyboard.press("Control+k");
-    const dialog = page.getByRole("dialog", { name: "Add link" });
-    await dialog.waitFor();
-    await dialog.getByLabel("Address").fill("https://intranet.kestrel.test/sky");
-    await dialog.getByRole("button", { name: "Apply" }).click();
-    await dialog.waitFor({ state: "hidden" });
-
-    expect(await isShown(body.locator('a[href="https://intranet.kestrel.test/sky"]', { hasText: "reference" }))).toBe(true);
-    expect(await documentKept(page)).toBe(true);
-    expect(new URL(page.url()).pathname).toBe("/techniques/new");
-    expect(await page.getByLabel("Title").inputValue()).toBe(title);
-    expect(await body.textContent()).toContain("Read the reference");
-    await context.close();
+    it("pages refused for a role answer 403 with the 'not for your role' page", async () => {
+      const refused: Record<string, string[]> = {
+        [ARTIST]: ["/techniques/new", "/review", "/audit", "/people", "/mail", `/techniques/${SLUG}/edit`],
+        [ADMIN]: ["/techniques/new", `/techniques/${SLUG}/edit`, "/review"],
+        [SENIOR]: ["/review", "/audit", "/people", "/mail"],
+      };
+      for (const [email, paths] of Object.entries(refused)) {
+        const { context, page } = await signIn(running.browser, running.app.baseUrl, email);
+        for (const path of paths) {
+          const res = await page.goto(path);
+          expect(res?.status(), `${email} ${path}`).toBe(403);
+          expect(await isShown(page.getByRole("heading", { name: "Not for your role" })), `${email} ${path}`).toBe(true);
+        }
+        if (email === ARTIST) await screenshot(page, "status-403");
+        await context.close();
+      }
+      // The same pages open for the roles they are for.
+      const lead = await signIn(running.browser, running.app.baseUrl, LEAD);
+      for (const path of ["/techniques/new", "/review", `/techniques/${SLUG}/edit`]) expect((await lead.page.goto(path))?.status(), path).toBe(200);
+      await lead.context.close();
+    });
   });
 });

@@ -2,9 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
-import { Refused } from "@/components/ui/refused";
 import { listAudit } from "@/lib/audit/queries";
-import { can } from "@/lib/auth/permissions";
+import { requirePagePermission } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 import { formatDateTime } from "@/lib/utils";
 
@@ -13,7 +12,7 @@ const PAGE = 100;
 
 export default async function AuditPage({ searchParams }: { searchParams: Promise<{ page?: string }> }) {
   const user = await requireUser();
-  if (!can(user, "audit:read")) return <Refused what="The audit log" />;
+  requirePagePermission(user, "audit:read");
   const page = Math.max(1, Number((await searchParams).page ?? 1) || 1);
   const { items, total } = await listAudit(user, { limit: PAGE, offset: (page - 1) * PAGE });
   return (

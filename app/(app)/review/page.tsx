@@ -1,8 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { EmptyState } from "@/components/ui/empty-state";
-import { Refused } from "@/components/ui/refused";
-import { can } from "@/lib/auth/permissions";
+import { requirePagePermission } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 import { listReviewQueue } from "@/lib/techniques/queries";
 import { formatDateTime } from "@/lib/utils";
@@ -11,7 +10,7 @@ export const metadata: Metadata = { title: "Review" };
 
 export default async function ReviewPage() {
   const user = await requireUser();
-  if (!can(user, "technique:review")) return <Refused what="The review queue" />;
+  requirePagePermission(user, "technique:review");
   const queue = await listReviewQueue(user);
   return (
     <div className="space-y-4">

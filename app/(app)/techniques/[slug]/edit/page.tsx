@@ -1,9 +1,7 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { TechniqueForm } from "@/components/techniques/technique-form";
-import { Refused } from "@/components/ui/refused";
-import { loadOrNotFound } from "@/lib/api/page-guards";
-import { can } from "@/lib/auth/permissions";
+import { loadOrNotFound, requirePagePermission } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 import { getTechnique, listTags } from "@/lib/techniques/queries";
 
@@ -11,7 +9,7 @@ export const metadata: Metadata = { title: "Edit technique" };
 
 export default async function EditTechniquePage({ params }: { params: Promise<{ slug: string }> }) {
   const user = await requireUser();
-  if (!can(user, "technique:write")) return <Refused what="Editing techniques" />;
+  requirePagePermission(user, "technique:write");
   const { slug } = await params;
   const t = await loadOrNotFound(() => getTechnique(user, slug));
   if (t.renamedFrom) redirect(`/techniques/${t.slug}/edit`);
