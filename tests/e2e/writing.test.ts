@@ -130,6 +130,98 @@ describe.skipIf(!hasChromium())("issue 13 in Chromium", () => {
     });
   });
 
+  describe("stills while writing", () => {
+    it("a new technique takes a still at once: the first still saves the draft, and the form says so", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      await page.goto("/techniques/new");
+      const { toolbar, body } = await editorBody(page);
+      await page.getByLabel("Title").fill("Lens dust on a night exterior");
+      await page.getByLabel("One-line summary").fill("Lift dust specks off a dark sky without smearing the stars.");
+      await body.click();
+      await page.keyboard.type("Start from the darkest frame.");
+      await markDocument(page);
+
+      const stillButton = toolbar.getByRole("button", { name: "Add a still" });
+      expect(await stillButton.isDisabled()).toBe(false);
+      await stillButton.click();
+      const dialog = page.getByRole("dialog", { name: "Add a still" });
+      await dialog.waitFor();
+      expect(await dialog.textContent()).toContain("Adding a still saves this new technique as a draft first");
+      await dialog.getByLabel("Image file").setInputFiles({ name: "IMG_0042.png", mimeType: "image/png", buffer: await samplePng() });
+      await dialog.getByLabel(/Description/).fill("Dark sky with three dust specks");
+      await dialog.getByRole("button", { name: "Upload and insert" }).click();
+      await dialog.waitFor({ state: "hidden", timeout: 30_000 });
+
+      // Saved in place: the address names the draft, nothing typed was lost, the form says what happened.
+      await page.waitForURL(/\/techniques\/lens-dust-on-a-night-exterior\/edit$/);
+      expect(await documentKept(page)).toBe(true);
+      expect(await isShown(page.getByText("Saved as a draft so the still could be stored."))).toBe(true);
+      expect(await body.locator('figure.still img[alt="Dark sky with three dust specks"]').count()).toBe(1);
+      expect(await body.textContent()).toContain("Start from the darkest frame.");
+      await screenshot(page, "writing-new-with-still");
+
+      await page.keyboard.type(" Then the next one.");
+      await page.getByRole("button", { name: "Save draft" }).click();
+      await page.waitForURL(/\/techniques\/lens-dust-on-a-night-exterior$/, { timeout: 30_000 });
+      // Lazy-loaded images below the fold have no size yet: count them rather than wait for them to show.
+      await page.getByRole("heading", { name: "Lens dust on a night exterior" }).waitFor();
+      expect(await page.locator('.prose-plate figure.still img[alt="Dark sky with three dust specks"]').count()).toBe(1);
+      const saved = (await (await page.request.get("/api/techniques/lens-dust-on-a-night-exterior")).json()) as { latestRevision: number; status: string };
+      expect(saved).toMatchObject({ latestRevision: 2, status: "draft" });
+      await context.close();
+    });
+
+    it("an image dropped into the body asks for its description instead of taking the file name", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      await page.goto(`/techniques/${SLUG}/edit`);
+      const { body } = await editorBody(page);
+      const before = await body.locator("figure.still").count();
+      const png = (await samplePng()).toString("base64");
+      await body.evaluate((el, data) => {
+        const bytes = Uint8Array.from(atob(data), (c) => c.charCodeAt(0));
+        const transfer = new DataTransfer();
+        transfer.items.add(new File([bytes], "plate_v003_final-FINAL.png", { type: "image/png" }));
+        const box = el.getBoundingClientRect();
+        el.dispatchEvent(new DragEvent("drop", { dataTransfer: transfer, clientX: box.left + 20, clientY: box.top + 20, bubbles: true, cancelable: true }));
+      }, png);
+
+      const dialog = page.getByRole("dialog", { name: "Add a still" });
+      await dialog.waitFor();
+      expect(await dialog.getByText("plate_v003_final-FINAL.png").count()).toBe(1);
+      const description = dialog.getByLabel(/Description/);
+      expect(await description.inputValue()).toBe("");
+      // Nothing is uploaded without a description.
+      await dialog.getByRole("button", { name: "Upload and insert" }).click();
+      expect(await isShown(dialog.getByRole("alert").filter({ hasText: "Describe the still" }))).toBe(true);
+      expect(await body.locator("figure.still").count()).toBe(before);
+      await screenshot(page, "writing-drop-asks-description");
+
+      await description.fill("Blue screen plate with the marker cleaned");
+      await dialog.getByRole("button", { name: "Upload and insert" }).click();
+      await dialog.waitFor({ state: "hidden", timeout: 30_000 });
+      await expect.poll(() => body.locator("figure.still").count(), { timeout: 15_000 }).toBe(before + 1);
+      expect(await body.locator('figure.still img[alt="Blue screen plate with the marker cleaned"]').count()).toBe(1);
+      expect(await body.locator('figure.still img[alt*="plate v003"]').count()).toBe(0);
+      await context.close();
+    });
+
+    it("without a title, the first still says what is missing and keeps the form", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      await page.goto("/techniques/new");
+      const { toolbar } = await editorBody(page);
+      await toolbar.getByRole("button", { name: "Add a still" }).click();
+      const dialog = page.getByRole("dialog", { name: "Add a still" });
+      await dialog.getByLabel("Image file").setInputFiles({ name: "a.png", mimeType: "image/png", buffer: await samplePng() });
+      await dialog.getByLabel(/Description/).fill("Anything");
+      await dialog.getByRole("button", { name: "Upload and insert" }).click();
+      const alert = dialog.getByRole("alert");
+      expect(await isShown(alert)).toBe(true);
+      expect(await alert.textContent()).toMatch(/title/i);
+      expect(new URL(page.url()).pathname).toBe("/techniques/new");
+      await context.close();
+    });
+  });
+
   describe("page status codes", () => {
     let draftSlug = "";
 
