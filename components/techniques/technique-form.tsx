@@ -38,7 +38,7 @@ const CONTINUED_NOTE = "Continued the first draft.";
 /** The write/edit form: fields, rich-text body, recipe, change note; 409s are shown, never overwritten. */
 export function TechniqueForm({ mode, slug, baseRevision, initial, tags, requestId, isEditOfApproved }: Props) {
   const router = useRouter();
-  const ids = { title: useId(), summary: useId(), aliases: useId(), body: useId(), note: useId() };
+  const ids = { title: useId(), summary: useId(), aliases: useId(), body: useId(), note: useId(), saveNote: useId() };
   const [value, setValue] = useState<TechniqueFormValue>(initial);
   const [aliasText, setAliasText] = useState(initial.aliases.join(", "));
   const [changeNote, setChangeNote] = useState("");
@@ -99,8 +99,9 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
     return firstSave.current;
   }
 
-  async function save(event: React.FormEvent) {
+  async function save(event: React.FormEvent<HTMLFormElement>) {
     event.preventDefault();
+    const alsoSubmit = (event.nativeEvent as SubmitEvent).submitter?.getAttribute("value") === "submit";
     setSaving(true);
     setErrors({});
     setMessage(null);
@@ -112,6 +113,8 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
             json: { ...payload(), baseRevision: base, changeNote: mode === "create" ? CONTINUED_NOTE : changeNote },
           });
       draft.clear();
+      // Saved either way; a refused submit leaves the page's own "Submit for review" button to try again.
+      if (alsoSubmit) await apiFetch(`/api/techniques/${result.slug}/submit`, { method: "POST" }).catch(() => undefined);
       router.push(`/techniques/${result.slug}`);
       router.refresh();
     } catch (error) {
@@ -132,7 +135,7 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
       {draft.recoverable ? <DraftBanner savedAt={draft.savedAt} onRestore={() => draft.restore()} onDiscard={draft.discard} subject="this technique" /> : null}
       {isEditOfApproved ? (
         <p className="rounded border border-accent/50 bg-accent/10 px-3 py-2 text-sm" role="note">
-          This technique is approved. Saving makes a new revision that goes to a lead for review; readers keep seeing the approved text until then.
+          This technique is approved. Saving makes a new revision; readers keep seeing the approved text until a lead approves the new one.
         </p>
       ) : null}
       {conflict ? (
@@ -203,9 +206,16 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
           {message}
         </p>
       ) : null}
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={saving}>
-          {saving ? "Saving…" : mode === "create" ? "Save draft" : "Save revision"}
+      <p id={ids.saveNote} className="text-sm text-muted">
+        Every saved revision is a draft that only writers and leads see. <strong className="font-medium text-ink">Save and submit for review</strong> also asks
+        the leads to review it; a draft can be submitted later from its page.
+      </p>
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" name="then" value="submit" variant="primary" disabled={saving} aria-describedby={ids.saveNote}>
+          {saving ? "Saving…" : "Save and submit for review"}
+        </Button>
+        <Button type="submit" name="then" value="keep" disabled={saving} aria-describedby={ids.saveNote}>
+          Save draft
         </Button>
         <Link href={savedSlug ? `/techniques/${savedSlug}` : "/techniques"} className="rounded px-3 py-1.5 text-sm text-muted hover:text-ink">
           Cancel

@@ -277,3 +277,16 @@ export async function getTag(slug: string) {
   const [house] = await getDb().select().from(houseMethods).where(eq(houseMethods.tagId, tag.id)).limit(1);
   return { tag, houseMethodTechniqueId: house?.techniqueId ?? null };
 }
+
+/** The current department method of each of these problem tags (by tag slug), as readers know it. */
+export async function listDepartmentMethods(tagSlugs: string[]): Promise<Record<string, { slug: string; title: string }>> {
+  if (!tagSlugs.length) return {};
+  const rows = await getDb()
+    .select({ tag: tags.slug, slug: techniques.slug, title: revisions.title })
+    .from(houseMethods)
+    .innerJoin(tags, eq(tags.id, houseMethods.tagId))
+    .innerJoin(techniques, eq(techniques.id, houseMethods.techniqueId))
+    .innerJoin(revisions, eq(revisions.id, techniques.approvedRevisionId))
+    .where(inArray(tags.slug, tagSlugs));
+  return Object.fromEntries(rows.map((r) => [r.tag, { slug: r.slug, title: r.title }]));
+}

@@ -222,6 +222,46 @@ describe.skipIf(!hasChromium())("issue 13 in Chromium", () => {
     });
   });
 
+  describe("department method", () => {
+    it("marking asks first, names the method it replaces, and moves the badge", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, LEAD);
+      // Tag the grain technique with a second problem, which already has its own department method.
+      const grain = "grain-restore-after-denoise";
+      const t = (await (await page.request.get(`/api/techniques/${grain}`)).json()) as {
+        title: string; summary: string; aliases: string[]; tags: { slug: string }[]; body: unknown; recipe: unknown[]; latestRevision: number;
+      };
+      const saved = await page.request.put(`/api/techniques/${grain}`, {
+        data: { title: t.title, summary: t.summary, aliases: t.aliases, tags: [...t.tags.map((x) => x.slug), "dust-and-scratches"], body: t.body, recipe: t.recipe, baseRevision: t.latestRevision, changeNote: "Also answers dust." },
+      });
+      expect(saved.status()).toBe(200);
+      const revision = ((await saved.json()) as { revision: number }).revision;
+      expect((await page.request.post(`/api/techniques/${grain}/submit`)).status()).toBe(200);
+      expect((await page.request.post(`/api/techniques/${grain}/review`, { data: { revision, decision: "approve" } })).status()).toBe(200);
+
+      await page.goto(`/techniques/${grain}`);
+      await page.getByLabel("Department method for").selectOption({ label: "Dust and scratches" });
+      await page.getByRole("button", { name: "Mark…" }).click();
+      const dialog = page.getByRole("dialog", { name: "Replace the department method for Dust and scratches?" });
+      await dialog.waitFor();
+      expect(await dialog.textContent()).toContain("Dust busting with a temporal median is the department method for Dust and scratches now");
+      await screenshot(page, "department-method-confirm");
+      // Cancel changes nothing.
+      await dialog.getByRole("button", { name: "Cancel" }).click();
+      await page.goto("/problems/dust-and-scratches");
+      const first = page.locator("li").filter({ hasText: "Department method" }).first();
+      expect(await first.textContent()).toContain("Dust busting with a temporal median");
+
+      await page.goto(`/techniques/${grain}`);
+      await page.getByLabel("Department method for").selectOption({ label: "Dust and scratches" });
+      await page.getByRole("button", { name: "Mark…" }).click();
+      await page.getByRole("dialog").getByRole("button", { name: "Replace" }).click();
+      await page.getByRole("dialog").waitFor({ state: "hidden" });
+      await page.goto("/problems/dust-and-scratches");
+      expect(await page.locator("li").filter({ hasText: "Department method" }).first().textContent()).toContain("Grain restore after denoise");
+      await context.close();
+    });
+  });
+
   describe("page status codes", () => {
     let draftSlug = "";
 
