@@ -25,7 +25,14 @@ export async function TechniqueActions({ user, t }: { user: SessionUser; t: Tech
         </Link>
       ) : null}
       {can(user, "technique:submit") && isLatest && (state === "draft" || state === "returned") && !retired ? <SubmitForReviewButton slug={t.slug} /> : null}
-      {can(user, "technique:review") && isLatest && state === "in_review" ? <ReviewActions slug={t.slug} revision={t.revision.number} /> : null}
+      {can(user, "technique:review") && isLatest && state === "in_review" ? (
+        <>
+          <ReviewActions slug={t.slug} revision={t.revision.number} />
+          <Link href={`/techniques/${t.slug}/review`} className="text-sm text-accent underline underline-offset-2">
+            Review the changes
+          </Link>
+        </>
+      ) : null}
       {canMark ? <HouseMethodPicker slug={t.slug} title={t.title} problemTags={problemTags} current={current} /> : null}
       {can(user, "technique:retire") && !retired && t.approvedRevision !== null ? <RetireDialog slug={t.slug} /> : null}
     </div>

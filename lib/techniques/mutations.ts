@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, inArray, ne, sql } from "drizzle-orm";
 import { getDb, type Database } from "@/db/client";
-import { houseMethods, revisions, tags, techniqueRequests, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
+import { houseMethods, revisions, stillPairs, tags, techniqueRequests, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
@@ -86,6 +86,60 @@ async function latestRevision(tx: Tx, t: Technique): Promise<Revision> {
   return r;
 }
 
+/** A new revision starts with copies of its base revision's before/after pairs. */
+async function copyPairs(tx: Tx, fromRevisionId: string, toRevisionId: string): Promise<void> {
+  const pairs = await tx.select().from(stillPairs).where(eq(stillPairs.revisionId, fromRevisionId));
+  if (!pairs.length) return;
+  await tx.insert(stillPairs).values(
+    pairs.map((p) => ({
+      techniqueId: p.techniqueId,
+      revisionId: toRevisionId,
+      beforeStillId: p.beforeStillId,
+      afterStillId: p.afterStillId,
+      caption: p.caption,
+      position: p.position,
+      createdAt: p.createdAt,
+    })),
+  );
+}
+
+/**
+ * Runs a change to the revision people are working on (its before/after pairs) in one transaction.
+ * A draft or sent-back newest revision is changed in place; when the newest is approved or waiting
+ * for review, a new draft revision (a copy, with `changeNote`) takes the change, so it goes
+ * through review like any other edit and readers keep what was approved.
+ */
+export async function changeWorkingRevision<T>(
+  actor: SessionUser,
+  slug: string,
+  changeNote: string,
+  work: (tx: Tx, revision: Revision, technique: Technique) => Promise<T>,
+): Promise<T> {
+  assertCan(actor, "technique:write");
+  const result = await getDb().transaction(async (tx) => {
+    const t = await lockTechnique(tx, slug);
+    if (t.status === "retired") throw new AppError("conflict", "This technique is retired; it can no longer be changed.");
+    let revision = await latestRevision(tx, t);
+    if (revision.state === "approved" || revision.state === "in_review") {
+      const { id: _id, number, state: _state, createdAt: _at, reviewedById: _by, reviewedAt: _rat, reviewNote: _note, ...content } = revision;
+      const [next] = await tx
+        .insert(revisions)
+        .values({ ...content, number: number + 1, changeNote, authorId: actor.id, state: "draft" })
+        .returning();
+      await copyPairs(tx, revision.id, next!.id);
+      await tx
+        .update(techniques)
+        .set({ latestRevisionId: next!.id, updatedAt: new Date(), status: t.approvedRevisionId ? t.status : "draft" })
+        .where(eq(techniques.id, t.id));
+      await writeAudit(tx, { actorId: actor.id, action: "technique.edit", targetType: "technique", targetId: t.id, detail: { revision: next!.number, changeNote } });
+      revision = next!;
+    }
+    return { id: t.id, value: await work(tx, revision, t) };
+  });
+  await reindexTechnique(result.id);
+  return result.value;
+}
+
 /** Seniors and leads write a new technique; it starts as a draft. */
 export async function createTechnique(actor: SessionUser, input: CreateTechniqueInput): Promise<{ slug: string; revision: number }> {
   assertCan(actor, "technique:write");
@@ -119,7 +173,12 @@ export async function createTechnique(actor: SessionUser, input: CreateTechnique
  * One rule for new and approved techniques alike: a saved revision is a draft until someone
  * submits it for review (submitTechnique); readers of an approved technique keep the approved one.
  */
-export async function updateTechnique(actor: SessionUser, slug: string, input: UpdateTechniqueInput): Promise<{ slug: string; revision: number }> {
+export async function updateTechnique(
+  actor: SessionUser,
+  slug: string,
+  input: UpdateTechniqueInput,
+  options: { pairsFromRevisionId?: string } = {},
+): Promise<{ slug: string; revision: number }> {
   assertCan(actor, "technique:write");
   const result = await getDb().transaction(async (tx) => {
     const t = await lockTechnique(tx, slug);
@@ -147,6 +206,7 @@ export async function updateTechnique(actor: SessionUser, slug: string, input: U
         state: "draft",
       })
       .returning();
+    await copyPairs(tx, options.pairsFromRevisionId ?? latest.id, r!.id);
     const newSlug = isEditOfApproved ? t.slug : await renameSlug(tx, t, input.title);
     await tx
       .update(techniques)
@@ -395,7 +455,10 @@ export async function restoreRevision(actor: SessionUser, slug: string, number: 
     .where(and(eq(techniques.id, (await findTechniqueBySlug(slug))?.technique.id ?? sql`null`), eq(revisions.number, number)));
   if (!old) throw new AppError("not_found", `No revision ${number} of this technique.`);
   const tagRows = old.r.tagIds.length ? await getDb().select({ slug: tags.slug }).from(tags).where(inArray(tags.id, old.r.tagIds)) : [];
-  return updateTechnique(actor, slug, {
+  return updateTechnique(
+    actor,
+    slug,
+    {
     title: old.r.title,
     summary: old.r.summary,
     aliases: old.r.aliases,
@@ -404,5 +467,8 @@ export async function restoreRevision(actor: SessionUser, slug: string, number: 
     recipe: old.r.recipe as UpdateTechniqueInput["recipe"],
     baseRevision,
     changeNote: `Restored revision ${number}.`,
-  });
+    },
+    // Restoring brings back that revision's before/after pairs with its text.
+    { pairsFromRevisionId: old.r.id },
+  );
 }

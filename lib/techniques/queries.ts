@@ -216,6 +216,37 @@ export async function listReviewQueue(user: SessionUser): Promise<ReviewQueueIte
   }));
 }
 
+export type ReviewItem = {
+  slug: string;
+  title: string;
+  /** The newest revision: waiting for review when `isWaiting`. */
+  pending: RevisionSummary;
+  isWaiting: boolean;
+  approvedRevision: number | null;
+  /** What the review compares with: the approved revision, else the last one sent back, else 0 (nothing). */
+  compareWith: number;
+};
+
+/** What a lead needs to review a technique's waiting revision (leads only). */
+export async function getReviewItem(user: SessionUser, slug: string): Promise<ReviewItem> {
+  assertCan(user, "technique:review");
+  const { technique: t, renamedFrom: _renamed } = await requireVisibleTechnique(user, slug);
+  const db = getDb();
+  const rows = await db.select().from(revisions).where(eq(revisions.techniqueId, t.id)).orderBy(desc(revisions.number));
+  const latest = rows.find((r) => r.id === t.latestRevisionId) ?? rows[0]!;
+  const approved = rows.find((r) => r.id === t.approvedRevisionId) ?? null;
+  const sentBack = rows.find((r) => r.number < latest.number && r.state === "returned");
+  const names = await people([latest.authorId, latest.reviewedById]);
+  return {
+    slug: t.slug,
+    title: latest.title,
+    pending: toRevisionSummary(latest, names),
+    isWaiting: latest.state === "in_review",
+    approvedRevision: approved?.number ?? null,
+    compareWith: approved?.number ?? sentBack?.number ?? 0,
+  };
+}
+
 export async function countReviewQueue(user: SessionUser): Promise<number> {
   if (!can(user, "technique:review")) return 0;
   const [row] = await getDb()

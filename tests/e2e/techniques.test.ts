@@ -103,7 +103,10 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     const link = page.getByRole("link", { name: TITLE });
     expect(await isShown(link)).toBe(true);
     await link.click();
-    await page.waitForURL(new RegExp(`/techniques/${slug}$`));
+    // The queue opens the review: a new technique compares with nothing, so its text shows as added.
+    await page.waitForURL(new RegExp(`/techniques/${slug}/review$`));
+    expect(await isShown(page.getByRole("heading", { name: /compared with nothing/ }))).toBe(true);
+    expect(await isShown(page.locator("ins", { hasText: "Check the wire is thinner" }))).toBe(true);
     await approve(page, slug, 1);
     const res = await page.request.get(`/api/techniques/${slug}`);
     expect(((await res.json()) as { status: string; approvedRevision: number }).status).toBe("approved");

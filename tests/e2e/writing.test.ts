@@ -239,7 +239,7 @@ describe.skipIf(!hasChromium())("issue 13 in Chromium", () => {
       expect((await page.request.post(`/api/techniques/${grain}/review`, { data: { revision, decision: "approve" } })).status()).toBe(200);
 
       await page.goto(`/techniques/${grain}`);
-      await page.getByLabel("Department method for").selectOption({ label: "Dust and scratches" });
+      await page.getByLabel("Department method for", { exact: true }).selectOption({ label: "Dust and scratches" });
       await page.getByRole("button", { name: "Mark…" }).click();
       const dialog = page.getByRole("dialog", { name: "Replace the department method for Dust and scratches?" });
       await dialog.waitFor();
@@ -252,13 +252,68 @@ describe.skipIf(!hasChromium())("issue 13 in Chromium", () => {
       expect(await first.textContent()).toContain("Dust busting with a temporal median");
 
       await page.goto(`/techniques/${grain}`);
-      await page.getByLabel("Department method for").selectOption({ label: "Dust and scratches" });
+      await page.getByLabel("Department method for", { exact: true }).selectOption({ label: "Dust and scratches" });
       await page.getByRole("button", { name: "Mark…" }).click();
       await page.getByRole("dialog").getByRole("button", { name: "Replace" }).click();
       await page.getByRole("dialog").waitFor({ state: "hidden" });
       await page.goto("/problems/dust-and-scratches");
       expect(await page.locator("li").filter({ hasText: "Department method" }).first().textContent()).toContain("Grain restore after denoise");
       await context.close();
+    });
+  });
+
+  describe("review", () => {
+    it("the queue opens the diff against the approved revision, with stills as thumbnails and the pair change", async () => {
+      const senior = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      const pairs = (await (await senior.page.request.get(`/api/stills/pairs?technique=${SLUG}`)).json()) as { items: { before: { id: string }; after: { id: string } }[] };
+      expect(pairs.items.length).toBeGreaterThan(0);
+      const [first] = pairs.items;
+      // A pair made on the approved technique starts a draft revision.
+      const made = await senior.page.request.post("/api/stills/pairs", { data: { technique: SLUG, before: first!.after.id, after: first!.before.id, caption: "Cleaned first, for comparison" } });
+      expect(made.status()).toBe(201);
+      const { revision } = (await made.json()) as { revision: number };
+
+      await senior.page.goto(`/techniques/${SLUG}/edit`);
+      const { toolbar, body } = await editorBody(senior.page);
+      await body.click();
+      await senior.page.keyboard.press("Control+End");
+      await toolbar.getByRole("button", { name: "Add a still" }).click();
+      const dialog = senior.page.getByRole("dialog", { name: "Add a still" });
+      await dialog.getByLabel("Image file").setInputFiles({ name: "ramp.png", mimeType: "image/png", buffer: await samplePng() });
+      await dialog.getByLabel(/Description/).fill("Grey ramp for the reviewer");
+      await dialog.getByRole("button", { name: "Upload and insert" }).click();
+      await dialog.waitFor({ state: "hidden", timeout: 30_000 });
+      await senior.page.getByLabel("What changed, and why").fill("A reference ramp, and the pair the other way round.");
+      await senior.page.getByRole("button", { name: "Save and submit for review" }).click();
+      await senior.page.waitForURL(new RegExp(`/techniques/${SLUG}$`), { timeout: 30_000 });
+      await senior.context.close();
+
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, LEAD);
+      await page.goto("/review");
+      await page.getByRole("link", { name: "Review the changes to Marker channel cleanup" }).click();
+      await page.waitForURL(new RegExp(`/techniques/${SLUG}/review$`));
+      const changes = page.getByRole("region", { name: /compared with approved revision/ });
+      expect(await isShown(changes)).toBe(true);
+      expect(await (await changes.getByRole("heading").first().textContent())).toContain(`Revision ${revision + 1} compared with approved revision ${revision - 1}`);
+      // The new still is a thumbnail inside the added text, not "[still: …]".
+      const added = changes.locator("ins").getByRole("img", { name: "Grey ramp for the reviewer" });
+      expect(await isShown(added)).toBe(true);
+      expect(await changes.getByText(/\[still/).count()).toBe(0);
+      const pairChange = changes.getByRole("listitem").filter({ hasText: "Pair added" });
+      expect(await isShown(pairChange)).toBe(true);
+      expect(await pairChange.getByRole("img").count()).toBe(2);
+      expect(await pairChange.textContent()).toContain("Cleaned first, for comparison");
+      await screenshot(page, "review-diff");
+
+      await page.getByRole("button", { name: `Approve revision ${revision + 1}` }).click();
+      await page.getByRole("dialog").getByRole("button", { name: "Approve", exact: true }).click();
+      expect(await isShown(page.getByText("Nothing of this technique is waiting for review."), 30_000)).toBe(true);
+      await context.close();
+
+      const artist = await signIn(running.browser, running.app.baseUrl, ARTIST);
+      const seen = (await (await artist.page.request.get(`/api/stills/pairs?technique=${SLUG}`)).json()) as { items: { caption: string }[] };
+      expect(seen.items.map((p) => p.caption)).toContain("Cleaned first, for comparison");
+      await artist.context.close();
     });
   });
 

@@ -19,12 +19,15 @@ export default async function ReviewPage() {
         <ul className="divide-y divide-line rounded-lg border border-line bg-surface">
           {queue.map((item) => (
             <li key={`${item.slug}-${item.revision}`} className="flex flex-wrap items-center gap-2 px-4 py-3 text-sm">
-              <Link href={`/techniques/${item.slug}`} className="font-medium hover:text-accent">
+              <Link href={`/techniques/${item.slug}/review`} className="font-medium hover:text-accent">
                 {item.title}
               </Link>
               <span className="text-muted">
                 revision {item.revision} · {item.isEdit ? "edit of an approved technique" : "new technique"} · by {item.author?.name ?? "someone"} · {formatDateTime(item.submittedAt)}
               </span>
+              <Link href={`/techniques/${item.slug}/review`} className="ml-auto text-accent underline underline-offset-2" aria-label={`Review the changes to ${item.title}`}>
+                Review the changes
+              </Link>
             </li>
           ))}
         </ul>
