@@ -317,6 +317,42 @@ describe.skipIf(!hasChromium())("issue 13 in Chromium", () => {
     });
   });
 
+  describe("audit log", () => {
+    it("reads as sentences with links, filters by person, action and day, and pages", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, ADMIN);
+      await page.goto("/audit");
+      const entries = page.getByTestId("audit-entry");
+      expect(await entries.count()).toBe(50);
+      expect(await isShown(page.getByRole("navigation", { name: "Pages of the audit log" }).getByText(/^Page 1 of \d+$/))).toBe(true);
+      const text = (await page.getByRole("list", { name: "Audit entries" }).textContent()) ?? "";
+      // No raw JSON, no action codes, no cut-off ids.
+      expect(text).not.toMatch(/[{}]|technique\.approve|"revision"|\b[0-9a-f]{8}\b/);
+      await screenshot(page, "audit-log");
+
+      await page.getByRole("link", { name: "Older →" }).click();
+      await page.waitForURL(/\/audit\?page=2$/);
+      expect(await entries.count()).toBeGreaterThan(0);
+
+      // The department method change from the test above, found by person and action.
+      await page.getByLabel("Person").selectOption({ label: "Ines Varrow" });
+      await page.getByLabel("Action").selectOption({ label: "Chose a department method" });
+      const today = new Date().toISOString().slice(0, 10);
+      await page.getByLabel("From (UTC day)").fill(today);
+      await page.getByLabel("To (UTC day)").fill(today);
+      await page.getByRole("button", { name: "Show" }).click();
+      await page.waitForURL(/action=tag\.house-method\.set/);
+      const sentence = entries.filter({ hasText: "Grain restore after denoise" });
+      expect(await sentence.count()).toBe(1);
+      expect(await sentence.textContent()).toContain(
+        "Ines Varrow made Grain restore after denoise the department method for Dust and scratches, in place of Dust busting with a temporal median.",
+      );
+      expect(await sentence.getByRole("link", { name: "Dust busting with a temporal median" }).getAttribute("href")).toBe("/techniques/dust-busting-with-a-temporal-median");
+      expect(await entries.count()).toBe(1);
+      await screenshot(page, "audit-log-filtered");
+      await context.close();
+    });
+  });
+
   describe("page status codes", () => {
     let draftSlug = "";
 
