@@ -7,6 +7,7 @@ import { DraftBanner } from "@/components/editor/draft-banner";
 import { TechniqueEditor } from "@/components/editor/editor";
 import { techniqueDraftSchema, useDraftRecovery, type TechniqueDraft } from "@/components/editor/use-draft-recovery";
 import { TagPicker } from "@/components/techniques/tag-picker";
+import { RecipeStillsProvider, type RecipeStill } from "@/components/lab/recipe/denoised-still-picker";
 import { RecipeField } from "@/components/techniques/recipe-field";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, TextArea, TextInput } from "@/components/ui/field";
@@ -27,6 +28,8 @@ type Props = {
   tags: TagRef[];
   requestId?: string;
   isEditOfApproved?: boolean;
+  /** The technique's stills, for recipe steps that name one (the grain step's denoised plate). */
+  stills?: RecipeStill[];
 };
 
 type Conflict = { message: string; latest?: { number: number; author: string | null; savedAt: string } };
@@ -36,7 +39,7 @@ const FIRST_STILL_NOTE = "Adding a still saves this new technique as a draft fir
 const CONTINUED_NOTE = "Continued the first draft.";
 
 /** The write/edit form: fields, rich-text body, recipe, change note; 409s are shown, never overwritten. */
-export function TechniqueForm({ mode, slug, baseRevision, initial, tags, requestId, isEditOfApproved }: Props) {
+export function TechniqueForm({ mode, slug, baseRevision, initial, tags, requestId, isEditOfApproved, stills = [] }: Props) {
   const router = useRouter();
   const ids = { title: useId(), summary: useId(), aliases: useId(), body: useId(), note: useId(), saveNote: useId() };
   const [value, setValue] = useState<TechniqueFormValue>(initial);
@@ -195,7 +198,9 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
         {isUnsaved ? <p className="mt-1 text-xs text-muted">{FIRST_STILL_NOTE}</p> : null}
         {errors.body || Object.keys(errors).find((k) => k.startsWith("body")) ? <p className="mt-1 text-xs text-bad">{errors.body ?? "The write-up contains something that cannot be stored."}</p> : null}
       </div>
-      <RecipeField value={value.recipe} onChange={(recipe) => update("recipe", recipe)} errors={errors} />
+      <RecipeStillsProvider stills={stills}>
+        <RecipeField value={value.recipe} onChange={(recipe) => update("recipe", recipe)} errors={errors} />
+      </RecipeStillsProvider>
       {mode === "edit" ? (
         <Field id={ids.note} label="What changed, and why" error={errors.changeNote}>
           <TextArea id={ids.note} value={changeNote} onChange={(e) => setChangeNote(e.target.value)} aria-describedby={describedBy(ids.note, errors.changeNote)} required />

@@ -222,6 +222,75 @@ describe.skipIf(!hasChromium())("issue 13 in Chromium", () => {
     });
   });
 
+  describe("technique page, lab and recipe", () => {
+    it("a long page has in-page contents linking to its sections", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, ARTIST);
+      await page.goto(`/techniques/${SLUG}`);
+      const contents = page.getByRole("navigation", { name: "On this page" });
+      expect(await isShown(contents)).toBe(true);
+      const links = contents.getByRole("link");
+      expect(await links.allTextContents()).toEqual(expect.arrayContaining(["Recognising the problem", "Why it works", "Steps", "Parameter guidance"]));
+      await contents.getByRole("link", { name: "Parameter guidance" }).click();
+      await page.waitForURL(/#s-parameter-guidance$/);
+      const heading = page.locator(".prose-plate h2#s-parameter-guidance");
+      expect(await heading.textContent()).toBe("Parameter guidance");
+      // The section is scrolled to the top of the window.
+      const top = await heading.evaluate((el) => el.getBoundingClientRect().top);
+      expect(top).toBeGreaterThanOrEqual(0);
+      expect(top).toBeLessThan(100);
+      await context.close();
+    });
+
+    it("the lab opens on the before still of the first pair, whatever was uploaded first", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      const identity = { op: "matrix", m: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] };
+      const created = await page.request.post("/api/techniques", { data: { title: "Lab start still check", summary: "Which still the lab opens on.", recipe: [identity] } });
+      expect(created.status()).toBe(201);
+      const { slug } = (await created.json()) as { slug: string };
+      const upload = async (alt: string, role: string) => {
+        const res = await page.request.post("/api/stills", { multipart: { file: { name: `${role}.png`, mimeType: "image/png", buffer: await samplePng() }, alt, technique: slug, role } });
+        expect(res.status()).toBe(201);
+        return ((await res.json()) as { id: string }).id;
+      };
+      // A reference image and the after still come first, the before still last.
+      await upload("Reference: lens chart", "reference");
+      const after = await upload("After the cleanup", "after");
+      const before = await upload("Before the cleanup", "before");
+      expect((await page.request.post("/api/stills/pairs", { data: { technique: slug, before, after } })).status()).toBe(201);
+
+      await page.goto(`/techniques/${slug}`);
+      const lab = page.getByRole("region", { name: "Still lab" });
+      expect(await isShown(lab, 30_000)).toBe(true);
+      expect(await lab.getByLabel("Still", { exact: true }).inputValue()).toBe(before);
+      // A page without headings needs no contents.
+      expect(await page.getByRole("navigation", { name: "On this page" }).count()).toBe(0);
+      await context.close();
+    });
+
+    it("the grain step picks the denoised plate by thumbnail, and the page names it by its description", async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, SENIOR);
+      await page.goto(`/techniques/${SLUG}/edit`);
+      await editorBody(page);
+      const picker = page.getByRole("group", { name: /Denoised plate/ });
+      expect(await isShown(picker)).toBe(true);
+      expect(await page.getByText("Denoised still (id)").count()).toBe(0);
+      const checked = picker.locator("label").filter({ has: page.locator("input:checked") });
+      expect(await checked.getByRole("img").getAttribute("alt")).toBe("The same plate denoised, used for grain restore");
+      // Picking another still by its thumbnail changes the step.
+      const other = picker.locator("label").filter({ hasNot: page.locator("input:checked") }).first();
+      await other.click();
+      expect(await other.locator("input").isChecked()).toBe(true);
+      await screenshot(page, "grain-step-picker");
+
+      await page.goto(`/techniques/${SLUG}`);
+      const cards = page.getByRole("region", { name: "Parameters" });
+      const grainCard = cards.getByRole("listitem").filter({ hasText: "denoised plate" });
+      expect(await grainCard.textContent()).toContain("The same plate denoised, used for grain restore");
+      expect(await grainCard.textContent()).not.toMatch(/[0-9a-f]{8}-[0-9a-f]{4}/);
+      await context.close();
+    });
+  });
+
   describe("department method", () => {
     it("marking asks first, names the method it replaces, and moves the badge", async () => {
       const { context, page } = await signIn(running.browser, running.app.baseUrl, LEAD);

@@ -3,6 +3,7 @@ import { redirect } from "next/navigation";
 import { TechniqueForm } from "@/components/techniques/technique-form";
 import { loadOrNotFound, requirePagePermission } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
+import { listStillsForTechnique } from "@/lib/stills/queries";
 import { getTechnique, listTags } from "@/lib/techniques/queries";
 
 export const metadata: Metadata = { title: "Edit technique" };
@@ -14,6 +15,7 @@ export default async function EditTechniquePage({ params }: { params: Promise<{ 
   const t = await loadOrNotFound(() => getTechnique(user, slug));
   if (t.renamedFrom) redirect(`/techniques/${t.slug}/edit`);
   const tags = (await listTags()).map(({ slug: s, name, kind }) => ({ slug: s, name, kind }));
+  const stills = (await listStillsForTechnique(user, t.id)).map(({ id, alt, role }) => ({ id, alt, role }));
   return (
     <div className="mx-auto max-w-4xl space-y-4">
       <h1 className="text-2xl font-semibold">Edit: {t.title}</h1>
@@ -24,6 +26,7 @@ export default async function EditTechniquePage({ params }: { params: Promise<{ 
         baseRevision={t.latestRevision}
         isEditOfApproved={t.approvedRevision !== null}
         tags={tags}
+        stills={stills}
         initial={{ title: t.title, summary: t.summary, aliases: t.aliases, tags: t.tags.map((x) => x.slug), body: t.body, recipe: t.recipe }}
       />
     </div>
