@@ -17,7 +17,7 @@ import { techniqueDocumentSchema, type TechniqueDocument } from "@/lib/technique
 /** Stores an image as a still; the description was asked for in the still dialog. */
 export type UploadImage = (file: File, alt: string) => Promise<{ stillId: string }>;
 
-export type TechniqueEditorProps = {
+type TechniqueEditorProps = {
   value: TechniqueDocument;
   onChange(doc: TechniqueDocument): void;
   /** Keeps an unsaved body in this browser and offers it back; leave unset when the whole form uses useDraftRecovery. */

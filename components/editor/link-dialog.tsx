@@ -3,7 +3,7 @@ import { useId, useState, type FormEvent } from "react";
 import { Modal } from "@/components/ui/modal";
 import { safeHref } from "@/lib/techniques/document";
 
-export type LinkDialogProps = {
+type LinkDialogProps = {
   open: boolean;
   /** The link under the cursor, if any. */
   currentHref: string | null;

@@ -6,7 +6,7 @@ import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { describeAuditEntry, type AuditNames, type SentencePart } from "@/lib/audit/describe";
 
-export type AuditEntryResponse = {
+type AuditEntryResponse = {
   id: number;
   at: string;
   actor: { id: string; name: string } | null;

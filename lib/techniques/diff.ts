@@ -32,7 +32,7 @@ export type RevisionSnapshot = {
   recipe: unknown;
 };
 
-export type RevisionField = "title" | "summary" | "aliases" | "tags" | "bodyText" | "recipe";
+type RevisionField = "title" | "summary" | "aliases" | "tags" | "bodyText" | "recipe";
 
 /** A still as a diff shows it: a thumbnail with its description. */
 export type DiffStill = { id: string; alt: string };

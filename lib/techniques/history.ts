@@ -4,10 +4,11 @@ import type { SessionUser } from "@/lib/auth/roles";
 import { listPairsOfRevision } from "@/lib/stills/queries";
 import { diffPairs, diffRevisions, STILL_TOKEN_BASE, type DiffStill, type FieldDiff, type PairChange, type RevisionSnapshot } from "@/lib/techniques/diff";
 import { documentToPlainText } from "@/lib/techniques/plain-text";
-import { getRevisionsByNumber, loadTagMap } from "@/lib/techniques/queries";
+import { loadTagMap } from "@/lib/tags/queries";
+import { getRevisionsByNumber } from "@/lib/techniques/queries";
 
 /** `from` 0 compares with nothing (a new technique's first review). */
-export type RevisionDiffResponse = { slug: string; from: number; to: number; fields: FieldDiff[]; pairs: PairChange[] };
+type RevisionDiffResponse = { slug: string; from: number; to: number; fields: FieldDiff[]; pairs: PairChange[] };
 
 /** Field-by-field word diff of two revisions the person may see, with body stills as thumbnails and pair changes. */
 export async function revisionDiff(user: SessionUser, slug: string, from: number, to: number): Promise<RevisionDiffResponse> {

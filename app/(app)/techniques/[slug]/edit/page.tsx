@@ -4,7 +4,8 @@ import { TechniqueForm } from "@/components/techniques/technique-form";
 import { loadOrNotFound, requirePagePermission } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 import { listStillsForTechnique } from "@/lib/stills/queries";
-import { getTechnique, listTags } from "@/lib/techniques/queries";
+import { listTags } from "@/lib/tags/queries";
+import { getTechnique } from "@/lib/techniques/queries";
 
 export const metadata: Metadata = { title: "Edit technique" };
 
@@ -14,7 +15,7 @@ export default async function EditTechniquePage({ params }: { params: Promise<{ 
   const { slug } = await params;
   const t = await loadOrNotFound(() => getTechnique(user, slug));
   if (t.renamedFrom) redirect(`/techniques/${t.slug}/edit`);
-  const tags = (await listTags()).map(({ slug: s, name, kind }) => ({ slug: s, name, kind }));
+  const tags = (await listTags(user)).map(({ slug: s, name, kind }) => ({ slug: s, name, kind }));
   const stills = (await listStillsForTechnique(user, t.id)).map(({ id, alt, role }) => ({ id, alt, role }));
   return (
     <div className="mx-auto max-w-4xl space-y-4">
