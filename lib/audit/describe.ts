@@ -32,6 +32,7 @@ export const AUDIT_ACTIONS: Record<string, { area: Area; label: string }> = {
   "tag.house-method.set": { area: "Department methods", label: "Chose a department method" },
   "tag.house-method.clear": { area: "Department methods", label: "Cleared a department method" },
   "still.upload": { area: "Stills", label: "Uploaded a still" },
+  "still.share": { area: "Stills", label: "Shared a trial still with a use log" },
   "still_pair.create": { area: "Stills", label: "Added a before/after pair" },
   "still_pair.delete": { area: "Stills", label: "Removed a before/after pair" },
   "tag.create": { area: "Tags", label: "Added a tag" },
@@ -135,6 +136,8 @@ function predicate(entry: AuditEntryInput, names: AuditNames): SentencePart[] {
       if (names.technique) return ["uploaded a still to ", technique, "."];
       return [d.owner === "use" ? "uploaded a still for a use log." : d.owner === "trial" ? "uploaded a still to try in the lab." : "uploaded a still."];
     }
+    case "still.share":
+      return ["shared a still they had tried in the lab with a use log."];
     case "still_pair.create":
       return [`added a before/after pair to ${revisionOf(d)} of `, technique, "."];
     case "still_pair.delete":

@@ -1,7 +1,7 @@
 import "server-only";
 import fs from "node:fs/promises";
 import { and, eq, sql } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Database } from "@/db/client";
 import { stillPairs, stills, techniques, type Still } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { parseWith } from "@/lib/api/handler";
@@ -10,7 +10,7 @@ import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { changeWorkingRevision } from "@/lib/techniques/mutations";
 import { requireVisibleTechnique } from "@/lib/techniques/queries";
-import { inspectStill } from "@/lib/stills/inspect";
+import { prepareOriginal } from "@/lib/stills/inspect";
 import { getStillForRead, referencedHashes, toStillResponse } from "@/lib/stills/queries";
 import {
   createPairSchema,
@@ -21,7 +21,7 @@ import {
   type StillPairResponse,
   type StillRole,
 } from "@/lib/stills/schemas";
-import { ensureDerived, removeStored, storeOriginal } from "@/lib/stills/storage";
+import { ensureDerived, newIncomingPath, removeStored, storeOriginal } from "@/lib/stills/storage";
 
 type CreateStillInput = {
   /** A received upload: temp file path, its sha256 and size. createStill consumes the file. */
@@ -56,10 +56,12 @@ function withHashLock<T>(sha: string, work: () => Promise<T>): Promise<T> {
 /**
  * Stores one uploaded still and records it. Seniors and up attach stills to techniques;
  * anyone signed in uploads stills for their use logs and private trials. The file is
- * checked by content, moved to its content address (atomic), previews made, then the row
- * written; on any failure the temp file is gone and no row or unreferenced file remains.
+ * stripped of identifying metadata and checked by content, moved to the content address of
+ * what remains (atomic), previews made, then the row written; on any failure the temp files
+ * are gone and no row or unreferenced file remains.
  */
 export async function createStill(user: SessionUser, input: CreateStillInput, options: { root?: string } = {}): Promise<StillCreatedResponse> {
+  const cleanPath = await newIncomingPath(options.root);
   try {
     const fields = parseWith(stillFieldsSchema, {
       alt: input.alt,
@@ -75,24 +77,24 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
       throw new AppError("validation_failed", "Name the technique this still belongs to.", { fields: { technique: "Required for technique stills." } });
     }
     const technique = fields.technique ? (await requireVisibleTechnique(user, fields.technique)).technique : null;
-    const facts = await inspectStill(input.file.path);
+    const { facts, ...stored } = await prepareOriginal(input.file.path, cleanPath);
 
-    return await withHashLock(input.file.sha256, async () => {
-      await storeOriginal(input.file.path, input.file.sha256, options.root);
+    return await withHashLock(stored.sha256, async () => {
+      await storeOriginal(stored.path, stored.sha256, options.root);
       let row: Still;
       try {
-        await ensureDerived(input.file.sha256, options.root);
+        await ensureDerived(stored.sha256, options.root);
         row = await getDb().transaction(async (tx) => {
           const [inserted] = await tx
             .insert(stills)
             .values({
-              sha256: input.file.sha256,
+              sha256: stored.sha256,
               width: facts.width,
               height: facts.height,
               format: facts.format,
               bitDepth: facts.bitDepth,
               channels: facts.channels,
-              sizeBytes: input.file.size,
+              sizeBytes: stored.size,
               originalName: input.file.originalName ?? "",
               uploaderId: user.id,
               alt: fields.alt,
@@ -109,14 +111,14 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
             action: "still.upload",
             targetType: "still",
             targetId: inserted.id,
-            detail: { owner, techniqueId: technique?.id ?? null, sha256: input.file.sha256, sizeBytes: input.file.size },
+            detail: { owner, techniqueId: technique?.id ?? null, sha256: stored.sha256, sizeBytes: stored.size },
           });
           return inserted;
         });
       } catch (error) {
         // Leave no file behind that no row points at; a shared file stays for its other rows.
-        const inUse = await referencedHashes([input.file.sha256]).catch(() => new Set([input.file.sha256]));
-        if (!inUse.has(input.file.sha256)) await removeStored(input.file.sha256, options.root);
+        const inUse = await referencedHashes([stored.sha256]).catch(() => new Set([stored.sha256]));
+        if (!inUse.has(stored.sha256)) await removeStored(stored.sha256, options.root);
         throw error;
       }
       return {
@@ -131,6 +133,7 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
     });
   } finally {
     await fs.rm(input.file.path, { force: true });
+    await fs.rm(cleanPath, { force: true });
   }
 }
 
@@ -212,4 +215,20 @@ export async function deletePair(user: SessionUser, id: string): Promise<void> {
     if (!row) throw new AppError("conflict", "This pair is no longer in the revision being worked on; reload the page.");
     await writeAudit(tx, { actorId: user.id, action: "still_pair.delete", targetType: "still_pair", targetId: row.id, detail: { techniqueId: row.techniqueId, revision: revision.number } });
   });
+}
+
+type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+/**
+ * Shares a private trial by copy: a new still row (owner "use") over the same stored file, so
+ * those who read the use log see it while the trial itself stays its uploader's alone. Only the
+ * uploader may share their trial; pass the transaction that writes the use log.
+ */
+export async function copyTrialForUse(tx: Tx, user: SessionUser, trial: Still): Promise<Still> {
+  if (trial.owner !== "trial" || trial.uploaderId !== user.id) throw new AppError("not_found", "No still at this address.");
+  const { id: _id, createdAt: _createdAt, ...fields } = trial;
+  const [copy] = await tx.insert(stills).values({ ...fields, owner: "use", techniqueId: null }).returning();
+  if (!copy) throw new Error("Insert returned no row.");
+  await writeAudit(tx, { actorId: user.id, action: "still.share", targetType: "still", targetId: copy.id, detail: { from: trial.id, sha256: trial.sha256 } });
+  return copy;
 }

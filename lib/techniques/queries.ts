@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
+import { cache } from "react";
 import { getDb, type Database } from "@/db/client";
 import { houseMethods, revisions, tags, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
@@ -20,6 +21,26 @@ import type {
 function readsWorkingCopy(user: SessionUser): boolean {
   return can(user, "technique:read-working");
 }
+
+/*
+ * Reads below wrapped in React `cache` are asked for by several sections of one technique page
+ * (header, evidence, lab, shots); the memo lives for one server render only, so each page
+ * reads each row once and nothing outlives the request. Outside a render they read every time.
+ */
+
+/** A technique row by id, once per render. */
+export const techniqueRowById = cache(async (id: string): Promise<Technique | null> => {
+  const [row] = await getDb().select().from(techniques).where(eq(techniques.id, id)).limit(1);
+  return row ?? null;
+});
+
+/** A revision row by id, once per render. */
+export const revisionRowById = cache(async (id: string): Promise<Revision | null> => {
+  const [row] = await getDb().select().from(revisions).where(eq(revisions.id, id)).limit(1);
+  return row ?? null;
+});
+
+const techniqueBySlugOnce = cache((slug: string) => findTechniqueBySlug(slug));
 
 async function people(ids: (string | null | undefined)[]): Promise<Map<string, { id: string; name: string }>> {
   const unique = [...new Set(ids.filter((v): v is string => Boolean(v)))];
@@ -65,10 +86,10 @@ export function isTechniqueVisible(user: SessionUser, t: Pick<Technique, "approv
 /** Resolves a slug to a technique this person may see; 404 otherwise (no hint that drafts exist). */
 export async function requireVisibleTechnique(user: SessionUser, slug: string): Promise<{ technique: Technique; revision: Revision; renamedFrom: string | null }> {
   assertCan(user, "technique:read");
-  const found = await findTechniqueBySlug(slug);
+  const found = await techniqueBySlugOnce(slug);
   const revisionId = found ? visibleRevisionId(user, found.technique) : null;
   if (!found || !revisionId) throw new AppError("not_found", "No technique at this address.");
-  const [revision] = await getDb().select().from(revisions).where(eq(revisions.id, revisionId)).limit(1);
+  const revision = await revisionRowById(revisionId);
   if (!revision) throw new AppError("not_found", "No technique at this address.");
   return { technique: found.technique, revision, renamedFrom: found.renamedFrom };
 }
@@ -92,7 +113,7 @@ export async function getTechnique(user: SessionUser, slug: string): Promise<Tec
   const [tagMap, numbers, approved, superseding, house] = await Promise.all([
     loadTagMap(),
     db.select({ id: revisions.id, number: revisions.number }).from(revisions).where(eq(revisions.techniqueId, t.id)),
-    t.approvedRevisionId ? db.select().from(revisions).where(eq(revisions.id, t.approvedRevisionId)).limit(1) : Promise.resolve([]),
+    t.approvedRevisionId ? revisionRowById(t.approvedRevisionId).then((r) => (r ? [r] : [])) : Promise.resolve([]),
     t.supersededById
       ? db.select({ slug: techniques.slug, approvedRevisionId: techniques.approvedRevisionId }).from(techniques).where(eq(techniques.id, t.supersededById)).limit(1)
       : Promise.resolve([]),
