@@ -19,7 +19,7 @@ export type AuditNames = {
 
 export type AuditEntryInput = { action: string; detail: Record<string, unknown> };
 
-type Area = "Techniques" | "Review" | "Department methods" | "Stills" | "Tags" | "Shows and shots" | "Questions and requests" | "People and sign-in" | "Mail and following";
+type Area = "Techniques" | "Review" | "Department methods" | "Stills" | "Tags" | "Shows and shots" | "Questions and requests" | "People and sign-in" | "Mail and following" | "Thesaurus";
 
 /** Every action the log records, with the words the filter shows. */
 export const AUDIT_ACTIONS: Record<string, { area: Area; label: string }> = {
@@ -57,6 +57,9 @@ export const AUDIT_ACTIONS: Record<string, { area: Area; label: string }> = {
   "subscription.mail-mode": { area: "Mail and following", label: "Chose how to get mail" },
   "subscription.unsubscribe-link": { area: "Mail and following", label: "Unsubscribed from a mail link" },
   "mail.retry": { area: "Mail and following", label: "Sent a message again" },
+  "thesaurus.create": { area: "Thesaurus", label: "Added a thesaurus entry" },
+  "thesaurus.update": { area: "Thesaurus", label: "Changed a thesaurus entry" },
+  "thesaurus.delete": { area: "Thesaurus", label: "Removed a thesaurus entry" },
 };
 
 /** The filter's choices: areas in a fixed order, each with its actions. */
@@ -98,6 +101,16 @@ function slugRef(value: unknown): SentencePart | null {
   const slug = str(value);
   return slug ? { text: slug, href: `/techniques/${slug}` } : null;
 }
+
+/** A thesaurus entry in words: "tracker, dot → marker" for narrower terms, "regrain = grain restore" for synonyms. */
+function thesaurusWords(value: unknown): string {
+  const v = (value && typeof value === "object" ? value : {}) as { kind?: unknown; broader?: unknown; terms?: unknown };
+  const terms = Array.isArray(v.terms) ? v.terms.filter((t): t is string => typeof t === "string") : [];
+  const broader = str(v.broader);
+  if (terms.length === 0) return "an entry";
+  return quote(v.kind === "narrower" && broader ? `${terms.join(", ")} → ${broader}` : terms.join(" = "));
+}
+const thesaurusPage: SentencePart = { text: "thesaurus", href: "/thesaurus" };
 
 /** The words after the actor's name, ending in a full stop. */
 function predicate(entry: AuditEntryInput, names: AuditNames): SentencePart[] {
@@ -189,6 +202,12 @@ function predicate(entry: AuditEntryInput, names: AuditNames): SentencePart[] {
       return ["unsubscribed with the link in a message."];
     case "mail.retry":
       return ["sent a failed message again."];
+    case "thesaurus.create":
+      return ["added ", thesaurusWords(d), " to the ", thesaurusPage, "."];
+    case "thesaurus.update":
+      return ["changed ", thesaurusWords(d.before), " in the ", thesaurusPage, " to ", thesaurusWords(d.after), "."];
+    case "thesaurus.delete":
+      return ["removed ", thesaurusWords(d), " from the ", thesaurusPage, "."];
     default:
       return [`did something the log has no words for (${entry.action}).`];
   }

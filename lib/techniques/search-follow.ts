@@ -7,7 +7,7 @@ import { thesaurusSignature } from "@/lib/thesaurus/queries";
  * With several app instances on one PostgreSQL server, each keeps its own search index. The
  * database says which techniques a committed change touched (migration 0003, on the channel of
  * db/change-feed.ts) and each instance reindexes them at once; a thesaurus change (migration
- * 0005) makes it take the whole thesaurus again. A poll every 30 s stays as the fallback for
+ * 0009_thesaurus_starter) makes it take the whole thesaurus again. A poll every 30 s stays as the fallback for
  * notices lost while the listening connection was down.
  */
 

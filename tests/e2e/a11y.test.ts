@@ -26,6 +26,7 @@ const EVERYONE = [
   "/shows/SLM",
   "/shots/SLM_040_0120",
   "/settings",
+  "/thesaurus",
   `/techniques/${MARKER}`,
   `/techniques/${MARKER}/history`,
   "/no/such/page",

@@ -40,6 +40,18 @@ describe("audit sentences", () => {
     );
   });
 
+  test("a thesaurus change says which terms, and before and after for an edit (issue 16)", () => {
+    const entry = { kind: "narrower", broader: "marker", terms: ["tracker", "dot"], note: "" };
+    const added = describeAuditEntry({ action: "thesaurus.create", detail: entry }, lead);
+    expect(sentenceText(added)).toBe("Ines Varrow added “tracker, dot → marker” to the thesaurus.");
+    expect(added).toContainEqual({ text: "thesaurus", href: "/thesaurus" });
+    const after = { kind: "synonyms", broader: null, terms: ["regrain", "grain restore"], note: "" };
+    expect(sentenceText(describeAuditEntry({ action: "thesaurus.update", detail: { before: entry, after } }, lead))).toBe(
+      "Ines Varrow changed “tracker, dot → marker” in the thesaurus to “regrain = grain restore”.",
+    );
+    expect(sentenceText(describeAuditEntry({ action: "thesaurus.delete", detail: after }, lead))).toBe("Ines Varrow removed “regrain = grain restore” from the thesaurus.");
+  });
+
   test("what is gone or unknown still reads as a sentence, never as a raw id or JSON", () => {
     const gone = sentenceText(describeAuditEntry({ action: "technique.approve", detail: { revision: 1 } }, { actor: null }));
     expect(gone).toBe("The system approved revision 1 of a removed technique.");
