@@ -26,7 +26,6 @@ const EVERYONE = [
   "/shows/SLM",
   "/shots/SLM_040_0120",
   "/settings",
-  "/thesaurus",
   `/techniques/${MARKER}`,
   `/techniques/${MARKER}/history`,
   "/no/such/page",
