@@ -6,7 +6,7 @@ import { drizzle as drizzlePglite } from "drizzle-orm/pglite";
 import { drizzle as drizzleNodePg } from "drizzle-orm/node-postgres";
 import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
 import pg from "pg";
-import { env } from "@/lib/env";
+import { databaseEnv } from "@/db/config";
 import * as schema from "@/db/schema";
 
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
@@ -40,11 +40,11 @@ export function currentDriver(): Driver {
 }
 
 function openDefault(): void {
-  if (env.DATABASE_URL) {
-    installNodePostgres(env.DATABASE_URL);
+  if (databaseEnv.DATABASE_URL) {
+    installNodePostgres(databaseEnv.DATABASE_URL);
     return;
   }
-  const dir = path.resolve(env.PLATEROOM_DATA_DIR, "pg");
+  const dir = path.resolve(databaseEnv.PLATEROOM_DATA_DIR, "pg");
   fs.mkdirSync(dir, { recursive: true });
   installPglite(new PGlite(dir));
 }
