@@ -6,7 +6,7 @@ import { createEditorExtensions } from "@/components/editor/extensions";
 import { findDocumentIssues, type TechniqueDocument } from "@/lib/techniques/document";
 import { renderDocumentToHtml } from "@/lib/techniques/render";
 
-import { everyNodeDocument, STILL_ID } from "./fixtures";
+import { everyNodeDocument, STILL_ID } from "@/tests/unit/techniques/fixtures";
 
 /* The editor's extensions write only what the document schema accepts, and read back the
    renderer's HTML (pasting a rendered page into the editor keeps its structure). */
