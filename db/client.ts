@@ -51,7 +51,7 @@ function openDefault(): void {
 
 /** Installs a PGlite instance as this process's database (tests load a migrated template). */
 export function installPglite(client: PGlite): Database {
-  holder.db = drizzlePglite(client, { schema }) as unknown as Database;
+  holder.db = drizzlePglite(client, { schema });
   holder.driver = "pglite";
   holder.pglite = client;
   holder.close = () => client.close();
@@ -64,7 +64,7 @@ export function installNodePostgres(connectionString: string): Database {
   // An idle connection the server closes (restart, failover, admin command) must not crash the
   // process: the pool drops it and the next query opens a fresh one.
   pool.on("error", (error) => console.error("[db] idle connection lost:", error.message));
-  holder.db = drizzleNodePg(pool, { schema }) as unknown as Database;
+  holder.db = drizzleNodePg(pool, { schema });
   holder.pglite = undefined;
   holder.driver = "postgres";
   holder.close = () => pool.end();

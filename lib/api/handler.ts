@@ -107,7 +107,7 @@ type ParamsOf<D> = D[keyof D] extends RouteHandler<infer P> | undefined ? P : ne
 export function otherMethods<D extends Declared>(declared: D): Omit<Record<RouteMethod, RouteHandler<ParamsOf<D>>>, keyof D> {
   type P = ParamsOf<D>;
   const has = declared as Partial<Record<Declarable, RouteHandler<P>>>;
-  const allowed = ROUTE_METHODS.filter((m) => m === "OPTIONS" || (m === "HEAD" ? has.GET : has[m as Declarable]));
+  const allowed = ROUTE_METHODS.filter((m) => m === "OPTIONS" || (m === "HEAD" ? has.GET : has[m]));
   const allow = allowed.join(", ");
   const usable = allowed.filter((m) => m !== "HEAD" && m !== "OPTIONS").join(" or ");
   const notAllowed: RouteHandler<P> = async (req) => {
@@ -188,7 +188,7 @@ async function readBody(req: Request, limit: number): Promise<Uint8Array<ArrayBu
       void reader.cancel().catch(() => undefined);
       throw tooLarge(limit);
     }
-    chunks.push(value as Uint8Array<ArrayBuffer>);
+    chunks.push(value);
   }
   if (chunks.length === 1) return chunks[0]!;
   const out = new Uint8Array(total);

@@ -145,7 +145,7 @@ export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
   } catch (error) {
     throw new AppError("unsupported_type", "The still lab cannot open this image; export it as 8- or 16-bit RGB or grey.", { cause: error });
   }
-  return { format: sniffed, width, height, bitDepth, channels: channels as StillFacts["channels"], space: meta.space ?? "srgb" };
+  return { format: sniffed, width, height, bitDepth, channels: channels, space: meta.space ?? "srgb" };
 }
 
 type PreparedOriginal = { facts: StillFacts; path: string; sha256: string; size: number };

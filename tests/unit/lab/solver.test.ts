@@ -23,12 +23,12 @@ describe("solver: hide", () => {
       const screen = [rgb(r)];
       const s = screen[0]!;
       const out = solveRow({ markers, screen, goal: { kind: "hide", channel } });
-      expect(Math.abs(dot(out.row, s) - s[c]!)).toBeLessThan(1e-9);
+      expect(Math.abs(dot(out.row, s) - s[c])).toBeLessThan(1e-9);
       for (const m of markers) expect(Math.abs(dot(out.row, m) - dot(out.row, s))).toBeLessThan(1e-9);
       // Closed form: min ‖d‖ subject to A d = t, A = [m_i − s; sᵀ], t = [−(m_i − s)_c; 0]
       // → d = Aᵀ (A Aᵀ)⁻¹ t, computed independently with ml-matrix's inverse.
       const A = new Matrix([...markers.map((m) => [m[0] - s[0], m[1] - s[1], m[2] - s[2]]), [...s]]);
-      const t = Matrix.columnVector([...markers.map((m) => -(m[c]! - s[c]!)), 0]);
+      const t = Matrix.columnVector([...markers.map((m) => -(m[c] - s[c])), 0]);
       const d = A.transpose().mmul(inverse(A.mmul(A.transpose()))).mmul(t);
       for (let j = 0; j < 3; j++) expect(Math.abs(out.row[j]! - ((j === c ? 1 : 0) + d.get(j, 0)))).toBeLessThan(1e-9);
       // Only the target row changes.
