@@ -1,7 +1,6 @@
 import nextCoreWebVitals from "eslint-config-next/core-web-vitals";
 import nextTypescript from "eslint-config-next/typescript";
 import drizzle from "eslint-plugin-drizzle";
-import tseslint from "typescript-eslint";
 
 /*
  * The layers (DEVELOPERS.md "Layers"): app -> components -> lib -> db, never upward, and nothing

@@ -6,7 +6,7 @@ const nextConfig: NextConfig = {
   // PGlite ships a WebAssembly build of PostgreSQL that must be loaded from node_modules, not bundled.
   serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser"],
   poweredByHeader: false,
-  async headers() {
+  headers() {
     const common = [
       { key: "X-Content-Type-Options", value: "nosniff" },
       { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
