@@ -141,13 +141,15 @@ describe("a technique's life cycle", () => {
     expect([approved.status, approved.revision.number, approved.approvedRevision, approved.approvedBy?.name]).toEqual(["approved", 3, 3, "Lena Lead"]);
   });
 
-  it("an edit of an approved technique waits for review while artists keep reading the approved revision", async () => {
+  it("an edit of an approved technique is a draft until submitted, while artists keep reading the approved revision", async () => {
     const res = await save(senior, slug, { ...content("Marker paint-out", "An untested shortcut."), baseRevision: 3, changeNote: "Shortcut." });
     expect(((await res.json()) as Saved).revision).toBe(4);
     const forWriters = await shown(senior, slug);
-    expect([forWriters.revision.number, forWriters.revision.state, forWriters.hasPendingRevision]).toEqual([4, "in_review", true]);
+    expect([forWriters.revision.number, forWriters.revision.state, forWriters.hasPendingRevision, forWriters.status]).toEqual([4, "draft", true, "approved"]);
+    expect(await (await submit(senior, slug)).json()).toMatchObject({ revision: 4, state: "in_review" });
+    expect((await shown(senior, slug)).revision.state).toBe("in_review");
     const forArtists = await shown(artist, slug);
-    expect([forArtists.revision.number, forArtists.status]).toEqual([3, "approved"]);
+    expect([forArtists.revision.number, forArtists.status, forArtists.body]).toEqual([3, "approved", simpleDoc("The markers sit in the blue channel.")]);
   });
 
   it("restoring an older revision copies it into a new revision, from the newest base only", async () => {

@@ -22,7 +22,7 @@ beforeEach(async () => {
   host = document.createElement("div");
   document.body.append(host);
   root = createRoot(host);
-  await act(() => root.render(<TechniqueEditor value={documentFromText("Sample the marker.")} onChange={vi.fn()} labelledBy="body-label" />));
+  await act(async () => root.render(<TechniqueEditor value={documentFromText("Sample the marker.")} onChange={vi.fn()} labelledBy="body-label" />));
 });
 afterEach(() => {
   act(() => root.unmount());

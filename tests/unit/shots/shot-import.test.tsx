@@ -29,7 +29,7 @@ beforeEach(() => {
   posted.length = 0;
   vi.stubGlobal(
     "fetch",
-    vi.fn((_url: string, init: RequestInit) => {
+    vi.fn(async (_url: string, init: RequestInit) => {
       const body = JSON.parse(String(init.body)) as { csv: string; mapping: unknown; dryRun: boolean };
       posted.push(body);
       const mapping = columnMappingSchema.parse(body.mapping);
@@ -69,13 +69,13 @@ describe("ShotImport", () => {
     const select = (h: string) => container.querySelector<HTMLSelectElement>(`select[aria-label="Field for column ${h}"]`)!.value;
     expect([select("Shot Code"), select("Notes"), select("Cut In"), select("Cut Out")]).toEqual(["code", "description", "frameStart", "frameEnd"]);
 
-    await act(() => button(/Preview import/).click());
+    await act(async () => button(/Preview import/).click());
     expect(posted[0]).toMatchObject({ dryRun: true, mapping: { code: "Shot Code", description: "Notes" } });
     const text = container.textContent ?? "";
     expect(text).toContain("SLM_40_130 is not a shot code of SLM: they look like SLM_040_0120");
     expect(text).toContain("SLM_040_0120 appears more than once; first on row 1.");
 
-    await act(() => button(/Import 1 new and 0 changed/).click());
+    await act(async () => button(/Import 1 new and 0 changed/).click());
     expect(posted[1]).toMatchObject({ dryRun: false, mapping: posted[0]!.mapping });
     expect(onImported).toHaveBeenCalledOnce();
     expect(container.textContent).toContain("Imported: 1 new, 0 changed, 0 unchanged. 2 rows were not imported:");
@@ -85,9 +85,9 @@ describe("ShotImport", () => {
     act(() => root.render(<ShotImport showCode="SLM" />));
     act(() => type(container.querySelector("textarea")!, "Shot Code,Notes\r\nSLM_040_0120,markers\r\nSLM_7,typo\r\n"));
     expect(container.textContent).toContain("2 rows read.");
-    await act(() => button(/Preview import/).click());
+    await act(async () => button(/Preview import/).click());
     expect(button(/^Import 1 new and 0 changed shot$/)).toBeDefined();
-    await act(() => button(/Import 1 new/).click());
+    await act(async () => button(/Import 1 new/).click());
     expect(container.textContent).toContain("Imported: 1 new, 0 changed, 0 unchanged. 1 row was not imported:");
     expect(container.textContent).not.toMatch(/\\d\{|\^SLM/);
   });

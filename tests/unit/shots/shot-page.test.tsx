@@ -48,7 +48,7 @@ beforeEach(() => {
   };
   vi.stubGlobal(
     "fetch",
-    vi.fn((url: string, init: RequestInit = {}) => {
+    vi.fn(async (url: string, init: RequestInit = {}) => {
       const method = init.method ?? "GET";
       calls.push({ url, method, body: typeof init.body === "string" ? JSON.parse(init.body) : undefined });
       const json = (status: number, body: unknown) => new Response(body === null ? null : JSON.stringify(body), { status, headers: { "Content-Type": "application/json" } });
@@ -98,7 +98,7 @@ describe("LogUseForm on a shot page", () => {
 
     act(() => { container.querySelector<HTMLInputElement>('input[type="radio"][value="touch-up"]')!.click(); });
     act(() => { typeInto(container.querySelector("textarea")!, "needed a second pass on the wire"); });
-    await act(() => { button(/Log use/).click(); });
+    await act(async () => button(/Log use/).click());
     const post = calls.find((c) => c.method === "POST")!;
     expect(post.url).toBe("/api/techniques/wire-paint/uses");
     expect(post.body).toEqual({ shot: "SLM_040_0120", outcome: "touch-up", note: "needed a second pass on the wire" });
@@ -176,7 +176,7 @@ describe("ShotUses", () => {
     expect(button(/Save changes/).disabled).toBe(true);
     act(() => { container.querySelector<HTMLInputElement>('input[type="radio"][value="failed"]')!.click(); });
     act(() => { container.querySelector<HTMLInputElement>('input[type="checkbox"]')!.click(); });
-    await act(() => { button(/Save changes/).click(); });
+    await act(async () => button(/Save changes/).click());
     expect(calls).toEqual([{ url: "/api/uses/11111111-1111-4111-8111-111111111111", method: "PATCH", body: { outcome: "failed", beforeStill: null } }]);
     expect(refresh).toHaveBeenCalledOnce();
   });
@@ -192,7 +192,7 @@ describe("ShotUses", () => {
     expect(calls).toHaveLength(0);
 
     act(() => { button(/^Delete$/).click(); });
-    await act(() => { [...dialog.querySelectorAll("button")].find((b) => /Delete log/.test(b.textContent ?? ""))!.click(); });
+    await act(async () => [...dialog.querySelectorAll("button")].find((b) => /Delete log/.test(b.textContent ?? ""))!.click());
     expect(calls).toEqual([{ url: "/api/uses/11111111-1111-4111-8111-111111111111", method: "DELETE", body: undefined }]);
     expect(refresh).toHaveBeenCalledOnce();
   });

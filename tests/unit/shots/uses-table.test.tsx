@@ -32,13 +32,13 @@ describe("UsesTable", () => {
     const root = createRoot(host);
     const errors: unknown[] = [];
     const spy = vi.spyOn(console, "error").mockImplementation((...args) => errors.push(args));
-    await act(() => root.render(<UsesTable initial={uses(25)} />));
-    for (let i = 0; i < 3; i++) await act(() => root.render(<UsesTable initial={uses(25)} />));
+    await act(async () => root.render(<UsesTable initial={uses(25)} />));
+    for (let i = 0; i < 3; i++) await act(async () => root.render(<UsesTable initial={uses(25)} />));
     spy.mockRestore();
     expect(errors.filter((e) => String(e).includes("Maximum update depth"))).toEqual([]);
     // 10 rows a page, 25 rows: three pages.
     expect(host.querySelectorAll("tbody tr")).toHaveLength(10);
     expect(host.textContent).toContain("page 1 of 3");
-    await act(() => root.unmount());
+    await act(async () => root.unmount());
   });
 });
