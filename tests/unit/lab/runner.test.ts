@@ -48,7 +48,7 @@ describe("lab runner", () => {
     const settled = await Promise.allSettled(runs);
     const rejected = settled.filter((s) => s.status === "rejected");
     expect(rejected.length).toBe(2);
-    for (const r of rejected) expect((r).reason).toBeInstanceOf(LabBusyError);
+    for (const r of rejected) expect(r.reason).toBeInstanceOf(LabBusyError);
   });
 
   it("times out a run that takes too long with LabTimeoutError (→ 503)", async () => {
