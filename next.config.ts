@@ -8,7 +8,7 @@ const nextConfig: NextConfig = {
   // package folders at run time.
   serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser", "word-list", "dictionary-en", "dictionary-en-gb"],
   poweredByHeader: false,
-  async headers() {
+  headers() {
     const common = [
       { key: "X-Content-Type-Options", value: "nosniff" },
       { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },

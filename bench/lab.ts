@@ -61,7 +61,7 @@ if (args[0] === "--child-peak") {
   const denoised = readFileSync(path.join(dir, "denoised.png"));
   const steps = recipeSchema.parse(JSON.parse(readFileSync(path.join(dir, "recipe.json"), "utf8")));
   const t = performance.now();
-  const r = await runRecipe({ still: plate, steps, space: "linear", format: "png16", loadStill: async () => denoised });
+  const r = await runRecipe({ still: plate, steps, space: "linear", format: "png16", loadStill: () => denoised });
   const ms = performance.now() - t;
   // VmHWM is this process image's own peak; getrusage's maxRSS would also count the parent's
   // pages at fork time (Linux keeps the pre-exec high-water mark).
@@ -131,7 +131,7 @@ try {
     });
     const stepsCopy = lastCopyMs;
     rows.push({ size: key, op: "demo recipe, steps only", ms: stepsOnly, copyMs: stepsCopy, ratio: stepsOnly / stepsCopy });
-    const loadStill = async (): Promise<Uint8Array> => syn.denoised;
+    const loadStill = (): Uint8Array => syn.denoised;
     const full = await time(W > 3000 ? 2 : 4, () => {}, () => runRecipe({ still: syn.plate, steps, space: "linear", format: "png16", loadStill }));
     const fullCopy = lastCopyMs;
     rows.push({ size: key, op: "demo recipe, exact png16 (decode+steps+encode)", ms: full, copyMs: fullCopy, ratio: full / fullCopy });

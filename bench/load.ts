@@ -68,7 +68,7 @@ async function hammer(baseUrl: string, path: string, headers: Record<string, str
     errors: r.errors,
     timeouts: r.timeouts,
     non2xx: r.non2xx,
-    statusCodes: Object.fromEntries(Object.entries(r.statusCodeStats ?? {}).map(([k, v]) => [k, (v as { count: number }).count])),
+    statusCodes: Object.fromEntries(Object.entries(r.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])),
     bytesPerSec: Math.round(r.throughput.average),
   };
 }

@@ -74,7 +74,7 @@ type Row = {
 
 function corpusOf(size: number) {
   const synthetic = syntheticCorpus(size - FIXTURE_DOCS.length);
-  const fixture = FIXTURE_DOCS.map((d) => ({ techniqueId: d.techniqueId, published: d as SearchDocument | null, working: null as SearchDocument | null }));
+  const fixture = FIXTURE_DOCS.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null as SearchDocument | null }));
   // Spread the fixture through the corpus so it is not all at the lowest internal ids.
   const out = [...synthetic];
   fixture.forEach((f, i) => out.splice(Math.floor(((i + 1) * out.length) / (fixture.length + 1)), 0, f));

@@ -8,7 +8,7 @@ import pg from "pg";
  * growing pause; notices sent meanwhile are lost, so `onConnected` runs after every connect
  * (the caller catches up there) and callers keep a poll as well.
  */
-export const CHANGE_CHANNEL = "plateroom_changes";
+const CHANGE_CHANNEL = "plateroom_changes";
 
 export type ChangeFeed = { stop(): Promise<void> };
 

@@ -6,7 +6,7 @@ import { drizzle as drizzlePglite } from "drizzle-orm/pglite";
 import { drizzle as drizzleNodePg } from "drizzle-orm/node-postgres";
 import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
 import pg from "pg";
-import { env } from "@/lib/env";
+import { databaseEnv } from "@/db/config";
 import * as schema from "@/db/schema";
 
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
@@ -40,18 +40,18 @@ export function currentDriver(): Driver {
 }
 
 function openDefault(): void {
-  if (env.DATABASE_URL) {
-    installNodePostgres(env.DATABASE_URL);
+  if (databaseEnv.DATABASE_URL) {
+    installNodePostgres(databaseEnv.DATABASE_URL);
     return;
   }
-  const dir = path.resolve(env.PLATEROOM_DATA_DIR, "pg");
+  const dir = path.resolve(databaseEnv.PLATEROOM_DATA_DIR, "pg");
   fs.mkdirSync(dir, { recursive: true });
   installPglite(new PGlite(dir));
 }
 
 /** Installs a PGlite instance as this process's database (tests load a migrated template). */
 export function installPglite(client: PGlite): Database {
-  holder.db = drizzlePglite(client, { schema }) as unknown as Database;
+  holder.db = drizzlePglite(client, { schema });
   holder.driver = "pglite";
   holder.pglite = client;
   holder.close = () => client.close();
@@ -64,7 +64,7 @@ export function installNodePostgres(connectionString: string): Database {
   // An idle connection the server closes (restart, failover, admin command) must not crash the
   // process: the pool drops it and the next query opens a fresh one.
   pool.on("error", (error) => console.error("[db] idle connection lost:", error.message));
-  holder.db = drizzleNodePg(pool, { schema }) as unknown as Database;
+  holder.db = drizzleNodePg(pool, { schema });
   holder.pglite = undefined;
   holder.driver = "postgres";
   holder.close = () => pool.end();

@@ -1,6 +1,7 @@
 import "server-only";
 import net from "node:net";
 import { z } from "zod";
+import { databaseEnvSchema, readConfig } from "@/db/config";
 
 /** "10.0.0.0/8", "192.0.2.7", "::1", "fd00::/8": an address or a CIDR range. */
 function isAddressOrRange(entry: string): boolean {
@@ -13,15 +14,14 @@ function isAddressOrRange(entry: string): boolean {
 }
 
 /**
- * The only reader of process.env. Every variable has a working default for the demo;
- * AUTH_SECRET is the exception in production (see lib/auth/secret.ts).
+ * The only reader of process.env (with db/config.ts, whose database variables this schema
+ * extends). Every variable has a working default for the demo; AUTH_SECRET is the exception in
+ * production (see lib/auth/secret.ts).
  */
-const envSchema = z.object({
+const envSchema = databaseEnvSchema.extend({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
   PORT: z.coerce.number().int().min(1).max(65535).default(3000),
-  PLATEROOM_DATA_DIR: z.string().min(1).default("./.data"),
   PLATEROOM_UPLOADS_DIR: z.string().min(1).default("./uploads"),
-  DATABASE_URL: z.string().url().optional(),
   SMTP_URL: z.string().default("smtp://127.0.0.1:2525"),
   AUTH_SECRET: z.string().min(32, "AUTH_SECRET must be at least 32 characters").optional(),
   /** Public address used in links inside mail. */
@@ -47,17 +47,7 @@ const envSchema = z.object({
 
 type Env = z.infer<typeof envSchema>;
 
-function readEnv(): Env {
-  if (process.env.SKIP_ENV_VALIDATION) return envSchema.parse({});
-  const parsed = envSchema.safeParse(process.env);
-  if (!parsed.success) {
-    const problems = parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ");
-    throw new Error(`Invalid configuration: ${problems}`);
-  }
-  return parsed.data;
-}
-
-export const env: Env = readEnv();
+export const env: Env = readConfig(envSchema);
 
 /** The public address people use; links in mail start with it, and writes must come from its origin. */
 export function baseUrl(): string {

@@ -68,7 +68,7 @@ export function MatrixSolver({ still, space, onApply, applyLabel = "Apply to rec
         {boxes.map((b, i) => (
           <li key={i} className="flex items-center gap-2 font-mono">
             <span className={b.kind === "marker" ? "text-accent" : "text-muted"}>{b.kind === "marker" ? "Marker" : "Screen"}</span>
-            {b.w}×{b.h} at ({b.x}, {b.y}){result?.samples[i] && i < result.samples.length ? ` → ${result.samples[i]!.map((v) => v.toFixed(4)).join(", ")}` : ""}
+            {b.w}×{b.h} at ({b.x}, {b.y}){result?.samples[i] && i < result.samples.length ? ` → ${result.samples[i].map((v) => v.toFixed(4)).join(", ")}` : ""}
             <Button variant="ghost" className="px-1.5 py-0.5 text-xs" aria-label={`Remove ${b.kind} box ${i + 1}`} onClick={() => { setBoxes((all) => all.filter((_, k) => k !== i)); setResult(null); }}>
               Remove
             </Button>

@@ -68,7 +68,7 @@ export function TechniqueLab({ slug, recipe, stills, canEditRecipe, onApplyMatri
                   <summary className="cursor-pointer text-sm font-medium">Colour matrix (step {mi + 1})</summary>
                   <div className="mt-2 space-y-2">
                     <MatrixSliders step={matrix} onChange={setMatrix} />
-                    {canApply ? <Button onClick={() => onApplyMatrix!(matrix)}>Use this matrix in the recipe</Button> : null}
+                    {canApply ? <Button onClick={() => onApplyMatrix(matrix)}>Use this matrix in the recipe</Button> : null}
                   </div>
                 </details>
               ) : (
@@ -84,7 +84,7 @@ export function TechniqueLab({ slug, recipe, stills, canEditRecipe, onApplyMatri
               applyLabel={canApply ? "Apply to recipe" : "Try it in the lab"}
               onApply={(m) => {
                 setMatrix(m);
-                if (canApply) onApplyMatrix!(m);
+                if (canApply) onApplyMatrix(m);
                 setTab("preview");
               }}
             />

@@ -31,7 +31,7 @@ export function PeopleManager({ currentUserId }: { currentUserId: string }) {
         </p>
       ) : null}
       {people.isLoading ? <Skeleton className="h-40" /> : null}
-      {people.error ? <p role="alert" className="text-bad">{(people.error as Error).message}</p> : null}
+      {people.error ? <p role="alert" className="text-bad">{people.error.message}</p> : null}
       {people.data ? (
         <DataTable
           head={

@@ -21,7 +21,7 @@ export function ColumnMapper({
     const next: Partial<Record<ShotField, string | null>> = { ...(mapping ?? {}) };
     for (const f of SHOT_FIELDS) if (next[f] === header) next[f] = null;
     if (field) next[field] = header;
-    onChange(next.code ? ({ ...next, code: next.code } as ColumnMapping) : toLoose(next));
+    onChange(next.code ? { ...next, code: next.code } : toLoose(next));
   }
 
   return (
@@ -61,5 +61,5 @@ export function ColumnMapper({
  * mapping whose code names no header, which readShotCsv reports as a file problem.
  */
 function toLoose(next: Partial<Record<ShotField, string | null>>): ColumnMapping | null {
-  return Object.values(next).some(Boolean) ? ({ ...next, code: "" } as ColumnMapping) : null;
+  return Object.values(next).some(Boolean) ? { ...next, code: "" } : null;
 }

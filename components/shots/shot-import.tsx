@@ -42,7 +42,7 @@ export function ShotImport({ showCode, onImported }: { showCode: string; onImpor
   const dropzone = useDropzone({
     accept: { "text/csv": [".csv"], "text/plain": [".txt"] },
     multiple: false,
-    onDropAccepted: async ([file]) => file && load(await file.text()),
+    onDropAccepted: ([file]) => void file?.text().then(load),
     onDropRejected: () => setError("Drop a single .csv file."),
   });
 

@@ -6,7 +6,7 @@ import type { ProbePoint } from "@/lib/stills/probe";
 import { stillUrl, type StillResponse } from "@/lib/stills/schemas";
 import { cn } from "@/lib/utils";
 
-export type StageLayer = { still: StillResponse; label: "Before" | "After" };
+type StageLayer = { still: StillResponse; label: "Before" | "After" };
 
 type Props = {
   /** Bottom first; with a divider the second layer shows right of it. */

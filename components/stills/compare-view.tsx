@@ -10,7 +10,7 @@ import type { ProbePoint } from "@/lib/stills/probe";
 import type { StillResponse } from "@/lib/stills/schemas";
 import { cn } from "@/lib/utils";
 
-export type CompareViewProps = {
+type CompareViewProps = {
   before: StillResponse;
   after: StillResponse;
   /** The pair's caption. */

@@ -32,7 +32,7 @@ export function QuestionsSection({ slug, canAsk }: { slug: string; canAsk: boole
         <span id="questions-title">Questions</span>
       </CardTitle>
       {questions.isLoading ? <Skeleton className="h-16" /> : null}
-      {questions.error ? <p role="alert" className="text-sm text-bad">{(questions.error as Error).message}</p> : null}
+      {questions.error ? <p role="alert" className="text-sm text-bad">{questions.error.message}</p> : null}
       {questions.data && !questions.data.items.length ? <EmptyState title="No questions yet." /> : null}
       <ul className="space-y-4">
         {questions.data?.items.map((q) => <QuestionItem key={q.id} q={q} onChanged={() => client.invalidateQueries({ queryKey: key })} />)}

@@ -45,6 +45,8 @@ type BodyReaders = {
 };
 type PublicContext<P> = BodyReaders & { params: P };
 type AuthedContext<P> = PublicContext<P> & { user: SessionUser };
+/** A route's own code: the wrapper awaits what it returns, so it need not be async. */
+type Handler<C> = (req: Request, ctx: C) => Response | Promise<Response>;
 
 type RouteOptions = {
   /** Checked after sign-in and before the body is read: a role that may not act gets 403, never field errors. */
@@ -61,11 +63,11 @@ const optionsOf = (o: Options | undefined): RouteOptions => (typeof o === "strin
  * person is resolved (401), `permission` is checked (403), a declared Content-Length over the
  * limit is refused (413); only then does the handler run and read the body.
  */
-export function authedRoute<P = Record<string, never>>(handler: (req: Request, ctx: AuthedContext<P>) => Promise<Response>): RouteHandler<P>;
-export function authedRoute<P = Record<string, never>>(options: Options, handler: (req: Request, ctx: AuthedContext<P>) => Promise<Response>): RouteHandler<P>;
+export function authedRoute<P = Record<string, never>>(handler: Handler<AuthedContext<P>>): RouteHandler<P>;
+export function authedRoute<P = Record<string, never>>(options: Options, handler: Handler<AuthedContext<P>>): RouteHandler<P>;
 export function authedRoute<P>(
-  a: Options | ((req: Request, ctx: AuthedContext<P>) => Promise<Response>),
-  b?: (req: Request, ctx: AuthedContext<P>) => Promise<Response>,
+  a: Options | Handler<AuthedContext<P>>,
+  b?: Handler<AuthedContext<P>>,
 ): RouteHandler<P> {
   const options = optionsOf(typeof a === "function" ? undefined : a);
   const handler = typeof a === "function" ? a : b!;
@@ -82,11 +84,11 @@ export function authedRoute<P>(
  * A route anyone may call, signed in or not. Its own authority (a signed token, Auth.js's CSRF
  * token) or none at all (health, unknown paths) — say which in the route file.
  */
-export function publicRoute<P = Record<string, never>>(handler: (req: Request, ctx: PublicContext<P>) => Promise<Response>): RouteHandler<P>;
-export function publicRoute<P = Record<string, never>>(options: RouteOptions, handler: (req: Request, ctx: PublicContext<P>) => Promise<Response>): RouteHandler<P>;
+export function publicRoute<P = Record<string, never>>(handler: Handler<PublicContext<P>>): RouteHandler<P>;
+export function publicRoute<P = Record<string, never>>(options: RouteOptions, handler: Handler<PublicContext<P>>): RouteHandler<P>;
 export function publicRoute<P>(
-  a: RouteOptions | ((req: Request, ctx: PublicContext<P>) => Promise<Response>),
-  b?: (req: Request, ctx: PublicContext<P>) => Promise<Response>,
+  a: RouteOptions | Handler<PublicContext<P>>,
+  b?: Handler<PublicContext<P>>,
 ): RouteHandler<P> {
   const options = typeof a === "function" ? {} : a;
   const handler = typeof a === "function" ? a : b!;
@@ -107,14 +109,14 @@ type ParamsOf<D> = D[keyof D] extends RouteHandler<infer P> | undefined ? P : ne
 export function otherMethods<D extends Declared>(declared: D): Omit<Record<RouteMethod, RouteHandler<ParamsOf<D>>>, keyof D> {
   type P = ParamsOf<D>;
   const has = declared as Partial<Record<Declarable, RouteHandler<P>>>;
-  const allowed = ROUTE_METHODS.filter((m) => m === "OPTIONS" || (m === "HEAD" ? has.GET : has[m as Declarable]));
+  const allowed = ROUTE_METHODS.filter((m) => m === "OPTIONS" || (m === "HEAD" ? has.GET : has[m]));
   const allow = allowed.join(", ");
   const usable = allowed.filter((m) => m !== "HEAD" && m !== "OPTIONS").join(" or ");
-  const notAllowed: RouteHandler<P> = async (req) => {
+  const notAllowed: RouteHandler<P> = (req) => {
     const error = new AppError("method_not_allowed", `${req.method} is not allowed here${usable ? `; use ${usable}` : ""}.`);
     const res = json(error.toBody(), 405, { Allow: allow });
     // A HEAD answer carries no content (RFC 9110 §9.3.2).
-    return req.method === "HEAD" ? new Response(null, { status: 405, headers: res.headers }) : res;
+    return Promise.resolve(req.method === "HEAD" ? new Response(null, { status: 405, headers: res.headers }) : res);
   };
   const get = has.GET;
   const all: Record<RouteMethod, RouteHandler<P>> = {
@@ -127,7 +129,7 @@ export function otherMethods<D extends Declared>(declared: D): Omit<Record<Route
           return new Response(null, { status: res.status, statusText: res.statusText, headers: res.headers });
         }
       : notAllowed,
-    OPTIONS: async () => withApiHeaders(new Response(null, { status: 204, headers: { Allow: allow } })),
+    OPTIONS: () => Promise.resolve(withApiHeaders(new Response(null, { status: 204, headers: { Allow: allow } }))),
     POST: notAllowed,
     PUT: notAllowed,
     PATCH: notAllowed,
@@ -188,7 +190,7 @@ async function readBody(req: Request, limit: number): Promise<Uint8Array<ArrayBu
       void reader.cancel().catch(() => undefined);
       throw tooLarge(limit);
     }
-    chunks.push(value as Uint8Array<ArrayBuffer>);
+    chunks.push(value);
   }
   if (chunks.length === 1) return chunks[0]!;
   const out = new Uint8Array(total);

@@ -17,7 +17,7 @@ export type AuditNames = {
   shot?: { code: string } | null;
 };
 
-export type AuditEntryInput = { action: string; detail: Record<string, unknown> };
+type AuditEntryInput = { action: string; detail: Record<string, unknown> };
 
 type Area = "Techniques" | "Review" | "Department methods" | "Stills" | "Tags" | "Shows and shots" | "Questions and requests" | "People and sign-in" | "Mail and following" | "Thesaurus";
 

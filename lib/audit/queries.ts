@@ -18,7 +18,7 @@ type AuditEntryResponse = {
   sentence: SentencePart[];
 };
 
-export type AuditFilter = {
+type AuditFilter = {
   /** Only what this person did. */
   actorId?: string;
   /** Only these actions. */

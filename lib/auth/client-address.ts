@@ -31,7 +31,7 @@ export function recordPeerAddresses(): void {
 }
 
 /** The connection's address as recorded above, or null where nothing recorded it (tests calling handlers). */
-export function peerAddress(headers: Headers): string | null {
+function peerAddress(headers: Headers): string | null {
   const header = holder.__plateroomPeerHeader;
   const value = header ? headers.get(header) : null;
   return value ? normaliseAddress(value) : null;

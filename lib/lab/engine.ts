@@ -60,7 +60,7 @@ export type LabState = {
   encode8?: boolean;
 };
 
-export type DenoisedLoader = (stillId: string) => Promise<Uint8Array>;
+export type DenoisedLoader = (stillId: string) => Uint8Array | Promise<Uint8Array>;
 
 export class LabInputError extends Error {
   constructor(message: string, readonly stepIndex?: number) {
@@ -645,7 +645,7 @@ function toFloats(still: StillCodes, space: LabSpace): Float32Array {
   return data;
 }
 
-async function decodeCached(bytes: () => Promise<Uint8Array>, width: number | undefined, space: LabSpace, key: string | undefined,
+async function decodeCached(bytes: () => Uint8Array | Promise<Uint8Array>, width: number | undefined, space: LabSpace, key: string | undefined,
   cache: DecodeCache | undefined): Promise<Decoded> {
   // Only proxies are kept: a full-resolution decode is as large as the render it feeds.
   const k = cache && key && width ? `${key}@${width}:${space}` : null;
@@ -698,7 +698,7 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?:
   if (grainStepOf && !opts.loadStill) throw new LabInputError(`step ${grainIndex}: no loader for the denoised still`, grainIndex);
   // Both decodes at once: libvips decodes on its own threads.
   const [plateCodes, den] = await Promise.all([
-    decodeCached(async () => opts.still, opts.width, space, opts.plateKey, opts.decodeCache),
+    decodeCached(() => opts.still, opts.width, space, opts.plateKey, opts.decodeCache),
     grainStepOf
       ? decodeCached(() => opts.loadStill!(grainStepOf.denoised), opts.width, space, `den:${grainStepOf.denoised}`, opts.decodeCache)
       : null,

@@ -130,7 +130,7 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
   async function fromDisk(key: string): Promise<{ bytes: Buffer; meta: Meta } | null> {
     if (!options.cacheDir) return null;
     // A result still being written by this process is read once it is complete.
-    await pendingWrites.get(path.join(options.cacheDir, key));
+    await pendingWrites.get(path.join(/* turbopackIgnore: true */ options.cacheDir, key));
     try {
       const [bytes, metaText] = await Promise.all([
         readFile(path.join(options.cacheDir, `${key}.bin`)),
@@ -212,7 +212,7 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       if (options.cacheDir) {
         // The answer does not wait for the disk copy (1–3 ms of file system calls per render, more
         // under load, which an interactive proxy render feels); readers in this process wait for it.
-        const id = path.join(options.cacheDir, key);
+        const id = path.join(/* turbopackIgnore: true */ options.cacheDir, key);
         const write = toDisk(key, result.bytes, meta).catch(() => undefined).finally(() => {
           if (pendingWrites.get(id) === write) pendingWrites.delete(id);
         });

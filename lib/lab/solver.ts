@@ -39,14 +39,14 @@ export function solveRow(input: SolveInput): LabSolveResponse {
   let row: [number, number, number];
   let perShade: number[];
   if (goal.kind === "hide") {
-    const D = new Matrix(markers.map((m) => [m[0]! - s[0], m[1]! - s[1], m[2]! - s[2]]));
-    const b = Matrix.columnVector(markers.map((m) => -(m[c]! - s[c]!)));
+    const D = new Matrix(markers.map((m) => [m[0] - s[0], m[1] - s[1], m[2] - s[2]]));
+    const b = Matrix.columnVector(markers.map((m) => -(m[c] - s[c])));
     const d = pseudoInverse(D.mmul(P)).mmul(b);
     row = [d.get(0, 0), d.get(1, 0), d.get(2, 0)];
     row[c] += 1;
     perShade = markers.map((m) => dot(row, m) - dot(row, s));
   } else {
-    const M = new Matrix(markers.map((m) => [m[0]!, m[1]!, m[2]!]));
+    const M = new Matrix(markers.map((m) => [m[0], m[1], m[2]]));
     const ones = Matrix.columnVector(markers.map(() => 1));
     const MP = M.mmul(P);
     let x: Matrix;

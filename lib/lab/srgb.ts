@@ -85,9 +85,9 @@ const u32 = new Uint32Array(f32.buffer);
 /** Smallest float32 ≥ t, for t > 0. */
 function ceil32(t: number): number {
   f32[0] = t;
-  if (f32[0]! >= t || !Number.isFinite(t)) return f32[0]!;
+  if (f32[0] >= t || !Number.isFinite(t)) return f32[0];
   u32[0] = u32[0]! + 1;
-  return f32[0]!;
+  return f32[0];
 }
 
 function floatBits(x: number): number {

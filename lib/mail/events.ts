@@ -7,12 +7,12 @@ import { enqueueMail, type Tx } from "@/lib/mail/outbox";
 import { departmentMethodMail, newUnderTagMail, personalMail, revisionApprovedMail, techniqueRetiredMail, type MailContent } from "@/lib/mail/templates";
 import type { UnsubscribeTarget } from "@/lib/mail/unsubscribe";
 
-export type EventTechnique = { slug: string; title: string; tagSlugs: string[]; summary?: string };
+type EventTechnique = { slug: string; title: string; tagSlugs: string[]; summary?: string };
 
 /** People who hear of the event in a message of their own (the revision's author) and so not as followers. */
 type Skips = { skipUserIds?: string[] };
 
-export type TechniqueEvent = Skips &
+type TechniqueEvent = Skips &
   (
   | {
       kind: "revision-approved";
@@ -33,10 +33,10 @@ export type TechniqueEvent = Skips &
   | { kind: "new-approved-under-tag"; actorId: string; technique: EventTechnique }
   );
 
-export type PersonEventKind = "question-answered" | "request-resolved" | "question-asked" | "revision-reviewed" | "review-waiting";
+type PersonEventKind = "question-answered" | "request-resolved" | "question-asked" | "revision-reviewed" | "review-waiting";
 
 /** Something that concerns one person directly; `title`, `summary` and `link` are its digest line. */
-export type PersonEvent = {
+type PersonEvent = {
   kind: PersonEventKind;
   actorId: string;
   toUserId: string;
@@ -231,7 +231,7 @@ export async function notifyLeads(tx: Pick<Database, "insert" | "select">, event
   );
 }
 
-export type DepartmentMethodEvent = {
+type DepartmentMethodEvent = {
   actorId: string;
   actorName: string;
   tag: { slug: string; name: string };

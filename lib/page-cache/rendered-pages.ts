@@ -3,6 +3,7 @@ import { LRUCache } from "lru-cache";
 import type { NextRequest } from "next/server";
 import { userAndChangeStampFromRequest } from "@/lib/auth/session";
 import { env, internalBaseUrl } from "@/lib/env";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
 import { CACHE_STATUS_HEADER, RENDER_HEADER } from "@/lib/page-cache/headers";
 import { THEME_COOKIE } from "@/lib/theme";
 
@@ -16,7 +17,6 @@ import { THEME_COOKIE } from "@/lib/theme";
 
 // Relative times on a page ("5 minutes ago") stay close to true.
 const MAX_AGE_MS = 60_000;
-const MAX_BYTES = 64 * 1024 * 1024;
 const RENDER_TIMEOUT_MS = 20_000;
 const TECHNIQUE_PAGE = /^\/techniques\/(?!new$)[a-z0-9][a-z0-9-]*$/;
 
@@ -50,7 +50,7 @@ async function render({ path, cookie }: RenderContext): Promise<RenderedPage | u
 }
 
 const pages = new LRUCache<string, RenderedPage, RenderContext>({
-  maxSize: MAX_BYTES,
+  maxSize: MEMORY_BUDGET.renderedPages,
   sizeCalculation: (page) => page.size + 1024,
   ttl: MAX_AGE_MS,
   // Concurrent requests for the same key share one render.

@@ -16,15 +16,15 @@ import { newSecretToken } from "@/lib/people/tokens";
  * - one live link per person: a new one retires the ones before it.
  */
 
-export const RESET_VALID_MS = 60 * 60 * 1000;
+const RESET_VALID_MS = 60 * 60 * 1000;
 /** Requests per e-mail address typed, within the window. */
 export const RESET_PER_ACCOUNT = 3;
-export const RESET_ACCOUNT_WINDOW_MS = 60 * 60 * 1000;
+const RESET_ACCOUNT_WINDOW_MS = 60 * 60 * 1000;
 /** Requests per client address (any e-mails), within the window. */
 export const RESET_PER_ADDRESS = 10;
-export const RESET_ADDRESS_WINDOW_MS = 15 * 60 * 1000;
+const RESET_ADDRESS_WINDOW_MS = 15 * 60 * 1000;
 
-export type ResetAnswer = { ok: true } | { ok: false; retryAfterMs: number; reason: "account" | "address" };
+type ResetAnswer = { ok: true } | { ok: false; retryAfterMs: number; reason: "account" | "address" };
 
 /** Runs work after the answer is sent (`afterAnswer` below; tests pass their own). */
 export type Later = (work: () => Promise<void>) => void;

@@ -20,10 +20,10 @@ export const FREE_FAILURES = 4;
 export const FIRST_DELAY_MS = 2_000;
 export const MAX_DELAY_MS = 15 * 60 * 1000;
 /** Failures older than this are forgotten. */
-export const FAILURE_MEMORY_MS = 24 * 60 * 60 * 1000;
+const FAILURE_MEMORY_MS = 24 * 60 * 60 * 1000;
 /** Flood guard: failed sign-ins from one address (any accounts) within the window. */
 export const ADDRESS_FLOOD_LIMIT = 300;
-export const ADDRESS_WINDOW_MS = 15 * 60 * 1000;
+const ADDRESS_WINDOW_MS = 15 * 60 * 1000;
 
 /** The wait owed after `failures` recorded failures of one account (0 while within the free ones). */
 export function accountDelayMs(failures: number): number {
@@ -31,7 +31,7 @@ export function accountDelayMs(failures: number): number {
   return Math.min(MAX_DELAY_MS, FIRST_DELAY_MS * 2 ** (failures - FREE_FAILURES - 1));
 }
 
-export type SignInWait = { retryAfterMs: number; reason: "account" | "address" };
+type SignInWait = { retryAfterMs: number; reason: "account" | "address" };
 
 /**
  * How long this sign-in must wait, or null when it may go ahead now. `beforeId` counts only
@@ -70,7 +70,7 @@ export async function signInWait(email: string, address: string, options: { befo
   return null;
 }
 
-export type CredentialsResult = { ok: true; user: User } | { ok: false; wait: SignInWait | null };
+type CredentialsResult = { ok: true; user: User } | { ok: false; wait: SignInWait | null };
 
 /**
  * Checks an e-mail and password. Unknown e-mail, wrong password, disabled account and

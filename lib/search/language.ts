@@ -41,7 +41,7 @@ class SortedWords {
     let hi = this.offsets.length - 2;
     while (lo <= hi) {
       const mid = (lo + hi) >> 1;
-      const w = this.text.slice(this.offsets[mid] as number, (this.offsets[mid + 1] as number) - 1);
+      const w = this.text.slice(this.offsets[mid], (this.offsets[mid + 1] as number) - 1);
       if (w === word) return true;
       if (w < word) lo = mid + 1;
       else hi = mid - 1;

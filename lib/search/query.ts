@@ -102,7 +102,7 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   if (live(stemId)) out.push({ stems: [stemId], weight: isKnown ? ALTERNATIVE_WEIGHTS.exact : ALTERNATIVE_WEIGHTS.stem, kind: isKnown ? "exact" : "stem", surface: word });
   if (tok.parts && tok.parts.length > 0) {
     const parts = tok.parts.filter((p) => !isStopWord(p.word)).map((p) => vocab.stemIdOf(vocab.stemOf(p.word)));
-    if (parts.length > 0 && parts.every(live)) out.push({ stems: parts as number[], weight: ALTERNATIVE_WEIGHTS.parts, kind: "parts", surface: tok.parts.map((p) => p.word).join(" ") });
+    if (parts.length > 0 && parts.every(live)) out.push({ stems: parts, weight: ALTERNATIVE_WEIGHTS.parts, kind: "parts", surface: tok.parts.map((p) => p.word).join(" ") });
   }
   if (!isNumeric) {
     for (const f of vocab.family(stem)) if (live(f)) out.push({ stems: [f], weight: ALTERNATIVE_WEIGHTS.family, kind: "family", surface: vocab.stemWords[f] as string });

@@ -14,7 +14,7 @@ export const PIXEL_LIMIT = STILL_PIXEL_LIMIT;
 /** Width of the trial decode through the lab at upload: small, so it costs little beyond the full decode. */
 const LAB_TRIAL_WIDTH = 64;
 
-export type StillFacts = {
+type StillFacts = {
   format: StillFormat;
   width: number;
   height: number;
@@ -44,7 +44,7 @@ const ALLOWED_LIST = "PNG, JPEG, TIFF or WebP";
  * PDF, GIF, text…) is refused here, so the XML and PDF loaders built into libvips never run
  * on an upload.
  */
-export function sniffFormat(head: Uint8Array): StillFormat | null {
+function sniffFormat(head: Uint8Array): StillFormat | null {
   const at = (i: number) => head[i] ?? -1;
   if ([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a].every((b, i) => at(i) === b)) return "png";
   if (at(0) === 0xff && at(1) === 0xd8 && at(2) === 0xff) return "jpeg";
@@ -145,10 +145,10 @@ export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
   } catch (error) {
     throw new AppError("unsupported_type", "The still lab cannot open this image; export it as 8- or 16-bit RGB or grey.", { cause: error });
   }
-  return { format: sniffed, width, height, bitDepth, channels: channels as StillFacts["channels"], space: meta.space ?? "srgb" };
+  return { format: sniffed, width, height, bitDepth, channels: channels, space: meta.space ?? "srgb" };
 }
 
-export type PreparedOriginal = { facts: StillFacts; path: string; sha256: string; size: number };
+type PreparedOriginal = { facts: StillFacts; path: string; sha256: string; size: number };
 
 /**
  * The original as it will be stored: identifying metadata removed (lib/stills/strip-metadata.ts),

@@ -88,7 +88,7 @@ export async function listPairsForTechnique(user: SessionUser, techniqueId: stri
   return out;
 }
 
-export type RevisionPair = { id: string; techniqueId: string; revision: number; caption: string; position: number; beforeRow: Still; afterRow: Still };
+type RevisionPair = { id: string; techniqueId: string; revision: number; caption: string; position: number; beforeRow: Still; afterRow: Still };
 
 /** The pairs of one revision with their stills, in order; the caller has checked the revision is visible. */
 export async function listPairsOfRevision(revisionId: string): Promise<RevisionPair[]> {

@@ -227,7 +227,7 @@ function stripTiff(bytes: Buffer): Buffer {
     e += entrySize;
   }
   // Next directory: none (further pages and thumbnails are left out).
-  chunks.forEach((c, i) => c.copy(out, chunkAt[i]!));
+  chunks.forEach((c, i) => c.copy(out, chunkAt[i]));
   return out;
 }
 

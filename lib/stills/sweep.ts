@@ -21,7 +21,7 @@ export function sweepUploads(options: { root?: string; graceMs?: number; now?: n
   return sweepOrphans({ ...options, referenced: referencedHashes });
 }
 
-export type SweepResult = { removed: string[]; kept: number };
+type SweepResult = { removed: string[]; kept: number };
 
 /**
  * Deletes stored files whose hash no still row references, and stale temp files, when older

@@ -17,8 +17,8 @@ const FORM_OVERHEAD = 64 * 1024;
 export const MAX_UPLOAD_BODY_BYTES = env.PLATEROOM_MAX_UPLOAD_BYTES + FORM_OVERHEAD;
 const TEXT_FIELDS = ["alt", "caption", "credit", "technique", "role", "owner"] as const;
 
-export type ReceivedFile = { path: string; sha256: string; size: number; originalName: string };
-export type ReceivedUpload = { file: ReceivedFile; fields: Record<string, string> };
+type ReceivedFile = { path: string; sha256: string; size: number; originalName: string };
+type ReceivedUpload = { file: ReceivedFile; fields: Record<string, string> };
 
 function limitMessage(maxBytes: number): string {
   return `The file is larger than ${formatMegabytes(maxBytes)}, the most Plateroom accepts.`;
@@ -30,7 +30,7 @@ function formatMegabytes(bytes: number): string {
 }
 
 /** The uploader's own file name, kept for the record only: no folders, no control characters. */
-export function cleanOriginalName(name: string | undefined): string {
+function cleanOriginalName(name: string | undefined): string {
   const base = path.basename((name ?? "").replace(/\\/g, "/"));
   return base.replace(/[\u0000-\u001f\u007f]/g, "").slice(0, 255);
 }

@@ -303,7 +303,7 @@ export async function reviewTechnique(actor: SessionUser, slug: string, input: R
 }
 
 /** Where a lead reviews a waiting revision: its changes against the approved one, and the decision. */
-export function reviewUrl(slug: string): string {
+function reviewUrl(slug: string): string {
   return `${techniqueUrl(slug)}/review`;
 }
 

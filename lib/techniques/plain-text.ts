@@ -36,7 +36,7 @@ function joinBlocks(parts: string[]): string {
 }
 
 /** How a still reads in plain text; the revision diff swaps in a token it shows as a thumbnail. */
-export type StillText = (still: { stillId: string; alt: string; caption: string }) => string;
+type StillText = (still: { stillId: string; alt: string; caption: string }) => string;
 
 const stillAsWords: StillText = ({ alt, caption }) => {
   const words = [caption, alt].filter((t) => t.trim() !== "");

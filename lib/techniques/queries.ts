@@ -35,7 +35,7 @@ export const techniqueRowById = cache(async (id: string): Promise<Technique | nu
 });
 
 /** A revision row by id, once per render. */
-export const revisionRowById = cache(async (id: string): Promise<Revision | null> => {
+const revisionRowById = cache(async (id: string): Promise<Revision | null> => {
   const [row] = await getDb().select().from(revisions).where(eq(revisions.id, id)).limit(1);
   return row ?? null;
 });
@@ -233,7 +233,7 @@ export async function listReviewQueue(user: SessionUser): Promise<ReviewQueueIte
   }));
 }
 
-export type ReviewItem = {
+type ReviewItem = {
   slug: string;
   title: string;
   /** The newest revision: waiting for review when `isWaiting`. */

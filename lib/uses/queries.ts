@@ -6,7 +6,7 @@ import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { isTechniqueVisible, requireVisibleTechnique, techniqueRowById, visibleRevisionId } from "@/lib/techniques/queries";
-import type { FollowUp, FollowUpShot, ListUsesQuery, OutcomeCounts, TechniqueRef, TechniqueUsesResponse, UseResponse } from "@/lib/uses/schemas";
+import type { FollowUp, ListUsesQuery, OutcomeCounts, TechniqueRef, TechniqueUsesResponse, UseResponse } from "@/lib/uses/schemas";
 import { escapeLike, isUuid } from "@/lib/utils";
 
 // ---- techniques: lookup and visibility come from the technique DAL ----
@@ -136,38 +136,6 @@ export async function listTechniqueUses(actor: SessionUser, slug: string, query:
   const { technique: t } = await requireVisibleTechnique(actor, slug);
   const [page, counts] = await Promise.all([listUsesForTechnique(actor, t.id, query), outcomeCounts(t.id)]);
   return { ...page, counts };
-}
-
-/**
- * The shots a technique was used on, one entry per shot with its latest outcome: what the
- * retire dialog lists for follow-up. No permission check; the retire flow has one.
- */
-export async function shotsToFollowUp(techniqueId: string): Promise<FollowUpShot[]> {
-  const rows = await getDb()
-    .select({ code: shots.code, showCode: shows.code, outcome: uses.outcome, at: uses.createdAt })
-    .from(uses)
-    .innerJoin(shots, eq(shots.id, uses.shotId))
-    .innerJoin(shows, eq(shows.id, shots.showId))
-    .where(eq(uses.techniqueId, techniqueId))
-    .orderBy(desc(uses.createdAt));
-  const byCode = new Map<string, FollowUpShot>();
-  for (const r of rows) {
-    const seen = byCode.get(r.code);
-    if (seen) seen.uses++;
-    else byCode.set(r.code, { code: r.code, showCode: r.showCode, uses: 1, lastOutcome: r.outcome, lastUsedAt: r.at.toISOString() });
-  }
-  return [...byCode.values()].sort((a, b) => a.code.localeCompare(b.code));
-}
-
-/** Distinct shot codes a technique was used on, for the search index. No permission check. */
-export async function shotCodesForTechnique(techniqueId: string): Promise<string[]> {
-  const rows = await getDb()
-    .selectDistinct({ code: shots.code })
-    .from(uses)
-    .innerJoin(shots, eq(shots.id, uses.shotId))
-    .where(eq(uses.techniqueId, techniqueId))
-    .orderBy(asc(shots.code));
-  return rows.map((r) => r.code);
 }
 
 /** Internal: the stills with these ids that exist, with what visibility needs. */

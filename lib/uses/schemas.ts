@@ -91,11 +91,3 @@ export type UseResponse = {
 };
 export type OutcomeCounts = Record<UseOutcome, number> & { total: number };
 export type TechniqueUsesResponse = { items: UseResponse[]; total: number; counts: OutcomeCounts };
-
-export type FollowUpShot = {
-  code: string;
-  showCode: string;
-  uses: number;
-  lastOutcome: UseOutcome;
-  lastUsedAt: string;
-};

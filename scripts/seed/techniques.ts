@@ -46,7 +46,7 @@ async function attachGeneratedStills(author: SessionUser, slug: string, opts: { 
   const recipe = recipeSchema.parse(
     demoCleanupRecipe({ denoisedStillId: denoised.id, width: STILL_WIDTH, screen: synthetic.screen, markerSamples: synthetic.markerSamples, screenSamples: synthetic.screenSamples, screenRect: synthetic.screenRect }),
   );
-  const result = await runRecipe({ still: synthetic.plate, steps: recipe, space: "linear", format: "png16", loadStill: async () => synthetic.denoised });
+  const result = await runRecipe({ still: synthetic.plate, steps: recipe, space: "linear", format: "png16", loadStill: () => synthetic.denoised });
   const after = await storeStill(author, result.bytes, { technique: slug, alt: "The plate after the recipe: markers gone, grain restored", caption: "After: the technique's recipe, exact float render", role: "after" });
   await createPair(author, { technique: slug, before: plate.id, after: after.id, caption: "Tracking markers removed through the matte, grain restored" });
   return recipe;

@@ -5,6 +5,7 @@ import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Locator, type Page } from "playwright-core";
+import { buildWarnings } from "@/scripts/build-log";
 
 /**
  * Drives the built app the way people use it: a production build on a free port with its own
@@ -35,9 +36,11 @@ function newestMtime(paths: string[]): number {
   return newest;
 }
 
-function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): void {
+/** Runs a command to its end; its output (stdout, then stderr) is returned, or thrown with the exit status. */
+function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): string {
   const r = spawnSync(cmd, args, { cwd: root, env, encoding: "utf8", stdio: ["ignore", "pipe", "pipe"], maxBuffer: 64 * 1024 * 1024 });
   if (r.status !== 0) throw new Error(`${path.basename(cmd)} ${args.join(" ")} failed (${r.status}):\n${r.stdout?.slice(-4000)}\n${r.stderr?.slice(-4000)}`);
+  return `${r.stdout ?? ""}${r.stderr ?? ""}`;
 }
 
 const SOURCES = ["app", "components", "lib", "db", "public", "proxy.ts", "instrumentation.ts", "next.config.ts", "package-lock.json", "postcss.config.mjs"];
@@ -71,13 +74,20 @@ function withLock<T>(name: string, work: () => T): T {
   }
 }
 
-/** Builds the app when there is no build or a source is newer than it. */
+/**
+ * Builds the app when there is no build or a source is newer than it. The build's output is kept
+ * beside it, and a build that printed a warning fails every browser test (scripts/build-log.ts).
+ */
 export function ensureBuild(): void {
+  const buildLog = path.join(root, distDir, "build.log");
   withLock(`build-${distDir.replace(/[^a-z0-9]/gi, "_")}`, () => {
     const buildId = path.join(root, distDir, "BUILD_ID");
-    if (fs.existsSync(buildId) && fs.statSync(buildId).mtimeMs >= newestMtime(SOURCES)) return;
-    run(bin("next"), ["build"], baseEnv({ NODE_ENV: "production", PLATEROOM_DIST_DIR: distDir }));
+    if (fs.existsSync(buildId) && fs.existsSync(buildLog) && fs.statSync(buildId).mtimeMs >= newestMtime(SOURCES)) return;
+    const output = run(bin("next"), ["build"], baseEnv({ NODE_ENV: "production", PLATEROOM_DIST_DIR: distDir }));
+    fs.writeFileSync(buildLog, output);
   });
+  const warnings = buildWarnings(fs.readFileSync(buildLog, "utf8"));
+  if (warnings.length) throw new Error(`next build printed ${warnings.length} warning line(s) (full output in ${path.relative(root, buildLog)}):\n${warnings.join("\n")}`);
 }
 
 /** A migrated and seeded data folder, made once and reused while migrations and seed data stay the same. */

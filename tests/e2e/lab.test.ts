@@ -158,7 +158,7 @@ describe.skipIf(!hasChromium())("the still lab in Chromium", () => {
     expect((await shownResidual.textContent())?.trim()).toBe(solved.residual.toExponential(2));
     // The green row is the one shown as changed, with the solved numbers.
     const gRow = table.getByRole("row", { name: /G out/ });
-    expect((await gRow.getByRole("cell").allTextContents()).map(Number)).toEqual(solved.matrix[1]!.map((v) => Number(v.toFixed(5))));
+    expect((await gRow.getByRole("cell").allTextContents()).map(Number)).toEqual(solved.matrix[1].map((v) => Number(v.toFixed(5))));
     await snap(page, "lab-solver-solved", table);
 
     // --- Apply it to the recipe: saved as a new revision, and the preview's matrix holds the solved numbers.
@@ -174,7 +174,7 @@ describe.skipIf(!hasChromium())("the still lab in Chromium", () => {
     expect(after.recipe).toEqual(before.recipe.map((st, i) => (i === mi ? { op: "matrix", m: solved.matrix } : st)));
     const gFromR = lab.getByRole("spinbutton", { name: "G out from R in" });
     expect(await isShown(gFromR)).toBe(true);
-    expect(Number(await gFromR.inputValue())).toBe(solved.matrix[1]![0]);
+    expect(Number(await gFromR.inputValue())).toBe(solved.matrix[1][0]);
     await expect.poll(async () => (await fe.getAttribute("values"))?.trim().split(/\s+/).map(Number).slice(5, 8)).toEqual(solved.matrix[1]);
 
     await snap(page, "lab-applied", lab.getByRole("button", { name: /^Render exact/ }));

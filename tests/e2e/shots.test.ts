@@ -184,8 +184,8 @@ describe.skipIf(!hasChromium())("shows and shots in Chromium", () => {
     expect(res.status()).toBe(200);
     const bytes = await res.body();
     const meta = await sharp(bytes).metadata();
-    expect(meta.width! / meta.height!).toBeCloseTo(STILL.width / STILL.height, 1);
-    expect(Math.max(meta.width!, meta.height!)).toBeLessThanOrEqual(STILL.width);
+    expect(meta.width / meta.height).toBeCloseTo(STILL.width / STILL.height, 1);
+    expect(Math.max(meta.width, meta.height)).toBeLessThanOrEqual(STILL.width);
     const stats = await sharp(bytes).stats();
     const [r, g, b] = stats.channels.map((c) => c.mean);
     expect(Math.abs(r! - STILL.colour.r)).toBeLessThanOrEqual(3);

@@ -363,7 +363,7 @@ describe.skipIf(!hasChromium())("issue 13 in Chromium", () => {
       await page.waitForURL(new RegExp(`/techniques/${SLUG}/review$`));
       const changes = page.getByRole("region", { name: /compared with approved revision/ });
       expect(await isShown(changes)).toBe(true);
-      expect(await (await changes.getByRole("heading").first().textContent())).toContain(`Revision ${revision + 1} compared with approved revision ${revision - 1}`);
+      expect(await changes.getByRole("heading").first().textContent()).toContain(`Revision ${revision + 1} compared with approved revision ${revision - 1}`);
       // The new still is a thumbnail inside the added text, not "[still: …]".
       const added = changes.locator("ins").getByRole("img", { name: "Grey ramp for the reviewer" });
       expect(await isShown(added)).toBe(true);

@@ -2,7 +2,7 @@ import { AppError } from "@/lib/api/errors";
 import { publicRoute } from "@/lib/api/handler";
 
 // Unknown API paths answer in the API's error shape, never with the HTML 404 page, whatever the method.
-const notFound = publicRoute(async () => {
+const notFound = publicRoute(() => {
   throw new AppError("not_found", "No such API endpoint.");
 });
 

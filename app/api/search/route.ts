@@ -2,7 +2,7 @@ import { authedRoute, otherMethods, parseWith, searchParamsOf } from "@/lib/api/
 import { searchQuerySchema, type SearchApiResponse } from "@/lib/search-ui/params";
 import { runSearch } from "@/lib/search-ui/run";
 
-export const GET = authedRoute(async (req, { user }) => {
+export const GET = authedRoute((req, { user }) => {
   const query = parseWith(searchQuerySchema, searchParamsOf(req));
   return Response.json(runSearch(user, query) satisfies SearchApiResponse);
 });

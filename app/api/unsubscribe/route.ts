@@ -25,7 +25,7 @@ export const POST = publicRoute({ bodyLimit: BODY_LIMITS.form }, async (req, { f
  * A person clicking the link (or a link scanner fetching it, RFC 8058 §1, from memory) must not
  * unsubscribe anyone: GET only leads to the confirmation page, whose button does it.
  */
-export const GET = publicRoute(async (req) => {
+export const GET = publicRoute((req) => {
   const token = new URL(req.url).searchParams.get("token") ?? "";
   // A relative Location (RFC 9110 §10.2.2, from memory) keeps whatever host the person used.
   return new Response(null, { status: 303, headers: { Location: `/unsubscribe?token=${encodeURIComponent(token)}` } });

@@ -101,7 +101,7 @@ function MatteFields({ id, step, onChange, errors }: Props<Of<"matte">>) {
         <NumberInput id={`${id}-white`} label="White point" min={-100} max={100} value={step.white} onChange={(white) => onChange({ ...step, white })} error={e("white")} />
       </div>
       {Array.isArray(step.channel) ? (
-        <Vec3Inputs id={id} legend="Weights" field="channel" v={step.channel as [number, number, number]} onChange={(channel) => onChange({ ...step, channel })} errors={errors} />
+        <Vec3Inputs id={id} legend="Weights" field="channel" v={step.channel} onChange={(channel) => onChange({ ...step, channel })} errors={errors} />
       ) : null}
     </div>
   );

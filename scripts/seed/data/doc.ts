@@ -128,7 +128,7 @@ export function codeBlock(text: string, language?: string): CodeBlockNode {
 export const hr: HorizontalRuleNode = { type: "horizontalRule" };
 
 function cellBlocks(cell: CellInput): BlockNode[] {
-  return isBlockArray(cell) ? cell : [p(...inlines(cell as InlineInput))];
+  return isBlockArray(cell) ? cell : [p(...inlines(cell))];
 }
 
 /** A table with one header row. */

@@ -48,7 +48,7 @@ describe("the change stamp and the change watch", () => {
       left join pg_trigger t on t.tgrelid = c.oid and not t.tgisinternal
       where n.nspname = 'public' and c.relkind = 'r'`);
     // Both drivers answer with node-postgres's result shape.
-    const rows = (result as unknown as { rows: { table: string; trigger: string | null }[] }).rows;
+    const rows = (result as { rows: { table: string; trigger: string | null }[] }).rows;
     const triggers = new Map<string, string[]>();
     for (const { table, trigger } of rows) triggers.set(table, [...(triggers.get(table) ?? []), ...(trigger ? [trigger] : [])]);
     // Mail, sign-in bookkeeping and the audit trail never appear on a page; tokens only notify.

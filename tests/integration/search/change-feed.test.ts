@@ -27,7 +27,8 @@ describe.skipIf(!serverUrl)("search index kept in step across instances by LISTE
   let databaseUrl = "";
 
   beforeAll(async () => {
-    const { rows } = (await getDb().execute(sql`select current_database() as db`)) as unknown as { rows: { db: string }[] };
+    const answer: unknown = await getDb().execute(sql`select current_database() as db`);
+    const { rows } = answer as { rows: { db: string }[] };
     const u = new URL(serverUrl!);
     u.pathname = `/${rows[0]!.db}`;
     databaseUrl = u.toString();

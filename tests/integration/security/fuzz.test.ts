@@ -133,7 +133,7 @@ function allPaths(value: unknown, prefix: (string | number)[] = []): (string | n
   return out;
 }
 
-function setAt(root: unknown, at: (string | number)[], make: (old: unknown) => unknown | typeof REMOVE): unknown {
+function setAt(root: unknown, at: (string | number)[], make: (old: unknown) => unknown): unknown {
   if (at.length === 0) {
     const v = make(root);
     return v === REMOVE ? undefined : v;

@@ -183,7 +183,7 @@ type Case = {
   /** Status an allowed caller gets with these fixtures. */
   ok: number;
   /** Builds the request; may make fresh fixtures (mutations are not repeatable). `owner` owns the resource, for ownership rules and trial stills. */
-  prep: (caller: TestPerson | null, owner?: TestPerson) => Promise<Prep>;
+  prep: (caller: TestPerson | null, owner?: TestPerson) => Prep | Promise<Prep>;
 };
 
 let w: World;
@@ -197,16 +197,16 @@ function cases(): Record<string, Case> {
   const p = w.people;
   const stillOf = async (owner?: TestPerson) => (owner ? uploadStill(owner, { owner: "trial" }) : w.still);
   const c: Record<string, Case> = {
-    "GET /api/health": { ok: 200, prep: async () => ({ url: "/api/health" }) },
-    "POST /api/password-resets": { ok: 202, prep: async () => ({ url: "/api/password-resets", body: { email: `someone-${crypto.randomUUID()}@kestrel.test` } }) },
-    "GET /api/unsubscribe": { ok: 303, prep: async () => ({ url: "/api/unsubscribe?token=abc" }) },
+    "GET /api/health": { ok: 200, prep: () => ({ url: "/api/health" }) },
+    "POST /api/password-resets": { ok: 202, prep: () => ({ url: "/api/password-resets", body: { email: `someone-${crypto.randomUUID()}@kestrel.test` } }) },
+    "GET /api/unsubscribe": { ok: 303, prep: () => ({ url: "/api/unsubscribe?token=abc" }) },
     "POST /api/unsubscribe": {
       ok: 200,
-      prep: async () => ({ url: `/api/unsubscribe?token=${encodeURIComponent(createUnsubscribeToken({ userId: p.artist.id, kind: "all", key: "" }))}` }),
+      prep: () => ({ url: `/api/unsubscribe?token=${encodeURIComponent(createUnsubscribeToken({ userId: p.artist.id, kind: "all", key: "" }))}` }),
     },
-    "GET /api/me": { ok: 200, prep: async () => ({ url: "/api/me" }) },
-    "GET /api/tokens": { ok: 200, prep: async () => ({ url: "/api/tokens" }) },
-    "POST /api/tokens": { ok: 201, prep: async () => ({ url: "/api/tokens", body: { name: "publish script" } }) },
+    "GET /api/me": { ok: 200, prep: () => ({ url: "/api/me" }) },
+    "GET /api/tokens": { ok: 200, prep: () => ({ url: "/api/tokens" }) },
+    "POST /api/tokens": { ok: 201, prep: () => ({ url: "/api/tokens", body: { name: "publish script" } }) },
     "DELETE /api/tokens/[id]": {
       ok: 204,
       prep: async (caller, owner) => {
@@ -214,8 +214,8 @@ function cases(): Record<string, Case> {
         return { url: `/api/tokens/${id}`, params: { id } };
       },
     },
-    "GET /api/people": { ok: 200, prep: async () => ({ url: "/api/people" }) },
-    "POST /api/people": { ok: 201, prep: async () => ({ url: "/api/people", body: { email: `p-${uniq()}@kestrel.test`, name: "New Person", role: "artist" } }) },
+    "GET /api/people": { ok: 200, prep: () => ({ url: "/api/people" }) },
+    "POST /api/people": { ok: 201, prep: () => ({ url: "/api/people", body: { email: `p-${uniq()}@kestrel.test`, name: "New Person", role: "artist" } }) },
     "PATCH /api/people/[id]": {
       ok: 200,
       prep: async () => {
@@ -223,19 +223,19 @@ function cases(): Record<string, Case> {
         return { url: `/api/people/${target.id}`, params: { id: target.id }, body: { role: "senior" } };
       },
     },
-    "GET /api/admin/outbox": { ok: 200, prep: async () => ({ url: "/api/admin/outbox" }) },
-    "GET /api/admin/outbox/[id]": { ok: 200, prep: async () => ({ url: `/api/admin/outbox/${w.outboxId}`, params: { id: String(w.outboxId) } }) },
-    "POST /api/admin/outbox/[id]/retry": { ok: 200, prep: async () => ({ url: `/api/admin/outbox/${w.outboxId}/retry`, params: { id: String(w.outboxId) } }) },
-    "GET /api/admin/audit": { ok: 200, prep: async () => ({ url: "/api/admin/audit?limit=5" }) },
-    "GET /api/admin/inbox": { ok: 200, prep: async () => ({ url: "/api/admin/inbox" }) },
-    "GET /api/admin/inbox/[id]": { ok: 200, prep: async () => ({ url: `/api/admin/inbox/${INBOX_ID}`, params: { id: INBOX_ID } }) },
+    "GET /api/admin/outbox": { ok: 200, prep: () => ({ url: "/api/admin/outbox" }) },
+    "GET /api/admin/outbox/[id]": { ok: 200, prep: () => ({ url: `/api/admin/outbox/${w.outboxId}`, params: { id: String(w.outboxId) } }) },
+    "POST /api/admin/outbox/[id]/retry": { ok: 200, prep: () => ({ url: `/api/admin/outbox/${w.outboxId}/retry`, params: { id: String(w.outboxId) } }) },
+    "GET /api/admin/audit": { ok: 200, prep: () => ({ url: "/api/admin/audit?limit=5" }) },
+    "GET /api/admin/inbox": { ok: 200, prep: () => ({ url: "/api/admin/inbox" }) },
+    "GET /api/admin/inbox/[id]": { ok: 200, prep: () => ({ url: `/api/admin/inbox/${INBOX_ID}`, params: { id: INBOX_ID } }) },
 
-    "GET /api/techniques": { ok: 200, prep: async () => ({ url: "/api/techniques" }) },
+    "GET /api/techniques": { ok: 200, prep: () => ({ url: "/api/techniques" }) },
     "POST /api/techniques": {
       ok: 201,
-      prep: async () => ({ url: "/api/techniques", body: { title: `Edge blend ${uniq()}`, summary: "Blend the patch edge into grain." } }),
+      prep: () => ({ url: "/api/techniques", body: { title: `Edge blend ${uniq()}`, summary: "Blend the patch edge into grain." } }),
     },
-    "GET /api/techniques/[slug]": { ok: 200, prep: async () => ({ url: `/api/techniques/${w.approved}`, params: { slug: w.approved } }) },
+    "GET /api/techniques/[slug]": { ok: 200, prep: () => ({ url: `/api/techniques/${w.approved}`, params: { slug: w.approved } }) },
     "PUT /api/techniques/[slug]": {
       ok: 200,
       prep: async () => {
@@ -265,10 +265,10 @@ function cases(): Record<string, Case> {
         return { url: `/api/techniques/${slug}/retire`, params: { slug }, body: { note: "Replaced." } };
       },
     },
-    "GET /api/techniques/[slug]/revisions": { ok: 200, prep: async () => ({ url: `/api/techniques/${w.approved}/revisions`, params: { slug: w.approved } }) },
+    "GET /api/techniques/[slug]/revisions": { ok: 200, prep: () => ({ url: `/api/techniques/${w.approved}/revisions`, params: { slug: w.approved } }) },
     "GET /api/techniques/[slug]/revisions/diff": {
       ok: 200,
-      prep: async () => ({ url: `/api/techniques/${w.approved}/revisions/diff?from=1&to=1`, params: { slug: w.approved } }),
+      prep: () => ({ url: `/api/techniques/${w.approved}/revisions/diff?from=1&to=1`, params: { slug: w.approved } }),
     },
     "POST /api/techniques/[slug]/revisions/[number]/restore": {
       ok: 201,
@@ -277,19 +277,19 @@ function cases(): Record<string, Case> {
         return { url: `/api/techniques/${slug}/revisions/1/restore`, params: { slug, number: "1" }, body: { baseRevision: 1 } };
       },
     },
-    "GET /api/techniques/[slug]/questions": { ok: 200, prep: async () => ({ url: `/api/techniques/${w.approved}/questions`, params: { slug: w.approved } }) },
+    "GET /api/techniques/[slug]/questions": { ok: 200, prep: () => ({ url: `/api/techniques/${w.approved}/questions`, params: { slug: w.approved } }) },
     "POST /api/techniques/[slug]/questions": {
       ok: 201,
-      prep: async () => ({ url: `/api/techniques/${w.approved}/questions`, params: { slug: w.approved }, body: { body: doc } }),
+      prep: () => ({ url: `/api/techniques/${w.approved}/questions`, params: { slug: w.approved }, body: { body: doc } }),
     },
-    "GET /api/techniques/[slug]/uses": { ok: 200, prep: async () => ({ url: `/api/techniques/${w.approved}/uses`, params: { slug: w.approved } }) },
+    "GET /api/techniques/[slug]/uses": { ok: 200, prep: () => ({ url: `/api/techniques/${w.approved}/uses`, params: { slug: w.approved } }) },
     "POST /api/techniques/[slug]/uses": {
       ok: 201,
-      prep: async () => ({ url: `/api/techniques/${w.approved}/uses`, params: { slug: w.approved }, body: { shot: w.shot, outcome: "touch-up" } }),
+      prep: () => ({ url: `/api/techniques/${w.approved}/uses`, params: { slug: w.approved }, body: { shot: w.shot, outcome: "touch-up" } }),
     },
-    "GET /api/review-queue": { ok: 200, prep: async () => ({ url: "/api/review-queue" }) },
-    "GET /api/search": { ok: 200, prep: async () => ({ url: "/api/search?q=regrain" }) },
-    "GET /api/search/suggest": { ok: 200, prep: async () => ({ url: "/api/search/suggest?q=pat" }) },
+    "GET /api/review-queue": { ok: 200, prep: () => ({ url: "/api/review-queue" }) },
+    "GET /api/search": { ok: 200, prep: () => ({ url: "/api/search?q=regrain" }) },
+    "GET /api/search/suggest": { ok: 200, prep: () => ({ url: "/api/search/suggest?q=pat" }) },
 
     "POST /api/questions/[id]/answers": {
       ok: 201,
@@ -309,8 +309,8 @@ function cases(): Record<string, Case> {
         return { url: `/api/questions/${id}/resolve`, params: { id } };
       },
     },
-    "GET /api/requests": { ok: 200, prep: async () => ({ url: "/api/requests?scope=open" }) },
-    "POST /api/requests": { ok: 201, prep: async () => ({ url: "/api/requests", body: { query: "Rig removal on water", note: "" } }) },
+    "GET /api/requests": { ok: 200, prep: () => ({ url: "/api/requests?scope=open" }) },
+    "POST /api/requests": { ok: 201, prep: () => ({ url: "/api/requests", body: { query: "Rig removal on water", note: "" } }) },
     "POST /api/requests/[id]/claim": {
       ok: 200,
       prep: async () => {
@@ -319,9 +319,9 @@ function cases(): Record<string, Case> {
       },
     },
 
-    "GET /api/tags": { ok: 200, prep: async () => ({ url: "/api/tags" }) },
-    "POST /api/tags": { ok: 201, prep: async () => ({ url: "/api/tags", body: { kind: "plate", name: `Night exterior ${uniq()}` } }) },
-    "PATCH /api/tags/[slug]": { ok: 200, prep: async () => ({ url: `/api/tags/${w.tag.slug}`, params: { slug: w.tag.slug }, body: { description: "Markers on a screen." } }) },
+    "GET /api/tags": { ok: 200, prep: () => ({ url: "/api/tags" }) },
+    "POST /api/tags": { ok: 201, prep: () => ({ url: "/api/tags", body: { kind: "plate", name: `Night exterior ${uniq()}` } }) },
+    "PATCH /api/tags/[slug]": { ok: 200, prep: () => ({ url: `/api/tags/${w.tag.slug}`, params: { slug: w.tag.slug }, body: { description: "Markers on a screen." } }) },
     "POST /api/tags/[slug]/merge": {
       ok: 200,
       prep: async () => {
@@ -332,11 +332,11 @@ function cases(): Record<string, Case> {
     },
     "PUT /api/tags/[slug]/house-method": {
       ok: 200,
-      prep: async () => ({ url: `/api/tags/${w.tag.slug}/house-method`, params: { slug: w.tag.slug }, body: { technique: null } }),
+      prep: () => ({ url: `/api/tags/${w.tag.slug}/house-method`, params: { slug: w.tag.slug }, body: { technique: null } }),
     },
 
-    "GET /api/thesaurus": { ok: 200, prep: async () => ({ url: "/api/thesaurus" }) },
-    "POST /api/thesaurus": { ok: 201, prep: async () => ({ url: "/api/thesaurus", body: { kind: "synonyms", terms: [`grit ${uniq()}`, "grain"] } }) },
+    "GET /api/thesaurus": { ok: 200, prep: () => ({ url: "/api/thesaurus" }) },
+    "POST /api/thesaurus": { ok: 201, prep: () => ({ url: "/api/thesaurus", body: { kind: "synonyms", terms: [`grit ${uniq()}`, "grain"] } }) },
     "GET /api/thesaurus/[id]": {
       ok: 200,
       prep: async () => {
@@ -359,21 +359,21 @@ function cases(): Record<string, Case> {
       },
     },
 
-    "GET /api/shows": { ok: 200, prep: async () => ({ url: "/api/shows" }) },
+    "GET /api/shows": { ok: 200, prep: () => ({ url: "/api/shows" }) },
     "POST /api/shows": {
       ok: 201,
-      prep: async () => ({ url: "/api/shows", body: { code: `Q${uniq().slice(-6)}`.toUpperCase().replace(/[^A-Z0-9]/g, "0"), name: "Another show" } }),
+      prep: () => ({ url: "/api/shows", body: { code: `Q${uniq().slice(-6)}`.toUpperCase().replace(/[^A-Z0-9]/g, "0"), name: "Another show" } }),
     },
-    "GET /api/shows/[code]": { ok: 200, prep: async () => ({ url: `/api/shows/${w.showCode}`, params: { code: w.showCode } }) },
-    "PATCH /api/shows/[code]": { ok: 200, prep: async () => ({ url: `/api/shows/${w.showCode}`, params: { code: w.showCode }, body: { name: "Security test show" } }) },
-    "GET /api/shows/[code]/shots": { ok: 200, prep: async () => ({ url: `/api/shows/${w.showCode}/shots`, params: { code: w.showCode } }) },
+    "GET /api/shows/[code]": { ok: 200, prep: () => ({ url: `/api/shows/${w.showCode}`, params: { code: w.showCode } }) },
+    "PATCH /api/shows/[code]": { ok: 200, prep: () => ({ url: `/api/shows/${w.showCode}`, params: { code: w.showCode }, body: { name: "Security test show" } }) },
+    "GET /api/shows/[code]/shots": { ok: 200, prep: () => ({ url: `/api/shows/${w.showCode}/shots`, params: { code: w.showCode } }) },
     "POST /api/shows/[code]/shots": {
       ok: 200,
-      prep: async () => ({ url: `/api/shows/${w.showCode}/shots`, params: { code: w.showCode }, body: { rows: [{ code: w.shot }] } }),
+      prep: () => ({ url: `/api/shows/${w.showCode}/shots`, params: { code: w.showCode }, body: { rows: [{ code: w.shot }] } }),
     },
-    "GET /api/shots": { ok: 200, prep: async () => ({ url: `/api/shots?q=${w.showCode}` }) },
-    "GET /api/shots/[code]": { ok: 200, prep: async () => ({ url: `/api/shots/${w.shot}`, params: { code: w.shot } }) },
-    "GET /api/uses/[id]": { ok: 200, prep: async () => ({ url: `/api/uses/${w.use}`, params: { id: w.use } }) },
+    "GET /api/shots": { ok: 200, prep: () => ({ url: `/api/shots?q=${w.showCode}` }) },
+    "GET /api/shots/[code]": { ok: 200, prep: () => ({ url: `/api/shots/${w.shot}`, params: { code: w.shot } }) },
+    "GET /api/uses/[id]": { ok: 200, prep: () => ({ url: `/api/uses/${w.use}`, params: { id: w.use } }) },
     "PATCH /api/uses/[id]": {
       ok: 200,
       prep: async (caller, owner) => {
@@ -399,7 +399,7 @@ function cases(): Record<string, Case> {
         return { url: "/api/stills", form };
       },
     },
-    "GET /api/stills": { ok: 200, prep: async () => ({ url: `/api/stills?technique=${w.approved}` }) },
+    "GET /api/stills": { ok: 200, prep: () => ({ url: `/api/stills?technique=${w.approved}` }) },
     "GET /api/stills/[id]": {
       ok: 200,
       prep: async (caller, owner) => {
@@ -421,8 +421,8 @@ function cases(): Record<string, Case> {
         return { url: `/api/stills/${id}/pixel?x=1&y=2`, params: { id } };
       },
     },
-    "GET /api/stills/pairs": { ok: 200, prep: async () => ({ url: `/api/stills/pairs?technique=${w.approved}` }) },
-    "POST /api/stills/pairs": { ok: 201, prep: async () => ({ url: "/api/stills/pairs", body: { technique: w.approved, before: w.still, after: w.still2 } }) },
+    "GET /api/stills/pairs": { ok: 200, prep: () => ({ url: `/api/stills/pairs?technique=${w.approved}` }) },
+    "POST /api/stills/pairs": { ok: 201, prep: () => ({ url: "/api/stills/pairs", body: { technique: w.approved, before: w.still, after: w.still2 } }) },
     "DELETE /api/stills/pairs/[id]": {
       ok: 204,
       prep: async () => {
@@ -436,7 +436,7 @@ function cases(): Record<string, Case> {
     "POST /api/lab/sample": { ok: 200, prep: async (c, owner) => ({ url: "/api/lab/sample", body: { still: await stillOf(owner), boxes: [{ x: 0, y: 0, w: 4, h: 4 }] } }) },
     "POST /api/lab/solve": {
       ok: 200,
-      prep: async () => ({
+      prep: () => ({
         url: "/api/lab/solve",
         body: {
           markers: [[0.1, 0.5, 0.2], [0.3, 0.6, 0.25], [0.2, 0.55, 0.4]],
@@ -446,12 +446,12 @@ function cases(): Record<string, Case> {
       }),
     },
 
-    "GET /api/subscriptions": { ok: 200, prep: async () => ({ url: "/api/subscriptions" }) },
-    "POST /api/subscriptions": { ok: 201, prep: async () => ({ url: "/api/subscriptions", body: { target: { kind: "technique", key: w.approved } } }) },
-    "DELETE /api/subscriptions": { ok: 200, prep: async () => ({ url: "/api/subscriptions", body: { target: { kind: "technique", key: w.approved } } }) },
-    "PUT /api/subscriptions/mode": { ok: 200, prep: async () => ({ url: "/api/subscriptions/mode", body: { mode: "daily" } }) },
+    "GET /api/subscriptions": { ok: 200, prep: () => ({ url: "/api/subscriptions" }) },
+    "POST /api/subscriptions": { ok: 201, prep: () => ({ url: "/api/subscriptions", body: { target: { kind: "technique", key: w.approved } } }) },
+    "DELETE /api/subscriptions": { ok: 200, prep: () => ({ url: "/api/subscriptions", body: { target: { kind: "technique", key: w.approved } } }) },
+    "PUT /api/subscriptions/mode": { ok: 200, prep: () => ({ url: "/api/subscriptions/mode", body: { mode: "daily" } }) },
   };
-  for (const method of HTTP_METHODS) c[`${method} /api/[...unknown]`] = { ok: 404, prep: async () => ({ url: "/api/no/such/thing" }) };
+  for (const method of HTTP_METHODS) c[`${method} /api/[...unknown]`] = { ok: 404, prep: () => ({ url: "/api/no/such/thing" }) };
   return c;
 }
 

@@ -36,7 +36,7 @@ function Harness({ value, report }: { value: TechniqueDraft; report(r: DraftReco
 }
 
 function render(value: TechniqueDraft) {
-  act(() => root.render(<Harness value={value} report={(r) => (current = r)} />));
+  act(() => { root.render(<Harness value={value} report={(r) => (current = r)} />); });
 }
 
 function store(value: unknown) {
@@ -55,7 +55,7 @@ beforeEach(() => {
   root = createRoot(document.createElement("div"));
 });
 afterEach(() => {
-  act(() => root.unmount());
+  act(() => { root.unmount(); });
   vi.useRealTimers();
 });
 
@@ -64,20 +64,20 @@ describe("saving", () => {
     render(loaded);
     render(edited);
     expect(stored()).toBeNull();
-    act(() => vi.advanceTimersByTime(500));
+    act(() => { vi.advanceTimersByTime(500); });
     expect(stored()).toEqual(edited);
     render(loaded);
-    act(() => vi.advanceTimersByTime(500));
+    act(() => { vi.advanceTimersByTime(500); });
     expect(stored()).toBeNull();
   });
 
   test("clear() after a successful save removes the draft and keeps it removed", () => {
     render(loaded);
     render(edited);
-    act(() => vi.advanceTimersByTime(500));
-    act(() => current.clear());
+    act(() => { vi.advanceTimersByTime(500); });
+    act(() => { current.clear(); });
     render(edited);
-    act(() => vi.advanceTimersByTime(1000));
+    act(() => { vi.advanceTimersByTime(1000); });
     expect(stored()).toBeNull();
   });
 });
@@ -90,14 +90,14 @@ describe("offering", () => {
     expect(current.savedAt?.toISOString()).toBe("2025-03-04T10:00:00.000Z");
     expect(onRestore).not.toHaveBeenCalled();
     render({ ...loaded, title: "Typing before deciding" });
-    act(() => vi.advanceTimersByTime(2000));
+    act(() => { vi.advanceTimersByTime(2000); });
     expect(stored()).toEqual(edited);
   });
 
   test("restore() hands the draft over once", () => {
     store(edited);
     render(loaded);
-    act(() => void current.restore());
+    act(() => { void current.restore(); });
     expect(onRestore).toHaveBeenCalledExactlyOnceWith(edited);
     expect(current.recoverable).toBeNull();
   });
@@ -105,7 +105,7 @@ describe("offering", () => {
   test("discard() deletes it", () => {
     store(edited);
     render(loaded);
-    act(() => current.discard());
+    act(() => { current.discard(); });
     expect(current.recoverable).toBeNull();
     expect(stored()).toBeNull();
   });

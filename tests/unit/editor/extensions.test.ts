@@ -6,7 +6,7 @@ import { createEditorExtensions } from "@/components/editor/extensions";
 import { findDocumentIssues, type TechniqueDocument } from "@/lib/techniques/document";
 import { renderDocumentToHtml } from "@/lib/techniques/render";
 
-import { everyNodeDocument, STILL_ID } from "./fixtures";
+import { everyNodeDocument, STILL_ID } from "@/tests/unit/techniques/fixtures";
 
 /* The editor's extensions write only what the document schema accepts, and read back the
    renderer's HTML (pasting a rendered page into the editor keeps its structure). */
@@ -41,7 +41,7 @@ describe("editor output fits the schema", () => {
       n.marks?.forEach((m) => types.add(`mark:${m.type}`));
       (n.content as (typeof n)[] | undefined)?.forEach(walk);
     };
-    walk(doc as never);
+    walk(doc);
     for (const t of ["callout", "heading", "bulletList", "orderedList", "listItem", "blockquote", "codeBlock", "horizontalRule", "hardBreak", "table", "tableRow", "tableHeader", "tableCell", "still", "mark:bold", "mark:italic", "mark:link", "mark:code"]) {
       expect(types, t).toContain(t);
     }

@@ -122,7 +122,7 @@ describe("mix and grain", () => {
       // output must be the plate, bit for bit.
       const untouched = await runRecipe({
         still: platePng, steps: [grain], space, format: "png16",
-        loadStill: async (id) => { seen.push(id); return denPng; },
+        loadStill: (id) => { seen.push(id); return denPng; },
       });
       const { data } = await sharp(untouched.bytes).toColourspace("rgb16").raw({ depth: "ushort" }).toBuffer({ resolveWithObject: true });
       const out = new Uint16Array(data.buffer, data.byteOffset, data.length / 2);
@@ -264,7 +264,7 @@ describe("proxy paths (decoded proxy kept as working-space floats)", () => {
     const steps = recipeSchema.parse(demoCleanupRecipe({ denoisedStillId: "den", width: W, screen: syn.screen, markerSamples: syn.markerSamples, screenSamples: syn.screenSamples, screenRect: syn.screenRect }));
     const kept = new Map<string, ProxyStill>();
     const decodeCache = { get: (k: string) => kept.get(k), set: (k: string, v: ProxyStill) => void kept.set(k, v) };
-    const loadStill = async () => syn.denoised;
+    const loadStill = () => syn.denoised;
     // png16 runs the float steps; png (8-bit, lossless) also the encode that copies the plate's
     // codes outside the matte instead of quantising there.
     // A step after the grain step: the working image must then be whole outside the matte too.

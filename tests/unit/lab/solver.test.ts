@@ -23,12 +23,12 @@ describe("solver: hide", () => {
       const screen = [rgb(r)];
       const s = screen[0]!;
       const out = solveRow({ markers, screen, goal: { kind: "hide", channel } });
-      expect(Math.abs(dot(out.row, s) - s[c]!)).toBeLessThan(1e-9);
+      expect(Math.abs(dot(out.row, s) - s[c])).toBeLessThan(1e-9);
       for (const m of markers) expect(Math.abs(dot(out.row, m) - dot(out.row, s))).toBeLessThan(1e-9);
       // Closed form: min ‖d‖ subject to A d = t, A = [m_i − s; sᵀ], t = [−(m_i − s)_c; 0]
       // → d = Aᵀ (A Aᵀ)⁻¹ t, computed independently with ml-matrix's inverse.
       const A = new Matrix([...markers.map((m) => [m[0] - s[0], m[1] - s[1], m[2] - s[2]]), [...s]]);
-      const t = Matrix.columnVector([...markers.map((m) => -(m[c]! - s[c]!)), 0]);
+      const t = Matrix.columnVector([...markers.map((m) => -(m[c] - s[c])), 0]);
       const d = A.transpose().mmul(inverse(A.mmul(A.transpose()))).mmul(t);
       for (let j = 0; j < 3; j++) expect(Math.abs(out.row[j]! - ((j === c ? 1 : 0) + d.get(j, 0)))).toBeLessThan(1e-9);
       // Only the target row changes.
@@ -112,7 +112,7 @@ describe("on the synthetic demo plate", () => {
 
   it("the full demo recipe removes the markers: output ≈ the clean truth where the markers were", async () => {
     const steps = recipeSchema.parse(demoCleanupRecipe({ denoisedStillId: "den", width: syn.width, screen: syn.screen, markerSamples: syn.markerSamples, screenSamples: syn.screenSamples, screenRect: syn.screenRect }));
-    const res = await runRecipe({ still: syn.plate, steps, space: "linear", format: "png16", loadStill: async () => syn.denoised });
+    const res = await runRecipe({ still: syn.plate, steps, space: "linear", format: "png16", loadStill: () => syn.denoised });
     const [out, truth, plate] = await Promise.all([decodeStill(res.bytes), decodeStill(syn.cleanTruth), decodeStill(syn.plate)]);
     let errOut = 0, errPlate = 0, n = 0;
     for (const m of syn.markers) {
@@ -139,7 +139,7 @@ describe("on the synthetic demo plate", () => {
     const blue = await generateSyntheticPlate({ width: 512, height: 270, seed: 5, screen: "blue", compressionLevel: 1 });
     const steps = recipeSchema.parse(demoCleanupRecipe({ denoisedStillId: "den", width: blue.width, screen: "blue", markerSamples: blue.markerSamples, screenSamples: blue.screenSamples, screenRect: blue.screenRect }));
     expect(steps[0]!.op === "matrix" && steps[0]!.m[0]).toEqual([1, 0, 0]);
-    const res = await runRecipe({ still: blue.plate, steps, space: "linear", format: "png16", loadStill: async () => blue.denoised });
+    const res = await runRecipe({ still: blue.plate, steps, space: "linear", format: "png16", loadStill: () => blue.denoised });
     const [out, truth, plate] = await Promise.all([decodeStill(res.bytes), decodeStill(blue.cleanTruth), decodeStill(blue.plate)]);
     let errOut = 0, errPlate = 0;
     for (let i = 0; i < out.codes.length; i++) {

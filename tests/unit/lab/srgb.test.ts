@@ -44,7 +44,7 @@ describe("sRGB transfer (IEC 61966-2-1:1999)", () => {
     // Rounding in encoded space: code k covers decode((k − ½)/max) ≤ x < decode((k + ½)/max),
     // decode being monotonic (IEC 61966-2-1); the reference counts edges in float64.
     const f = new Float32Array(1), u = new Uint32Array(f.buffer);
-    const near = (x: number, d: number): number => { f[0] = x; u[0] = u[0]! + d; return f[0]!; };
+    const near = (x: number, d: number): number => { f[0] = x; u[0] = u[0]! + d; return f[0]; };
     for (const bits of [8, 16] as const) {
       for (const linear of [true, false]) {
         const max = bits === 8 ? 255 : 65535;
@@ -87,7 +87,7 @@ describe("sRGB transfer (IEC 61966-2-1:1999)", () => {
     const q = quantiser(8, true);
     const f = new Float32Array(1), u = new Uint32Array(f.buffer);
     const xs: number[] = [-1, -0, 0, 1e-9, 1, 1.5, Infinity, -Infinity, NaN, 0.5];
-    for (let k = 0; k < 255; k++) for (const d of [-1, 0, 1]) { f[0] = srgbDecode((k + 0.5) / 255); u[0] = u[0]! + d; xs.push(f[0]!); }
+    for (let k = 0; k < 255; k++) for (const d of [-1, 0, 1]) { f[0] = srgbDecode((k + 0.5) / 255); u[0] = u[0]! + d; xs.push(f[0]); }
     for (let i = 0; i < 3000; i++) xs.push(Math.sin(i) * 1.3);
     while (xs.length % 3) xs.push(0.25);
     const want = new Uint8Array(xs.length);

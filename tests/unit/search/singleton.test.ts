@@ -11,13 +11,13 @@ describe("getSearchIndex / rebuildSearchIndex / applySearchChange", () => {
   it("returns one index per process and swaps in a rebuilt one", async () => {
     expect(getSearchIndex()).toBe(getSearchIndex());
     const before = getSearchIndex();
-    const count = await rebuildSearchIndex(async () => rows(QUALITY_PAGES), async () => [{ kind: "synonyms", terms: ["gate hair", "hair in the gate"] }]);
+    const count = await rebuildSearchIndex(() => Promise.resolve(rows(QUALITY_PAGES)), () => Promise.resolve([{ kind: "synonyms", terms: ["gate hair", "hair in the gate"] }]));
     expect(count).toBe(QUALITY_PAGES.length);
     expect(getSearchIndex()).not.toBe(before);
     expect(getSearchIndex().search("dust bustng", { audience: "published", limit: 1 }).results[0]?.slug).toBe("dust-busting-film-scans");
 
     // A rebuild reflects the database as loaded: a technique gone from it is gone from search.
-    await rebuildSearchIndex(async () => rows(QUALITY_PAGES.filter((d) => d.slug !== "dust-busting-film-scans")));
+    await rebuildSearchIndex(() => Promise.resolve(rows(QUALITY_PAGES.filter((d) => d.slug !== "dust-busting-film-scans"))));
     expect(getSearchIndex().search("dust busting", { audience: "published" }).results.map((r) => r.slug)).not.toContain("dust-busting-film-scans");
   });
 

@@ -222,7 +222,7 @@ describe("the shot-list CSV reader and import planner", () => {
     const rows = fc.array(fc.dictionary(fc.constantFrom("code", "sequence", "frameStart", "frameEnd", "state", "description", "__proto__", "x"), fc.oneof(fc.jsonValue({ maxDepth: 2 }), fc.constantFrom("SLM_010_0010", "SLM_010_0020", " slm_010_0010 ", "1001", "1100", "-5", "1e9", "in_prep"))), { maxLength: 30 });
     fc.assert(
       fc.property(rows, (values) => {
-        const input: ImportRow[] = values.map((v, i) => ({ row: i + 1, values: v as Record<string, unknown> }));
+        const input: ImportRow[] = values.map((v, i) => ({ row: i + 1, values: v }));
         const plan = planImport(input, new Map(), { code: "SLM", shotPattern: DEFAULT_SHOT_PATTERN });
         const counted = plan.create.length + plan.update.length + plan.unchanged.length + new Set(plan.errors.map((e) => e.row)).size;
         expect(counted).toBe(input.length);

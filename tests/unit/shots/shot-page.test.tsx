@@ -62,14 +62,14 @@ beforeEach(() => {
 });
 
 afterEach(() => {
-  act(() => root.unmount());
+  act(() => { root.unmount(); });
   container.remove();
   vi.unstubAllGlobals();
 });
 
 function render(node: ReactNode) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  act(() => root.render(<QueryClientProvider client={client}>{node}</QueryClientProvider>));
+  act(() => { root.render(<QueryClientProvider client={client}>{node}</QueryClientProvider>); });
 }
 function typeInto(el: HTMLInputElement | HTMLTextAreaElement, value: string) {
   const proto = el instanceof HTMLTextAreaElement ? HTMLTextAreaElement.prototype : HTMLInputElement.prototype;
@@ -90,14 +90,14 @@ describe("LogUseForm on a shot page", () => {
     const picker = container.querySelector<HTMLInputElement>('input[role="combobox"]')!;
     await flush();
     expect(calls[0]).toMatchObject({ method: "GET", url: "/api/techniques?status=approved&limit=200" });
-    act(() => typeInto(picker, "clean plate"));
+    act(() => { typeInto(picker, "clean plate"); });
     const options = [...container.querySelectorAll('[role="option"]')];
     expect(options.map((o) => o.textContent)).toEqual(["Wire removal with a clean platePatch from an offset frame"]);
-    act(() => options[0]!.dispatchEvent(new MouseEvent("mousedown", { bubbles: true })));
+    act(() => { options[0]!.dispatchEvent(new MouseEvent("mousedown", { bubbles: true })); });
     expect(picker.value).toBe("Wire removal with a clean plate");
 
-    act(() => container.querySelector<HTMLInputElement>('input[type="radio"][value="touch-up"]')!.click());
-    act(() => typeInto(container.querySelector("textarea")!, "needed a second pass on the wire"));
+    act(() => { container.querySelector<HTMLInputElement>('input[type="radio"][value="touch-up"]')!.click(); });
+    act(() => { typeInto(container.querySelector("textarea")!, "needed a second pass on the wire"); });
     await act(async () => button(/Log use/).click());
     const post = calls.find((c) => c.method === "POST")!;
     expect(post.url).toBe("/api/techniques/wire-paint/uses");
@@ -172,10 +172,10 @@ describe("ShotUses", () => {
 
   it("sends only what changed in an edit", async () => {
     render(<ShotUses uses={[use()]} />);
-    act(() => button(/^Edit$/).click());
+    act(() => { button(/^Edit$/).click(); });
     expect(button(/Save changes/).disabled).toBe(true);
-    act(() => container.querySelector<HTMLInputElement>('input[type="radio"][value="failed"]')!.click());
-    act(() => container.querySelector<HTMLInputElement>('input[type="checkbox"]')!.click());
+    act(() => { container.querySelector<HTMLInputElement>('input[type="radio"][value="failed"]')!.click(); });
+    act(() => { container.querySelector<HTMLInputElement>('input[type="checkbox"]')!.click(); });
     await act(async () => button(/Save changes/).click());
     expect(calls).toEqual([{ url: "/api/uses/11111111-1111-4111-8111-111111111111", method: "PATCH", body: { outcome: "failed", beforeStill: null } }]);
     expect(refresh).toHaveBeenCalledOnce();
@@ -183,15 +183,15 @@ describe("ShotUses", () => {
 
   it("deletes only after confirmation", async () => {
     render(<ShotUses uses={[use()]} />);
-    act(() => button(/^Delete$/).click());
+    act(() => { button(/^Delete$/).click(); });
     // Dialogs render into <body> (components/ui/modal.tsx), outside any form of the page.
     const dialog = document.querySelector("dialog")!;
     expect(dialog.open).toBe(true);
     expect(calls).toHaveLength(0);
-    act(() => [...dialog.querySelectorAll("button")].find((b) => b.textContent === "Cancel")!.click());
+    act(() => { [...dialog.querySelectorAll("button")].find((b) => b.textContent === "Cancel")!.click(); });
     expect(calls).toHaveLength(0);
 
-    act(() => button(/^Delete$/).click());
+    act(() => { button(/^Delete$/).click(); });
     await act(async () => [...dialog.querySelectorAll("button")].find((b) => /Delete log/.test(b.textContent ?? ""))!.click());
     expect(calls).toEqual([{ url: "/api/uses/11111111-1111-4111-8111-111111111111", method: "DELETE", body: undefined }]);
     expect(refresh).toHaveBeenCalledOnce();

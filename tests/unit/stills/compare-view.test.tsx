@@ -34,15 +34,15 @@ beforeEach(() => {
   host = document.createElement("div");
   document.body.append(host);
   root = createRoot(host);
-  act(() => root.render(<CompareView before={still("b", "Screen with markers", "before")} after={still("a", "Screen after marker removal", "after")} />));
+  act(() => { root.render(<CompareView before={still("b", "Screen with markers", "before")} after={still("a", "Screen after marker removal", "after")} />); });
 });
 afterEach(() => {
-  act(() => root.unmount());
+  act(() => { root.unmount(); });
   host.remove();
 });
 
 const slider = () => host.querySelector<HTMLElement>('[role="slider"]')!;
-const press = (key: string, shiftKey = false) => act(() => slider().dispatchEvent(new KeyboardEvent("keydown", { key, shiftKey, bubbles: true })));
+const press = (key: string, shiftKey = false) => act(() => { slider().dispatchEvent(new KeyboardEvent("keydown", { key, shiftKey, bubbles: true })); });
 
 // Expected keys: WAI-ARIA Authoring Practices 1.2, Slider pattern, "Keyboard Interaction":
 // Right/Up one step up, Left/Down one step down, Page Up/Down a larger step, Home/End the ends.
@@ -82,18 +82,18 @@ describe("compare divider keyboard (WAI-ARIA APG slider pattern)", () => {
 describe("compare modes", () => {
   it("toggle shows one still at a time and switches on request", () => {
     const button = (text: string) => [...host.querySelectorAll("button")].find((b) => b.textContent?.startsWith(text))!;
-    act(() => button("Toggle").click());
+    act(() => { button("Toggle").click(); });
     expect(host.querySelector('[role="slider"]')).toBeNull();
     expect([...host.querySelectorAll("img")].map((i) => i.alt)).toEqual(["Before: Screen with markers"]);
-    act(() => button("Showing before").click());
+    act(() => { button("Showing before").click(); });
     expect([...host.querySelectorAll("img")].map((i) => i.alt)).toEqual(["After: Screen after marker removal"]);
   });
 
   it("100 % uses the original for PNG stills; the luminance view applies the BT.709 filter", () => {
     const button = (text: string) => [...host.querySelectorAll("button")].find((b) => b.textContent === text)!;
-    act(() => button("100 %").click());
+    act(() => { button("100 %").click(); });
     expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/original");
-    act(() => button("Luminance (BT.709)").click());
+    act(() => { button("Luminance (BT.709)").click(); });
     const filter = host.querySelector("img")!.style.filter;
     const id = /url\("?#([^")]+)"?\)/.exec(filter)?.[1];
     expect(id).toBeTruthy();

@@ -18,7 +18,7 @@ export const POST = authedRoute("lab:run", async (req, { user, json }) => {
   });
   if (Object.keys(fields).length) throw new AppError("validation_failed", Object.entries(fields).map(([k, v]) => `${k}: ${v}`)[0], { fields });
   const bytes = await originalBytes(still);
-  const noLoader = async (): Promise<Uint8Array> => new Uint8Array();
+  const noLoader = (): Promise<Uint8Array> => Promise.resolve(new Uint8Array());
   const { before } = await withAnalysisSlot(() => runToFloat({ still: bytes, steps: [], space: input.space, loadStill: noLoader }).catch(mapLabError));
   const samples: [number, number, number][] = [];
   const pixels: number[] = [];

@@ -2,7 +2,7 @@ import { authedRoute, otherMethods, parseWith, searchParamsOf } from "@/lib/api/
 import { suggestQuerySchema, type SuggestApiResponse } from "@/lib/search-ui/params";
 import { runSuggest } from "@/lib/search-ui/run";
 
-export const GET = authedRoute(async (req, { user }) => {
+export const GET = authedRoute((req, { user }) => {
   const { q, limit } = parseWith(suggestQuerySchema, searchParamsOf(req));
   return Response.json(runSuggest(user, q, limit) satisfies SuggestApiResponse);
 });
