@@ -228,7 +228,15 @@ class Renderer {
  * HTML for a technique body (normally a validated TechniqueDocument; anything else renders to
  * what survives the allow-list, possibly ""). Safe to pass to dangerouslySetInnerHTML.
  */
+// A technique page read from lib/remembered-reads hands the same body object to every render
+// until the next change, so its HTML is made once per object (the object is never mutated).
+const renderedBodies = new WeakMap<object, string>();
+
 export function renderDocumentToHtml(doc: unknown): string {
   if (!isRecord(doc) || doc.type !== "doc") return "";
-  return new Renderer().blocks(childrenOf(doc), 1);
+  const seen = renderedBodies.get(doc);
+  if (seen !== undefined) return seen;
+  const html = new Renderer().blocks(childrenOf(doc), 1);
+  renderedBodies.set(doc, html);
+  return html;
 }
