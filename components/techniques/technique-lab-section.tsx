@@ -1,15 +1,14 @@
-import { TechniqueLab } from "@/components/lab/technique-lab";
-import { TechniqueLabWithApply } from "@/components/lab/technique-lab-apply";
+import { TechniqueLabLoader, TechniqueLabWithApplyLoader } from "@/components/techniques/technique-lab-loader";
 import { RecipeCards } from "@/components/techniques/recipe-cards";
 import { Card, CardTitle } from "@/components/ui/card";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { listStillsForTechnique } from "@/lib/stills/queries";
+import { stillsForPage } from "@/lib/techniques/page-data";
 import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
 /** The recipe as readable cards, and the lab where anyone can run it on the page's stills or their own. */
 export async function TechniqueLabSection({ user, technique }: { user: SessionUser; technique: TechniqueResponse }) {
-  const stills = (await listStillsForTechnique(user, technique.id)).filter((s) => s.role !== "after");
+  const stills = (await stillsForPage(user, technique.id)).filter((s) => s.role !== "after");
   const labStills = stills.map((s) => ({ id: s.id, alt: s.alt, width: s.width, height: s.height, bitDepth: s.bitDepth }));
   return (
     <Card aria-labelledby="parameters-title">
@@ -22,7 +21,7 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
           <h3 className="mb-2 font-semibold">Try it</h3>
           {/* Editors get "Apply to recipe" (a new revision); everyone else tries matrices on a working copy. */}
           {can(user, "technique:write") && !technique.retiredAt ? (
-            <TechniqueLabWithApply
+            <TechniqueLabWithApplyLoader
               stills={labStills}
               technique={{
                 slug: technique.slug,
@@ -37,7 +36,7 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
               }}
             />
           ) : (
-            <TechniqueLab slug={technique.slug} recipe={technique.recipe} stills={labStills} canEditRecipe={false} />
+            <TechniqueLabLoader slug={technique.slug} recipe={technique.recipe} stills={labStills} canEditRecipe={false} />
           )}
         </div>
       ) : null}
