@@ -12,17 +12,30 @@ import type { SessionUser } from "@/lib/auth/roles";
  */
 
 type Remembered = { generation: number; at: number; value: unknown };
-const reads = new LRUCache<string, Remembered>({ max: 10_000 });
+const reads = new LRUCache<string, Remembered>({
+  max: 10_000,
+  // Bounded by size too: a technique with its body is tens of kB. The JSON length is a rough
+  // measure, taken once per read that is kept.
+  maxSize: 64 * 1024 * 1024,
+  sizeCalculation: (entry, key) => key.length + (JSON.stringify(entry.value)?.length ?? 8),
+});
+let generationKept: number | null = null;
 
 /** What `read` gives for `key`, remembered until the next committed change or maxAgeMs. */
 export async function rememberedUntilChange<T>(key: string, maxAgeMs: number, read: () => Promise<T>): Promise<T> {
   // Taken before reading: a change committed during the read makes the result stale at once.
   const generation = changeGeneration();
   if (generation === null) return read();
+  // Nothing from before a change can be used again: let it go at once rather than when evicted.
+  if (generation !== generationKept) {
+    reads.clear();
+    generationKept = generation;
+  }
   const seen = reads.get(key);
   if (seen && seen.generation === generation && Date.now() - seen.at < maxAgeMs) return seen.value as T;
   const value = await read();
-  reads.set(key, { generation, at: Date.now(), value });
+  // A change committed while reading: this result may already be stale, so it is not kept.
+  if (changeGeneration() === generation) reads.set(key, { generation, at: Date.now(), value });
   return value;
 }
 
