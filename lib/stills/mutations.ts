@@ -1,13 +1,14 @@
 import "server-only";
 import fs from "node:fs/promises";
-import { eq, sql } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import { getDb, type Database } from "@/db/client";
-import { stillPairs, stills, type Still } from "@/db/schema";
+import { stillPairs, stills, techniques, type Still } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { parseWith } from "@/lib/api/handler";
 import { writeAudit } from "@/lib/audit/log";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
+import { changeWorkingRevision } from "@/lib/techniques/mutations";
 import { requireVisibleTechnique } from "@/lib/techniques/queries";
 import { prepareOriginal } from "@/lib/stills/inspect";
 import { getStillForRead, referencedHashes, toStillResponse } from "@/lib/stills/queries";
@@ -136,7 +137,11 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
   }
 }
 
-/** Saves two stills of a technique as a before/after pair (seniors and up). */
+/**
+ * Saves two stills of a technique as a before/after pair (seniors and up). The pair belongs to the
+ * revision being worked on: a draft takes it at once; an approved or waiting revision gets a new
+ * draft revision for it (lib/techniques/mutations.ts changeWorkingRevision), which goes to review.
+ */
 export async function createPair(user: SessionUser, input: CreatePairInput): Promise<StillPairResponse> {
   assertCan(user, "still:upload");
   const data = parseWith(createPairSchema, input);
@@ -150,26 +155,26 @@ export async function createPair(user: SessionUser, input: CreatePairInput): Pro
     if (s.owner === "trial") throw new AppError("validation_failed", "Private trial stills cannot be shown in a pair.", { fields: { [field]: "This still is a private trial." } });
     if (s.techniqueId !== technique.id) throw new AppError("validation_failed", "Both stills must belong to this technique.", { fields: { [field]: "Not a still of this technique." } });
   }
-  const db = getDb();
-  const pair = await db.transaction(async (tx) => {
+  const { pair, revision } = await changeWorkingRevision(user, technique.slug, "Added a before/after pair.", async (tx, revision) => {
     const [{ next } = { next: 0 }] = await tx
       .select({ next: sql<number>`coalesce(max(${stillPairs.position}) + 1, 0)`.mapWith(Number) })
       .from(stillPairs)
-      .where(eq(stillPairs.techniqueId, technique.id));
+      .where(eq(stillPairs.revisionId, revision.id));
     const [row] = await tx
       .insert(stillPairs)
-      .values({ techniqueId: technique.id, beforeStillId: before.id, afterStillId: after.id, caption: data.caption ?? "", position: next })
+      .values({ techniqueId: technique.id, revisionId: revision.id, beforeStillId: before.id, afterStillId: after.id, caption: data.caption ?? "", position: next })
       .returning();
     if (!row) throw new Error("Insert returned no row.");
     // Pairing says which still is which, whatever role they were uploaded with.
     await tx.update(stills).set({ role: "before" }).where(eq(stills.id, before.id));
     await tx.update(stills).set({ role: "after" }).where(eq(stills.id, after.id));
-    await writeAudit(tx, { actorId: user.id, action: "still_pair.create", targetType: "still_pair", targetId: row.id, detail: { techniqueId: technique.id } });
-    return row;
+    await writeAudit(tx, { actorId: user.id, action: "still_pair.create", targetType: "still_pair", targetId: row.id, detail: { techniqueId: technique.id, revision: revision.number } });
+    return { pair: row, revision };
   });
   return {
     id: pair.id,
     techniqueId: pair.techniqueId,
+    revision: revision.number,
     caption: pair.caption,
     position: pair.position,
     before: toStillResponse({ ...before, role: "before" }),
@@ -177,14 +182,38 @@ export async function createPair(user: SessionUser, input: CreatePairInput): Pro
   };
 }
 
-/** Removes a pair (seniors and up); the stills stay. */
+/**
+ * Removes a pair (seniors and up); the stills stay. Like adding one, it changes the revision being
+ * worked on: from an approved or waiting revision a new draft revision is made without the pair.
+ */
 export async function deletePair(user: SessionUser, id: string): Promise<void> {
   assertCan(user, "still:upload");
-  const db = getDb();
-  await db.transaction(async (tx) => {
-    const [row] = await tx.delete(stillPairs).where(eq(stillPairs.id, id)).returning({ id: stillPairs.id, techniqueId: stillPairs.techniqueId });
-    if (!row) throw new AppError("not_found", "No pair at this address.");
-    await writeAudit(tx, { actorId: user.id, action: "still_pair.delete", targetType: "still_pair", targetId: row.id, detail: { techniqueId: row.techniqueId } });
+  const [found] = await getDb()
+    .select({ pair: stillPairs, slug: techniques.slug })
+    .from(stillPairs)
+    .innerJoin(techniques, eq(techniques.id, stillPairs.techniqueId))
+    .where(eq(stillPairs.id, id))
+    .limit(1);
+  if (!found) throw new AppError("not_found", "No pair at this address.");
+  await requireVisibleTechnique(user, found.slug);
+  const { pair } = found;
+  await changeWorkingRevision(user, found.slug, "Removed a before/after pair.", async (tx, revision) => {
+    // In a new draft revision the pair is a copy: the same stills at the same place.
+    const [row] = await tx
+      .delete(stillPairs)
+      .where(
+        pair.revisionId === revision.id
+          ? eq(stillPairs.id, pair.id)
+          : and(
+              eq(stillPairs.revisionId, revision.id),
+              eq(stillPairs.beforeStillId, pair.beforeStillId),
+              eq(stillPairs.afterStillId, pair.afterStillId),
+              eq(stillPairs.position, pair.position),
+            ),
+      )
+      .returning({ id: stillPairs.id, techniqueId: stillPairs.techniqueId });
+    if (!row) throw new AppError("conflict", "This pair is no longer in the revision being worked on; reload the page.");
+    await writeAudit(tx, { actorId: user.id, action: "still_pair.delete", targetType: "still_pair", targetId: row.id, detail: { techniqueId: row.techniqueId, revision: revision.number } });
   });
 }
 

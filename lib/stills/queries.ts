@@ -2,12 +2,12 @@ import "server-only";
 import { asc, eq, inArray } from "drizzle-orm";
 import { cache } from "react";
 import { getDb } from "@/db/client";
-import { stillPairs, stills, type Still, type Technique } from "@/db/schema";
+import { revisions, stillPairs, stills, type Still, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import type { StillFormat, StillPairResponse, StillResponse } from "@/lib/stills/schemas";
-import { isTechniqueVisible, techniqueRowById } from "@/lib/techniques/queries";
+import { isTechniqueVisible, techniqueRowById, visibleRevisionId } from "@/lib/techniques/queries";
 
 export function toStillResponse(s: Still): StillResponse {
   return {
@@ -70,26 +70,47 @@ export async function listStillsForTechnique(user: SessionUser, techniqueId: str
   return visible;
 }
 
-/** Before/after pairs shown on a technique page, in their order. */
+/**
+ * Before/after pairs shown on a technique page, in their order: those of the revision this person
+ * sees (the approved one for readers, the newest for writers), like the text beside them.
+ */
 export async function listPairsForTechnique(user: SessionUser, techniqueId: string): Promise<StillPairResponse[]> {
+  const t = (await techniqueRowById(techniqueId)) ?? undefined;
+  if (!techniqueVisible(user, t)) throw new AppError("not_found", "No technique at this address.");
+  const revisionId = visibleRevisionId(user, t!);
+  if (!revisionId) return [];
+  const out: StillPairResponse[] = [];
+  for (const p of await listPairsOfRevision(revisionId)) {
+    if ((await canReadStill(user, p.beforeRow)) && (await canReadStill(user, p.afterRow))) {
+      out.push({ id: p.id, techniqueId: p.techniqueId, revision: p.revision, caption: p.caption, position: p.position, before: toStillResponse(p.beforeRow), after: toStillResponse(p.afterRow) });
+    }
+  }
+  return out;
+}
+
+export type RevisionPair = { id: string; techniqueId: string; revision: number; caption: string; position: number; beforeRow: Still; afterRow: Still };
+
+/** The pairs of one revision with their stills, in order; the caller has checked the revision is visible. */
+export async function listPairsOfRevision(revisionId: string): Promise<RevisionPair[]> {
   const db = getDb();
-  if (!techniqueVisible(user, (await techniqueRowById(techniqueId)) ?? undefined)) throw new AppError("not_found", "No technique at this address.");
-  const pairs = await db.select().from(stillPairs).where(eq(stillPairs.techniqueId, techniqueId)).orderBy(asc(stillPairs.position), asc(stillPairs.createdAt));
+  const pairs = await db
+    .select({ pair: stillPairs, revision: revisions.number })
+    .from(stillPairs)
+    .innerJoin(revisions, eq(revisions.id, stillPairs.revisionId))
+    .where(eq(stillPairs.revisionId, revisionId))
+    .orderBy(asc(stillPairs.position), asc(stillPairs.createdAt));
   if (!pairs.length) return [];
-  const ids = [...new Set(pairs.flatMap((p) => [p.beforeStillId, p.afterStillId]))];
+  const ids = [...new Set(pairs.flatMap(({ pair: p }) => [p.beforeStillId, p.afterStillId]))];
   // Pairs are made of the technique's own stills (createPair checks), already read for this render.
-  const own = await stillRowsOfTechnique(techniqueId);
+  const own = await stillRowsOfTechnique(pairs[0]!.pair.techniqueId);
   const missing = ids.filter((id) => !own.some((s) => s.id === id));
   const rows = missing.length ? [...own, ...(await db.select().from(stills).where(inArray(stills.id, missing)))] : own;
   const byId = new Map(rows.map((s) => [s.id, s]));
-  const out: StillPairResponse[] = [];
-  for (const p of pairs) {
-    const before = byId.get(p.beforeStillId);
-    const after = byId.get(p.afterStillId);
-    if (!before || !after || !(await canReadStill(user, before)) || !(await canReadStill(user, after))) continue;
-    out.push({ id: p.id, techniqueId: p.techniqueId, caption: p.caption, position: p.position, before: toStillResponse(before), after: toStillResponse(after) });
-  }
-  return out;
+  return pairs.flatMap(({ pair: p, revision }) => {
+    const beforeRow = byId.get(p.beforeStillId);
+    const afterRow = byId.get(p.afterStillId);
+    return beforeRow && afterRow ? [{ id: p.id, techniqueId: p.techniqueId, revision, caption: p.caption, position: p.position, beforeRow, afterRow }] : [];
+  });
 }
 
 /** Which of these hashes some still row still points at (for the sweeper and cleanup). */

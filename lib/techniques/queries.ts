@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { cache } from "react";
 import { getDb, type Database } from "@/db/client";
-import { houseMethods, revisions, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
+import { houseMethods, revisions, tags, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
@@ -233,6 +233,37 @@ export async function listReviewQueue(user: SessionUser): Promise<ReviewQueueIte
   }));
 }
 
+export type ReviewItem = {
+  slug: string;
+  title: string;
+  /** The newest revision: waiting for review when `isWaiting`. */
+  pending: RevisionSummary;
+  isWaiting: boolean;
+  approvedRevision: number | null;
+  /** What the review compares with: the approved revision, else the last one sent back, else 0 (nothing). */
+  compareWith: number;
+};
+
+/** What a lead needs to review a technique's waiting revision (leads only). */
+export async function getReviewItem(user: SessionUser, slug: string): Promise<ReviewItem> {
+  assertCan(user, "technique:review");
+  const { technique: t, renamedFrom: _renamed } = await requireVisibleTechnique(user, slug);
+  const db = getDb();
+  const rows = await db.select().from(revisions).where(eq(revisions.techniqueId, t.id)).orderBy(desc(revisions.number));
+  const latest = rows.find((r) => r.id === t.latestRevisionId) ?? rows[0]!;
+  const approved = rows.find((r) => r.id === t.approvedRevisionId) ?? null;
+  const sentBack = rows.find((r) => r.number < latest.number && r.state === "returned");
+  const names = await people([latest.authorId, latest.reviewedById]);
+  return {
+    slug: t.slug,
+    title: latest.title,
+    pending: toRevisionSummary(latest, names),
+    isWaiting: latest.state === "in_review",
+    approvedRevision: approved?.number ?? null,
+    compareWith: approved?.number ?? sentBack?.number ?? 0,
+  };
+}
+
 export async function countReviewQueue(user: SessionUser): Promise<number> {
   if (!can(user, "technique:review")) return 0;
   const [row] = await getDb()
@@ -279,4 +310,17 @@ export async function getRevisionsByNumber(user: SessionUser, slug: string, numb
     if (!r) throw new AppError("not_found", `No revision ${n} of this technique.`);
     return r;
   });
+}
+
+/** The current department method of each of these problem tags (by tag slug), as readers know it. */
+export async function listDepartmentMethods(tagSlugs: string[]): Promise<Record<string, { slug: string; title: string }>> {
+  if (!tagSlugs.length) return {};
+  const rows = await getDb()
+    .select({ tag: tags.slug, slug: techniques.slug, title: revisions.title })
+    .from(houseMethods)
+    .innerJoin(tags, eq(tags.id, houseMethods.tagId))
+    .innerJoin(techniques, eq(techniques.id, houseMethods.techniqueId))
+    .innerJoin(revisions, eq(revisions.id, techniques.approvedRevisionId))
+    .where(inArray(tags.slug, tagSlugs));
+  return Object.fromEntries(rows.map((r) => [r.tag, { slug: r.slug, title: r.title }]));
 }

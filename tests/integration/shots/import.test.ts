@@ -139,7 +139,7 @@ describe("POST /api/shows/{code}/shots", () => {
     );
     const body = (await res.json()) as ImportShotsResponse;
     expect(body).toMatchObject({ created: 0, updated: 1, unchanged: 1 });
-    expect(body.errors).toEqual([{ row: 3, code: "LTH_010_0010", message: expect.stringMatching(/does not match the shot pattern/) }]);
+    expect(body.errors).toEqual([{ row: 3, code: "LTH_010_0010", message: expect.stringMatching(/^LTH_010_0010 is not a shot code of SLM: they look like SLM_040_0120/) }]);
     const stored = await rowsOf("SLM");
     expect(stored.find((r) => r.code === "SLM_040_0130")).toMatchObject({ description: "wire rig and shadow", frame_start: 1001, state: "in_prep" });
   });
