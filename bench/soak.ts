@@ -101,7 +101,7 @@ try {
   };
   writeResultsKey("soak", result);
   console.log(`\nSoak: ${CONNECTIONS} connections × ${DURATION} s (load average at start ${loadavgAtStart.map((x) => x.toFixed(1)).join(" ")})`);
-  console.table([{ requests: result.requests, "req/s": result.requestsPerSec, p95: result.p95, errors: r.errors + r.timeouts, non2xx: r.non2xx, ...result.memoryMB }]);
+  console.table([{ requests: result.requests, "req/s": result.requestsPerSec, p95: result.p95, errors: r.errors, non2xx: r.non2xx, ...result.memoryMB }]);
   console.table(result.slopeMBPerMinute);
   console.log(`Memory: ${verdict} (load average at end ${result.machine.loadavgAtEnd.map((x) => x.toFixed(1)).join(" ")})`);
 } finally {

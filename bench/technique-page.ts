@@ -62,7 +62,7 @@ try {
     non2xx: r.non2xx,
     // Less dependent on other sessions than req/s: what one render costs the server in CPU.
     serverCpuMsPerRequest: r.requests.total ? round((serverCpuSeconds * 1000) / r.requests.total) : null,
-    metTarget: r.requests.average >= TARGET_RPS && r.errors + r.timeouts + r.non2xx === 0,
+    metTarget: r.requests.average >= TARGET_RPS && r.errors + r.non2xx === 0, // autocannon counts time-outs among errors
     notes: [
       "Every request carries the page cache's render header: a full server render (session, layout, page, all sections), never the cached copy.",
       "The load generator shares the machine's 2 cores with the server and with other sessions: read the numbers beside the load averages.",
@@ -70,7 +70,7 @@ try {
   };
   writeResultsKey("techniquePage", result);
   console.log(`\nTechnique page, rendered every request: ${CONNECTIONS} connections × ${DURATION} s (load average ${loadavgAtStart.map((x) => x.toFixed(1)).join(" ")} → ${loadavgAtEnd.map((x) => x.toFixed(1)).join(" ")})`);
-  console.table([{ "req/s": result.requestsPerSec, p50: result.p50, p95: result.p95, p99: result.p99, errors: r.errors + r.timeouts, non2xx: r.non2xx, "server CPU ms/req": result.serverCpuMsPerRequest, [`≥ ${TARGET_RPS} req/s`]: result.metTarget ? "met" : "NOT met" }]);
+  console.table([{ "req/s": result.requestsPerSec, p50: result.p50, p95: result.p95, p99: result.p99, errors: r.errors, non2xx: r.non2xx, "server CPU ms/req": result.serverCpuMsPerRequest, [`≥ ${TARGET_RPS} req/s`]: result.metTarget ? "met" : "NOT met" }]);
 } finally {
   await app.stop();
   if (PROFILE) console.log(`CPU profile(s) in ${profileDir}`);
