@@ -5,8 +5,10 @@
  * memory), a search whose words change every request (past the search memo) and a still
  * preview. The server's resident memory (its process tree, /proc) is sampled every 5 s; the
  * result is the memory slope after warm-up, as a whole and per third, in MB per minute.
- * "Levels off" means the last third's slope is near zero while the first third's may still
- * climb. Run: npx tsx -C react-server bench/soak.ts. Writes the key "soak" of bench/results.json.
+ * "Levels off" means the last third's slope is near zero (≤ 1 MB/min) or the last third never
+ * goes above the earlier peak, while the first third's may still climb; the result says which.
+ * Run alone: `npm run bench -- soak` (SOAK_DURATION=120 for a short try) or
+ * npx tsx -C react-server bench/soak.ts. Writes the key "soak" of bench/results.json.
  */
 import os from "node:os";
 import autocannon from "autocannon";
@@ -19,7 +21,8 @@ import { DEMO_PASSWORD, startApp } from "@/tests/e2e/harness";
 const DURATION = Number(process.env.SOAK_DURATION ?? 600);
 const CONNECTIONS = Number(process.env.SOAK_CONNECTIONS ?? 50);
 const WARM_UP_S = Math.min(60, Math.round(DURATION / 10));
-const SAMPLE_MS = 5000;
+const SAMPLE_MS = Number(process.env.SOAK_SAMPLE_MS ?? 5000);
+const LEVEL_MB_PER_MIN = 1;
 const TECHNIQUE = "marker-channel-cleanup";
 const WORDS = ["marker", "markrs", "tracking", "wire", "rig", "dust", "grain", "sky", "screen", "uneven", "blue", "green", "crosses", "dots", "reflection", "boom"];
 
@@ -62,6 +65,18 @@ try {
   const steady = memory.filter(([t]) => t >= WARM_UP_S);
   const third = Math.floor(steady.length / 3);
   const mb = (b: number) => Math.round(b / (1024 * 1024));
+  const slopes = {
+    afterWarmUp: slopeMbPerMinute(steady),
+    firstThird: slopeMbPerMinute(steady.slice(0, third)),
+    middleThird: slopeMbPerMinute(steady.slice(third, 2 * third)),
+    lastThird: slopeMbPerMinute(steady.slice(2 * third)),
+  };
+  // Levelled off: over the last third the fitted growth is below LEVEL_MB_PER_MIN, or the last
+  // third never rises above the highest sample before it (a sawtooth of the garbage collector).
+  const peakBefore = Math.max(...steady.slice(0, 2 * third).map(([, b]) => b));
+  const lastThirdMax = Math.max(...steady.slice(2 * third).map(([, b]) => b));
+  const levelledOff = steady.length >= 6 && (slopes.lastThird <= LEVEL_MB_PER_MIN || lastThirdMax <= peakBefore);
+  const verdict = steady.length < 6 ? "too short to tell (fewer than 6 samples after warm-up)" : levelledOff ? "levelled off" : "still rising";
   const result = {
     measuredAt: new Date().toISOString(),
     machine: { cpus: os.cpus().length, node: process.version, loadavgAtStart, loadavgAtEnd: os.loadavg() },
@@ -74,12 +89,10 @@ try {
     timeouts: r.timeouts,
     non2xx: r.non2xx,
     memoryMB: { start: mb(memory[0]![1]), afterWarmUp: mb(steady[0]?.[1] ?? 0), end: mb(memory.at(-1)![1]), max: mb(Math.max(...memory.map(([, b]) => b))) },
-    slopeMBPerMinute: {
-      afterWarmUp: slopeMbPerMinute(steady),
-      firstThird: slopeMbPerMinute(steady.slice(0, third)),
-      middleThird: slopeMbPerMinute(steady.slice(third, 2 * third)),
-      lastThird: slopeMbPerMinute(steady.slice(2 * third)),
-    },
+    slopeMBPerMinute: slopes,
+    verdict,
+    levelledOff,
+    levelledOffRule: `last third's slope ≤ ${LEVEL_MB_PER_MIN} MB/min, or no sample in the last third above the highest before it`,
     samples: memory.map(([t, b]) => [Math.round(t), mb(b)]),
     notes: [
       "Resident memory of the server's process tree from /proc, every 5 s; slopes are least-squares fits (simple-statistics linearRegression) in MB per minute.",
@@ -88,8 +101,9 @@ try {
   };
   writeResultsKey("soak", result);
   console.log(`\nSoak: ${CONNECTIONS} connections × ${DURATION} s (load average at start ${loadavgAtStart.map((x) => x.toFixed(1)).join(" ")})`);
-  console.table([{ requests: result.requests, "req/s": result.requestsPerSec, p95: result.p95, errors: r.errors + r.timeouts, non2xx: r.non2xx, ...result.memoryMB }]);
+  console.table([{ requests: result.requests, "req/s": result.requestsPerSec, p95: result.p95, errors: r.errors, non2xx: r.non2xx, ...result.memoryMB }]);
   console.table(result.slopeMBPerMinute);
+  console.log(`Memory: ${verdict} (load average at end ${result.machine.loadavgAtEnd.map((x) => x.toFixed(1)).join(" ")})`);
 } finally {
   await app.stop();
 }

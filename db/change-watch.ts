@@ -24,7 +24,9 @@ export function changeGeneration(): number | null {
   if (!client) return null;
   let watch = holder.__plateroomChangeWatch;
   if (!watch || watch.client !== client) {
-    const fresh: Watch = { client, listening: false, generation: 0 };
+    // Numbers keep rising across a new database handle (tests install several), so nothing
+    // remembered under the old handle's numbers can match the new one's.
+    const fresh: Watch = { client, listening: false, generation: (watch?.generation ?? 0) + 1 };
     holder.__plateroomChangeWatch = watch = fresh;
     client.listen(CHANNEL, () => void fresh.generation++).then(
       () => void (fresh.listening = true),

@@ -1,7 +1,8 @@
 /*
  * `npm run bench`: the still lab, search, load, oversized-body, password-reset timing and soak
  * benchmarks in turn, each in its own process (so one's heap, worker threads and server do not
- * weigh on the next), then one summary from bench/results.json. `npm run bench -- --quick` passes
+ * weigh on the next), then one summary from bench/results.json. Names after `--` run only those
+ * steps: `npm run bench -- technique-page` (the uncached technique-page row alone). `npm run bench -- --quick` passes
  * --quick to lab and search, runs the load targets for 10 s with 20 connections, 40 reset pairs
  * and a 60 s soak; LOAD_DURATION / LOAD_CONNECTIONS, RESET_PAIRS, SOAK_DURATION / SOAK_CONNECTIONS override.
  */
@@ -13,12 +14,15 @@ import { RESULTS_PATH } from "@/bench/lib/results";
 const root = process.cwd();
 const tsx = path.join(root, "node_modules", ".bin", "tsx");
 const quick = process.argv.includes("--quick");
+// `npm run bench -- technique-page soak`: only the named steps (each also runs alone with tsx).
+const only = process.argv.slice(2).filter((a) => !a.startsWith("--"));
 
 // Every script runs with the react-server condition, as `npm run bench` itself does: lib modules
 // import "server-only", which resolves to an empty module only under it.
 const steps: { name: string; script: string; args: string[]; env?: Record<string, string> }[] = [
   { name: "lab", script: "bench/lab.ts", args: quick ? ["--quick"] : [] },
   { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
+  { name: "technique-page", script: "bench/technique-page.ts", args: [], env: quick ? { PAGE_DURATION: process.env.PAGE_DURATION ?? "10" } : {} },
   { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
   { name: "bodies", script: "bench/bodies.ts", args: [] },
   { name: "reset-timing", script: "bench/reset-timing.ts", args: [], env: quick ? { RESET_PAIRS: process.env.RESET_PAIRS ?? "40" } : {} },
@@ -28,8 +32,10 @@ const steps: { name: string; script: string; args: string[]; env?: Record<string
 // A child inherits the -C react-server of `npm run bench`'s tsx only through NODE_OPTIONS, which
 // is cleared so each script runs exactly as it does on its own.
 const { NODE_OPTIONS: _nodeOptions, ...baseEnv } = process.env;
+const unknown = only.filter((name) => !steps.some((step) => step.name === name));
+if (unknown.length) throw new Error(`No benchmark named ${unknown.join(", ")}; there are: ${steps.map((step) => step.name).join(", ")}`);
 const outcomes: { name: string; status: number | null; seconds: number }[] = [];
-for (const step of steps) {
+for (const step of steps.filter((st) => !only.length || only.includes(st.name))) {
   console.log(`\n=== ${step.name}: tsx -C react-server ${step.script} ${step.args.join(" ")}`);
   const started = Date.now();
   const r = spawnSync(tsx, ["-C", "react-server", step.script, ...step.args], { cwd: root, stdio: "inherit", env: { ...baseEnv, ...step.env } });
@@ -62,6 +68,13 @@ if (search) {
   if (targets) console.log("Search targets:", targets);
 }
 
+const page = results.techniquePage;
+if (page) {
+  const la = (k: string) => ((get(page, "machine", k) ?? []) as number[]).map((x) => x.toFixed(1)).join(" ");
+  console.log(`Technique page rendered every request (${fmt(get(page, "settings", "connections"), 0)} connections × ${fmt(get(page, "settings", "durationSeconds"), 0)} s; load average ${la("loadavgAtStart")} → ${la("loadavgAtEnd")})`);
+  console.table([{ "req/s": page.requestsPerSec, "p50 ms": page.p50, "p95 ms": page.p95, errors: page.errors, "of which time-outs": page.timeouts, non2xx: page.non2xx, "≥ 100 req/s": page.metTarget ? "met" : "not met" }]);
+}
+
 const load = results.load;
 if (load) {
   const targets = (get(load, "targets") ?? {}) as Record<string, Json>;
@@ -91,6 +104,7 @@ const soak = results.soak;
 if (soak) {
   console.log(`Soak (${fmt(get(soak, "settings", "connections"), 0)} connections × ${fmt(get(soak, "settings", "durationSeconds"), 0)} s): memory MB`, get(soak, "memoryMB"));
   console.log("Memory slope, MB per minute:", get(soak, "slopeMBPerMinute"));
+  console.log(`Verdict: ${fmt(get(soak, "verdict"))}; load average ${fmt(get(soak, "machine", "loadavgAtStart"))} → ${fmt(get(soak, "machine", "loadavgAtEnd"))}`);
 }
 
 process.exitCode = outcomes.every((o) => o.status === 0) ? 0 : 1;

@@ -11,13 +11,13 @@ import { UserMenu } from "@/components/shell/user-menu";
 import { can } from "@/lib/auth/permissions";
 import { currentUser } from "@/lib/auth/session";
 import { THEME_COOKIE } from "@/lib/theme";
-import { countReviewQueue } from "@/lib/techniques/queries";
+import { reviewQueueCountForShell } from "@/lib/techniques/page-data";
 
 export default async function AppLayout({ children }: { children: ReactNode }) {
   const user = await currentUser();
   if (!user) redirect("/login");
   const items = NAV_ITEMS.filter((item) => can(user, item.permission));
-  const reviewCount = can(user, "technique:review") ? await countReviewQueue(user) : 0;
+  const reviewCount = can(user, "technique:review") ? await reviewQueueCountForShell(user) : 0;
   const theme = (await cookies()).get(THEME_COOKIE)?.value === "light" ? "light" : "dark";
   return (
     <div className="min-h-screen">

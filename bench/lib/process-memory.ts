@@ -36,3 +36,30 @@ export function slopeMbPerMinute(samples: readonly (readonly [number, number])[]
   const { m } = linearRegression(samples.map(([t, bytes]) => [t / 60, bytes / (1024 * 1024)]));
   return Math.round(m * 100) / 100;
 }
+
+/** CPU time (user + system, seconds) a process and its descendants have used so far, from /proc (Linux). */
+export function treeCpuSeconds(rootPid: number): number {
+  const ticks = 100; // USER_HZ, 100 on every Linux this runs on (getconf CLK_TCK)
+  const children = new Map<number, number[]>();
+  const own = new Map<number, number>();
+  for (const entry of fs.readdirSync("/proc")) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const fields = fs.readFileSync(`/proc/${entry}/stat`, "utf8");
+      const after = fields.slice(fields.lastIndexOf(")") + 2).split(" ");
+      // After the command: state(3) ppid(4) … utime(14) stime(15), counted from field 3.
+      children.set(Number(after[1]), [...(children.get(Number(after[1])) ?? []), Number(entry)]);
+      own.set(Number(entry), (Number(after[11]) + Number(after[12])) / ticks);
+    } catch {
+      // The process ended while we looked.
+    }
+  }
+  let total = 0;
+  const stack = [rootPid];
+  while (stack.length) {
+    const pid = stack.pop()!;
+    total += own.get(pid) ?? 0;
+    stack.push(...(children.get(pid) ?? []));
+  }
+  return total;
+}

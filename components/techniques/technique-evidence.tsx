@@ -2,12 +2,12 @@ import { Card, CardTitle } from "@/components/ui/card";
 import { EvidencePanel } from "@/components/techniques/evidence-panel";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { listPairsForTechnique, listStillsForTechnique } from "@/lib/stills/queries";
+import { pairsForPage, stillsForPage } from "@/lib/techniques/page-data";
 import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
 /** Before/after pairs and the lab: the evidence that the method works. */
 export async function TechniqueEvidence({ user, technique }: { user: SessionUser; technique: TechniqueResponse }) {
-  const [pairs, stills] = await Promise.all([listPairsForTechnique(user, technique.id), listStillsForTechnique(user, technique.id)]);
+  const [pairs, stills] = await Promise.all([pairsForPage(user, technique.id), stillsForPage(user, technique.id)]);
   return (
     <Card aria-labelledby="evidence-title">
       <CardTitle>

@@ -1,16 +1,15 @@
-import { TechniqueLab } from "@/components/lab/technique-lab";
-import { TechniqueLabWithApply } from "@/components/lab/technique-lab-apply";
+import { TechniqueLabLoader, TechniqueLabWithApplyLoader } from "@/components/techniques/technique-lab-loader";
 import { RecipeCards } from "@/components/techniques/recipe-cards";
 import { Card, CardTitle } from "@/components/ui/card";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { listPairsForTechnique, listStillsForTechnique } from "@/lib/stills/queries";
+import { pairsForPage, stillsForPage } from "@/lib/techniques/page-data";
 import type { StillResponse } from "@/lib/stills/schemas";
 import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
 /** The recipe as readable cards, and the lab where anyone can run it on the page's stills or their own. */
 export async function TechniqueLabSection({ user, technique }: { user: SessionUser; technique: TechniqueResponse }) {
-  const [all, pairs] = await Promise.all([listStillsForTechnique(user, technique.id), listPairsForTechnique(user, technique.id)]);
+  const [all, pairs] = await Promise.all([stillsForPage(user, technique.id), pairsForPage(user, technique.id)]);
   // The lab opens on the first one: the before still of the first pair, then other before stills, then the rest.
   const pairBefore = pairs.map((p) => p.before.id);
   const rank = (s: StillResponse) => (pairBefore.includes(s.id) ? pairBefore.indexOf(s.id) : s.role === "before" ? pairBefore.length : pairBefore.length + 1);
@@ -27,7 +26,7 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
           <h3 className="mb-2 font-semibold">Try it</h3>
           {/* Editors get "Apply to recipe" (a new revision); everyone else tries matrices on a working copy. */}
           {can(user, "technique:write") && !technique.retiredAt ? (
-            <TechniqueLabWithApply
+            <TechniqueLabWithApplyLoader
               stills={labStills}
               technique={{
                 slug: technique.slug,
@@ -42,7 +41,7 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
               }}
             />
           ) : (
-            <TechniqueLab slug={technique.slug} recipe={technique.recipe} stills={labStills} canEditRecipe={false} />
+            <TechniqueLabLoader slug={technique.slug} recipe={technique.recipe} stills={labStills} canEditRecipe={false} />
           )}
         </div>
       ) : null}

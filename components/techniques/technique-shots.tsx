@@ -4,12 +4,12 @@ import { UsesTable } from "@/components/shots/uses-table";
 import { LogUseForm } from "@/components/shots/log-use-form";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { listTechniqueUses } from "@/lib/uses/queries";
+import { usesForPage } from "@/lib/techniques/page-data";
 import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
 /** Where the technique was used and how it went: outcome counts, the shot table, and logging a use. */
 export async function TechniqueShots({ user, technique }: { user: SessionUser; technique: TechniqueResponse }) {
-  const uses = await listTechniqueUses(user, technique.slug, { limit: 500 });
+  const uses = await usesForPage(user, technique.slug);
   return (
     <Card aria-labelledby="shots-title">
       <CardTitle>

@@ -5,8 +5,8 @@ import { cookies, headers } from "next/headers";
 import { AppError } from "@/lib/api/errors";
 import { authSecret } from "@/lib/auth/secret";
 import type { SessionUser } from "@/lib/auth/roles";
-import { changeGeneration } from "@/db/change-watch";
 import { findActiveUserAndChangeStamp, findUserByApiToken } from "@/lib/people/queries";
+import { rememberedUntilChange } from "@/lib/remembered-reads";
 
 const SESSION_COOKIE_NAMES = ["__Secure-authjs.session-token", "authjs.session-token"] as const;
 
@@ -39,21 +39,6 @@ async function sessionFromCookies(cookieValue: (name: string) => string | undefi
   const claims = await sessionClaims(cookieValue);
   if (!claims) return null;
   return rememberedUntilChange(`session:${claims.sub}:${claims.sv}`, 10 * 60_000, () => findActiveUserAndChangeStamp(claims.sub, claims.sv));
-}
-
-type Remembered = { generation: number; at: number; value: unknown };
-const rememberedReads = new LRUCache<string, Remembered>({ max: 10_000 });
-
-/** What `read` gives for `key`, remembered until the next committed change or maxAgeMs. */
-async function rememberedUntilChange<T>(key: string, maxAgeMs: number, read: () => Promise<T>): Promise<T> {
-  // Taken before reading: a change committed during the read makes the result stale at once.
-  const generation = changeGeneration();
-  if (generation === null) return read();
-  const seen = rememberedReads.get(key);
-  if (seen && seen.generation === generation && Date.now() - seen.at < maxAgeMs) return seen.value as T;
-  const value = await read();
-  rememberedReads.set(key, { generation, at: Date.now(), value });
-  return value;
 }
 
 type SessionClaims = { sub: string; sv: number; exp: number };

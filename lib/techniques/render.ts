@@ -244,6 +244,10 @@ class Renderer {
   }
 }
 
+// A technique page read from lib/remembered-reads hands the same body object to every render
+// until the next change, so its HTML is made once per object (the object is never mutated).
+const renderedBodies = new WeakMap<object, { html: string; outline: OutlineHeading[] }>();
+
 /**
  * HTML for a technique body (normally a validated TechniqueDocument; anything else renders to
  * what survives the allow-list, possibly ""). Safe to pass to dangerouslySetInnerHTML.
@@ -252,10 +256,14 @@ export function renderDocumentToHtml(doc: unknown): string {
   return renderDocument(doc).html;
 }
 
-/** The HTML and its headings (with the ids the HTML gives them), for in-page contents. */
+/** The HTML and its headings (with the ids the HTML gives them), for in-page contents; made once per body object. */
 export function renderDocument(doc: unknown): { html: string; outline: OutlineHeading[] } {
   if (!isRecord(doc) || doc.type !== "doc") return { html: "", outline: [] };
+  const seen = renderedBodies.get(doc);
+  if (seen !== undefined) return seen;
   const renderer = new Renderer();
   const html = renderer.blocks(childrenOf(doc), 1);
-  return { html, outline: renderer.outline };
+  const rendered = { html, outline: renderer.outline };
+  renderedBodies.set(doc, rendered);
+  return rendered;
 }

@@ -139,7 +139,7 @@ async function waitFor(url: string, child: ChildProcess, log: () => string, time
 export type RunningApp = { baseUrl: string; dataDir: string; uploadsDir: string; inboxDir: string; smtpPort: number; pid: number; stop(): Promise<void> };
 
 /** Starts a fresh copy of the seeded app; each test file gets its own. `env` adds or overrides variables. */
-export async function startApp(options: { env?: Record<string, string> } = {}): Promise<RunningApp> {
+export async function startApp(options: { env?: Record<string, string>; nodeArgs?: string[] } = {}): Promise<RunningApp> {
   ensureBuild();
   const { work, dataDir, uploadsDir } = copySeededData();
   const inboxDir = path.join(dataDir, "mail-inbox");
@@ -157,7 +157,10 @@ export async function startApp(options: { env?: Record<string, string> } = {}): 
   });
   let output = "";
   const smtp = spawn(bin("tsx"), ["-C", "react-server", "scripts/fake-smtp.ts", "--port", String(smtpPort), "--dir", inboxDir], { cwd: root, env });
-  const app = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env });
+  // nodeArgs (benchmarks: --cpu-prof, which NODE_OPTIONS refuses) go to the node running `next start`.
+  const app = options.nodeArgs?.length
+    ? spawn(process.execPath, [...options.nodeArgs, bin("next"), "start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env })
+    : spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env });
   for (const child of [smtp, app]) {
     child.stdout?.on("data", (d: Buffer) => (output += d.toString()));
     child.stderr?.on("data", (d: Buffer) => (output += d.toString()));

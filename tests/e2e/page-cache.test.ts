@@ -75,6 +75,40 @@ describe.skipIf(!hasChromium())("cached technique pages", () => {
     expect(after.html).toContain("Tracker dots on screens");
   });
 
+  // Before the test that disables the demo artist.
+  it("renders uncached with remembered reads: a write shows on the next render, and a reader still gets 404 for a draft", async () => {
+    const base = running.app.baseUrl;
+    const render = async (path: string, cookie: string) => {
+      const res = await fetch(`${base}${path}`, { headers: { cookie, ...NAVIGATION, "x-plateroom-render": "1" }, redirect: "manual" });
+      return { status: res.status, html: await res.text(), cache: res.headers.get("x-plateroom-page-cache") };
+    };
+    const seniorCookie = await signInCookie(base, "senior@kestrel.test", DEMO_PASSWORD);
+    const artistCookie = await signInCookie(base, "artist@kestrel.test", DEMO_PASSWORD);
+    const senior = apiClient(base, await createApiToken(base, "senior@kestrel.test", DEMO_PASSWORD, "render test"));
+    const doc = (text: string) => ({ type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text }] }] });
+    const created = await senior.json<{ slug: string }>("POST", "/api/techniques", { title: "Rig shadow paint-out", summary: "First summary of the draft.", body: doc("Draft steps.") });
+    expect(created.status).toBe(201);
+    const path = `/techniques/${created.body.slug}`;
+
+    for (let i = 0; i < 2; i++) {
+      const page = await render(path, seniorCookie);
+      expect(page.status).toBe(200);
+      expect(page.cache).toBeNull();
+      expect(page.html).toContain("First summary of the draft.");
+    }
+    // An artist reads approved techniques only (PRODUCT.md roles): the senior's remembered read is not theirs.
+    const refused = await render(path, artistCookie);
+    expect(refused.status).toBe(404);
+    expect(refused.html).not.toContain("First summary of the draft.");
+
+    const edited = await senior.json("PUT", `/api/techniques/${created.body.slug}`, { title: "Rig shadow paint-out", summary: "Second summary, after an edit.", body: doc("Draft steps."), baseRevision: 1, changeNote: "Clearer summary." });
+    expect(edited.status).toBe(200);
+    const after = await render(path, seniorCookie);
+    expect(after.html).toContain("Second summary, after an edit.");
+    expect(after.html).not.toContain("First summary of the draft.");
+    expect((await render(path, artistCookie)).status).toBe(404);
+  });
+
   it("keeps one copy per person, and a disabled person is sent to sign in", async () => {
     const senior = await signInCookie(running.app.baseUrl, "senior@kestrel.test", DEMO_PASSWORD);
     const artist = await signInCookie(running.app.baseUrl, "artist@kestrel.test", DEMO_PASSWORD);

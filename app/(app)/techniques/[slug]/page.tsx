@@ -13,7 +13,7 @@ import { TechniqueLabSection } from "@/components/techniques/technique-lab-secti
 import { SubscribeButton } from "@/components/subscriptions/subscribe-button";
 import { loadOrNotFound } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
-import { getTechnique } from "@/lib/techniques/queries";
+import { techniqueForPage } from "@/lib/techniques/page-data";
 import { renderDocument } from "@/lib/techniques/render";
 
 type Props = { params: Promise<{ slug: string }> };
@@ -25,7 +25,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 export default async function TechniquePage({ params }: Props) {
   const user = await requireUser();
   const { slug } = await params;
-  const t = await loadOrNotFound(() => getTechnique(user, slug));
+  const t = await loadOrNotFound(() => techniqueForPage(user, slug));
   if (t.renamedFrom) redirect(`/techniques/${t.slug}`);
   const body = renderDocument(t.body);
   return (

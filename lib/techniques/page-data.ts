@@ -1,0 +1,26 @@
+import "server-only";
+import type { SessionUser } from "@/lib/auth/roles";
+import { rememberedPerViewer } from "@/lib/remembered-reads";
+import { listPairsForTechnique, listStillsForTechnique } from "@/lib/stills/queries";
+import { countReviewQueue, getTechnique } from "@/lib/techniques/queries";
+import { listTechniqueUses } from "@/lib/uses/queries";
+
+/*
+ * What a technique page and the signed-in shell read, remembered per viewer until the next
+ * committed change to anything pages show (lib/remembered-reads.ts). The same functions answer
+ * the API uncached. Each one still runs its permission checks on the first read for a viewer,
+ * and what it refused (a draft, a private trial) is never remembered: a refusal throws.
+ */
+
+/** The technique as this person may see it; 404 (thrown, not remembered) when they may not. */
+export const techniqueForPage = rememberedPerViewer("technique", getTechnique);
+
+/** The before/after pairs and the stills of the technique this person may see. */
+export const pairsForPage = rememberedPerViewer("pairs", listPairsForTechnique);
+export const stillsForPage = rememberedPerViewer("stills", listStillsForTechnique);
+
+/** The shot table's first page (as many rows as the page shows) and the outcome counts. */
+export const usesForPage = rememberedPerViewer("uses", (viewer: SessionUser, slug: string) => listTechniqueUses(viewer, slug, { limit: 500 }));
+
+/** The review queue's size for the navigation badge. */
+export const reviewQueueCountForShell = rememberedPerViewer("review-queue", countReviewQueue);
