@@ -2,7 +2,10 @@ import "server-only";
 import fs from "node:fs/promises";
 import sharp, { type Metadata } from "sharp";
 import { AppError } from "@/lib/api/errors";
-import type { StillFormat } from "@/lib/stills/schemas";
+import { spaceOfChromaticities, type LinearSpace } from "@/lib/colour/spaces";
+import { isExr } from "@/lib/exr/header";
+import { decodeExrUpload, toExrInfo } from "@/lib/stills/exr";
+import type { StillExrInfo, StillFormat } from "@/lib/stills/schemas";
 
 /** Decompression-bomb guard: a small file may declare a huge image (OWASP File Upload Cheat Sheet). */
 export const PIXEL_LIMIT = 100_000_000;
@@ -15,8 +18,11 @@ export type StillFacts = {
   bitDepth: 8 | 16 | 32;
   /** 1 grey, 2 grey+alpha, 3 RGB, 4 RGBA. */
   channels: 1 | 2 | 3 | 4;
-  /** libvips interpretation, e.g. srgb, rgb16, b-w, grey16, scrgb. */
+  /** libvips interpretation, e.g. srgb, rgb16, b-w, grey16, scrgb; "exr" for OpenEXR. */
   space: string;
+  pixelAspectRatio: number;
+  /** OpenEXR: layout and layer; and the linear space its chromaticities name (null: none of ours). */
+  exr?: StillExrInfo & { chromaticitySpace: LinearSpace | null };
 };
 
 const ALLOWED_SPACES: Record<string, "grey" | "rgb"> = {
@@ -30,7 +36,7 @@ const ALLOWED_SPACES: Record<string, "grey" | "rgb"> = {
 
 const DEPTH_BITS: Record<string, 8 | 16 | 32> = { uchar: 8, ushort: 16, float: 32 };
 
-const ALLOWED_LIST = "PNG, JPEG, TIFF or WebP";
+const ALLOWED_LIST = "PNG, JPEG, TIFF, WebP or OpenEXR";
 
 /**
  * The format the first bytes say, before any decoder sees them. Anything else (SVG, HTML,
@@ -46,6 +52,7 @@ export function sniffFormat(head: Uint8Array): StillFormat | null {
   if (at(0) === 0x4d && at(1) === 0x4d && at(2) === 0 && (at(3) === 0x2a || at(3) === 0x2b)) return "tiff";
   const ascii = (from: number, to: number) => String.fromCharCode(...Array.from(head.subarray(from, to)));
   if (head.length >= 12 && ascii(0, 4) === "RIFF" && ascii(8, 12) === "WEBP") return "webp";
+  if (isExr(head)) return "exr";
   return null;
 }
 
@@ -84,12 +91,14 @@ function decodeFailure(error: unknown): AppError {
  * and decodes every pixel once so truncated or corrupt files are refused now rather than
  * at first view. Throws AppError 400 (empty, damaged), 413 (too many pixels) or 415 (type).
  */
-export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
+export async function inspectStill(file: string | Buffer, options: { layer?: string; sha256?: string; root?: string } = {}): Promise<StillFacts> {
   if ((await sizeOf(file)) === 0) {
     throw new AppError("validation_failed", "The file is empty.", { fields: { file: "The file is empty." } });
   }
   const sniffed = sniffFormat(await readHead(file));
   if (!sniffed) throw new AppError("unsupported_type", `This is not a ${ALLOWED_LIST} image. Plateroom checks the file's content, not its name.`);
+  if (sniffed === "exr") return inspectExrStill(file, options);
+  if (options.layer) throw new AppError("validation_failed", "Only OpenEXR files have layers to choose from.", { fields: { layer: "Leave empty for this file." } });
 
   let meta: Metadata;
   try {
@@ -125,5 +134,22 @@ export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
   } catch (error) {
     throw decodeFailure(error);
   }
-  return { format: sniffed, width, height, bitDepth, channels: channels as StillFacts["channels"], space: meta.space ?? "srgb" };
+  return { format: sniffed, width, height, bitDepth, channels: channels as StillFacts["channels"], space: meta.space ?? "srgb", pixelAspectRatio: 1 };
+}
+
+/** OpenEXR: the header, layout and every chunk checked, then every sample of the chosen layer decoded. */
+async function inspectExrStill(file: string | Buffer, options: { layer?: string; sha256?: string; root?: string }): Promise<StillFacts> {
+  const bytes = Buffer.isBuffer(file) ? file : await fs.readFile(file);
+  const decoded = decodeExrUpload(bytes, { layer: options.layer, sha256: options.sha256, root: options.root, maxPixels: PIXEL_LIMIT });
+  const { info } = decoded;
+  return {
+    format: "exr",
+    width: decoded.width,
+    height: decoded.height,
+    bitDepth: info.pixelType === "half" ? 16 : 32,
+    channels: decoded.channels,
+    space: "exr",
+    pixelAspectRatio: info.pixelAspectRatio,
+    exr: { ...toExrInfo(decoded), chromaticitySpace: spaceOfChromaticities(info.chromaticities) },
+  };
 }

@@ -20,7 +20,10 @@ import {
   type StillPairResponse,
   type StillRole,
 } from "@/lib/stills/schemas";
-import { ensureDerived, removeStored, storeOriginal } from "@/lib/stills/storage";
+import { defaultColourSpace } from "@/lib/stills/colour-default";
+import { cleanExrUpload } from "@/lib/stills/exr";
+import { ensureDerived } from "@/lib/stills/display";
+import { removeStored, storeOriginal } from "@/lib/stills/storage";
 
 export type CreateStillInput = {
   /** A received upload: temp file path, its sha256 and size. createStill consumes the file. */
@@ -33,6 +36,10 @@ export type CreateStillInput = {
   role?: StillRole;
   /** Default: "technique" when a technique is named, else "trial". */
   owner?: StillOwner;
+  /** Declared colour space, or "auto"/absent for the format's default. */
+  colourSpace?: string;
+  /** OpenEXR: the layer to show. */
+  layer?: string;
 };
 
 /**
@@ -59,6 +66,7 @@ function withHashLock<T>(sha: string, work: () => Promise<T>): Promise<T> {
  * written; on any failure the temp file is gone and no row or unreferenced file remains.
  */
 export async function createStill(user: SessionUser, input: CreateStillInput, options: { root?: string } = {}): Promise<StillCreatedResponse> {
+  let received = input.file;
   try {
     const fields = parseWith(stillFieldsSchema, {
       alt: input.alt,
@@ -67,6 +75,8 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
       technique: input.technique,
       role: input.role,
       owner: input.owner,
+      colourSpace: input.colourSpace,
+      layer: input.layer,
     });
     const owner: StillOwner = fields.owner ?? (fields.technique ? "technique" : "trial");
     assertCan(user, owner === "technique" ? "still:upload" : "still:upload-trial");
@@ -74,25 +84,32 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
       throw new AppError("validation_failed", "Name the technique this still belongs to.", { fields: { technique: "Required for technique stills." } });
     }
     const technique = fields.technique ? (await requireVisibleTechnique(user, fields.technique)).technique : null;
-    const facts = await inspectStill(input.file.path);
+    // Identifying header attributes leave an OpenEXR before it is checked, hashed and stored.
+    const file = (received = await cleanExrUpload(input.file, options.root));
+    const facts = await inspectStill(file.path, { layer: fields.layer, sha256: file.sha256, root: options.root });
+    const colourSpace = fields.colourSpace ?? defaultColourSpace(facts);
+    const exr = facts.exr ? (({ chromaticitySpace: _, ...info }) => info)(facts.exr) : null;
 
-    return await withHashLock(input.file.sha256, async () => {
-      await storeOriginal(input.file.path, input.file.sha256, options.root);
+    return await withHashLock(file.sha256, async () => {
+      await storeOriginal(file.path, file.sha256, options.root);
       let row: Still;
       try {
-        await ensureDerived(input.file.sha256, options.root);
+        await ensureDerived({ sha256: file.sha256, format: facts.format, bitDepth: facts.bitDepth, colourSpace, exr }, options.root);
         row = await getDb().transaction(async (tx) => {
           const [inserted] = await tx
             .insert(stills)
             .values({
-              sha256: input.file.sha256,
+              sha256: file.sha256,
               width: facts.width,
               height: facts.height,
               format: facts.format,
               bitDepth: facts.bitDepth,
               channels: facts.channels,
-              sizeBytes: input.file.size,
-              originalName: input.file.originalName ?? "",
+              colourSpace,
+              pixelAspectRatio: facts.pixelAspectRatio,
+              exr,
+              sizeBytes: file.size,
+              originalName: file.originalName ?? "",
               uploaderId: user.id,
               alt: fields.alt,
               caption: fields.caption ?? "",
@@ -108,14 +125,14 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
             action: "still.upload",
             targetType: "still",
             targetId: inserted.id,
-            detail: { owner, techniqueId: technique?.id ?? null, sha256: input.file.sha256, sizeBytes: input.file.size },
+            detail: { owner, techniqueId: technique?.id ?? null, sha256: file.sha256, sizeBytes: file.size, colourSpace },
           });
           return inserted;
         });
       } catch (error) {
         // Leave no file behind that no row points at; a shared file stays for its other rows.
-        const inUse = await referencedHashes([input.file.sha256]).catch(() => new Set([input.file.sha256]));
-        if (!inUse.has(input.file.sha256)) await removeStored(input.file.sha256, options.root);
+        const inUse = await referencedHashes([file.sha256]).catch(() => new Set([file.sha256]));
+        if (!inUse.has(file.sha256)) await removeStored(file.sha256, options.root);
         throw error;
       }
       return {
@@ -126,10 +143,14 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
         bitDepth: row.bitDepth,
         sha256: row.sha256,
         channels: row.channels,
+        colourSpace: row.colourSpace,
+        pixelAspectRatio: row.pixelAspectRatio,
+        exr: row.exr ?? null,
       };
     });
   } finally {
     await fs.rm(input.file.path, { force: true });
+    if (received !== input.file) await fs.rm(received.path, { force: true });
   }
 }
 

@@ -13,6 +13,9 @@ import type { StillVariant } from "@/lib/stills/schemas";
  *   originals/ab/<sha256>.bin   the uploaded bytes, exactly
  *   previews/ab/<sha256>.webp   longest side ≤ 2048, metadata stripped
  *   thumbs/ab/<sha256>.webp     longest side ≤ 400, metadata stripped
+ *   displays/ab/<sha256>.png    full resolution, 8-bit, for stills a browser cannot show as stored
+ *   derived files of a still shown through the display transform carry a look:
+ *   <sha256>.<look>.webp|png, the look naming its colour space and layer (lib/stills/display.ts)
  *   tmp/                        uploads being received (same filesystem, so rename is atomic)
  * Every function takes the root as a parameter (tests use a temporary folder).
  */
@@ -33,12 +36,18 @@ function assertSha(sha: string): void {
   if (!SHA_RE.test(sha)) throw new Error("Not a sha256 hex digest.");
 }
 
-export function variantPath(sha: string, variant: StillVariant, root?: string): string {
+const LOOK_RE = /^[a-z0-9-]{1,80}$/;
+const DERIVED_FOLDERS = { preview: "previews", thumb: "thumbs", display: "displays" } as const;
+
+/** `look`: empty for stills shown as stored; otherwise a short name of how they are shown. */
+export function variantPath(sha: string, variant: StillVariant, root?: string, look = ""): string {
   assertSha(sha);
+  if (look && !LOOK_RE.test(look)) throw new Error("Not a look name.");
   const base = uploadsRoot(root);
   const shard = sha.slice(0, 2);
   if (variant === "original") return path.join(base, "originals", shard, `${sha}.bin`);
-  return path.join(base, variant === "preview" ? "previews" : "thumbs", shard, `${sha}.webp`);
+  const name = look ? `${sha}.${look}` : sha;
+  return path.join(base, DERIVED_FOLDERS[variant], shard, `${name}.${variant === "display" ? "png" : "webp"}`);
 }
 
 export function incomingDir(root?: string): string {
@@ -142,9 +151,14 @@ export async function ensureDerived(sha: string, root?: string): Promise<void> {
   }
 }
 
-/** Removes the original and derived files of one hash (callers first check no row refers to it). */
+/** Removes the original and derived files (every look) of one hash (callers first check no row refers to it). */
 export async function removeStored(sha: string, root?: string): Promise<void> {
-  await Promise.all((["original", "preview", "thumb"] as const).map((v) => fs.rm(variantPath(sha, v, root), { force: true })));
+  await fs.rm(variantPath(sha, "original", root), { force: true });
+  for (const variant of ["preview", "thumb", "display"] as const) {
+    const dir = path.dirname(variantPath(sha, variant, root));
+    const names = (await listDir(dir)).filter((n) => n.startsWith(`${sha}.`));
+    await Promise.all(names.map((n) => fs.rm(path.join(dir, n), { force: true })));
+  }
 }
 
 export type SweepResult = { removed: string[]; kept: number };
@@ -165,13 +179,13 @@ export async function sweepOrphans(options: {
   const base = uploadsRoot(options.root);
   const cutoff = (options.now ?? Date.now()) - (options.graceMs ?? SWEEP_GRACE_MS);
   const files: { file: string; sha: string | null; mtime: number }[] = [];
-  for (const folder of ["originals", "previews", "thumbs"]) {
+  for (const folder of ["originals", "previews", "thumbs", "displays"]) {
     for (const shard of await listDir(path.join(base, folder))) {
       for (const name of await listDir(path.join(base, folder, shard))) {
         const file = path.join(base, folder, shard, name);
         const stat = await fs.stat(file).catch(() => null);
         if (!stat?.isFile()) continue;
-        const match = /^([0-9a-f]{64})\.(bin|webp)$/.exec(name);
+        const match = /^([0-9a-f]{64})(?:\.[a-z0-9-]{1,80})?\.(bin|webp|png)$/.exec(name);
         files.push({ file, sha: match?.[1] ?? null, mtime: stat.mtimeMs });
       }
     }

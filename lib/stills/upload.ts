@@ -13,7 +13,7 @@ import { newIncomingPath } from "@/lib/stills/storage";
 
 /** Room for the text fields and part headers around the file in a multipart body. */
 const FORM_OVERHEAD = 64 * 1024;
-const TEXT_FIELDS = ["alt", "caption", "credit", "technique", "role", "owner"] as const;
+const TEXT_FIELDS = ["alt", "caption", "credit", "technique", "role", "owner", "colourSpace", "layer"] as const;
 
 export type ReceivedFile = { path: string; sha256: string; size: number; originalName: string };
 export type ReceivedUpload = { file: ReceivedFile; fields: Record<string, string> };

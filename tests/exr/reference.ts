@@ -28,7 +28,7 @@ export const TOOLS = {
 } as const;
 
 export function missingTools(): string[] {
-  const missing = Object.values(TOOLS).filter((t) => !fs.existsSync(t));
+  const missing: string[] = Object.values(TOOLS).filter((t) => !fs.existsSync(t));
   if (!missing.length) {
     try {
       execFileSync(TOOLS.python3, ["-c", "import numpy"], { stdio: "ignore" });

@@ -23,6 +23,9 @@ function still(id: string, alt: string, role: StillResponse["role"]): StillRespo
     owner: "technique",
     techniqueId: null,
     uploaderId: null,
+    colourSpace: "srgb",
+    pixelAspectRatio: 1,
+    exr: null,
     sizeBytes: 1000,
     createdAt: "2026-01-01T00:00:00.000Z",
   };

@@ -1,0 +1,107 @@
+import "server-only";
+import crypto from "node:crypto";
+import fs from "node:fs/promises";
+import { LRUCache } from "lru-cache";
+import { AppError } from "@/lib/api/errors";
+import { decodeExr, type DecodedExr } from "@/lib/exr/decode";
+import { ExrFormatError, isExr } from "@/lib/exr/header";
+import { cleanExrHeader } from "@/lib/exr/rewrite";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
+import type { StillExrInfo } from "@/lib/stills/schemas";
+import { newIncomingPath, variantPath } from "@/lib/stills/storage";
+
+/*
+ * OpenEXR stills: decoding an upload or a stored original with its chosen layer, the errors
+ * in the API's words, and a byte-capped cache of decoded samples (the pixel probe and the
+ * display renders read the same still again and again).
+ */
+
+const cache = new LRUCache<string, DecodedExr>({
+  maxSize: MEMORY_BUDGET.decodedExr,
+  sizeCalculation: (d) => Math.max(1, d.data.byteLength),
+});
+
+function cacheKey(root: string | undefined, sha: string, layer: string | null | undefined): string {
+  return `${root ?? ""}:${sha}:${layer ?? ""}`;
+}
+
+/** ExrFormatError → the API's 400 / 413 / 415. */
+export function exrError(error: unknown): unknown {
+  if (!(error instanceof ExrFormatError)) return error;
+  if (error.problem === "too_large") return new AppError("too_large", error.message, { cause: error });
+  if (error.problem === "unsupported") return new AppError("unsupported_type", error.message, { cause: error });
+  return new AppError("validation_failed", `The OpenEXR file is damaged or incomplete: ${error.message}`, { cause: error, fields: { file: error.message } });
+}
+
+export function toExrInfo(d: DecodedExr): StillExrInfo {
+  const { compression, tiled, parts, dataWindow, displayWindow, layers, layer, pixelType } = d.info;
+  return { compression, tiled, parts, dataWindow, displayWindow, layers, layer, pixelType };
+}
+
+/**
+ * Decodes every sample of an uploaded OpenEXR file (so a damaged file is refused now, not at
+ * first view) and keeps the result for the derived images about to be made from it.
+ */
+export function decodeExrUpload(bytes: Uint8Array, options: { sha256?: string; layer?: string; maxPixels: number; root?: string }): DecodedExr {
+  let decoded: DecodedExr;
+  try {
+    decoded = decodeExr(bytes, { layer: options.layer, maxPixels: options.maxPixels });
+  } catch (error) {
+    throw exrError(error);
+  }
+  if (options.sha256) cache.set(cacheKey(options.root, options.sha256, decoded.info.layer), decoded);
+  return decoded;
+}
+
+/** The decoded samples of a stored OpenEXR still (its chosen layer), from the cache or the file. */
+export async function readExrStill(still: { sha256: string; exr: { layer: string } | null }, options: { maxPixels: number; root?: string }): Promise<DecodedExr> {
+  const layer = still.exr?.layer ?? null;
+  const key = cacheKey(options.root, still.sha256, layer);
+  const hit = cache.get(key);
+  if (hit) return hit;
+  let bytes: Buffer;
+  try {
+    bytes = await fs.readFile(variantPath(still.sha256, "original", options.root));
+  } catch (cause) {
+    throw new AppError("not_found", "The file of this still is missing.", { cause });
+  }
+  try {
+    const decoded = decodeExr(bytes, { layer, maxPixels: options.maxPixels });
+    cache.set(key, decoded);
+    return decoded;
+  } catch (error) {
+    throw exrError(error);
+  }
+}
+
+type ReceivedFile = { path: string; sha256: string; size: number; originalName?: string };
+
+/**
+ * An uploaded OpenEXR file with identifying attributes dropped from its header (owner,
+ * comments, capture place and time, camera serial numbers, programs' own attributes; the
+ * colour description stays: lib/exr/rewrite.ts KEPT_ATTRIBUTES). Pixels are untouched. Other
+ * files come back as they are. The cleaned copy is a new temp file with its own hash; the
+ * received one is removed.
+ */
+export async function cleanExrUpload(file: ReceivedFile, root?: string): Promise<ReceivedFile> {
+  const head = Buffer.alloc(4);
+  const fh = await fs.open(file.path, "r");
+  try {
+    await fh.read(head, 0, 4, 0);
+  } finally {
+    await fh.close();
+  }
+  if (!isExr(head)) return file;
+  const bytes = await fs.readFile(file.path);
+  let cleaned: Uint8Array;
+  try {
+    cleaned = cleanExrHeader(bytes);
+  } catch (error) {
+    throw exrError(error);
+  }
+  if (cleaned.length === bytes.length && Buffer.compare(Buffer.from(cleaned), bytes) === 0) return file;
+  const target = await newIncomingPath(root);
+  await fs.writeFile(target, cleaned, { flag: "wx", mode: 0o600 });
+  await fs.rm(file.path, { force: true });
+  return { ...file, path: target, size: cleaned.length, sha256: crypto.createHash("sha256").update(cleaned).digest("hex") };
+}
