@@ -3,7 +3,7 @@ import { apiRoute, parseJson } from "@/lib/api/handler";
 import { assertCan } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
 import { boxMean } from "@/lib/lab/analysis";
-import { mapLabError, originalBytes, readableStill, withAnalysisSlot } from "@/app/api/lab/_lib/lab-server";
+import { labColour, mapLabError, originalBytes, readableStill, withAnalysisSlot } from "@/app/api/lab/_lib/lab-server";
 import { runToFloat } from "@/app/api/lab/_lib/float-run";
 import { labSampleRequestSchema, type LabSampleResponse } from "@/app/api/lab/_lib/schemas";
 
@@ -23,7 +23,8 @@ export const POST = apiRoute(async (req) => {
   if (Object.keys(fields).length) throw new AppError("validation_failed", Object.entries(fields).map(([k, v]) => `${k}: ${v}`)[0], { fields });
   const bytes = await originalBytes(still);
   const noLoader = async (): Promise<Uint8Array> => new Uint8Array();
-  const { before } = await withAnalysisSlot(() => runToFloat({ still: bytes, steps: [], space: input.space, loadStill: noLoader }).catch(mapLabError));
+  const { space, colour } = labColour(still, input.space, input.workingSpace);
+  const { before } = await withAnalysisSlot(() => runToFloat({ still: bytes, steps: [], space, colour, loadStill: noLoader }).catch(mapLabError));
   const samples: [number, number, number][] = [];
   const pixels: number[] = [];
   for (const b of input.boxes) {
