@@ -79,12 +79,7 @@ export function inspectExr(bytes: Uint8Array, options: Omit<ExrReadOptions, "ban
   const layer = options.layer ? layers.find((l) => l.id === options.layer) : defaultLayer(layers);
   if (!layer) throw new ExrFormatError("damaged", options.layer ? `The file has no layer “${options.layer}”.` : "The file has no channels to show.");
   const part = header.parts[layer.part]!;
-  for (const window of [part.dataWindow, part.displayWindow]) {
-    const { width, height } = windowSize(window);
-    if (width * height > options.maxPixels) {
-      throw new ExrFormatError("too_large", `The image is ${width}×${height} pixels, more than the ${Math.round(options.maxPixels / 1e6)} megapixels Plateroom accepts.`);
-    }
-  }
+  checkPixelLimit(header, options.maxPixels);
   checkDecodable(part, layer);
   const types = new Set(layer.pixelTypes);
   return {
@@ -104,6 +99,18 @@ export function inspectExr(bytes: Uint8Array, options: Omit<ExrReadOptions, "ban
       chromaticities: part.chromaticities,
     },
   };
+}
+
+/** Refuses a file any of whose windows holds more pixels than `maxPixels` (before anything is allocated for it). */
+export function checkPixelLimit(header: ExrHeader, maxPixels: number): void {
+  for (const part of header.parts) {
+    for (const window of [part.dataWindow, part.displayWindow]) {
+      const { width, height } = windowSize(window);
+      if (width * height > maxPixels) {
+        throw new ExrFormatError("too_large", `The image is ${width}×${height} pixels, more than the ${Math.round(maxPixels / 1e6)} megapixels Plateroom accepts.`);
+      }
+    }
+  }
 }
 
 /** The reader's limits, said in words before it is asked (each would give wrong pixels or fail). */

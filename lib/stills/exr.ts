@@ -3,8 +3,8 @@ import crypto from "node:crypto";
 import fs from "node:fs/promises";
 import { LRUCache } from "lru-cache";
 import { AppError } from "@/lib/api/errors";
-import { decodeExr, type DecodedExr } from "@/lib/exr/decode";
-import { ExrFormatError, isExr } from "@/lib/exr/header";
+import { checkPixelLimit, decodeExr, type DecodedExr } from "@/lib/exr/decode";
+import { ExrFormatError, isExr, parseExrHeader } from "@/lib/exr/header";
 import { cleanExrHeader } from "@/lib/exr/rewrite";
 import { MEMORY_BUDGET } from "@/lib/memory/budget";
 import type { StillExrInfo } from "@/lib/stills/schemas";
@@ -83,7 +83,7 @@ type ReceivedFile = { path: string; sha256: string; size: number; originalName?:
  * files come back as they are. The cleaned copy is a new temp file with its own hash; the
  * received one is removed.
  */
-export async function cleanExrUpload(file: ReceivedFile, root?: string): Promise<ReceivedFile> {
+export async function cleanExrUpload(file: ReceivedFile, options: { maxPixels: number; root?: string }): Promise<ReceivedFile> {
   const head = Buffer.alloc(4);
   const fh = await fs.open(file.path, "r");
   try {
@@ -95,12 +95,14 @@ export async function cleanExrUpload(file: ReceivedFile, root?: string): Promise
   const bytes = await fs.readFile(file.path);
   let cleaned: Uint8Array;
   try {
+    // Absurd sizes are refused as too large before the rest of the layout is read.
+    checkPixelLimit(parseExrHeader(bytes), options.maxPixels);
     cleaned = cleanExrHeader(bytes);
   } catch (error) {
     throw exrError(error);
   }
   if (cleaned.length === bytes.length && Buffer.compare(Buffer.from(cleaned), bytes) === 0) return file;
-  const target = await newIncomingPath(root);
+  const target = await newIncomingPath(options.root);
   await fs.writeFile(target, cleaned, { flag: "wx", mode: 0o600 });
   await fs.rm(file.path, { force: true });
   return { ...file, path: target, size: cleaned.length, sha256: crypto.createHash("sha256").update(cleaned).digest("hex") };

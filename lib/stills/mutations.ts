@@ -9,7 +9,7 @@ import { writeAudit } from "@/lib/audit/log";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { requireVisibleTechnique } from "@/lib/techniques/queries";
-import { inspectStill } from "@/lib/stills/inspect";
+import { inspectStill, PIXEL_LIMIT } from "@/lib/stills/inspect";
 import { getStillForRead, referencedHashes, toStillResponse } from "@/lib/stills/queries";
 import {
   createPairSchema,
@@ -85,7 +85,7 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
     }
     const technique = fields.technique ? (await requireVisibleTechnique(user, fields.technique)).technique : null;
     // Identifying header attributes leave an OpenEXR before it is checked, hashed and stored.
-    const file = (received = await cleanExrUpload(input.file, options.root));
+    const file = (received = await cleanExrUpload(input.file, { maxPixels: PIXEL_LIMIT, root: options.root }));
     const facts = await inspectStill(file.path, { layer: fields.layer, sha256: file.sha256, root: options.root });
     const colourSpace = fields.colourSpace ?? defaultColourSpace(facts);
     const exr = facts.exr ? (({ chromaticitySpace: _, ...info }) => info)(facts.exr) : null;

@@ -165,9 +165,15 @@ export function referenceDecode(file: string, part = 0): RefImage {
         }
       }
     }
+    // One numpy call for every half channel.
+    const halves = header.channels.filter((c) => c.type === "half");
+    const all = new Uint16Array(halves.length * width * height);
+    halves.forEach((c, k) => all.set(bits.get(c.name) as Uint16Array, k * width * height));
+    const floats = halves.length ? halfToFloat32(all) : new Float32Array(0);
     for (const c of header.channels) {
       const b = bits.get(c.name)!;
-      if (c.type === "half") channels.set(c.name, halfToFloat32(b as Uint16Array));
+      const k = halves.indexOf(c);
+      if (k >= 0) channels.set(c.name, floats.slice(k * width * height, (k + 1) * width * height));
       else if (c.type === "float") channels.set(c.name, new Float32Array(b.buffer.slice(0)));
       else channels.set(c.name, Float32Array.from(b as Uint32Array));
     }
