@@ -10,7 +10,7 @@ import type { TechniqueResponse } from "@/lib/techniques/schemas";
 /** The recipe as readable cards, and the lab where anyone can run it on the page's stills or their own. */
 export async function TechniqueLabSection({ user, technique }: { user: SessionUser; technique: TechniqueResponse }) {
   const stills = (await listStillsForTechnique(user, technique.id)).filter((s) => s.role !== "after");
-  const labStills = stills.map((s) => ({ id: s.id, alt: s.alt, width: s.width, height: s.height, bitDepth: s.bitDepth }));
+  const labStills = stills.map((s) => ({ id: s.id, alt: s.alt, width: s.width, height: s.height, bitDepth: s.bitDepth, colourSpace: s.colourSpace, format: s.format }));
   return (
     <Card aria-labelledby="parameters-title">
       <CardTitle>

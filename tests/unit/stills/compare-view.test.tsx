@@ -105,3 +105,55 @@ describe("compare modes", () => {
     expect(matrix.slice(0, 3)).toEqual([0.2126, 0.7152, 0.0722]);
   });
 });
+
+describe("zoom, display and full screen", () => {
+  const button = (text: string) => [...host.querySelectorAll("button")].find((b) => b.textContent === text)!;
+
+  it("200 % and up draw each image pixel as a block of screen pixels (nearest neighbour), twice the 100 % size", () => {
+    act(() => button("100 %").click());
+    const at100 = host.querySelector<HTMLElement>("img")!.parentElement!.style.width;
+    act(() => button("200 %").click());
+    const img = host.querySelector<HTMLImageElement>("img")!;
+    // CSS Images Level 3 §5.4: image-rendering: pixelated scales with nearest neighbour.
+    expect(img.style.imageRendering).toBe("pixelated");
+    expect(parseFloat(img.parentElement!.style.width)).toBe(2 * parseFloat(at100));
+    expect(img.getAttribute("src")).toBe("/api/stills/b/original");
+  });
+
+  it("exposure and the out-of-range view change the image the server renders; the original stays untouched", () => {
+    act(() => button("Values outside 0–1").click());
+    expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/preview?view=range");
+    const up = host.querySelector<HTMLButtonElement>('[aria-label="Exposure up 0.5 stop"]')!;
+    act(() => up.click());
+    act(() => up.click());
+    expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/preview?exposure=1&view=range");
+    act(() => button("100 %").click());
+    expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/display?exposure=1&view=range");
+  });
+
+  it("the full-screen button asks the browser to show the compare view full screen, and leaves again", () => {
+    act(() => root.unmount());
+    Object.defineProperty(document, "fullscreenEnabled", { value: true, configurable: true });
+    let requested: Element | null = null;
+    HTMLElement.prototype.requestFullscreen = function (this: HTMLElement) {
+      requested = this;
+      return Promise.resolve();
+    };
+    root = createRoot(host);
+    act(() => root.render(<CompareView before={still("b", "Screen with markers", "before")} after={still("a", "Screen after marker removal", "after")} />));
+    const full = button("Full screen");
+    expect(full.getAttribute("aria-pressed")).toBe("false");
+    act(() => full.click());
+    expect(requested).toBe(host.querySelector("figure"));
+  });
+});
+
+describe("stills a browser cannot show as stored", () => {
+  it("OpenEXR at 100 % loads the full-size display image, not the original", () => {
+    const exr: StillResponse = { ...still("e", "Linear plate", "before"), format: "exr", bitDepth: 16, colourSpace: "acescg" };
+    act(() => root.render(<CompareView before={exr} after={{ ...exr, id: "f" }} />));
+    act(() => [...host.querySelectorAll("button")].find((b) => b.textContent === "100 %")!.click());
+    expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/e/display");
+    expect(host.textContent).toContain("ACEScg (linear, AP1)");
+  });
+});
