@@ -1,6 +1,6 @@
 "use client";
 
-import { useRef, useSyncExternalStore, type KeyboardEvent, type PointerEvent, type RefObject } from "react";
+import { useRef, useState, useSyncExternalStore, type KeyboardEvent, type PointerEvent, type RefObject } from "react";
 import type { CompareZoom } from "@/components/stills/compare-toolbar";
 import { DEFAULT_DISPLAY, displayQuery, type DisplayOptions } from "@/lib/colour/display";
 import type { ProbePoint } from "@/lib/stills/probe";
@@ -107,6 +107,9 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
     }
   }
 
+  // Until every layer has loaded its current source, say so (exposure and range renders take a moment).
+  const [loaded, setLoaded] = useState<Record<string, string>>({});
+  const loading = layers.some((l) => loaded[l.label] !== undefined && loaded[l.label] !== sourceFor(l.still, zoom, display));
   const actual = zoom !== "fit";
   const stageHeight = tall ? "calc(100vh - 9rem)" : "70vh";
   // At zoom z each image pixel covers z device pixels; CSS pixels are device pixels / dpr.
@@ -140,6 +143,7 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
           <img
             key={layer.still.id + layer.label}
             src={sourceFor(layer.still, zoom, display)}
+            onLoad={(e) => setLoaded((l) => ({ ...l, [layer.label]: e.currentTarget.getAttribute("src") ?? "" }))}
             alt={`${layer.label}: ${layer.still.alt}`}
             draggable={false}
             className="absolute inset-0 h-full w-full"
@@ -151,6 +155,11 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
           />
         ))}
         <span className="pointer-events-none absolute left-2 top-2 rounded bg-surface/80 px-1.5 py-0.5 text-xs">{layers[0]!.label}</span>
+        {loading ? (
+          <span role="status" className="pointer-events-none absolute bottom-2 left-2 rounded bg-surface/80 px-1.5 py-0.5 text-xs">
+            Rendering…
+          </span>
+        ) : null}
         {layers[1] ? <span className="pointer-events-none absolute right-2 top-2 rounded bg-surface/80 px-1.5 py-0.5 text-xs">{layers[1].label}</span> : null}
         {probe ? (
           <span

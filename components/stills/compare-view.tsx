@@ -8,6 +8,7 @@ import { DisplayControls } from "@/components/stills/display-controls";
 import { PixelProbe } from "@/components/stills/pixel-probe";
 import { StillFacts } from "@/components/stills/still-facts";
 import { useFullscreen } from "@/components/stills/use-fullscreen";
+import { useDebouncedValue } from "@/components/search/use-debounced-value";
 import { DEFAULT_DISPLAY, type DisplayOptions } from "@/lib/colour/display";
 import type { ChannelView } from "@/lib/stills/luminance";
 import type { ProbePoint } from "@/lib/stills/probe";
@@ -44,9 +45,19 @@ export function CompareView({ before, after, caption, initialMode = "divider", c
   const right = useRef<HTMLDivElement | null>(null);
   const filter = channelFilterCss(idPrefix, view);
 
-  const shared = { zoom, filter, probe, onProbe: setProbe, display, tall: fullscreen.active };
+  // Each exposure or view change is a server render: ask for the one people settle on.
+  const shownDisplay = useDebouncedValue(display, 350);
+
+  const shared = { zoom, filter, probe, onProbe: setProbe, display: shownDisplay, tall: fullscreen.active };
   return (
-    <figure ref={figure} className={cn("space-y-3", fullscreen.active && "overflow-auto bg-surface p-4", className)}>
+    <figure
+      ref={figure}
+      className={cn("space-y-3", fullscreen.active && "overflow-auto bg-surface p-4", className)}
+      onKeyDown={(e) => {
+        // Browsers leave full screen on Escape themselves; this covers those that hand the key to the page.
+        if (e.key === "Escape" && fullscreen.active) fullscreen.toggle();
+      }}
+    >
       <ChannelFilters idPrefix={idPrefix} />
       <CompareToolbar
         mode={mode}

@@ -42,7 +42,7 @@ export function DisplayControls({ value, onChange }: { value: DisplayOptions; on
           Reset
         </button>
       ) : null}
-      <button type="button" aria-pressed={value.view === "range"} className={cn(small, value.view === "range" && "bg-accent text-accent-ink")} onClick={() => onChange({ ...value, view: value.view === "range" ? "image" : "range" })}>
+      <button type="button" aria-pressed={value.view === "range"} className={cn(small, value.view === "range" && "bg-accent text-accent-ink hover:bg-accent hover:brightness-110")} onClick={() => onChange({ ...value, view: value.view === "range" ? "image" : "range" })}>
         Values outside 0–1
       </button>
       {value.view === "range" ? (

@@ -1,6 +1,6 @@
 import "server-only";
 import { DataTexture, FloatType, HalfFloatType, RGBAFormat } from "three";
-import { EXRExporter, NO_COMPRESSION, ZIP_COMPRESSION } from "three/examples/jsm/exporters/EXRExporter.js";
+import { EXRExporter, NO_COMPRESSION, PIZ_COMPRESSION, ZIP_COMPRESSION } from "three/examples/jsm/exporters/EXRExporter.js";
 import type { Chromaticities } from "@/lib/exr/header";
 import { rewriteAttributes } from "@/lib/exr/rewrite";
 import { attr } from "@/lib/exr/write";
@@ -16,7 +16,8 @@ import { attr } from "@/lib/exr/write";
  * The exporter stores its input's rows bottom-up, so rows are given to it bottom row first.
  */
 
-export type ExrOutput = { pixelType: "half" | "float"; compression: "zip" | "none" };
+/** PIZ is there for benchmarks and tests; the lab offers ZIP or none. */
+export type ExrOutput = { pixelType: "half" | "float"; compression: "zip" | "none" | "piz" };
 
 const f32 = new Float32Array(1);
 const u32 = new Uint32Array(f32.buffer);
@@ -70,7 +71,7 @@ export async function encodeExr(rgb: Float32Array, width: number, height: number
   const texture = new DataTexture(data, width, height, RGBAFormat, half ? HalfFloatType : FloatType);
   const bytes = await new EXRExporter().parse(texture, {
     type: half ? HalfFloatType : FloatType,
-    compression: output.compression === "zip" ? ZIP_COMPRESSION : NO_COMPRESSION,
+    compression: output.compression === "zip" ? ZIP_COMPRESSION : output.compression === "piz" ? PIZ_COMPRESSION : NO_COMPRESSION,
   });
   if (!chromaticities) return bytes;
   return rewriteAttributes(bytes, (_part, attrs) => [...attrs.map((a) => a.bytes), attr.chromaticities(chromaticities)]);

@@ -26,6 +26,7 @@ declare module "three/examples/jsm/exporters/EXRExporter.js" {
   export const NO_COMPRESSION: number;
   export const ZIP_COMPRESSION: number;
   export const ZIPS_COMPRESSION: number;
+  export const PIZ_COMPRESSION: number;
   export class EXRExporter {
     parse(texture: DataTexture, options?: { type?: number; compression?: number }): Promise<Uint8Array>;
   }

@@ -37,7 +37,6 @@ function assertSha(sha: string): void {
 }
 
 const LOOK_RE = /^[a-z0-9-]{1,80}$/;
-const DERIVED_FOLDERS = { preview: "previews", thumb: "thumbs", display: "displays" } as const;
 
 /** `look`: empty for stills shown as stored; otherwise a short name of how they are shown. */
 export function variantPath(sha: string, variant: StillVariant, root?: string, look = ""): string {
@@ -47,7 +46,8 @@ export function variantPath(sha: string, variant: StillVariant, root?: string, l
   const shard = sha.slice(0, 2);
   if (variant === "original") return path.join(base, "originals", shard, `${sha}.bin`);
   const name = look ? `${sha}.${look}` : sha;
-  return path.join(base, DERIVED_FOLDERS[variant], shard, `${name}.${variant === "display" ? "png" : "webp"}`);
+  if (variant === "display") return path.join(base, "displays", shard, `${name}.png`);
+  return path.join(base, variant === "preview" ? "previews" : "thumbs", shard, `${name}.webp`);
 }
 
 export function incomingDir(root?: string): string {

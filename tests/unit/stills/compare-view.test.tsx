@@ -120,12 +120,17 @@ describe("zoom, display and full screen", () => {
     expect(img.getAttribute("src")).toBe("/api/stills/b/original");
   });
 
-  it("exposure and the out-of-range view change the image the server renders; the original stays untouched", () => {
+  it("exposure and the out-of-range view change the image the server renders, once the controls settle", async () => {
+    const settle = () => act(async () => void (await new Promise((r) => setTimeout(r, 400))));
     act(() => button("Values outside 0–1").click());
+    await settle();
     expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/preview?view=range");
     const up = host.querySelector<HTMLButtonElement>('[aria-label="Exposure up 0.5 stop"]')!;
     act(() => up.click());
     act(() => up.click());
+    // Two quick clicks: one render asked for, not two.
+    expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/preview?view=range");
+    await settle();
     expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/preview?exposure=1&view=range");
     act(() => button("100 %").click());
     expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/display?exposure=1&view=range");
