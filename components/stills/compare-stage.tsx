@@ -143,7 +143,11 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
           <img
             key={layer.still.id + layer.label}
             src={sourceFor(layer.still, zoom, display)}
-            onLoad={(e) => setLoaded((l) => ({ ...l, [layer.label]: e.currentTarget.getAttribute("src") ?? "" }))}
+            onLoad={(e) => {
+              // Read now: React clears currentTarget once the handler returns, before the updater runs.
+              const src = e.currentTarget.getAttribute("src") ?? "";
+              setLoaded((l) => ({ ...l, [layer.label]: src }));
+            }}
             alt={`${layer.label}: ${layer.still.alt}`}
             draggable={false}
             className="absolute inset-0 h-full w-full"

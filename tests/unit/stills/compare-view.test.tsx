@@ -136,6 +136,18 @@ describe("zoom, display and full screen", () => {
     expect(host.querySelector("img")!.getAttribute("src")).toBe("/api/stills/b/display?exposure=1&view=range");
   });
 
+  it("says it is rendering from a change of image until the new one has loaded", async () => {
+    const loadAll = () => act(() => host.querySelectorAll("img").forEach((i) => i.dispatchEvent(new Event("load"))));
+    const status = () => [...host.querySelectorAll('[role="status"]')].map((e) => e.textContent);
+    loadAll();
+    expect(status()).not.toContain("Rendering…");
+    act(() => host.querySelector<HTMLButtonElement>('[aria-label="Exposure down 0.5 stop"]')!.click());
+    await act(async () => void (await new Promise((r) => setTimeout(r, 400))));
+    expect(status()).toContain("Rendering…");
+    loadAll();
+    expect(status()).not.toContain("Rendering…");
+  });
+
   it("the full-screen button asks the browser to show the compare view full screen, and leaves again", () => {
     act(() => root.unmount());
     Object.defineProperty(document, "fullscreenEnabled", { value: true, configurable: true });
