@@ -212,3 +212,32 @@ describeWithExrTools("OpenEXR stills through the API match the reference impleme
     }
   });
 });
+
+describeWithExrTools("readStillLinear: a still's pixels as linear float RGB and the space they are in", () => {
+  it("decodes sRGB-encoded stills by IEC 61966-2-1 and returns OpenEXR samples as stored, each with its space", async () => {
+    const { readStillLinear } = await import("@/lib/stills/values");
+    const { getDb } = await import("@/db/client");
+    const { stills } = await import("@/db/schema");
+    const { eq } = await import("drizzle-orm");
+    // Code 128 of 255 is 0.501961 encoded → 0.215861 linear (IEC 61966-2-1 §5.2 decode, computed from the formula).
+    fs.writeFileSync(tmp.file("grey.png"), await sharp({ create: { width: 4, height: 2, channels: 3, background: { r: 128, g: 128, b: 128 } } }).png().toBuffer());
+    const png = await upload(tmp.file("grey.png"));
+    expect(png.status).toBe(201);
+    const [pngRow] = await getDb().select().from(stills).where(eq(stills.id, png.body.id));
+    const linear = await readStillLinear(pngRow!);
+    expect(linear.space).toBe("lin-rec709");
+    expect(linear.data[0]).toBeCloseTo(((128 / 255 + 0.055) / 1.055) ** 2.4, 6);
+
+    const samples = halfPattern(6 * 4, 77);
+    fs.writeFileSync(tmp.file("lin.exr"), rawExr({ channels: [{ name: "Y", type: "half", samples }], dataWindow: [0, 0, 5, 3] }));
+    const exr = await upload(tmp.file("lin.exr"), { colourSpace: "acescg" });
+    expect(exr.status).toBe(201);
+    const [exrRow] = await getDb().select().from(stills).where(eq(stills.id, exr.body.id));
+    const values = await readStillLinear(exrRow!);
+    expect(values.space).toBe("acescg");
+    // A luminance-only file: the one channel in R, G and B, half → float exact (numpy, tests/exr/reference.ts).
+    const { halfToFloat32 } = await import("@/tests/exr/reference");
+    const expected = halfToFloat32(samples);
+    for (let i = 0; i < 24; i++) for (let c = 0; c < 3; c++) expect(values.data[i * 3 + c]).toBe(expected[i]);
+  });
+});
