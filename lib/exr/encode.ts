@@ -46,29 +46,45 @@ export function halfBits(value: number): number {
   return sign | h;
 }
 
+let halfValues: Float32Array | null = null;
+
+/** The float32 value of every binary16 bit pattern (IEEE 754-2008 §3.4), made once. */
+function halfTable(): Float32Array {
+  if (!halfValues) {
+    halfValues = new Float32Array(65536);
+    for (let h = 0; h < 65536; h++) {
+      const e = (h >> 10) & 0x1f, m = h & 0x3ff, sign = h & 0x8000 ? -1 : 1;
+      halfValues[h] = sign * (e === 0 ? m * 2 ** -24 : e === 31 ? (m ? NaN : Infinity) : (1 + m / 1024) * 2 ** (e - 15));
+    }
+  }
+  return halfValues;
+}
+
 /** Interleaved RGB floats (top row first) → an OpenEXR file. `chromaticities`: null for values that are not colour. */
 export async function encodeExr(rgb: Float32Array, width: number, height: number, output: ExrOutput, chromaticities: Chromaticities | null): Promise<Uint8Array> {
   const n = width * height;
   const half = output.pixelType === "half";
-  const data = half ? new Uint16Array(n * 4) : new Float32Array(n * 4);
-  const one = half ? 0x3c00 : 1;
+  // Float input either way: for half output each value is already the nearest half, which the
+  // exporter's own (truncating) conversion then keeps exactly.
+  const data = new Float32Array(n * 4);
+  const table = half ? halfTable() : null;
   for (let y = 0; y < height; y++) {
     const src = y * width * 3, dst = (height - 1 - y) * width * 4;
     for (let x = 0; x < width; x++) {
       const s = src + x * 3, d = dst + x * 4;
-      if (half) {
-        data[d] = halfBits(rgb[s]!);
-        data[d + 1] = halfBits(rgb[s + 1]!);
-        data[d + 2] = halfBits(rgb[s + 2]!);
+      if (table) {
+        data[d] = table[halfBits(rgb[s]!)]!;
+        data[d + 1] = table[halfBits(rgb[s + 1]!)]!;
+        data[d + 2] = table[halfBits(rgb[s + 2]!)]!;
       } else {
         data[d] = rgb[s]!;
         data[d + 1] = rgb[s + 1]!;
         data[d + 2] = rgb[s + 2]!;
       }
-      data[d + 3] = one;
+      data[d + 3] = 1;
     }
   }
-  const texture = new DataTexture(data, width, height, RGBAFormat, half ? HalfFloatType : FloatType);
+  const texture = new DataTexture(data, width, height, RGBAFormat, FloatType);
   const bytes = await new EXRExporter().parse(texture, {
     type: half ? HalfFloatType : FloatType,
     compression: output.compression === "zip" ? ZIP_COMPRESSION : output.compression === "piz" ? PIZ_COMPRESSION : NO_COMPRESSION,
