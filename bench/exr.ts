@@ -19,7 +19,7 @@ const here = fileURLToPath(import.meta.url);
 const args = process.argv.slice(2);
 const quick = args.includes("--quick");
 
-const { exrPlateFloats } = await import("@/db/seed-data/exr-plate");
+const { exrPlateFloats } = await import("@/scripts/seed/data/exr-plate");
 const { encodeExr } = await import("@/lib/exr/encode");
 const { decodeExr } = await import("@/lib/exr/decode");
 

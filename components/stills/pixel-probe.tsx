@@ -8,7 +8,7 @@ import { COLOUR_SPACE_SHORT } from "@/lib/colour/spaces";
 import { channelLabels, formatFloat, formatSample, pixelAt, pointOf, type ProbePoint } from "@/lib/stills/probe";
 import type { StillResponse } from "@/lib/stills/schemas";
 
-export type PixelProbeProps = {
+type PixelProbeProps = {
   before: StillResponse;
   after: StillResponse;
   /** Where the pointer is, relative to the image (0..1); null before the first move. */

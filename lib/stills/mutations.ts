@@ -22,10 +22,10 @@ import {
 } from "@/lib/stills/schemas";
 import { defaultColourSpace } from "@/lib/stills/colour-default";
 import { cleanExrUpload } from "@/lib/stills/exr";
-import { ensureDerived } from "@/lib/stills/display";
+import { ensureDerived, lookOf } from "@/lib/stills/display";
 import { removeStored, storeOriginal } from "@/lib/stills/storage";
 
-export type CreateStillInput = {
+type CreateStillInput = {
   /** A received upload: temp file path, its sha256 and size. createStill consumes the file. */
   file: { path: string; sha256: string; size: number; originalName?: string };
   alt: string;
@@ -132,7 +132,7 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
       } catch (error) {
         // Leave no file behind that no row points at; a shared file stays for its other rows.
         const inUse = await referencedHashes([file.sha256]).catch(() => new Set([file.sha256]));
-        if (!inUse.has(file.sha256)) await removeStored(file.sha256, options.root);
+        if (!inUse.has(file.sha256)) await removeStored(file.sha256, options.root, lookOf({ format: facts.format, colourSpace, exr }));
         throw error;
       }
       return {

@@ -4,9 +4,9 @@ import { COLOUR_SPACES, type ColourSpace } from "@/lib/colour/spaces";
 
 /** Client-safe shapes of the stills API (shared/API.md, "POST /api/stills"). */
 
-export const STILL_OWNERS = ["technique", "use", "trial"] as const;
+const STILL_OWNERS = ["technique", "use", "trial"] as const;
 export type StillOwner = (typeof STILL_OWNERS)[number];
-export const STILL_ROLES = ["before", "after", "reference"] as const;
+const STILL_ROLES = ["before", "after", "reference"] as const;
 export type StillRole = (typeof STILL_ROLES)[number];
 /** `display`: the full-resolution image through the display transform, for stills a browser cannot show as stored. */
 export const STILL_VARIANTS = ["original", "preview", "thumb", "display"] as const;
@@ -50,7 +50,6 @@ export const stillFieldsSchema = z.object({
   /** OpenEXR only: the layer to show, as listed in `exr.layers` (default: RGB(A) of the default layer). */
   layer: z.string().max(600, "Layer names are shorter than that.").optional().transform((v) => (v ? v : undefined)),
 });
-export type StillFields = z.infer<typeof stillFieldsSchema>;
 
 export const createPairSchema = z
   .object({

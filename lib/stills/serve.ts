@@ -18,13 +18,13 @@ const ORIGINAL_TYPES: Record<string, { type: string; ext: string }> = {
 };
 
 /** Strong validator: the bytes of a variant are fixed by the content hash, the look and the display options. */
-export function stillEtag(sha256: string, variant: StillVariant, look = "", display: DisplayOptions = DEFAULT_DISPLAY): string {
+function stillEtag(sha256: string, variant: StillVariant, look = "", display: DisplayOptions = DEFAULT_DISPLAY): string {
   const shown = display.exposure !== 0 || display.view !== "image" ? `-${display.exposure}-${display.view}` : "";
   return `"${sha256}-${variant}${look ? `-${look}` : ""}${shown}"`;
 }
 
 /** If-None-Match uses the weak comparison (RFC 9110 §13.1.2), so a W/ prefix still matches. */
-export function etagMatches(header: string | null, etag: string): boolean {
+function etagMatches(header: string | null, etag: string): boolean {
   if (!header) return false;
   if (header.trim() === "*") return true;
   return header.split(",").some((t) => t.trim().replace(/^W\//, "") === etag);

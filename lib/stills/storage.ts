@@ -2,15 +2,13 @@ import "server-only";
 import crypto from "node:crypto";
 import fs from "node:fs/promises";
 import path from "node:path";
-import sharp from "sharp";
 import { env } from "@/lib/env";
-import { PIXEL_LIMIT } from "@/lib/stills/inspect";
 import type { StillVariant } from "@/lib/stills/schemas";
 
 /**
  * Content-addressed file store under PLATEROOM_UPLOADS_DIR (outside the web root; OWASP
  * File Upload Cheat Sheet, "rename on store"):
- *   originals/ab/<sha256>.bin   the uploaded bytes, exactly
+ *   originals/ab/<sha256>.bin   the uploaded bytes, exactly (OpenEXR: its identifying header attributes dropped first)
  *   previews/ab/<sha256>.webp   longest side ≤ 2048, metadata stripped
  *   thumbs/ab/<sha256>.webp     longest side ≤ 400, metadata stripped
  *   displays/ab/<sha256>.png    full resolution, 8-bit, for stills a browser cannot show as stored
@@ -22,9 +20,6 @@ import type { StillVariant } from "@/lib/stills/schemas";
 
 export const PREVIEW_MAX = 2048;
 export const THUMB_MAX = 400;
-/** Files younger than this are never swept: an upload may be between its file and its row. */
-export const SWEEP_GRACE_MS = 60 * 60 * 1000;
-
 const SHA_RE = /^[0-9a-f]{64}$/;
 
 export function uploadsRoot(root?: string): string {
@@ -50,7 +45,7 @@ export function variantPath(sha: string, variant: StillVariant, root?: string, l
   return path.join(base, variant === "preview" ? "previews" : "thumbs", shard, `${name}.webp`);
 }
 
-export function incomingDir(root?: string): string {
+function incomingDir(root?: string): string {
   return path.join(uploadsRoot(root), "tmp");
 }
 
@@ -73,7 +68,7 @@ async function fsyncPath(p: string): Promise<void> {
   }
 }
 
-function isCode(error: unknown, ...codes: string[]): boolean {
+export function isCode(error: unknown, ...codes: string[]): boolean {
   return typeof error === "object" && error !== null && codes.includes((error as { code?: string }).code ?? "");
 }
 
@@ -129,91 +124,16 @@ export async function storeOriginal(incoming: string, sha: string, root?: string
   return { created: true };
 }
 
-/**
- * Makes the preview and thumbnail once (skipped when present). sharp writes no metadata
- * unless asked (withMetadata/keepMetadata), so EXIF, XMP and ICC profiles are dropped; the
- * pixels are converted to sRGB for display. Orientation tags are not applied, so preview
- * pixels line up with the stored original the lab and the pixel probe read.
- */
-export async function ensureDerived(sha: string, root?: string): Promise<void> {
-  const original = variantPath(sha, "original", root);
-  for (const [variant, max] of [
-    ["preview", PREVIEW_MAX],
-    ["thumb", THUMB_MAX],
-  ] as const) {
-    const target = variantPath(sha, variant, root);
-    if (await exists(target)) continue;
-    const data = await sharp(original, { limitInputPixels: PIXEL_LIMIT })
-      .resize({ width: max, height: max, fit: "inside", withoutEnlargement: true })
-      .webp({ quality: variant === "thumb" ? 80 : 90 })
-      .toBuffer();
-    await writeFileAtomic(target, data);
-  }
-}
 
-/** Removes the original and derived files (every look) of one hash (callers first check no row refers to it). */
-export async function removeStored(sha: string, root?: string): Promise<void> {
-  await fs.rm(variantPath(sha, "original", root), { force: true });
+/**
+ * Removes the original and derived files of one hash — plain and under `look` (callers first
+ * check no row refers to the hash, so no other look of it can be in use).
+ */
+export async function removeStored(sha: string, root?: string, look = ""): Promise<void> {
+  const files = [variantPath(sha, "original", root)];
   for (const variant of ["preview", "thumb", "display"] as const) {
-    const dir = path.dirname(variantPath(sha, variant, root));
-    const names = (await listDir(dir)).filter((n) => n.startsWith(`${sha}.`));
-    await Promise.all(names.map((n) => fs.rm(path.join(dir, n), { force: true })));
+    files.push(variantPath(sha, variant, root));
+    if (look) files.push(variantPath(sha, variant, root, look));
   }
-}
-
-export type SweepResult = { removed: string[]; kept: number };
-
-/**
- * Deletes stored files whose hash no still row references, and stale temp files, when older
- * than the grace period (an upload in flight has its file before its row). `referenced`
- * gets the hashes found and returns those still in use.
- */
-export async function sweepOrphans(options: {
-  root?: string;
-  referenced: (hashes: string[]) => Promise<Set<string>>;
-  graceMs?: number;
-  now?: number;
-  /** false lists what would go without deleting it. */
-  remove?: boolean;
-}): Promise<SweepResult> {
-  const base = uploadsRoot(options.root);
-  const cutoff = (options.now ?? Date.now()) - (options.graceMs ?? SWEEP_GRACE_MS);
-  const files: { file: string; sha: string | null; mtime: number }[] = [];
-  for (const folder of ["originals", "previews", "thumbs", "displays"]) {
-    for (const shard of await listDir(path.join(base, folder))) {
-      for (const name of await listDir(path.join(base, folder, shard))) {
-        const file = path.join(base, folder, shard, name);
-        const stat = await fs.stat(file).catch(() => null);
-        if (!stat?.isFile()) continue;
-        const match = /^([0-9a-f]{64})(?:\.[a-z0-9-]{1,80})?\.(bin|webp|png)$/.exec(name);
-        files.push({ file, sha: match?.[1] ?? null, mtime: stat.mtimeMs });
-      }
-    }
-  }
-  for (const name of await listDir(path.join(base, "tmp"))) {
-    const file = path.join(base, "tmp", name);
-    const stat = await fs.stat(file).catch(() => null);
-    if (stat?.isFile()) files.push({ file, sha: null, mtime: stat.mtimeMs });
-  }
-  const hashes = [...new Set(files.map((f) => f.sha).filter((s): s is string => s !== null))];
-  const inUse = hashes.length ? await options.referenced(hashes) : new Set<string>();
-  const removed: string[] = [];
-  let kept = 0;
-  for (const f of files) {
-    const orphan = f.sha === null || !inUse.has(f.sha);
-    if (orphan && f.mtime < cutoff) {
-      if (options.remove !== false) await fs.rm(f.file, { force: true });
-      removed.push(path.relative(base, f.file));
-    } else kept++;
-  }
-  return { removed, kept };
-}
-
-async function listDir(dir: string): Promise<string[]> {
-  try {
-    return await fs.readdir(dir);
-  } catch (error) {
-    if (isCode(error, "ENOENT")) return [];
-    throw error;
-  }
+  await Promise.all(files.map((f) => fs.rm(f, { force: true })));
 }

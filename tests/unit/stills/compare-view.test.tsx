@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 import { act } from "react";
 import { createRoot, type Root } from "react-dom/client";
-import { afterEach, beforeEach, describe, expect, it } from "vitest";
+import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { CompareView } from "@/components/stills/compare-view";
 import type { StillResponse } from "@/lib/stills/schemas";
 
@@ -151,17 +151,14 @@ describe("zoom, display and full screen", () => {
   it("the full-screen button asks the browser to show the compare view full screen, and leaves again", () => {
     act(() => root.unmount());
     Object.defineProperty(document, "fullscreenEnabled", { value: true, configurable: true });
-    let requested: Element | null = null;
-    HTMLElement.prototype.requestFullscreen = function (this: HTMLElement) {
-      requested = this;
-      return Promise.resolve();
-    };
+    const request = vi.fn(() => Promise.resolve());
+    HTMLElement.prototype.requestFullscreen = request;
     root = createRoot(host);
     act(() => root.render(<CompareView before={still("b", "Screen with markers", "before")} after={still("a", "Screen after marker removal", "after")} />));
     const full = button("Full screen");
     expect(full.getAttribute("aria-pressed")).toBe("false");
     act(() => full.click());
-    expect(requested).toBe(host.querySelector("figure"));
+    expect(request.mock.contexts[0]).toBe(host.querySelector("figure"));
   });
 });
 
