@@ -16,8 +16,11 @@ export type ExrSourceRecord = {
   dataWindow: { xMin: number; yMin: number; xMax: number; yMax: number };
   displayWindow: { xMin: number; yMin: number; xMax: number; yMax: number };
   layers: { id: string; label: string; kind: string }[];
-  /** Id of the layer shown (lib/exr/layers.ts). */
+  /** Id of the layer shown (lib/exr/layers.ts), and the one shown when the uploader picks none. */
   layer: string;
+  defaultLayer: string;
+  /** The colour space the file itself implies (its chromaticities), whatever was declared. */
+  defaultColourSpace: (typeof colourSpaceEnum.enumValues)[number];
   pixelType: string;
 };
 

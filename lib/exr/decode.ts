@@ -42,6 +42,8 @@ export type ExrInfo = {
   pixelAspectRatio: number;
   layers: { id: string; label: string; kind: ExrLayer["kind"] }[];
   layer: string;
+  /** The layer chosen when none is asked for. */
+  defaultLayer: string;
   /** Sample type of the chosen channels ("mixed" when they differ). */
   pixelType: ExrPixelType | "mixed";
   chromaticities: ExrPart["chromaticities"];
@@ -95,6 +97,7 @@ export function inspectExr(bytes: Uint8Array, options: Omit<ExrReadOptions, "ban
       pixelAspectRatio: part.pixelAspectRatio,
       layers: layers.map((l) => ({ id: l.id, label: l.label, kind: l.kind })),
       layer: layer.id,
+      defaultLayer: defaultLayer(layers)?.id ?? layer.id,
       pixelType: types.size === 1 ? layer.pixelTypes[0]! : "mixed",
       chromaticities: part.chromaticities,
     },

@@ -1,4 +1,4 @@
-import type { ColourSpace, LinearSpace } from "@/lib/colour/spaces";
+import type { ColourSpace } from "@/lib/colour/spaces";
 import type { StillFormat } from "@/lib/stills/schemas";
 
 /**
@@ -7,8 +7,8 @@ import type { StillFormat } from "@/lib/stills/schemas";
  * Rec.709 primaries (the OpenEXR documentation's default). Float TIFF is read as scRGB (linear,
  * sRGB primaries). Everything else — 8/16-bit PNG, JPEG, TIFF, WebP — is sRGB-encoded.
  */
-export function defaultColourSpace(facts: { format: StillFormat; bitDepth: number; exr?: { chromaticitySpace: LinearSpace | null } }): ColourSpace {
-  if (facts.format === "exr") return facts.exr?.chromaticitySpace ?? "lin-rec709";
+export function defaultColourSpace(facts: { format: StillFormat | string; bitDepth: number; exr?: { defaultColourSpace: string } | null }): ColourSpace {
+  if (facts.format === "exr") return (facts.exr?.defaultColourSpace as ColourSpace | undefined) ?? "lin-rec709";
   if (facts.format === "tiff" && facts.bitDepth === 32) return "lin-rec709";
   return "srgb";
 }

@@ -3,6 +3,7 @@ import crypto from "node:crypto";
 import sharp from "sharp";
 import type { Still } from "@/db/schema";
 import { DEFAULT_DISPLAY, displayCodes, type DisplayOptions } from "@/lib/colour/display";
+import { defaultColourSpace } from "@/lib/stills/colour-default";
 import { PIXEL_LIMIT } from "@/lib/stills/inspect";
 import type { StillVariant } from "@/lib/stills/schemas";
 import { exists, PREVIEW_MAX, THUMB_MAX, variantPath, writeFileAtomic } from "@/lib/stills/storage";
@@ -23,15 +24,21 @@ export function browserShowsOriginal(still: Pick<Still, "format" | "colourSpace"
   return still.colourSpace === "srgb" && (still.format === "png" || still.format === "jpeg" || still.format === "webp");
 }
 
-/** The look of a still's derived files: "" for sRGB-encoded non-OpenEXR stills, else space + layer. */
-export function lookOf(still: Pick<Still, "format" | "colourSpace" | "exr">): string {
-  if (still.colourSpace === "srgb" && still.format !== "exr") return "";
+/**
+ * The look of a still's derived files: "" when it is shown as its file implies (the format's
+ * default colour space and, for OpenEXR, the default layer) — so derived files keep plain names —
+ * else the declared space and a hash of the layer, so one original shown two ways has two sets.
+ */
+export function lookOf(still: Pick<Still, "format" | "bitDepth" | "colourSpace" | "exr">): string {
+  const asFileImplies = still.colourSpace === defaultColourSpace(still) && (!still.exr || still.exr.layer === still.exr.defaultLayer);
+  if (asFileImplies) return "";
   const layer = still.exr?.layer ? `-${crypto.createHash("sha256").update(still.exr.layer).digest("hex").slice(0, 10)}` : "";
   return `${still.colourSpace}${layer}`;
 }
 
-function usesTransform(still: Pick<Still, "format" | "colourSpace" | "exr">): boolean {
-  return lookOf(still) !== "";
+/** Stills whose previews go through the display transform (everything but sRGB-encoded PNG/JPEG/TIFF/WebP). */
+function usesTransform(still: Pick<Still, "format" | "colourSpace">): boolean {
+  return still.colourSpace !== "srgb" || still.format === "exr";
 }
 
 const SIZES: Record<Exclude<StillVariant, "original">, number> = { preview: PREVIEW_MAX, thumb: THUMB_MAX, display: 0 };

@@ -6,6 +6,7 @@ import { AppError } from "@/lib/api/errors";
 import { checkPixelLimit, decodeExr, type DecodedExr } from "@/lib/exr/decode";
 import { ExrFormatError, isExr, parseExrHeader } from "@/lib/exr/header";
 import { cleanExrHeader } from "@/lib/exr/rewrite";
+import { spaceOfChromaticities } from "@/lib/colour/spaces";
 import { MEMORY_BUDGET } from "@/lib/memory/budget";
 import type { StillExrInfo } from "@/lib/stills/schemas";
 import { newIncomingPath, variantPath } from "@/lib/stills/storage";
@@ -33,9 +34,11 @@ export function exrError(error: unknown): unknown {
   return new AppError("validation_failed", `The OpenEXR file is damaged or incomplete: ${error.message}`, { cause: error, fields: { file: error.message } });
 }
 
+/** The facts kept about an OpenEXR still; its own colour space is what its chromaticities name (none: Rec.709, the OpenEXR default). */
 export function toExrInfo(d: DecodedExr): StillExrInfo {
-  const { compression, tiled, parts, dataWindow, displayWindow, layers, layer, pixelType } = d.info;
-  return { compression, tiled, parts, dataWindow, displayWindow, layers, layer, pixelType };
+  const { compression, tiled, parts, dataWindow, displayWindow, layers, layer, defaultLayer, pixelType, chromaticities } = d.info;
+  const defaultColourSpace = spaceOfChromaticities(chromaticities) ?? "lin-rec709";
+  return { compression, tiled, parts, dataWindow, displayWindow, layers, layer, defaultLayer, defaultColourSpace, pixelType };
 }
 
 /**

@@ -2,7 +2,6 @@ import "server-only";
 import fs from "node:fs/promises";
 import sharp, { type Metadata } from "sharp";
 import { AppError } from "@/lib/api/errors";
-import { spaceOfChromaticities, type LinearSpace } from "@/lib/colour/spaces";
 import { isExr } from "@/lib/exr/header";
 import { decodeExrUpload, toExrInfo } from "@/lib/stills/exr";
 import type { StillExrInfo, StillFormat } from "@/lib/stills/schemas";
@@ -21,8 +20,8 @@ export type StillFacts = {
   /** libvips interpretation, e.g. srgb, rgb16, b-w, grey16, scrgb; "exr" for OpenEXR. */
   space: string;
   pixelAspectRatio: number;
-  /** OpenEXR: layout and layer; and the linear space its chromaticities name (null: none of ours). */
-  exr?: StillExrInfo & { chromaticitySpace: LinearSpace | null };
+  /** OpenEXR: layout, layers and the colour space its chromaticities name. */
+  exr?: StillExrInfo;
 };
 
 const ALLOWED_SPACES: Record<string, "grey" | "rgb"> = {
@@ -150,6 +149,6 @@ async function inspectExrStill(file: string | Buffer, options: { layer?: string;
     channels: decoded.channels,
     space: "exr",
     pixelAspectRatio: info.pixelAspectRatio,
-    exr: { ...toExrInfo(decoded), chromaticitySpace: spaceOfChromaticities(info.chromaticities) },
+    exr: toExrInfo(decoded),
   };
 }

@@ -88,7 +88,7 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
     const file = (received = await cleanExrUpload(input.file, { maxPixels: PIXEL_LIMIT, root: options.root }));
     const facts = await inspectStill(file.path, { layer: fields.layer, sha256: file.sha256, root: options.root });
     const colourSpace = fields.colourSpace ?? defaultColourSpace(facts);
-    const exr = facts.exr ? (({ chromaticitySpace: _, ...info }) => info)(facts.exr) : null;
+    const exr = facts.exr ?? null;
 
     return await withHashLock(file.sha256, async () => {
       await storeOriginal(file.path, file.sha256, options.root);
@@ -132,7 +132,7 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
       } catch (error) {
         // Leave no file behind that no row points at; a shared file stays for its other rows.
         const inUse = await referencedHashes([file.sha256]).catch(() => new Set([file.sha256]));
-        if (!inUse.has(file.sha256)) await removeStored(file.sha256, options.root, lookOf({ format: facts.format, colourSpace, exr }));
+        if (!inUse.has(file.sha256)) await removeStored(file.sha256, options.root, lookOf({ format: facts.format, bitDepth: facts.bitDepth, colourSpace, exr }));
         throw error;
       }
       return {

@@ -90,6 +90,9 @@ export type StillExrInfo = {
   displayWindow: { xMin: number; yMin: number; xMax: number; yMax: number };
   layers: { id: string; label: string; kind: string }[];
   layer: string;
+  /** The layer shown when none is picked, and the colour space the file's chromaticities imply. */
+  defaultLayer: string;
+  defaultColourSpace: ColourSpace;
   pixelType: string;
 };
 
