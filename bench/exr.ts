@@ -8,7 +8,6 @@
  * database row is not part of it. Writes the key "exr" of bench/results.json with the load average.
  */
 import { spawnSync } from "node:child_process";
-import crypto from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -32,21 +31,19 @@ async function frame(width: number, height: number, compression: "zip" | "piz"):
 if (args[0] === "--child-upload") {
   // Child: one 4K OpenEXR through the upload's file work; report the process's peak RSS.
   const dir = args[1]!;
-  const { cleanExrUpload } = await import("@/lib/stills/exr");
-  const { inspectStill, PIXEL_LIMIT } = await import("@/lib/stills/inspect");
+  const { prepareOriginal } = await import("@/lib/stills/inspect");
   const { ensureDerived } = await import("@/lib/stills/display");
   const { defaultColourSpace } = await import("@/lib/stills/colour-default");
   const file = path.join(dir, "plate.exr");
   const bytes = fs.readFileSync(file);
-  const received = { path: file, sha256: crypto.createHash("sha256").update(bytes).digest("hex"), size: bytes.length };
   const t0 = performance.now();
-  const cleaned = await cleanExrUpload(received, { maxPixels: PIXEL_LIMIT, root: dir });
-  const facts = await inspectStill(cleaned.path, { sha256: cleaned.sha256, root: dir });
-  const target = path.join(dir, "originals", cleaned.sha256.slice(0, 2), `${cleaned.sha256}.bin`);
+  const prepared = await prepareOriginal(file, path.join(dir, "cleaned.part"), { root: dir });
+  const { facts, sha256 } = prepared;
+  const target = path.join(dir, "originals", sha256.slice(0, 2), `${sha256}.bin`);
   fs.mkdirSync(path.dirname(target), { recursive: true });
-  fs.renameSync(cleaned.path, target);
+  fs.renameSync(prepared.path, target);
   const exr = facts.exr ? { ...facts.exr } : null;
-  await ensureDerived({ sha256: cleaned.sha256, format: facts.format, bitDepth: facts.bitDepth, colourSpace: defaultColourSpace(facts), exr }, dir);
+  await ensureDerived({ sha256, format: facts.format, bitDepth: facts.bitDepth, colourSpace: defaultColourSpace(facts), exr }, dir);
   const ms = performance.now() - t0;
   console.log(JSON.stringify({ peakRssMB: Math.round(process.resourceUsage().maxRSS / 1024), uploadMs: Math.round(ms), fileMB: +(bytes.length / 1e6).toFixed(1) }));
   process.exit(0);

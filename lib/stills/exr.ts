@@ -1,15 +1,13 @@
 import "server-only";
-import crypto from "node:crypto";
 import fs from "node:fs/promises";
 import { LRUCache } from "lru-cache";
 import { AppError } from "@/lib/api/errors";
-import { checkPixelLimit, decodeExr, type DecodedExr } from "@/lib/exr/decode";
-import { ExrFormatError, isExr, parseExrHeader } from "@/lib/exr/header";
-import { cleanExrHeader } from "@/lib/exr/rewrite";
+import { decodeExr, type DecodedExr } from "@/lib/exr/decode";
+import { ExrFormatError } from "@/lib/exr/header";
 import { spaceOfChromaticities } from "@/lib/colour/spaces";
 import { MEMORY_BUDGET } from "@/lib/memory/budget";
 import type { StillExrInfo } from "@/lib/stills/schemas";
-import { newIncomingPath, variantPath } from "@/lib/stills/storage";
+import { variantPath } from "@/lib/stills/storage";
 
 /*
  * OpenEXR stills: decoding an upload or a stored original with its chosen layer, the errors
@@ -75,38 +73,4 @@ export async function readExrStill(still: { sha256: string; exr: { layer: string
   } catch (error) {
     throw exrError(error);
   }
-}
-
-type ReceivedFile = { path: string; sha256: string; size: number; originalName?: string };
-
-/**
- * An uploaded OpenEXR file with identifying attributes dropped from its header (owner,
- * comments, capture place and time, camera serial numbers, programs' own attributes; the
- * colour description stays: lib/exr/rewrite.ts KEPT_ATTRIBUTES). Pixels are untouched. Other
- * files come back as they are. The cleaned copy is a new temp file with its own hash; the
- * received one is removed.
- */
-export async function cleanExrUpload(file: ReceivedFile, options: { maxPixels: number; root?: string }): Promise<ReceivedFile> {
-  const head = Buffer.alloc(4);
-  const fh = await fs.open(file.path, "r");
-  try {
-    await fh.read(head, 0, 4, 0);
-  } finally {
-    await fh.close();
-  }
-  if (!isExr(head)) return file;
-  const bytes = await fs.readFile(file.path);
-  let cleaned: Uint8Array;
-  try {
-    // Absurd sizes are refused as too large before the rest of the layout is read.
-    checkPixelLimit(parseExrHeader(bytes), options.maxPixels);
-    cleaned = cleanExrHeader(bytes);
-  } catch (error) {
-    throw exrError(error);
-  }
-  if (cleaned.length === bytes.length && Buffer.compare(Buffer.from(cleaned), bytes) === 0) return file;
-  const target = await newIncomingPath(options.root);
-  await fs.writeFile(target, cleaned, { flag: "wx", mode: 0o600 });
-  await fs.rm(file.path, { force: true });
-  return { ...file, path: target, size: cleaned.length, sha256: crypto.createHash("sha256").update(cleaned).digest("hex") };
 }

@@ -8,7 +8,7 @@ import type { StillVariant } from "@/lib/stills/schemas";
 /**
  * Content-addressed file store under PLATEROOM_UPLOADS_DIR (outside the web root; OWASP
  * File Upload Cheat Sheet, "rename on store"):
- *   originals/ab/<sha256>.bin   the uploaded bytes, exactly (OpenEXR: its identifying header attributes dropped first)
+ *   originals/ab/<sha256>.bin   the uploaded bytes less identifying metadata (strip-metadata.ts; OpenEXR: lib/exr/rewrite.ts)
  *   previews/ab/<sha256>.webp   longest side ≤ 2048, metadata stripped
  *   thumbs/ab/<sha256>.webp     longest side ≤ 400, metadata stripped
  *   displays/ab/<sha256>.png    full resolution, 8-bit, for stills a browser cannot show as stored
