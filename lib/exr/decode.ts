@@ -16,6 +16,7 @@ import {
 } from "@/lib/exr/header";
 import { defaultLayer, layerChannelCount, listLayers, type ExrLayer } from "@/lib/exr/layers";
 import { attr, ByteBuilder, preamble } from "@/lib/exr/write";
+import { megapixels } from "@/lib/stills/limits";
 
 /*
  * OpenEXR decoding with the `three` package's pure-JavaScript reader (examples/jsm/loaders/
@@ -110,7 +111,7 @@ export function checkPixelLimit(header: ExrHeader, maxPixels: number): void {
     for (const window of [part.dataWindow, part.displayWindow]) {
       const { width, height } = windowSize(window);
       if (width * height > maxPixels) {
-        throw new ExrFormatError("too_large", `The image is ${width}×${height} pixels, more than the ${Math.round(maxPixels / 1e6)} megapixels Plateroom accepts.`);
+        throw new ExrFormatError("too_large", `The image is ${width} × ${height} pixels (${megapixels(width * height)}); Plateroom and its still lab accept at most ${megapixels(maxPixels)}.`);
       }
     }
   }
