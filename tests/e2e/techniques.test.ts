@@ -100,7 +100,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
   it("a lead finds it in the review queue and approves it", async () => {
     const { context, page } = await signIn(running.browser, running.app.baseUrl, LEAD);
     await page.goto("/review");
-    const link = page.getByRole("link", { name: TITLE });
+    const link = page.getByRole("link", { name: TITLE, exact: true });
     expect(await isShown(link)).toBe(true);
     await link.click();
     // The queue opens the review: a new technique compares with nothing, so its text shows as added.
