@@ -21,6 +21,7 @@ const only = process.argv.slice(2).filter((a) => !a.startsWith("--"));
 // import "server-only", which resolves to an empty module only under it.
 const steps: { name: string; script: string; args: string[]; env?: Record<string, string> }[] = [
   { name: "lab", script: "bench/lab.ts", args: quick ? ["--quick"] : [] },
+  { name: "exr", script: "bench/exr.ts", args: quick ? ["--quick"] : [] },
   { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
   { name: "technique-page", script: "bench/technique-page.ts", args: [], env: quick ? { PAGE_DURATION: process.env.PAGE_DURATION ?? "10" } : {} },
   { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
@@ -57,6 +58,13 @@ if (lab) {
   console.table(
     Object.entries(sizes).map(([size, s]) => ({ size, "steps ms": fmt(s.recipeStepsMs, 0), "exact ms": fmt(s.recipeExactMs, 0), "proxy ms": fmt(s.proxyMs, 0), "float copy ms": fmt(s.copyMs, 2) })),
   );
+}
+
+const exr = results.exr;
+if (exr) {
+  console.log(`OpenEXR decode (load average ${fmt(get(exr, "loadAverage", "before", 0), 2)})`);
+  console.table(((get(exr, "decode") ?? []) as Json[]).map((r) => ({ size: r.size, compression: r.compression, "decode ms": r.decodeMs, "float copy ms": r.copyMs, "× copy": r.ratio })));
+  console.log("4K OpenEXR upload:", get(exr, "upload4k"));
 }
 
 const search = results.search;

@@ -2,21 +2,21 @@
 
 import { useState } from "react";
 import { Area, AreaChart, CartesianGrid, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
-import { analyseLab, CHANNEL_COLOURS, errorText, type LabStillInfo } from "@/components/lab/lab-api";
+import { analyseLab, CHANNEL_COLOURS, errorText, labSpaceFields, labSpaceWords, type LabSpaceChoice, type LabStillInfo } from "@/components/lab/lab-api";
 import { Choice } from "@/components/lab/recipe/number-input";
 import { Button } from "@/components/ui/button";
-import type { LabSpace, RecipeStep } from "@/lib/lab/recipe";
+import type { RecipeStep } from "@/lib/lab/recipe";
 import type { HistogramData, LabAnalyseResponse } from "@/app/api/lab/_lib/schemas";
 
 /** Per-channel histograms of the plate and of the recipe's float result. */
-export function Histogram({ still, space, steps }: { still: LabStillInfo; space: LabSpace; steps: RecipeStep[] }) {
+export function Histogram({ still, space, steps }: { still: LabStillInfo; space: LabSpaceChoice; steps: RecipeStep[] }) {
   const [data, setData] = useState<LabAnalyseResponse | null>(null);
   const [side, setSide] = useState<"before" | "after">("after");
   const [status, setStatus] = useState<string | null>(null);
   const load = async () => {
     setStatus("Counting…");
     try {
-      setData(await analyseLab({ still: still.id, space, steps, line: null, histogram: true, bins: 128, width: Math.min(still.width, 1024) }));
+      setData(await analyseLab({ still: still.id, ...labSpaceFields(space), steps, line: null, histogram: true, bins: 128, width: Math.min(still.width, 1024) }));
       setStatus(null);
     } catch (error) {
       setStatus(errorText(error));
@@ -50,7 +50,7 @@ export function Histogram({ still, space, steps }: { still: LabStillInfo; space:
             </AreaChart>
           </ResponsiveContainer>
           <figcaption className="text-xs text-muted">
-            {data!.width}×{data!.height} px in {space === "linear" ? "linear light" : "stored values"}. Below 0: R {h.below[0]}, G {h.below[1]}, B {h.below[2]}; 1 and
+            {data!.width}×{data!.height} px in {labSpaceWords(space)}. Below 0: R {h.below[0]}, G {h.below[1]}, B {h.below[2]}; 1 and
             above: R {h.above[0]}, G {h.above[1]}, B {h.above[2]}.
           </figcaption>
         </figure>

@@ -1,11 +1,27 @@
 import { apiFetch, ApiError } from "@/lib/api/fetcher";
 import type { ErrorBody } from "@/lib/api/errors";
-import type { LabRunRequestInput, LabSolveRequest, LabSolveResponse, StepReport } from "@/lib/lab/recipe";
+import type { LabRunRequestInput, LabSolveRequest, LabSolveResponse, LabSpace, StepReport } from "@/lib/lab/recipe";
+import { COLOUR_SPACE_SHORT, type ColourSpace, type LinearSpace } from "@/lib/colour/spaces";
 import type { LabAnalyseRequest, LabAnalyseResponse, LabSampleRequest, LabSampleResponse } from "@/app/api/lab/_lib/schemas";
 
 /** Client calls of the lab routes (app/api/lab). */
 
-export type LabStillInfo = { id: string; alt: string; width: number; height: number; bitDepth: number };
+export type LabStillInfo = { id: string; alt: string; width: number; height: number; bitDepth: number; colourSpace?: ColourSpace; format?: string };
+
+/** The lab's "work in" choice: stored values, linear light of the still's own space, or a linear space picked. */
+export type LabSpaceChoice = LabSpace | `linear:${LinearSpace}`;
+
+/** Request fields of a choice: `space`, and `workingSpace` when one was picked. */
+export function labSpaceFields(choice: LabSpaceChoice): { space: LabSpace; workingSpace?: LinearSpace } {
+  const [space, working] = choice.split(":") as [LabSpace, LinearSpace | undefined];
+  return working ? { space, workingSpace: working } : { space };
+}
+
+/** The choice in words, for captions under plots. */
+export function labSpaceWords(choice: LabSpaceChoice): string {
+  const { space, workingSpace } = labSpaceFields(choice);
+  return space === "stored" ? "stored values" : workingSpace ? `linear light, ${COLOUR_SPACE_SHORT[workingSpace]}` : "linear light";
+}
 export type LabRender = { url: string; width: number; height: number; reports: StepReport[]; cached: string };
 export type Box = { x: number; y: number; w: number; h: number };
 

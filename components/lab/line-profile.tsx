@@ -2,18 +2,18 @@
 
 import { useState } from "react";
 import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
-import { analyseLab, CHANNEL_COLOURS, errorText, type LabStillInfo } from "@/components/lab/lab-api";
+import { analyseLab, CHANNEL_COLOURS, errorText, labSpaceFields, labSpaceWords, type LabSpaceChoice, type LabStillInfo } from "@/components/lab/lab-api";
 import { StillStage, type StagePoint } from "@/components/lab/still-stage";
 import { NumberInput } from "@/components/lab/recipe/number-input";
 import { Button } from "@/components/ui/button";
-import type { LabSpace, RecipeStep } from "@/lib/lab/recipe";
+import type { RecipeStep } from "@/lib/lab/recipe";
 import { stillUrl } from "@/lib/stills/schemas";
 import type { LabAnalyseResponse } from "@/app/api/lab/_lib/schemas";
 
 type Line = { x0: number; y0: number; x1: number; y1: number };
 
 /** Draw a line across a marker; plot R, G, B along it for the plate (dashed) and the recipe's result (solid). */
-export function LineProfile({ still, space, steps }: { still: LabStillInfo; space: LabSpace; steps: RecipeStep[] }) {
+export function LineProfile({ still, space, steps }: { still: LabStillInfo; space: LabSpaceChoice; steps: RecipeStep[] }) {
   const [line, setLine] = useState<Line>({ x0: Math.round(still.width * 0.4), y0: Math.round(still.height / 2), x1: Math.round(still.width * 0.6), y1: Math.round(still.height / 2) });
   const [drag, setDrag] = useState<StagePoint | null>(null);
   const [data, setData] = useState<LabAnalyseResponse | null>(null);
@@ -23,7 +23,7 @@ export function LineProfile({ still, space, steps }: { still: LabStillInfo; spac
   const plot = async (l: Line = line) => {
     setStatus("Computing the profile…");
     try {
-      setData(await analyseLab({ still: still.id, space, steps, line: l, histogram: false, width: Math.min(still.width, 2048) }));
+      setData(await analyseLab({ still: still.id, ...labSpaceFields(space), steps, line: l, histogram: false, width: Math.min(still.width, 2048) }));
       setStatus(null);
     } catch (error) {
       setStatus(errorText(error));
@@ -87,7 +87,7 @@ export function LineProfile({ still, space, steps }: { still: LabStillInfo; spac
             </LineChart>
           </ResponsiveContainer>
           <figcaption className="text-xs text-muted">
-            Values in {space === "linear" ? "linear light" : "stored values"} (0..1), unclipped; distance along the line in full-resolution pixels.
+            Values in {labSpaceWords(space)} (0..1), unclipped; distance along the line in full-resolution pixels.
           </figcaption>
         </figure>
       ) : null}

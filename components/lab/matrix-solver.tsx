@@ -1,18 +1,18 @@
 "use client";
 
 import { useState } from "react";
-import { errorText, sampleBoxes, solveMatrix, type LabStillInfo } from "@/components/lab/lab-api";
+import { errorText, labSpaceFields, sampleBoxes, solveMatrix, type LabSpaceChoice, type LabStillInfo } from "@/components/lab/lab-api";
 import { SampleBoxes, type PickedBox, type SampleKind } from "@/components/lab/sample-boxes";
 import { SolverResult } from "@/components/lab/solver-result";
 import { CHANNEL_OPTIONS, Choice, NumberInput } from "@/components/lab/recipe/number-input";
 import { Button } from "@/components/ui/button";
-import type { Channel, LabSolveResponse, LabSpace, MatrixStep } from "@/lib/lab/recipe";
+import type { Channel, LabSolveResponse, MatrixStep } from "@/lib/lab/recipe";
 import { stillUrl } from "@/lib/stills/schemas";
 
 /** Pick marker and screen samples, solve one channel's matrix row, apply it to the recipe. */
 export function MatrixSolver({ still, space, onApply, applyLabel = "Apply to recipe" }: {
   still: LabStillInfo;
-  space: LabSpace;
+  space: LabSpaceChoice;
   onApply(step: MatrixStep): void;
   applyLabel?: string;
 }) {
@@ -31,7 +31,7 @@ export function MatrixSolver({ still, space, onApply, applyLabel = "Apply to rec
     setMessage("Sampling and solving…");
     try {
       const ordered = [...markers, ...screens];
-      const { samples } = await sampleBoxes({ still: still.id, space, boxes: ordered.map(({ x, y, w, h }) => ({ x, y, w, h })) });
+      const { samples } = await sampleBoxes({ still: still.id, ...labSpaceFields(space), boxes: ordered.map(({ x, y, w, h }) => ({ x, y, w, h })) });
       const solved = await solveMatrix({ markers: samples.slice(0, markers.length), screen: samples.slice(markers.length), goal: { kind: goal, channel } });
       setResult({ ...solved, samples });
       setMessage(null);

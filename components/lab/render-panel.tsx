@@ -3,19 +3,20 @@
 import { LabCompare } from "@/components/lab/lab-compare";
 import { useLabRender } from "@/components/lab/use-lab-render";
 import { Button } from "@/components/ui/button";
-import type { LabSpace, RecipeStep, StepReport } from "@/lib/lab/recipe";
+import type { RecipeStep, StepReport } from "@/lib/lab/recipe";
 import { stillUrl } from "@/lib/stills/schemas";
-import type { LabStillInfo } from "@/components/lab/lab-api";
+import { labSpaceFields, type LabSpaceChoice, type LabStillInfo } from "@/components/lab/lab-api";
+import { ExrDownload } from "@/components/lab/exr-download";
 
 const PROXY_WIDTH = 1024;
 
 /** "Render exact": a proxy first, full resolution on request, with progress, cancel and the compare view. */
-export function RenderPanel({ still, steps, space }: { still: LabStillInfo; steps: RecipeStep[]; space: LabSpace }) {
+export function RenderPanel({ still, steps, space }: { still: LabStillInfo; steps: RecipeStep[]; space: LabSpaceChoice }) {
   const { state, start, cancel } = useLabRender();
   const run = async (mode: "proxy" | "full") => {
     const width = mode === "proxy" && still.width > PROXY_WIDTH ? PROXY_WIDTH : undefined;
     // png16 for the exact render keeps the float result's precision for download; webp for a quick look.
-    await start({ still: still.id, space, steps, format: mode === "full" ? "png16" : "webp", width }, mode);
+    await start({ still: still.id, ...labSpaceFields(space), steps, format: mode === "full" ? "png16" : "webp", width }, mode);
   };
   const running = state.status === "running";
   return (
@@ -70,9 +71,12 @@ export function RenderPanel({ still, steps, space }: { still: LabStillInfo; step
           <LabCompare plateSrc={stillUrl(still.id, "preview")} resultSrc={state.result.url} width={still.width} height={still.height} alt={still.alt} />
           <StepReports reports={state.result.reports} />
           {state.mode === "full" ? (
-            <a className="text-sm text-accent underline" href={state.result.url} download={`lab-${still.id.slice(0, 8)}.png`}>
-              Download the 16-bit PNG
-            </a>
+            <div className="flex flex-wrap items-center gap-4">
+              <a className="text-sm text-accent underline" href={state.result.url} download={`lab-${still.id.slice(0, 8)}.png`}>
+                Download the 16-bit PNG
+              </a>
+              <ExrDownload still={still} steps={steps} space={space} />
+            </div>
           ) : null}
         </>
       ) : null}

@@ -4,6 +4,7 @@ import { useId, useState } from "react";
 import { errorText, type LabStillInfo } from "@/components/lab/lab-api";
 import { Button } from "@/components/ui/button";
 import { Select, TextInput } from "@/components/ui/field";
+import type { StillCreatedResponse } from "@/lib/stills/schemas";
 
 /** Picks one of the technique's stills, or uploads a private trial still of one's own. */
 export function StillChoice({ stills, value, onChange }: { stills: LabStillInfo[]; value: string; onChange(still: LabStillInfo): void }) {
@@ -26,9 +27,9 @@ export function StillChoice({ stills, value, onChange }: { stills: LabStillInfo[
       form.set("alt", alt.trim());
       form.set("owner", "trial");
       const res = await fetch("/api/stills", { method: "POST", body: form, credentials: "same-origin" });
-      const body = (await res.json()) as { id?: string; width?: number; height?: number; bitDepth?: number; error?: { message: string } };
+      const body = (await res.json()) as Partial<Pick<StillCreatedResponse, "id" | "width" | "height" | "bitDepth" | "colourSpace" | "format">> & { error?: { message: string } };
       if (!res.ok || !body.id) throw new Error(body.error?.message ?? `Upload failed (${res.status}).`);
-      const still = { id: body.id, alt: alt.trim(), width: body.width!, height: body.height!, bitDepth: body.bitDepth! };
+      const still = { id: body.id, alt: alt.trim(), width: body.width!, height: body.height!, bitDepth: body.bitDepth!, colourSpace: body.colourSpace, format: body.format };
       setTrials((t) => [...t, still]);
       onChange(still);
       setMessage("Uploaded. It is private to you (and leads).");
@@ -50,7 +51,7 @@ export function StillChoice({ stills, value, onChange }: { stills: LabStillInfo[
           <Select id={`${id}-still`} value={value} onChange={(e) => { const s = all.find((x) => x.id === e.target.value); if (s) onChange(s); }} disabled={!all.length}>
             {all.map((s) => (
               <option key={s.id} value={s.id}>
-                {s.alt} ({s.width}×{s.height}, {s.bitDepth}-bit{trials.includes(s) ? ", my trial" : ""})
+                {s.alt} ({s.width}×{s.height}, {s.format === "exr" ? "OpenEXR" : `${s.bitDepth}-bit`}{trials.includes(s) ? ", my trial" : ""})
               </option>
             ))}
           </Select>
@@ -67,8 +68,8 @@ export function StillChoice({ stills, value, onChange }: { stills: LabStillInfo[
           </p>
           <div className="grid gap-2 sm:grid-cols-2">
             <div>
-              <label htmlFor={`${id}-file`} className="block text-xs text-muted">File (PNG, TIFF, JPEG or WebP; 16-bit PNG or TIFF keeps full precision)</label>
-              <input id={`${id}-file`} type="file" accept="image/png,image/tiff,image/jpeg,image/webp" className="text-sm" onChange={(e) => setFile(e.target.files?.[0] ?? null)} />
+              <label htmlFor={`${id}-file`} className="block text-xs text-muted">File (PNG, TIFF, JPEG, WebP or OpenEXR; 16-bit PNG or TIFF and OpenEXR keep full precision)</label>
+              <input id={`${id}-file`} type="file" accept="image/png,image/tiff,image/jpeg,image/webp,image/x-exr,.exr" className="text-sm" onChange={(e) => setFile(e.target.files?.[0] ?? null)} />
             </div>
             <div>
               <label htmlFor={`${id}-alt`} className="block text-xs text-muted">Describe it (alt text)</label>

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { Histogram } from "@/components/lab/histogram";
-import type { LabStillInfo } from "@/components/lab/lab-api";
+import type { LabSpaceChoice, LabStillInfo } from "@/components/lab/lab-api";
 import { LineProfile } from "@/components/lab/line-profile";
 import { MatrixPreview } from "@/components/lab/matrix-preview";
 import { MatrixSliders } from "@/components/lab/matrix-sliders";
@@ -12,7 +12,8 @@ import { StillChoice } from "@/components/lab/still-choice";
 import { LabTabs, type LabTab } from "@/components/lab/lab-tabs";
 import { Choice } from "@/components/lab/recipe/number-input";
 import { Button } from "@/components/ui/button";
-import { IDENTITY3, type LabSpace, type MatrixStep, type RecipeStep } from "@/lib/lab/recipe";
+import { IDENTITY3, type MatrixStep, type RecipeStep } from "@/lib/lab/recipe";
+import { spaceChoices } from "@/components/lab/space-choices";
 import { stillUrl } from "@/lib/stills/schemas";
 
 export type TechniqueLabProps = {
@@ -28,7 +29,7 @@ export type TechniqueLabProps = {
 /** The still lab on a technique page: live matrix preview, exact render, solver and plots on a working copy of the recipe. */
 export function TechniqueLab({ slug, recipe, stills, canEditRecipe, onApplyMatrix }: TechniqueLabProps) {
   const [still, setStill] = useState<LabStillInfo | null>(stills[0] ?? null);
-  const [space, setSpace] = useState<LabSpace>("linear");
+  const [space, setSpace] = useState<LabSpaceChoice>("linear");
   const [tab, setTab] = useState<LabTab>("preview");
   const [steps, setSteps] = useState<RecipeStep[]>(recipe);
   const [source, setSource] = useState(recipe);
@@ -48,7 +49,7 @@ export function TechniqueLab({ slug, recipe, stills, canEditRecipe, onApplyMatri
         <h2 id={`lab-${slug}`} className="mr-auto text-base font-semibold">
           Still lab
         </h2>
-        <Choice id={`lab-${slug}-space`} label="Work in" value={space} options={[["linear", "Linear light (sRGB decoded)"], ["stored", "Stored values"]]} onChange={setSpace} />
+        <Choice id={`lab-${slug}-space`} label="Work in" value={space} options={spaceChoices(still)} onChange={setSpace} />
         {steps !== recipe ? (
           <Button variant="ghost" onClick={() => setSteps(recipe)}>
             Back to the technique&apos;s recipe
@@ -62,7 +63,7 @@ export function TechniqueLab({ slug, recipe, stills, canEditRecipe, onApplyMatri
         <LabTabs tab={tab} onTab={setTab} idBase={`lab-${slug}`}>
           {tab === "preview" ? (
             <div className="space-y-3">
-              <MatrixPreview src={stillUrl(still.id, "preview")} width={still.width} height={still.height} alt={still.alt} steps={steps} space={space} />
+              <MatrixPreview src={stillUrl(still.id, "preview")} width={still.width} height={still.height} alt={still.alt} steps={steps} space={space === "stored" ? "stored" : "linear"} />
               {matrix ? (
                 <details open className="rounded border border-line p-2">
                   <summary className="cursor-pointer text-sm font-medium">Colour matrix (step {mi + 1})</summary>

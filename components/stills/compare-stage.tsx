@@ -1,7 +1,8 @@
 "use client";
 
-import { useRef, useSyncExternalStore, type KeyboardEvent, type PointerEvent, type RefObject } from "react";
+import { useRef, useState, useSyncExternalStore, type KeyboardEvent, type PointerEvent, type RefObject } from "react";
 import type { CompareZoom } from "@/components/stills/compare-toolbar";
+import { DEFAULT_DISPLAY, displayQuery, type DisplayOptions } from "@/lib/colour/display";
 import type { ProbePoint } from "@/lib/stills/probe";
 import { stillUrl, type StillResponse } from "@/lib/stills/schemas";
 import { cn } from "@/lib/utils";
@@ -18,11 +19,21 @@ type Props = {
   onProbe: (point: ProbePoint) => void;
   scrollRef?: RefObject<HTMLDivElement | null>;
   onScroll?: () => void;
+  display?: DisplayOptions;
+  /** Full screen: the viewport takes the screen's height. */
+  tall?: boolean;
 };
 
-/** Originals browsers draw exactly (16-bit PNG included); TIFF falls back to the preview. */
-function sourceFor(still: StillResponse, zoom: CompareZoom): string {
-  return stillUrl(still.id, zoom === "actual" && still.format !== "tiff" ? "original" : "preview");
+/**
+ * Fit shows the preview; zoomed views load every pixel: the original where the browser shows it
+ * as stored (sRGB PNG, JPEG, WebP — 16-bit PNG included), else the full-size display image the
+ * server makes (TIFF, OpenEXR, linear stills). Exposure and the range view are server renders.
+ */
+export function sourceFor(still: StillResponse, zoom: CompareZoom, display: DisplayOptions = DEFAULT_DISPLAY): string {
+  const query = displayQuery(display);
+  if (zoom === "fit") return stillUrl(still.id, "preview") + query;
+  const shownAsStored = still.colourSpace === "srgb" && (still.format === "png" || still.format === "jpeg" || still.format === "webp");
+  return shownAsStored && !query ? stillUrl(still.id, "original") : stillUrl(still.id, "display") + query;
 }
 
 function subscribeToPixelRatio(onChange: () => void): () => void {
@@ -34,8 +45,8 @@ function subscribeToPixelRatio(onChange: () => void): () => void {
 
 const clamp = (v: number) => Math.min(100, Math.max(0, v));
 
-/** One viewport on the neutral grey surround: fit or 100 % with drag-panning, optional divider. */
-export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, scrollRef, onScroll }: Props) {
+/** One viewport on the neutral grey surround: fit, or 100 % and up with drag-panning; optional divider. */
+export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, scrollRef, onScroll, display, tall }: Props) {
   const base = layers[0]!.still;
   const ownViewport = useRef<HTMLDivElement | null>(null);
   const content = useRef<HTMLDivElement>(null);
@@ -52,7 +63,7 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
   function onPointerDown(e: PointerEvent<HTMLDivElement>, kind: "pan" | "divider") {
     if (e.button !== 0) return;
     const el = ownViewport.current;
-    if (kind === "pan" && zoom !== "actual") {
+    if (kind === "pan" && zoom === "fit") {
       if (!divider) return;
       kind = "divider";
     }
@@ -96,10 +107,15 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
     }
   }
 
-  const actual = zoom === "actual";
+  // Until every layer has loaded its current source, say so (exposure and range renders take a moment).
+  const [loaded, setLoaded] = useState<Record<string, string>>({});
+  const loading = layers.some((l) => loaded[l.label] !== undefined && loaded[l.label] !== sourceFor(l.still, zoom, display));
+  const actual = zoom !== "fit";
+  const stageHeight = tall ? "calc(100vh - 9rem)" : "70vh";
+  // At zoom z each image pixel covers z device pixels; CSS pixels are device pixels / dpr.
   const sizeStyle = actual
-    ? { width: base.width / dpr, height: base.height / dpr }
-    : { aspectRatio: `${base.width} / ${base.height}`, width: `min(100%, calc(70vh * ${base.width / base.height}))` };
+    ? { width: (base.width * zoom) / dpr, height: (base.height * zoom) / dpr }
+    : { aspectRatio: `${base.width} / ${base.height}`, width: `min(100%, calc(${stageHeight} * ${base.width / base.height}))` };
 
   return (
     <div
@@ -109,8 +125,9 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
       }}
       onScroll={onScroll}
       tabIndex={actual ? 0 : -1}
-      aria-label={actual ? "Still at 100 %, scroll or drag to pan" : undefined}
-      className={cn("relative flex bg-stage p-3", actual ? "h-[70vh] cursor-grab overflow-auto active:cursor-grabbing" : "justify-center")}
+      aria-label={actual ? `Still at ${zoom * 100} %, scroll or drag to pan` : undefined}
+      className={cn("relative flex bg-stage p-3", actual ? "cursor-grab overflow-auto active:cursor-grabbing" : "justify-center")}
+      style={actual ? { height: stageHeight } : undefined}
     >
       <div
         ref={content}
@@ -125,7 +142,12 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
           // eslint-disable-next-line @next/next/no-img-element -- private, per-user images from our API; no optimiser.
           <img
             key={layer.still.id + layer.label}
-            src={sourceFor(layer.still, zoom)}
+            src={sourceFor(layer.still, zoom, display)}
+            onLoad={(e) => {
+              // Read now: React clears currentTarget once the handler returns, before the updater runs.
+              const src = e.currentTarget.getAttribute("src") ?? "";
+              setLoaded((l) => ({ ...l, [layer.label]: src }));
+            }}
             alt={`${layer.label}: ${layer.still.alt}`}
             draggable={false}
             className="absolute inset-0 h-full w-full"
@@ -137,6 +159,11 @@ export function CompareStage({ layers, zoom, filter, divider, probe, onProbe, sc
           />
         ))}
         <span className="pointer-events-none absolute left-2 top-2 rounded bg-surface/80 px-1.5 py-0.5 text-xs">{layers[0]!.label}</span>
+        {loading ? (
+          <span role="status" className="pointer-events-none absolute bottom-2 left-2 rounded bg-surface/80 px-1.5 py-0.5 text-xs">
+            Rendering…
+          </span>
+        ) : null}
         {layers[1] ? <span className="pointer-events-none absolute right-2 top-2 rounded bg-surface/80 px-1.5 py-0.5 text-xs">{layers[1].label}</span> : null}
         {probe ? (
           <span

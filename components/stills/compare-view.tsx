@@ -4,7 +4,12 @@ import { useId, useRef, useState } from "react";
 import { ChannelFilters, channelFilterCss } from "@/components/stills/channel-filters";
 import { CompareStage } from "@/components/stills/compare-stage";
 import { CompareToolbar, type CompareMode, type CompareZoom } from "@/components/stills/compare-toolbar";
+import { DisplayControls } from "@/components/stills/display-controls";
 import { PixelProbe } from "@/components/stills/pixel-probe";
+import { StillFacts } from "@/components/stills/still-facts";
+import { useFullscreen } from "@/components/stills/use-fullscreen";
+import { useDebouncedValue } from "@/components/search/use-debounced-value";
+import { DEFAULT_DISPLAY, type DisplayOptions } from "@/lib/colour/display";
 import type { ChannelView } from "@/lib/stills/luminance";
 import type { ProbePoint } from "@/lib/stills/probe";
 import type { StillResponse } from "@/lib/stills/schemas";
@@ -21,8 +26,9 @@ type CompareViewProps = {
 
 /**
  * Before/after on a neutral grey surround: a draggable divider (arrow keys when focused),
- * a toggle, or side by side; fit or 100 % with panning; R, G, B and BT.709 luminance views;
- * and a pixel probe reading both stills under the pointer.
+ * a toggle, or side by side; fit, or 100 % to 800 % with nearest-neighbour pixels and panning;
+ * R, G, B and BT.709 luminance views; exposure and the out-of-range view; full screen; and a
+ * pixel probe reading both stills' stored values under the pointer.
  */
 export function CompareView({ before, after, caption, initialMode = "divider", className }: CompareViewProps) {
   const idPrefix = useId();
@@ -32,14 +38,26 @@ export function CompareView({ before, after, caption, initialMode = "divider", c
   const [position, setPosition] = useState(50);
   const [showing, setShowing] = useState<"before" | "after">("before");
   const [probe, setProbe] = useState<ProbePoint | null>(null);
+  const [display, setDisplay] = useState<DisplayOptions>(DEFAULT_DISPLAY);
+  const figure = useRef<HTMLElement | null>(null);
+  const fullscreen = useFullscreen(figure);
   const left = useRef<HTMLDivElement | null>(null);
   const right = useRef<HTMLDivElement | null>(null);
   const filter = channelFilterCss(idPrefix, view);
 
+  // Each exposure or view change is a server render: ask for the one people settle on.
+  const shownDisplay = useDebouncedValue(display, 350);
 
-  const shared = { zoom, filter, probe, onProbe: setProbe };
+  const shared = { zoom, filter, probe, onProbe: setProbe, display: shownDisplay, tall: fullscreen.active };
   return (
-    <figure className={cn("space-y-3", className)}>
+    <figure
+      ref={figure}
+      className={cn("space-y-3", fullscreen.active && "overflow-auto bg-surface p-4", className)}
+      onKeyDown={(e) => {
+        // Browsers leave full screen on Escape themselves; this covers those that hand the key to the page.
+        if (e.key === "Escape" && fullscreen.active) fullscreen.toggle();
+      }}
+    >
       <ChannelFilters idPrefix={idPrefix} />
       <CompareToolbar
         mode={mode}
@@ -50,7 +68,9 @@ export function CompareView({ before, after, caption, initialMode = "divider", c
         onZoom={setZoom}
         onView={setView}
         onToggle={() => setShowing((s) => (s === "before" ? "after" : "before"))}
+        fullscreen={fullscreen}
       />
+      <DisplayControls value={display} onChange={setDisplay} />
       {mode === "divider" ? (
         <CompareStage
           {...shared}
@@ -84,9 +104,7 @@ export function CompareView({ before, after, caption, initialMode = "divider", c
                 <dd>
                   {still.caption || still.alt}
                   {still.credit ? <span> — credit: {still.credit}</span> : null}
-                  <span className="ml-2 font-mono">
-                    {still.width}×{still.height}, {still.bitDepth === 32 ? "float" : `${still.bitDepth}-bit`} {still.format.toUpperCase()}
-                  </span>
+                  <StillFacts still={still} />
                 </dd>
               </div>
             );

@@ -3,7 +3,9 @@
 import { useEffect, useId, useState } from "react";
 import { inputClasses } from "@/components/ui/field";
 import { readPixel, type PixelReading } from "@/components/stills/pixel-source";
-import { channelLabels, formatFloat, pixelAt, pointOf, type ProbePoint } from "@/lib/stills/probe";
+import { depthLabel } from "@/components/stills/still-facts";
+import { COLOUR_SPACE_SHORT } from "@/lib/colour/spaces";
+import { channelLabels, formatFloat, formatSample, pixelAt, pointOf, type ProbePoint } from "@/lib/stills/probe";
 import type { StillResponse } from "@/lib/stills/schemas";
 
 type PixelProbeProps = {
@@ -15,7 +17,7 @@ type PixelProbeProps = {
   onPointChange: (point: ProbePoint) => void;
 };
 
-/** Channel values under the cursor for before and after: code values and 0..1 floats. */
+/** Channel values under the cursor for before and after: code values and 0..1, or float samples; and the space they are in. */
 export function PixelProbe({ before, after, point, onPointChange }: PixelProbeProps) {
   const id = useId();
   const at = point ? pixelAt(point, before.width, before.height) : null;
@@ -58,7 +60,7 @@ export function PixelProbe({ before, after, point, onPointChange }: PixelProbePr
                 Pixel
               </th>
               <th scope="col" className="py-1 font-normal">
-                Channel: code value / 0..1
+                Channel: code value / 0..1, or float value
               </th>
             </tr>
           </thead>
@@ -103,7 +105,10 @@ function ProbeRow({ label, still, point }: { label: string; still: StillResponse
   return (
     <tr className="border-t border-line align-top">
       <th scope="row" className="py-1 pr-3 text-left font-medium">
-        {label} <span className="font-normal text-muted">({still.bitDepth === 32 ? "float" : `${still.bitDepth}-bit`})</span>
+        {label}{" "}
+        <span className="font-normal text-muted">
+          ({depthLabel(still)}, {COLOUR_SPACE_SHORT[still.colourSpace]})
+        </span>
       </th>
       <td className="py-1 pr-3">
         {x}, {y}
@@ -115,7 +120,7 @@ function ProbeRow({ label, still, point }: { label: string; still: StillResponse
           <span className="flex flex-wrap gap-x-4">
             {current.values.map((v, i) => (
               <span key={labels[i] ?? i}>
-                {labels[i]} {current.max === 1 ? v.toFixed(6) : v} / {formatFloat(v, current.max)}
+                {labels[i]} {current.max === 1 ? formatSample(v) : `${v} / ${formatFloat(v, current.max)}`}
               </span>
             ))}
           </span>

@@ -4,9 +4,9 @@ import { valuesFromRgba } from "@/lib/stills/probe";
 
 export type PixelReading = { x: number; y: number; values: number[]; max: number };
 
-/** 8-bit PNG, JPEG and WebP originals decode in the browser exactly; 16-bit and TIFF are read on the server. */
+/** 8-bit PNG, JPEG and WebP originals decode in the browser exactly; 16-bit, float, TIFF and OpenEXR are read on the server. */
 function readsInBrowser(still: Pick<StillResponse, "bitDepth" | "format">): boolean {
-  return still.bitDepth === 8 && still.format !== "tiff";
+  return still.bitDepth === 8 && still.format !== "tiff" && still.format !== "exr";
 }
 
 const decoded = new Map<string, Promise<ImageData>>();

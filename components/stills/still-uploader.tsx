@@ -4,6 +4,7 @@ import { useCallback, useRef, useState } from "react";
 import { useDropzone } from "react-dropzone";
 import { Button } from "@/components/ui/button";
 import { ConfidentialNotice } from "@/components/stills/confidential-notice";
+import { sniffExr } from "@/components/stills/exr-sniff";
 import { sendStill } from "@/components/stills/upload-request";
 import { UploadRow, type UploadItem } from "@/components/stills/upload-row";
 import type { StillCreatedResponse, StillOwner, StillRole } from "@/lib/stills/schemas";
@@ -40,9 +41,7 @@ export function StillUploader({ technique, owner, role = "reference", maxBytes =
 
   const onDrop = useCallback(
     (files: File[]) => {
-      setItems((list) => [
-        ...list,
-        ...files.map<UploadItem>((file) => {
+      const added = files.map<UploadItem>((file) => {
           const tooBig = file.size > maxBytes;
           return {
             key: `${file.name}-${file.size}-${(nextKey += 1)}`,
@@ -51,12 +50,15 @@ export function StillUploader({ technique, owner, role = "reference", maxBytes =
             caption: "",
             status: tooBig ? "failed" : "waiting",
             progress: 0,
+            colourSpace: "auto",
             message: tooBig ? `This file is larger than ${Math.round(maxBytes / (1024 * 1024))} MB, the most Plateroom accepts.` : undefined,
           };
-        }),
-      ]);
+        });
+      setItems((list) => [...list, ...added]);
+      // OpenEXR headers are read here, so the row can offer the file's layers before it is sent.
+      for (const item of added) void sniffExr(item.file).then((exr) => patch(item.key, { exr }), () => patch(item.key, { exr: null }));
     },
-    [maxBytes],
+    [maxBytes, patch],
   );
   const { getRootProps, getInputProps, isDragActive, open } = useDropzone({ onDrop, multiple: true, noClick: true, noKeyboard: true });
 
@@ -64,7 +66,8 @@ export function StillUploader({ technique, owner, role = "reference", maxBytes =
     if (!item.alt.trim()) return patch(item.key, { altPrompted: true });
     if (item.file.size > maxBytes) return;
     patch(item.key, { status: "uploading", progress: 0, message: undefined });
-    const { done, abort } = sendStill(item.file, { alt: item.alt.trim(), caption: item.caption.trim() || undefined, technique, role, owner }, (progress) =>
+    const colour = { colourSpace: item.colourSpace === "auto" ? undefined : item.colourSpace, layer: item.exr?.ok ? item.layer : undefined };
+    const { done, abort } = sendStill(item.file, { alt: item.alt.trim(), caption: item.caption.trim() || undefined, technique, role, owner, ...colour }, (progress) =>
       patch(item.key, { progress }),
     );
     aborts.current.set(item.key, abort);
@@ -92,7 +95,7 @@ export function StillUploader({ technique, owner, role = "reference", maxBytes =
         })}
       >
         <input {...getInputProps({ "aria-label": "Choose still files" })} />
-        <p>{isDragActive ? "Drop the stills to add them." : "Drop PNG, JPEG, TIFF or WebP stills here (8 or 16 bits per channel, up to 8192 × 8192 pixels), or"}</p>
+        <p>{isDragActive ? "Drop the stills to add them." : "Drop PNG, JPEG, TIFF or WebP stills (8 or 16 bits per channel) or OpenEXR plates (half or float) here, up to 8192 × 8192 pixels, or"}</p>
         <Button variant="secondary" onClick={open}>
           Choose files…
         </Button>

@@ -1,6 +1,6 @@
 import type { StillCreatedResponse, StillOwner, StillRole } from "@/lib/stills/schemas";
 
-type UploadFields = { alt: string; caption?: string; credit?: string; technique?: string; role?: StillRole; owner: StillOwner };
+type UploadFields = { alt: string; caption?: string; credit?: string; technique?: string; role?: StillRole; owner: StillOwner; colourSpace?: string; layer?: string };
 
 type UploadOutcome =
   | { ok: true; still: StillCreatedResponse }
@@ -19,6 +19,8 @@ export function sendStill(file: File, fields: UploadFields, onProgress: (fractio
   if (fields.credit) form.set("credit", fields.credit);
   if (fields.technique) form.set("technique", fields.technique);
   if (fields.role) form.set("role", fields.role);
+  if (fields.colourSpace) form.set("colourSpace", fields.colourSpace);
+  if (fields.layer) form.set("layer", fields.layer);
   form.set("file", file, file.name);
 
   const done = new Promise<UploadOutcome>((resolve) => {

@@ -3,6 +3,8 @@
 import { useId } from "react";
 import { Button } from "@/components/ui/button";
 import { describedBy, FieldError, inputClasses } from "@/components/ui/field";
+import type { ExrPreflight } from "@/components/stills/exr-sniff";
+import { UploadColourFields, type ColourChoice } from "@/components/stills/upload-colour-fields";
 import { ALT_MAX } from "@/lib/stills/schemas";
 import { cn } from "@/lib/utils";
 
@@ -16,11 +18,16 @@ export type UploadItem = {
   message?: string;
   /** Set when someone tried to upload without alt text. */
   altPrompted?: boolean;
+  colourSpace: ColourChoice;
+  /** OpenEXR: the layer to show (the file's default when unset). */
+  layer?: string;
+  /** OpenEXR header read in the browser; null: not OpenEXR; undefined: not read yet. */
+  exr?: ExrPreflight | null;
 };
 
 type Props = {
   item: UploadItem;
-  onChange: (patch: Partial<Pick<UploadItem, "alt" | "caption">>) => void;
+  onChange: (patch: Partial<Pick<UploadItem, "alt" | "caption" | "colourSpace" | "layer">>) => void;
   onUpload: () => void;
   onCancel: () => void;
   onRemove: () => void;
@@ -73,6 +80,8 @@ export function UploadRow({ item, onChange, onUpload, onCancel, onRemove }: Prop
           <input id={`${id}-caption`} className={inputClasses} value={item.caption} maxLength={500} disabled={!editable} onChange={(e) => onChange({ caption: e.target.value })} />
         </div>
       </div>
+
+      <UploadColourFields colourSpace={item.colourSpace} layer={item.layer} exr={item.exr} disabled={!editable} onChange={onChange} />
 
       <div className="flex items-center gap-3">
         <progress

@@ -14,7 +14,7 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
   const pairBefore = pairs.map((p) => p.before.id);
   const rank = (s: StillResponse) => (pairBefore.includes(s.id) ? pairBefore.indexOf(s.id) : s.role === "before" ? pairBefore.length : pairBefore.length + 1);
   const stills = all.filter((s) => s.role !== "after").sort((a, b) => rank(a) - rank(b));
-  const labStills = stills.map((s) => ({ id: s.id, alt: s.alt, width: s.width, height: s.height, bitDepth: s.bitDepth }));
+  const labStills = stills.map((s) => ({ id: s.id, alt: s.alt, width: s.width, height: s.height, bitDepth: s.bitDepth, colourSpace: s.colourSpace, format: s.format }));
   return (
     <Card aria-labelledby="parameters-title">
       <CardTitle>

@@ -1,10 +1,28 @@
-import { bigint, index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { bigint, index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./people";
 import { revisions, techniques } from "./techniques";
 
 /** What a still belongs to decides who may see it (lib/auth/permissions.ts). */
 export const stillOwnerEnum = pgEnum("still_owner", ["technique", "use", "trial"]);
 export const stillRoleEnum = pgEnum("still_role", ["before", "after", "reference"]);
+/** What a still's values mean (lib/colour/spaces.ts); declared at upload, fixed afterwards. */
+export const colourSpaceEnum = pgEnum("colour_space", ["srgb", "lin-rec709", "acescg", "aces2065-1", "data"]);
+
+/** What an OpenEXR original holds beyond its pixels: layout, windows, and the layer the still shows. */
+export type ExrSourceRecord = {
+  compression: string;
+  tiled: boolean;
+  parts: number;
+  dataWindow: { xMin: number; yMin: number; xMax: number; yMax: number };
+  displayWindow: { xMin: number; yMin: number; xMax: number; yMax: number };
+  layers: { id: string; label: string; kind: string }[];
+  /** Id of the layer shown (lib/exr/layers.ts), and the one shown when the uploader picks none. */
+  layer: string;
+  defaultLayer: string;
+  /** The colour space the file itself implies (its chromaticities), whatever was declared. */
+  defaultColourSpace: (typeof colourSpaceEnum.enumValues)[number];
+  pixelType: string;
+};
 
 export const stills = pgTable(
   "stills",
@@ -17,6 +35,11 @@ export const stills = pgTable(
     format: text("format").notNull(),
     bitDepth: integer("bit_depth").notNull(),
     channels: integer("channels").notNull(),
+    colourSpace: colourSpaceEnum("colour_space").notNull().default("srgb"),
+    /** Width of a pixel over its height, as the file says (OpenEXR pixelAspectRatio); 1 for square pixels. */
+    pixelAspectRatio: real("pixel_aspect_ratio").notNull().default(1),
+    /** OpenEXR stills only. */
+    exr: jsonb("exr").$type<ExrSourceRecord>(),
     sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
     originalName: text("original_name").notNull().default(""),
     uploaderId: uuid("uploader_id").references(() => users.id, { onDelete: "set null" }),

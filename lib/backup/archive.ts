@@ -51,7 +51,7 @@ export async function createBackup(paths: BackupPaths, archive: string): Promise
     await db.close();
     fs.writeFileSync(path.join(work, DATABASE), Buffer.from(await dump.arrayBuffer()));
     // Stored stills only; temp files of unfinished uploads are not worth keeping.
-    for (const folder of ["originals", "previews", "thumbs"]) {
+    for (const folder of STORED_FOLDERS) {
       const from = path.join(paths.uploadsDir, folder);
       if (fs.existsSync(from)) fs.cpSync(from, path.join(work, UPLOADS, folder), { recursive: true });
     }
@@ -66,6 +66,9 @@ export async function createBackup(paths: BackupPaths, archive: string): Promise
   }
 }
 
+/** The uploads folder's stored files (lib/stills/storage.ts layout): originals and their derived images. */
+const STORED_FOLDERS = ["originals", "previews", "thumbs", "displays"];
+
 function isEmptyDir(dir: string): boolean {
   return !fs.existsSync(dir) || fs.readdirSync(dir).filter((f) => f !== ".gitkeep").length === 0;
 }
@@ -73,7 +76,7 @@ function isEmptyDir(dir: string): boolean {
 /** Restores into an empty data folder (and an empty uploads folder); never over existing data. */
 export async function restoreBackup(archive: string, paths: BackupPaths): Promise<BackupManifest> {
   if (!isEmptyDir(pgDir(paths.dataDir))) throw new Error(`${pgDir(paths.dataDir)} is not empty: restore only into an empty data folder.`);
-  for (const folder of ["originals", "previews", "thumbs"]) {
+  for (const folder of STORED_FOLDERS) {
     if (!isEmptyDir(path.join(paths.uploadsDir, folder))) throw new Error(`${paths.uploadsDir} already holds stills: restore only into an empty uploads folder.`);
   }
   const work = fs.mkdtempSync(path.join(os.tmpdir(), "plateroom-restore-"));

@@ -8,6 +8,17 @@ import {
   type StepReport,
 } from "@/lib/lab/recipe";
 import { codeLut, quantise, quantise8Consuming, quantiser } from "@/lib/lab/srgb";
+import type { ExrOutput } from "@/lib/exr/encode";
+import {
+  colourKey,
+  decodeLabFloat,
+  displayMatrix,
+  encodeLabExr,
+  needsFloatDecode,
+  workingSpace,
+  type LabColour,
+  type StillColour,
+} from "@/lib/stills/lab-source";
 import { releaseSimdRgb, takeSimdRgb } from "@/lib/lab/simd";
 import { megapixels, STILL_PIXEL_LIMIT } from "@/lib/stills/limits";
 import {
@@ -536,7 +547,7 @@ export function applyStep(state: LabState, step: RecipeStep, index: number): Ste
   }
 }
 
-export const CONTENT_TYPES: Record<LabFormat, string> = { png16: "image/png", png: "image/png", webp: "image/webp" };
+export const CONTENT_TYPES: Record<LabFormat, string> = { png16: "image/png", png: "image/png", webp: "image/webp", exr: "image/x-exr" };
 
 /**
  * Encodes the working image. `reuse` may be handed a 16-bit code buffer of the right size that
@@ -609,6 +620,10 @@ export type RunRecipeOptions = {
    */
   decodeCache?: DecodeCache;
   plateKey?: string;
+  /** Colour spaces of the stills and the space picked to work in (lib/stills/lab-source.ts); absent: sRGB-encoded stills. */
+  colour?: LabColour;
+  /** format "exr": sample type and compression. */
+  exr?: ExrOutput;
 };
 
 export type DecodedStill = StillCodes & { sourceWidth: number; sourceHeight: number };
@@ -646,11 +661,18 @@ function toFloats(still: StillCodes, space: LabSpace): Float32Array {
 }
 
 async function decodeCached(bytes: () => Uint8Array | Promise<Uint8Array>, width: number | undefined, space: LabSpace, key: string | undefined,
-  cache: DecodeCache | undefined): Promise<Decoded> {
+  cache: DecodeCache | undefined, colour?: { still: StillColour; working: LabColour["working"] }): Promise<Decoded> {
+  const float = colour && needsFloatDecode(colour.still, space, colour.working);
   // Only proxies are kept: a full-resolution decode is as large as the render it feeds.
-  const k = cache && key && width ? `${key}@${width}:${space}` : null;
+  const k = cache && key && width ? `${key}@${width}:${space}${colour ? `:${colourKey(colour.still, space, colour.working)}` : ""}` : null;
   const hit = k ? cache!.get(k) : undefined;
   if (hit) return { ...hit, source: { kind: "float", data: hit.data, codes8: hit.codes8 }, spare16: null };
+  if (float) {
+    // OpenEXR and colour-converted stills arrive as working-space floats (no 8-bit codes to reuse).
+    const f = await decodeLabFloat(await bytes(), width, space, colour.still, colour.working);
+    if (k) cache!.set(k, { ...f, bits: 16, space });
+    return { ...f, bits: 16, source: { kind: "float", data: f.data }, spare16: null };
+  }
   const still = await decodeStill(await bytes(), width);
   const { sourceWidth, sourceHeight, bits } = still;
   if (k) {
@@ -698,9 +720,10 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?:
   if (grainStepOf && !opts.loadStill) throw new LabInputError(`step ${grainIndex}: no loader for the denoised still`, grainIndex);
   // Both decodes at once: libvips decodes on its own threads.
   const [plateCodes, den] = await Promise.all([
-    decodeCached(() => opts.still, opts.width, space, opts.plateKey, opts.decodeCache),
+    decodeCached(() => opts.still, opts.width, space, opts.plateKey, opts.decodeCache, colourOf(opts.colour, null)),
     grainStepOf
-      ? decodeCached(() => opts.loadStill!(grainStepOf.denoised), opts.width, space, `den:${grainStepOf.denoised}`, opts.decodeCache)
+      ? decodeCached(() => opts.loadStill!(grainStepOf.denoised), opts.width, space, `den:${grainStepOf.denoised}`, opts.decodeCache,
+        colourOf(opts.colour, grainStepOf.denoised))
       : null,
   ]);
   checkAbort(signal);
@@ -742,6 +765,16 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?:
   return { state, plateCodes, reports, decodeMs: t1 - t0, stepsMs: t2 - t1 };
 }
 
+/** A still as the steps read it (codes through a table, or working-space floats), without the proxy cache. */
+export async function decodeSource(bytes: Uint8Array, width: number | undefined, space: LabSpace, colour?: LabColour, id: string | null = null): Promise<Omit<Decoded, "spare16">> {
+  return decodeCached(() => bytes, width, space, undefined, undefined, colourOf(colour, id));
+}
+
+function colourOf(colour: LabColour | undefined, id: string | null): { still: StillColour; working: LabColour["working"] } | undefined {
+  if (!colour) return undefined;
+  return { still: (id && colour.others?.[id]) || colour.plate, working: colour.working };
+}
+
 /** Decodes, runs every step in float32, and encodes. Never writes to the still it was given. */
 export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult> {
   const { space, format, onProgress } = opts;
@@ -749,7 +782,16 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
   const { state, plateCodes, reports, decodeMs, stepsMs } = await decodeAndRun({ ...opts, encode8: format !== "png16" });
   const t2 = performance.now();
   onProgress?.({ done: total - 1, total, label: "encode" });
-  const bytes = await encodeImage(state.cur, state.width, state.height, space, format, plateCodes.spare16 ?? undefined, true, state.tail);
+  const ws = opts.colour ? workingSpace(opts.colour.plate, space, opts.colour.working) : null;
+  let bytes: Buffer;
+  if (format === "exr") {
+    bytes = Buffer.from(await encodeLabExr(state.cur, state.width, state.height, opts.exr ?? { pixelType: "half", compression: "zip" }, space === "linear" ? (ws ?? "lin-rec709") : null));
+  } else {
+    // 8/16-bit encodes show linear results as sRGB: working spaces other than linear Rec.709 are converted first.
+    const toDisplay = displayMatrix(ws);
+    if (toDisplay) matrixInPlace(state.cur, toDisplay);
+    bytes = await encodeImage(state.cur, state.width, state.height, space, format, plateCodes.spare16 ?? undefined, true, state.tail);
+  }
   releaseSimdRgb(state.cur);
   const t3 = performance.now();
   onProgress?.({ done: total, total, label: "done" });

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { LINEAR_SPACES } from "@/lib/colour/spaces";
 
 /*
  * The still lab's recipe: an ordered list of steps run in floating point on one still.
@@ -148,7 +149,14 @@ export const recipeSchema = z
 export type Recipe = z.infer<typeof recipeSchema>;
 
 export const labSpaceSchema = z.enum(["linear", "stored"]);
-export const labFormatSchema = z.enum(["png16", "png", "webp"]);
+/** "exr": the float result as OpenEXR (see `exr`), never clipped. */
+export const labFormatSchema = z.enum(["png16", "png", "webp", "exr"]);
+/** A linear space to work in instead of the still's own (lib/colour/spaces.ts); only with space "linear". */
+export const labWorkingSpaceSchema = z.enum(LINEAR_SPACES, { error: `Working space is one of ${LINEAR_SPACES.join(", ")}.` });
+export const labExrSchema = z.object({
+  pixelType: z.enum(["half", "float"]).default("half"),
+  compression: z.enum(["zip", "none"]).default("zip"),
+});
 export type LabSpace = z.infer<typeof labSpaceSchema>;
 export type LabFormat = z.infer<typeof labFormatSchema>;
 
@@ -159,6 +167,8 @@ export const labRunRequestSchema = z.object({
   steps: recipeSchema,
   /** Proxy render: resize to this width before running. Absent = exact full resolution. */
   width: z.number().int().min(16).max(8192).optional(),
+  workingSpace: labWorkingSpaceSchema.optional(),
+  exr: labExrSchema.optional(),
 });
 export type LabRunRequest = z.infer<typeof labRunRequestSchema>;
 export type LabRunRequestInput = z.input<typeof labRunRequestSchema>;

@@ -4,6 +4,7 @@ import { mkdir, readFile, rename, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { canonicalJson, type LabRunRequest, type StepReport } from "@/lib/lab/recipe";
 import { LabAbortedError, runRecipe, type DecodeCache, type ProxyStill, type DenoisedLoader, type LabProgress } from "@/lib/lab/engine";
+import type { LabColour } from "@/lib/stills/lab-source";
 
 /*
  * Runs lab recipes with a result cache (memory LRU with a byte cap, then an on-disk folder)
@@ -36,6 +37,8 @@ export type LabRunInput = {
   /** Hex sha256 of the still's stored bytes (its content address). */
   stillSha256: string;
   request: LabRunRequest;
+  /** Colour spaces of the stills read (absent: sRGB-encoded); stillSha256 must then also name them. */
+  colour?: LabColour;
   loadStill?: DenoisedLoader;
   onProgress?: (p: LabProgress) => void;
 };
@@ -64,9 +67,9 @@ export type LabRunnerOptions = {
 type Meta = Omit<LabRunOutput, "bytes" | "cached">;
 
 export function labCacheKey(stillSha256: string, request: LabRunRequest): string {
-  const { steps, space, format, width } = request;
+  const { steps, space, format, width, workingSpace, exr } = request;
   return createHash("sha256")
-    .update(canonicalJson({ v: LAB_ENGINE_VERSION, still: stillSha256, steps, space, format, width: width ?? null }))
+    .update(canonicalJson({ v: LAB_ENGINE_VERSION, still: stillSha256, steps, space, format, width: width ?? null, workingSpace, exr: format === "exr" ? exr : undefined }))
     .digest("hex");
 }
 
@@ -195,6 +198,8 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       onProgress: input.onProgress,
       decodeCache,
       plateKey: input.stillSha256,
+      colour: input.colour,
+      exr: input.request.exr,
     });
     // The slot is held until the run has really stopped, so the bound stays honest.
     run.then(release, release);

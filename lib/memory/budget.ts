@@ -19,6 +19,8 @@ export const MEMORY_BUDGET = {
   stillPixels: 256 * MB,
   /** Rendered technique pages kept per person (lib/page-cache/rendered-pages.ts). */
   renderedPages: 64 * MB,
+  /** Decoded OpenEXR stills (float samples) for the pixel probe and display renders (lib/stills/exr.ts). */
+  decodedExr: 256 * MB,
 } as const;
 
 export const MEMORY_BUDGET_TOTAL: number = Object.values(MEMORY_BUDGET).reduce((a, b) => a + b, 0);

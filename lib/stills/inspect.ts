@@ -3,9 +3,11 @@ import crypto from "node:crypto";
 import fs from "node:fs/promises";
 import sharp, { type Metadata } from "sharp";
 import { AppError } from "@/lib/api/errors";
+import { isExr } from "@/lib/exr/header";
 import { decodeStill } from "@/lib/lab/engine";
+import { decodeExrUpload, toExrInfo } from "@/lib/stills/exr";
 import { megapixels, STILL_PIXEL_LIMIT } from "@/lib/stills/limits";
-import type { StillFormat } from "@/lib/stills/schemas";
+import type { StillExrInfo, StillFormat } from "@/lib/stills/schemas";
 import { StripError, stripMetadata } from "@/lib/stills/strip-metadata";
 
 /** Decompression-bomb guard, the same limit the lab opens up to (lib/stills/limits.ts). */
@@ -22,8 +24,11 @@ type StillFacts = {
   bitDepth: 8 | 16 | 32;
   /** 1 grey, 2 grey+alpha, 3 RGB, 4 RGBA. */
   channels: 1 | 2 | 3 | 4;
-  /** libvips interpretation, e.g. srgb, rgb16, b-w, grey16, scrgb. */
+  /** libvips interpretation, e.g. srgb, rgb16, b-w, grey16, scrgb; "exr" for OpenEXR. */
   space: string;
+  pixelAspectRatio: number;
+  /** OpenEXR: layout, layers and the colour space its chromaticities name. */
+  exr?: StillExrInfo;
 };
 
 const ALLOWED_SPACES: Record<string, "grey" | "rgb"> = {
@@ -37,7 +42,7 @@ const ALLOWED_SPACES: Record<string, "grey" | "rgb"> = {
 
 const DEPTH_BITS: Record<string, 8 | 16 | 32> = { uchar: 8, ushort: 16, float: 32 };
 
-const ALLOWED_LIST = "PNG, JPEG, TIFF or WebP";
+const ALLOWED_LIST = "PNG, JPEG, TIFF, WebP or OpenEXR";
 
 /**
  * The format the first bytes say, before any decoder sees them. Anything else (SVG, HTML,
@@ -53,6 +58,7 @@ function sniffFormat(head: Uint8Array): StillFormat | null {
   if (at(0) === 0x4d && at(1) === 0x4d && at(2) === 0 && (at(3) === 0x2a || at(3) === 0x2b)) return "tiff";
   const ascii = (from: number, to: number) => String.fromCharCode(...Array.from(head.subarray(from, to)));
   if (head.length >= 12 && ascii(0, 4) === "RIFF" && ascii(8, 12) === "WEBP") return "webp";
+  if (isExr(head)) return "exr";
   return null;
 }
 
@@ -97,12 +103,14 @@ function decodeFailure(error: unknown): AppError {
  * and decodes every pixel once so truncated or corrupt files are refused now rather than
  * at first view. Throws AppError 400 (empty, damaged), 413 (too many pixels) or 415 (type).
  */
-export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
+export async function inspectStill(file: string | Buffer, options: { layer?: string; sha256?: string; root?: string } = {}): Promise<StillFacts> {
   if ((await sizeOf(file)) === 0) {
     throw new AppError("validation_failed", "The file is empty.", { fields: { file: "The file is empty." } });
   }
   const sniffed = sniffFormat(await readHead(file));
   if (!sniffed) throw new AppError("unsupported_type", `This is not a ${ALLOWED_LIST} image. Plateroom checks the file's content, not its name.`);
+  if (sniffed === "exr") return inspectExrStill(file, options);
+  if (options.layer) throw new AppError("validation_failed", "Only OpenEXR files have layers to choose from.", { fields: { layer: "Leave empty for this file." } });
 
   let meta: Metadata;
   try {
@@ -145,21 +153,39 @@ export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
   } catch (error) {
     throw new AppError("unsupported_type", "The still lab cannot open this image; export it as 8- or 16-bit RGB or grey.", { cause: error });
   }
-  return { format: sniffed, width, height, bitDepth, channels: channels, space: meta.space ?? "srgb" };
+  return { format: sniffed, width, height, bitDepth, channels: channels, space: meta.space ?? "srgb", pixelAspectRatio: 1 };
+}
+
+/** OpenEXR: the header, layout and every chunk checked, then every sample of the chosen layer decoded. */
+async function inspectExrStill(file: string | Buffer, options: { layer?: string; sha256?: string; root?: string }): Promise<StillFacts> {
+  const bytes = Buffer.isBuffer(file) ? file : await fs.readFile(file);
+  const decoded = decodeExrUpload(bytes, { layer: options.layer, sha256: options.sha256, root: options.root, maxPixels: PIXEL_LIMIT });
+  const { info } = decoded;
+  return {
+    format: "exr",
+    width: decoded.width,
+    height: decoded.height,
+    bitDepth: info.pixelType === "half" ? 16 : 32,
+    channels: decoded.channels,
+    space: "exr",
+    pixelAspectRatio: info.pixelAspectRatio,
+    exr: toExrInfo(decoded),
+  };
 }
 
 type PreparedOriginal = { facts: StillFacts; path: string; sha256: string; size: number };
 
 /**
- * The original as it will be stored: identifying metadata removed (lib/stills/strip-metadata.ts),
- * then checked like any upload. Writes the cleaned bytes to `target` (a fresh incoming path,
- * created here); the caller owns it. A file whose structure cannot be taken apart is refused
- * with the message its decode gives, or 415 if it decodes.
+ * The original as it will be stored: identifying metadata removed (lib/stills/strip-metadata.ts;
+ * OpenEXR: header attributes, lib/exr/rewrite.ts), then checked like any upload. Writes the
+ * cleaned bytes to `target` (a fresh incoming path, created here); the caller owns it. A file
+ * whose structure cannot be taken apart is refused with the message its decode gives, or 415 if
+ * it decodes. `layer` picks an OpenEXR layer.
  */
-export async function prepareOriginal(file: string, target: string): Promise<PreparedOriginal> {
+export async function prepareOriginal(file: string, target: string, options: { layer?: string; root?: string } = {}): Promise<PreparedOriginal> {
   const sniffed = sniffFormat(await readHead(file));
   if (!sniffed) {
-    await inspectStill(file);
+    await inspectStill(file, options);
     throw new AppError("unsupported_type", `This is not a ${ALLOWED_LIST} image.`);
   }
   let cleaned: Buffer;
@@ -167,10 +193,12 @@ export async function prepareOriginal(file: string, target: string): Promise<Pre
     cleaned = stripMetadata(await fs.readFile(file), sniffed);
   } catch (error) {
     if (!(error instanceof StripError)) throw error;
-    await inspectStill(file);
+    await inspectStill(file, options);
     throw new AppError("unsupported_type", "Plateroom cannot take this file's metadata apart from its pixels; export it again as a plain file.", { cause: error });
   }
-  const facts = await inspectStill(cleaned);
+  const sha256 = crypto.createHash("sha256").update(cleaned).digest("hex");
+  // The hash lets an OpenEXR decode made here serve the previews made next (lib/stills/exr.ts).
+  const facts = await inspectStill(cleaned, { ...options, sha256 });
   await fs.writeFile(target, cleaned, { flag: "wx", mode: 0o600 });
-  return { facts, path: target, sha256: crypto.createHash("sha256").update(cleaned).digest("hex"), size: cleaned.length };
+  return { facts, path: target, sha256, size: cleaned.length };
 }

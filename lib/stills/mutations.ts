@@ -21,7 +21,9 @@ import {
   type StillPairResponse,
   type StillRole,
 } from "@/lib/stills/schemas";
-import { ensureDerived, newIncomingPath, removeStored, storeOriginal } from "@/lib/stills/storage";
+import { defaultColourSpace } from "@/lib/stills/colour-default";
+import { ensureDerived, lookOf } from "@/lib/stills/display";
+import { newIncomingPath, removeStored, storeOriginal } from "@/lib/stills/storage";
 
 type CreateStillInput = {
   /** A received upload: temp file path, its sha256 and size. createStill consumes the file. */
@@ -34,6 +36,10 @@ type CreateStillInput = {
   role?: StillRole;
   /** Default: "technique" when a technique is named, else "trial". */
   owner?: StillOwner;
+  /** Declared colour space, or "auto"/absent for the format's default. */
+  colourSpace?: string;
+  /** OpenEXR: the layer to show. */
+  layer?: string;
 };
 
 /**
@@ -70,6 +76,8 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
       technique: input.technique,
       role: input.role,
       owner: input.owner,
+      colourSpace: input.colourSpace,
+      layer: input.layer,
     });
     const owner: StillOwner = fields.owner ?? (fields.technique ? "technique" : "trial");
     assertCan(user, owner === "technique" ? "still:upload" : "still:upload-trial");
@@ -77,13 +85,15 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
       throw new AppError("validation_failed", "Name the technique this still belongs to.", { fields: { technique: "Required for technique stills." } });
     }
     const technique = fields.technique ? (await requireVisibleTechnique(user, fields.technique)).technique : null;
-    const { facts, ...stored } = await prepareOriginal(input.file.path, cleanPath);
+    const { facts, ...stored } = await prepareOriginal(input.file.path, cleanPath, { layer: fields.layer, root: options.root });
+    const colourSpace = fields.colourSpace ?? defaultColourSpace(facts);
+    const exr = facts.exr ?? null;
 
     return await withHashLock(stored.sha256, async () => {
       await storeOriginal(stored.path, stored.sha256, options.root);
       let row: Still;
       try {
-        await ensureDerived(stored.sha256, options.root);
+        await ensureDerived({ sha256: stored.sha256, format: facts.format, bitDepth: facts.bitDepth, colourSpace, exr }, options.root);
         row = await getDb().transaction(async (tx) => {
           const [inserted] = await tx
             .insert(stills)
@@ -94,6 +104,9 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
               format: facts.format,
               bitDepth: facts.bitDepth,
               channels: facts.channels,
+              colourSpace,
+              pixelAspectRatio: facts.pixelAspectRatio,
+              exr,
               sizeBytes: stored.size,
               originalName: input.file.originalName ?? "",
               uploaderId: user.id,
@@ -111,14 +124,14 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
             action: "still.upload",
             targetType: "still",
             targetId: inserted.id,
-            detail: { owner, techniqueId: technique?.id ?? null, sha256: stored.sha256, sizeBytes: stored.size },
+            detail: { owner, techniqueId: technique?.id ?? null, sha256: stored.sha256, sizeBytes: stored.size, colourSpace },
           });
           return inserted;
         });
       } catch (error) {
         // Leave no file behind that no row points at; a shared file stays for its other rows.
         const inUse = await referencedHashes([stored.sha256]).catch(() => new Set([stored.sha256]));
-        if (!inUse.has(stored.sha256)) await removeStored(stored.sha256, options.root);
+        if (!inUse.has(stored.sha256)) await removeStored(stored.sha256, options.root, lookOf({ format: facts.format, bitDepth: facts.bitDepth, colourSpace, exr }));
         throw error;
       }
       return {
@@ -129,6 +142,9 @@ export async function createStill(user: SessionUser, input: CreateStillInput, op
         bitDepth: row.bitDepth,
         sha256: row.sha256,
         channels: row.channels,
+        colourSpace: row.colourSpace,
+        pixelAspectRatio: row.pixelAspectRatio,
+        exr: row.exr ?? null,
       };
     });
   } finally {

@@ -4,7 +4,10 @@ import sharp from "sharp";
 import { AppError } from "@/lib/api/errors";
 import type { Still } from "@/db/schema";
 import { PIXEL_LIMIT } from "@/lib/stills/inspect";
-import type { PixelResponse } from "@/lib/stills/schemas";
+import type { ColourSpace } from "@/lib/colour/spaces";
+import { srgbDecodeExt } from "@/lib/lab/srgb";
+import { readExrStill } from "@/lib/stills/exr";
+import type { PixelBlockResponse, PixelResponse } from "@/lib/stills/schemas";
 import { variantPath } from "@/lib/stills/storage";
 import { MEMORY_BUDGET } from "@/lib/memory/budget";
 
@@ -48,11 +51,37 @@ async function decode(still: Pick<Still, "sha256" | "bitDepth" | "channels">, ro
   return decoded;
 }
 
-/** The stored value of every channel at (x, y), as code values and as 0..1. */
+/** The colour channels of stored 0..1 values in linear light of the still's space (alpha left out). */
+function linearOfValues(space: ColourSpace, floats: number[]): number[] | null {
+  if (space === "data") return null;
+  const colour = floats.length === 2 ? 1 : floats.length === 4 ? 3 : floats.length;
+  return floats.slice(0, colour).map((v) => (space === "srgb" ? srgbDecodeExt(v) : v));
+}
+
+/** The stored value of every channel at (x, y), as code values and as 0..1, and in linear light. */
 export async function readPixel(still: Still, x: number, y: number, options: { root?: string } = {}): Promise<PixelResponse> {
   if (x >= still.width || y >= still.height) throw new AppError("validation_failed", `The still is ${still.width}×${still.height}; (${x}, ${y}) is outside it.`);
+  if (still.format === "exr") {
+    const d = await readExrStill(still, { maxPixels: PIXEL_LIMIT, root: options.root });
+    const start = (y * d.width + x) * d.channels;
+    const values = Array.from(d.data.subarray(start, start + d.channels));
+    return { x, y, bitDepth: still.bitDepth, max: 1, values, floats: values, space: still.colourSpace, linear: linearOfValues(still.colourSpace, values) };
+  }
   const d = await decode(still, options.root);
   const start = (y * d.width + x) * d.channels;
   const values = Array.from(d.data.subarray(start, start + d.channels));
-  return { x, y, bitDepth: still.bitDepth, max: d.max, values, floats: values.map((v) => v / d.max) };
+  const floats = values.map((v) => v / d.max);
+  return { x, y, bitDepth: still.bitDepth, max: d.max, values, floats, space: still.colourSpace, linear: linearOfValues(still.colourSpace, floats) };
+}
+
+/** Every stored value (as 0..1 floats) of a block of pixels, row by row. */
+export async function readPixelBlock(still: Still, x: number, y: number, w: number, h: number, options: { root?: string } = {}): Promise<PixelBlockResponse> {
+  if (x + w > still.width || y + h > still.height) throw new AppError("validation_failed", `The still is ${still.width}×${still.height}; the block (${x}, ${y}) ${w}×${h} reaches outside it.`);
+  const d = still.format === "exr" ? { ...(await readExrStill(still, { maxPixels: PIXEL_LIMIT, root: options.root })), max: 1 } : await decode(still, options.root);
+  const floats: number[] = [];
+  for (let row = y; row < y + h; row++) {
+    const start = (row * d.width + x) * d.channels;
+    for (const v of d.data.subarray(start, start + w * d.channels)) floats.push(v / d.max);
+  }
+  return { x, y, width: w, height: h, channels: d.channels, space: still.colourSpace, floats };
 }

@@ -40,3 +40,16 @@ export function valuesFromRgba(rgba: ArrayLike<number>, index: number, channels:
 export function formatFloat(value: number, max: number): string {
   return (value / max).toFixed(max > 255 ? 6 : 4);
 }
+
+/**
+ * A float sample with the digits that matter: up to 7 significant digits (float32 holds about
+ * 7.2), exponent form for very large or very small magnitudes, so values above 1 and below 0
+ * read as they are.
+ */
+export function formatSample(value: number): string {
+  if (!Number.isFinite(value)) return String(value);
+  if (value === 0) return Object.is(value, -0) ? "-0" : "0";
+  const a = Math.abs(value);
+  if (a >= 1e6 || a < 1e-4) return value.toExponential(5);
+  return String(Number(value.toPrecision(7)));
+}

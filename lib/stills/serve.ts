@@ -4,19 +4,23 @@ import fsp from "node:fs/promises";
 import { Readable } from "node:stream";
 import type { Still } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
+import { DEFAULT_DISPLAY, type DisplayOptions } from "@/lib/colour/display";
 import type { StillVariant } from "@/lib/stills/schemas";
-import { ensureDerived, exists, variantPath } from "@/lib/stills/storage";
+import { browserShowsOriginal, derivedPath, ensureDerived, lookOf, renderDisplay } from "@/lib/stills/display";
+import { exists, variantPath } from "@/lib/stills/storage";
 
 const ORIGINAL_TYPES: Record<string, { type: string; ext: string }> = {
   png: { type: "image/png", ext: "png" },
   jpeg: { type: "image/jpeg", ext: "jpg" },
   tiff: { type: "image/tiff", ext: "tif" },
   webp: { type: "image/webp", ext: "webp" },
+  exr: { type: "image/x-exr", ext: "exr" },
 };
 
-/** Strong validator: the bytes of a variant are fixed by the content hash. */
-function stillEtag(sha256: string, variant: StillVariant): string {
-  return `"${sha256}-${variant}"`;
+/** Strong validator: the bytes of a variant are fixed by the content hash, the look and the display options. */
+function stillEtag(sha256: string, variant: StillVariant, look = "", display: DisplayOptions = DEFAULT_DISPLAY): string {
+  const shown = display.exposure !== 0 || display.view !== "image" ? `-${display.exposure}-${display.view}` : "";
+  return `"${sha256}-${variant}${look ? `-${look}` : ""}${shown}"`;
 }
 
 /** If-None-Match uses the weak comparison (RFC 9110 §13.1.2), so a W/ prefix still matches. */
@@ -31,22 +35,34 @@ function etagMatches(header: string | null, etag: string): boolean {
  * no-store; nosniff; a content type from the content check, never from the upload; a
  * generated file name (the uploader's name never reaches a header).
  */
-export async function serveStillFile(req: Request, still: Still, variant: StillVariant, options: { root?: string } = {}): Promise<Response> {
-  const kind = variant === "original" ? ORIGINAL_TYPES[still.format] : { type: "image/webp", ext: "webp" };
+export async function serveStillFile(req: Request, still: Still, variant: StillVariant, options: { root?: string; display?: DisplayOptions } = {}): Promise<Response> {
+  // A still the browser shows as stored has no separate full-size display image: it is the original.
+  if (variant === "display" && browserShowsOriginal(still)) variant = "original";
+  const display = options.display ?? DEFAULT_DISPLAY;
+  const custom = variant !== "original" && (display.exposure !== 0 || display.view !== "image");
+  const kind = variant === "original" ? ORIGINAL_TYPES[still.format] : variant === "display" ? { type: "image/png", ext: "png" } : { type: "image/webp", ext: "webp" };
   if (!kind) throw new AppError("internal", undefined, { cause: new Error(`Unknown stored format ${still.format}`) });
-  const file = variantPath(still.sha256, variant, options.root);
-  if (variant !== "original" && !(await exists(file))) {
-    // Derived files are remade from the original if a crash or a sweep lost them.
+  const file = variant === "original" ? variantPath(still.sha256, variant, options.root) : derivedPath(still, variant, options.root);
+  if (variant !== "original" && (custom || !(await exists(file)))) {
     if (!(await exists(variantPath(still.sha256, "original", options.root)))) throw missing(still);
-    await ensureDerived(still.sha256, options.root);
+    // Derived files are remade from the original if a crash or a sweep lost them.
+    if (!custom) await ensureDerived(still, options.root);
   }
-  const etag = stillEtag(still.sha256, variant);
+  const etag = stillEtag(still.sha256, variant, variant === "original" ? "" : lookOf(still), variant === "original" ? DEFAULT_DISPLAY : display);
   const headers = new Headers({
     "Cache-Control": "private, no-store",
     "X-Content-Type-Options": "nosniff",
     ETag: etag,
   });
   if (etagMatches(req.headers.get("if-none-match"), etag)) return new Response(null, { status: 304, headers });
+  if (custom) {
+    // Other exposures and the range view are rendered for this request only.
+    const bytes = await renderDisplay(still, variant as Exclude<StillVariant, "original">, display, options.root);
+    headers.set("Content-Type", kind.type);
+    headers.set("Content-Length", String(bytes.length));
+    headers.set("Content-Disposition", `inline; filename="still-${still.id}-${variant}.${kind.ext}"`);
+    return new Response(new Uint8Array(bytes), { status: 200, headers });
+  }
   const stat = await fsp.stat(file).catch(() => null);
   if (!stat) throw missing(still);
   headers.set("Content-Type", kind.type);

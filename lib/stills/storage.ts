@@ -2,23 +2,24 @@ import "server-only";
 import crypto from "node:crypto";
 import fs from "node:fs/promises";
 import path from "node:path";
-import sharp from "sharp";
 import { env } from "@/lib/env";
-import { PIXEL_LIMIT } from "@/lib/stills/inspect";
 import type { StillVariant } from "@/lib/stills/schemas";
 
 /**
  * Content-addressed file store under PLATEROOM_UPLOADS_DIR (outside the web root; OWASP
  * File Upload Cheat Sheet, "rename on store"):
- *   originals/ab/<sha256>.bin   the uploaded bytes less identifying metadata (strip-metadata.ts)
+ *   originals/ab/<sha256>.bin   the uploaded bytes less identifying metadata (strip-metadata.ts; OpenEXR: lib/exr/rewrite.ts)
  *   previews/ab/<sha256>.webp   longest side ≤ 2048, metadata stripped
  *   thumbs/ab/<sha256>.webp     longest side ≤ 400, metadata stripped
+ *   displays/ab/<sha256>.png    full resolution, 8-bit, for stills a browser cannot show as stored
+ *   derived files of a still shown through the display transform carry a look:
+ *   <sha256>.<look>.webp|png, the look naming its colour space and layer (lib/stills/display.ts)
  *   tmp/                        uploads being received (same filesystem, so rename is atomic)
  * Every function takes the root as a parameter (tests use a temporary folder).
  */
 
-const PREVIEW_MAX = 2048;
-const THUMB_MAX = 400;
+export const PREVIEW_MAX = 2048;
+export const THUMB_MAX = 400;
 const SHA_RE = /^[0-9a-f]{64}$/;
 
 export function uploadsRoot(root?: string): string {
@@ -30,12 +31,18 @@ function assertSha(sha: string): void {
   if (!SHA_RE.test(sha)) throw new Error("Not a sha256 hex digest.");
 }
 
-export function variantPath(sha: string, variant: StillVariant, root?: string): string {
+const LOOK_RE = /^[a-z0-9-]{1,80}$/;
+
+/** `look`: empty for stills shown as stored; otherwise a short name of how they are shown. */
+export function variantPath(sha: string, variant: StillVariant, root?: string, look = ""): string {
   assertSha(sha);
+  if (look && !LOOK_RE.test(look)) throw new Error("Not a look name.");
   const base = uploadsRoot(root);
   const shard = sha.slice(0, 2);
   if (variant === "original") return path.join(base, "originals", shard, `${sha}.bin`);
-  return path.join(base, variant === "preview" ? "previews" : "thumbs", shard, `${sha}.webp`);
+  const name = look ? `${sha}.${look}` : sha;
+  if (variant === "display") return path.join(base, "displays", shard, `${name}.png`);
+  return path.join(base, variant === "preview" ? "previews" : "thumbs", shard, `${name}.webp`);
 }
 
 function incomingDir(root?: string): string {
@@ -75,7 +82,7 @@ export async function exists(p: string): Promise<boolean> {
 }
 
 /** Writes bytes atomically: a temp file in the target's own folder, fsync, rename, fsync the folder. */
-async function writeFileAtomic(target: string, data: Uint8Array): Promise<void> {
+export async function writeFileAtomic(target: string, data: Uint8Array): Promise<void> {
   const dir = path.dirname(target);
   await fs.mkdir(dir, { recursive: true, mode: 0o700 });
   const temp = path.join(dir, `.${path.basename(target)}.${crypto.randomUUID()}.tmp`);
@@ -117,29 +124,16 @@ export async function storeOriginal(incoming: string, sha: string, root?: string
   return { created: true };
 }
 
-/**
- * Makes the preview and thumbnail once (skipped when present). sharp writes no metadata
- * unless asked (withMetadata/keepMetadata), so EXIF, XMP and ICC profiles are dropped; the
- * pixels are converted to sRGB for display. Orientation tags are not applied, so preview
- * pixels line up with the stored original the lab and the pixel probe read.
- */
-export async function ensureDerived(sha: string, root?: string): Promise<void> {
-  const original = variantPath(sha, "original", root);
-  for (const [variant, max] of [
-    ["preview", PREVIEW_MAX],
-    ["thumb", THUMB_MAX],
-  ] as const) {
-    const target = variantPath(sha, variant, root);
-    if (await exists(target)) continue;
-    const data = await sharp(original, { limitInputPixels: PIXEL_LIMIT })
-      .resize({ width: max, height: max, fit: "inside", withoutEnlargement: true })
-      .webp({ quality: variant === "thumb" ? 80 : 90 })
-      .toBuffer();
-    await writeFileAtomic(target, data);
-  }
-}
 
-/** Removes the original and derived files of one hash (callers first check no row refers to it). */
-export async function removeStored(sha: string, root?: string): Promise<void> {
-  await Promise.all((["original", "preview", "thumb"] as const).map((v) => fs.rm(variantPath(sha, v, root), { force: true })));
+/**
+ * Removes the original and derived files of one hash — plain and under `look` (callers first
+ * check no row refers to the hash, so no other look of it can be in use).
+ */
+export async function removeStored(sha: string, root?: string, look = ""): Promise<void> {
+  const files = [variantPath(sha, "original", root)];
+  for (const variant of ["preview", "thumb", "display"] as const) {
+    files.push(variantPath(sha, variant, root));
+    if (look) files.push(variantPath(sha, variant, root, look));
+  }
+  await Promise.all(files.map((f) => fs.rm(f, { force: true })));
 }

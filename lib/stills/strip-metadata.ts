@@ -1,4 +1,6 @@
 import "server-only";
+import { ExrFormatError } from "@/lib/exr/header";
+import { cleanExrHeader } from "@/lib/exr/rewrite";
 import type { StillFormat } from "@/lib/stills/schemas";
 
 /*
@@ -7,7 +9,8 @@ import type { StillFormat } from "@/lib/stills/schemas";
  * of the parts that carry pixels or colour (ICC profile, gamma, chromaticities, bit depth,
  * sample layout), copied byte for byte; everything else — EXIF (with GPS and camera), XMP, IPTC,
  * comments, text chunks, TIFF tags naming people, places or software, embedded thumbnails and
- * bytes after the image's end — is left out. Pixel data is never re-encoded, so the decoded
+ * bytes after the image's end — is left out; an OpenEXR header keeps only the attributes that
+ * describe layout and colour (lib/exr/rewrite.ts). Pixel data is never re-encoded, so the decoded
  * values stay exactly as uploaded.
  */
 
@@ -28,6 +31,8 @@ export function stripMetadata(bytes: Buffer, format: StillFormat): Buffer {
       return stripTiff(bytes);
     case "webp":
       return stripWebp(bytes);
+    case "exr":
+      return stripExr(bytes);
   }
 }
 
@@ -278,4 +283,18 @@ function stripWebp(bytes: Buffer): Buffer {
   const header = Buffer.from("RIFF\0\0\0\0WEBP", "latin1");
   header.writeUInt32LE(4 + body.length, 4);
   return Buffer.concat([header, body]);
+}
+
+// ---- OpenEXR (OpenEXR File Layout; the kept attributes are lib/exr/rewrite.ts KEPT_ATTRIBUTES) ----
+
+/** Owner, comments, capture time and place, camera serials and programs' own attributes go; chunks are copied as they are. */
+function stripExr(bytes: Buffer): Buffer {
+  try {
+    const cleaned = cleanExrHeader(bytes);
+    return Buffer.from(cleaned.buffer, cleaned.byteOffset, cleaned.byteLength);
+  } catch (error) {
+    // A header that cannot be taken apart: the caller lets the decode name what is wrong.
+    if (error instanceof ExrFormatError) throw new StripError(error.message);
+    throw error;
+  }
 }

@@ -39,13 +39,14 @@ async function sweepOrphans(options: {
   const base = uploadsRoot(options.root);
   const cutoff = (options.now ?? Date.now()) - (options.graceMs ?? SWEEP_GRACE_MS);
   const files: { file: string; sha: string | null; mtime: number }[] = [];
-  for (const folder of ["originals", "previews", "thumbs"]) {
+  for (const folder of ["originals", "previews", "thumbs", "displays"]) {
     for (const shard of await listDir(path.join(base, folder))) {
       for (const name of await listDir(path.join(base, folder, shard))) {
         const file = path.join(base, folder, shard, name);
         const stat = await fs.stat(file).catch(() => null);
         if (!stat?.isFile()) continue;
-        const match = /^([0-9a-f]{64})\.(bin|webp)$/.exec(name);
+        // Derived files may carry a look between hash and extension (lib/stills/display.ts).
+        const match = /^([0-9a-f]{64})(?:\.[a-z0-9-]{1,80})?\.(bin|webp|png)$/.exec(name);
         files.push({ file, sha: match?.[1] ?? null, mtime: stat.mtimeMs });
       }
     }

@@ -15,7 +15,7 @@ import { newIncomingPath } from "@/lib/stills/storage";
 const FORM_OVERHEAD = 64 * 1024;
 /** The most body bytes an upload request may declare: the file limit plus the form around it. */
 export const MAX_UPLOAD_BODY_BYTES = env.PLATEROOM_MAX_UPLOAD_BYTES + FORM_OVERHEAD;
-const TEXT_FIELDS = ["alt", "caption", "credit", "technique", "role", "owner"] as const;
+const TEXT_FIELDS = ["alt", "caption", "credit", "technique", "role", "owner", "colourSpace", "layer"] as const;
 
 type ReceivedFile = { path: string; sha256: string; size: number; originalName: string };
 type ReceivedUpload = { file: ReceivedFile; fields: Record<string, string> };

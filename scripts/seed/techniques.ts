@@ -4,6 +4,7 @@ import crypto from "node:crypto";
 import { inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { users } from "@/db/schema";
+import { generateExrPlatePair } from "@/scripts/seed/data/exr-plate";
 import { DEMO_TECHNIQUES, type DemoTechnique } from "@/scripts/seed/data/techniques";
 import type { SessionUser } from "@/lib/auth/roles";
 import { runRecipe } from "@/lib/lab/engine";
@@ -27,12 +28,22 @@ const WITH_STILLS: Record<string, { screen: "green" | "blue"; seed: number }> = 
 };
 const STILL_WIDTH = 1280;
 const STILL_HEIGHT = 720;
+/** Techniques that get the generated scene-linear OpenEXR pair (db/seed-data/exr-plate.ts). */
+const WITH_EXR_PAIR = new Set(["wire-removal-by-offset-strip"]);
 
-async function storeStill(actor: SessionUser, bytes: Buffer, fields: { technique: string; alt: string; caption: string; role: "before" | "after" | "reference" }) {
+async function storeStill(actor: SessionUser, bytes: Uint8Array, fields: { technique: string; alt: string; caption: string; role: "before" | "after" | "reference" }, ext = "png") {
   const path = await newIncomingPath();
   await fs.writeFile(path, bytes);
   const sha256 = crypto.createHash("sha256").update(bytes).digest("hex");
-  return createStill(actor, { file: { path, sha256, size: bytes.length, originalName: `${fields.role}.png` }, ...fields, owner: "technique", credit: "Generated demo plate (synthetic)" });
+  return createStill(actor, { file: { path, sha256, size: bytes.length, originalName: `${fields.role}.${ext}` }, ...fields, owner: "technique", credit: "Generated demo plate (synthetic)" });
+}
+
+/** The linear OpenEXR before/after pair (ACEScg, half float): a sky with a lamp above 1 and a wire, then without it. */
+async function attachExrPair(author: SessionUser, slug: string): Promise<void> {
+  const pair = await generateExrPlatePair();
+  const before = await storeStill(author, pair.before, { technique: slug, alt: "Synthetic dusk sky in linear light with a bright lamp and a safety wire sagging across it", caption: "Plate: OpenEXR, ACEScg, half float", role: "before" }, "exr");
+  const after = await storeStill(author, pair.after, { technique: slug, alt: "The same sky with the wire removed, grain kept", caption: "After: wire filled from the sky beside it", role: "after" }, "exr");
+  await createPair(author, { technique: slug, before: before.id, after: after.id, caption: "Scene-linear plate: wire removed; the lamp stays far above 1" });
 }
 
 /**
@@ -88,6 +99,7 @@ export async function seedTechniques(log: (line: string) => void): Promise<void>
       const recipe = await attachGeneratedStills(author, slug, stills);
       ({ slug, revision } = await updateTechnique(author, slug, { title: t.title, summary: t.summary, aliases: t.aliases, tags: t.tags, body: t.body, recipe, baseRevision: revision, changeNote: "Added the runnable recipe and the before/after stills." }));
     }
+    if (WITH_EXR_PAIR.has(t.key)) await attachExrPair(author, slug);
     if (t.lifecycle === "in-review") await submitTechnique(author, slug);
     if (t.lifecycle === "approved" || t.lifecycle === "in-review-edit" || t.lifecycle === "retired-superseded") await approve(slug);
     if (t.houseMethodFor) await setHouseMethod(lead, t.houseMethodFor, slug);

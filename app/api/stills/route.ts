@@ -23,6 +23,8 @@ export const POST = authedRoute({ bodyLimit: MAX_UPLOAD_BODY_BYTES }, async (req
       technique: fields.technique,
       role: fields.role as StillRole | undefined,
       owner: fields.owner as StillOwner | undefined,
+      colourSpace: fields.colourSpace,
+      layer: fields.layer,
     });
     return Response.json(created satisfies StillCreatedResponse, { status: 201 });
   } finally {

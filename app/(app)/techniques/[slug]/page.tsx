@@ -43,10 +43,6 @@ export default async function TechniquePage({ params }: Props) {
           <Card>
             <RenderedBody doc={t.body} html={body.html} />
           </Card>
-          <TechniqueEvidence user={user} technique={t} />
-          <TechniqueLabSection user={user} technique={t} />
-          <TechniqueShots user={user} technique={t} />
-          <QuestionsSection slug={t.slug} canAsk />
         </div>
         <aside className="space-y-4" aria-label="About this technique">
           <Card>
@@ -73,6 +69,13 @@ export default async function TechniquePage({ params }: Props) {
             </Card>
           ) : null}
         </aside>
+      </div>
+      {/* The compare view takes the page's full width: stills need the room more than the sidebar. */}
+      <TechniqueEvidence user={user} technique={t} />
+      <div className="space-y-6">
+        <TechniqueLabSection user={user} technique={t} />
+        <TechniqueShots user={user} technique={t} />
+        <QuestionsSection slug={t.slug} canAsk />
       </div>
     </article>
   );

@@ -1,5 +1,6 @@
 import "server-only";
-import { applyStep, codesSource, createLabState, decodeStill, LabInputError, type PixelSource } from "@/lib/lab/engine";
+import { applyStep, createLabState, decodeSource, LabInputError, type PixelSource } from "@/lib/lab/engine";
+import type { LabColour } from "@/lib/stills/lab-source";
 import type { FloatImage } from "@/lib/lab/analysis";
 import type { LabSpace, RecipeStep, StepReport } from "@/lib/lab/recipe";
 
@@ -31,10 +32,11 @@ export async function runToFloat(opts: {
   space: LabSpace;
   width?: number;
   loadStill: (id: string) => Promise<Uint8Array>;
+  colour?: LabColour;
 }): Promise<FloatRun> {
-  const codes = await decodeStill(opts.still, opts.width);
+  const codes = await decodeSource(opts.still, opts.width, opts.space, opts.colour);
   const { width, height } = codes;
-  const plate = codesSource(codes, opts.space);
+  const plate = codes.source;
   const before: FloatImage = { width, height, data: toFloat(plate, width * height) };
   const meta = { sourceWidth: codes.sourceWidth, sourceHeight: codes.sourceHeight };
   if (!opts.steps.length) return { before, after: null, reports: [], ...meta };
@@ -42,11 +44,11 @@ export async function runToFloat(opts: {
   const grainIndex = opts.steps.findIndex((s) => s.op === "grain");
   if (grainIndex >= 0) {
     const step = opts.steps[grainIndex] as Extract<RecipeStep, { op: "grain" }>;
-    const den = await decodeStill(await opts.loadStill(step.denoised), opts.width);
+    const den = await decodeSource(await opts.loadStill(step.denoised), opts.width, opts.space, opts.colour, step.denoised);
     if (den.width !== width || den.height !== height) {
       throw new LabInputError(`step ${grainIndex}: the denoised still is not the plate's size`, grainIndex);
     }
-    base = codesSource(den, opts.space);
+    base = den.source;
   }
   const state = createLabState({ width, height, plate, base, scale: codes.sourceWidth / width });
   const reports: StepReport[] = [];

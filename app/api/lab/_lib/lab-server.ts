@@ -6,7 +6,9 @@ import { AppError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
 import { env } from "@/lib/env";
 import { LabInputError } from "@/lib/lab/engine";
-import type { RecipeStep } from "@/lib/lab/recipe";
+import type { LabSpace, RecipeStep } from "@/lib/lab/recipe";
+import type { LinearSpace } from "@/lib/colour/spaces";
+import { colourKey, type LabColour, type StillColour } from "@/lib/stills/lab-source";
 import { LabBusyError, LabTimeoutError } from "@/lib/lab/runner";
 import { getStillForRead } from "@/lib/stills/queries";
 import { variantPath } from "@/lib/stills/storage";
@@ -18,13 +20,26 @@ import { variantPath } from "@/lib/stills/storage";
 
 const uuid = z.string().uuid();
 
-export type LabStill = { id: string; sha256: string; width: number; height: number; bitDepth: number };
+export type LabStill = { id: string; sha256: string; width: number; height: number; bitDepth: number; colour: StillColour };
 
 /** The still if this person may read it; a malformed id is the same 404 as a missing one. */
 export async function readableStill(user: SessionUser, id: string, field = "still"): Promise<LabStill> {
   if (!uuid.safeParse(id).success) throw new AppError("not_found", "No still at this address.", { fields: { [field]: "No such still." } });
   const s = await getStillForRead(user, id);
-  return { id: s.id, sha256: s.sha256, width: s.width, height: s.height, bitDepth: s.bitDepth };
+  const colour: StillColour = { format: s.format, colourSpace: s.colourSpace, exrLayer: s.exr?.layer ?? null };
+  return { id: s.id, sha256: s.sha256, width: s.width, height: s.height, bitDepth: s.bitDepth, colour };
+}
+
+/**
+ * The colour side of a lab request: a still declared as data always runs on stored values;
+ * the cache key names the colour handling beside the bytes' hash.
+ */
+export function labColour(still: LabStill, space: LabSpace, working: LinearSpace | undefined, others: LabStill[] = []): { space: LabSpace; colour: LabColour; key: string } {
+  const effective: LabSpace = still.colour.colourSpace === "data" ? "stored" : space;
+  const colour: LabColour = { plate: still.colour, others: Object.fromEntries(others.map((o) => [o.id, o.colour])), working: working ?? null };
+  const plain = still.colour.format !== "exr" && still.colour.colourSpace === "srgb" && !working && !others.some((o) => o.colour.colourSpace !== "srgb" || o.colour.format === "exr");
+  const key = plain ? still.sha256 : `${still.sha256}:${colourKey(still.colour, effective, colour.working)}:${others.map((o) => `${o.id}=${colourKey(o.colour, effective, colour.working)}`).join(",")}`;
+  return { space: effective, colour, key };
 }
 
 /** The original bytes exactly as uploaded (read-only: the lab never writes to a stored still). */
@@ -40,7 +55,7 @@ export async function originalBytes(still: LabStill): Promise<Uint8Array> {
  * Checks every still the recipe refers to (the grain step's denoised plate) before the run, so
  * a cached result never bypasses the check, and returns a loader for the engine.
  */
-export async function denoisedLoader(user: SessionUser, steps: RecipeStep[]): Promise<(id: string) => Promise<Uint8Array>> {
+export async function denoisedLoader(user: SessionUser, steps: RecipeStep[]): Promise<((id: string) => Promise<Uint8Array>) & { stills: LabStill[] }> {
   const allowed = new Map<string, LabStill>();
   for (const [i, step] of steps.entries()) {
     if (step.op !== "grain") continue;
@@ -55,11 +70,12 @@ export async function denoisedLoader(user: SessionUser, steps: RecipeStep[]): Pr
       throw error;
     }
   }
-  return async (id) => {
+  const load = async (id: string) => {
     const s = allowed.get(id);
     if (!s) throw new LabInputError("the denoised still was not checked");
     return originalBytes(s);
   };
+  return Object.assign(load, { stills: [...allowed.values()] });
 }
 
 export function labCacheDir(): string {

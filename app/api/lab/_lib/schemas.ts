@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { labSpaceSchema, recipeSchema } from "@/lib/lab/recipe";
+import { labSpaceSchema, labWorkingSpaceSchema, recipeSchema } from "@/lib/lab/recipe";
 
 /** Request shapes of the lab's plot and sample routes (client-safe; the lab UI shares them). */
 
@@ -10,6 +10,7 @@ const coord = z.number().refine(Number.isFinite, { message: "must be a finite nu
 export const labAnalyseRequestSchema = z.object({
   still: z.string().min(1).max(200),
   space: labSpaceSchema.default("linear"),
+  workingSpace: labWorkingSpaceSchema.optional(),
   steps: recipeSchema.default([]),
   /** Full-resolution pixel coordinates of the line's ends; null for no profile. */
   line: z.object({ x0: coord, y0: coord, x1: coord, y1: coord }).nullable().default(null),
@@ -30,6 +31,7 @@ export const boxSchema = z.object({
 export const labSampleRequestSchema = z.object({
   still: z.string().min(1).max(200),
   space: labSpaceSchema.default("linear"),
+  workingSpace: labWorkingSpaceSchema.optional(),
   boxes: z.array(boxSchema).min(1).max(64),
 });
 export type LabSampleRequest = z.input<typeof labSampleRequestSchema>;

@@ -1,6 +1,6 @@
 import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { channelHistograms, lineProfile, type FloatImage } from "@/lib/lab/analysis";
-import { denoisedLoader, mapLabError, originalBytes, readableStill, withAnalysisSlot } from "@/app/api/lab/_lib/lab-server";
+import { denoisedLoader, labColour, mapLabError, originalBytes, readableStill, withAnalysisSlot } from "@/app/api/lab/_lib/lab-server";
 import { runToFloat } from "@/app/api/lab/_lib/float-run";
 import { labAnalyseRequestSchema, type AnalysisSide, type LabAnalyseResponse } from "@/app/api/lab/_lib/schemas";
 
@@ -18,8 +18,9 @@ export const POST = authedRoute("lab:run", async (req, { user, json }) => {
   const still = await readableStill(user, input.still);
   const loadStill = await denoisedLoader(user, input.steps);
   const bytes = await originalBytes(still);
+  const { space, colour } = labColour(still, input.space, input.workingSpace, loadStill.stills);
   const run = await withAnalysisSlot(() =>
-    runToFloat({ still: bytes, steps: input.steps, space: input.space, width: input.width, loadStill }).catch(mapLabError),
+    runToFloat({ still: bytes, steps: input.steps, space, colour, width: input.width, loadStill }).catch(mapLabError),
   );
   const scale = run.sourceWidth / run.before.width;
   const side = (img: FloatImage): AnalysisSide => {

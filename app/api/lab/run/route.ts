@@ -1,7 +1,7 @@
 import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { labRunRequestSchema } from "@/lib/lab/recipe";
 import { runLab, type LabRunOutput } from "@/lib/lab/runner";
-import { denoisedLoader, headerJson, labCacheDir, mapLabError, originalBytes, readableStill } from "@/app/api/lab/_lib/lab-server";
+import { denoisedLoader, headerJson, labCacheDir, labColour, mapLabError, originalBytes, readableStill } from "@/app/api/lab/_lib/lab-server";
 
 export const dynamic = "force-dynamic";
 export const runtime = "nodejs";
@@ -15,10 +15,11 @@ export const POST = authedRoute("lab:run", async (req, { user, json }) => {
   const input = await json(labRunRequestSchema);
   const still = await readableStill(user, input.still);
   const loadStill = await denoisedLoader(user, input.steps);
+  const { space, colour, key } = labColour(still, input.space, input.workingSpace, loadStill.stills);
   const stillBytes = await originalBytes(still);
   let out: LabRunOutput;
   try {
-    out = await runLab({ stillBytes, stillSha256: still.sha256, request: input, loadStill, cacheDir: labCacheDir() });
+    out = await runLab({ stillBytes, stillSha256: key, request: { ...input, space }, colour, loadStill, cacheDir: labCacheDir() });
   } catch (error) {
     mapLabError(error);
   }
@@ -35,6 +36,7 @@ export const POST = authedRoute("lab:run", async (req, { user, json }) => {
       "X-Lab-Width": String(out.width),
       "X-Lab-Height": String(out.height),
       "X-Lab-Cache": out.cached || "miss",
+      ...(input.format === "exr" ? { "Content-Disposition": `attachment; filename="lab-${still.id.slice(0, 8)}.exr"` } : {}),
     },
   });
 });

@@ -1,7 +1,7 @@
 import { AppError } from "@/lib/api/errors";
 import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { boxMean } from "@/lib/lab/analysis";
-import { mapLabError, originalBytes, readableStill, withAnalysisSlot } from "@/app/api/lab/_lib/lab-server";
+import { labColour, mapLabError, originalBytes, readableStill, withAnalysisSlot } from "@/app/api/lab/_lib/lab-server";
 import { runToFloat } from "@/app/api/lab/_lib/float-run";
 import { labSampleRequestSchema, type LabSampleResponse } from "@/app/api/lab/_lib/schemas";
 
@@ -19,7 +19,8 @@ export const POST = authedRoute("lab:run", async (req, { user, json }) => {
   if (Object.keys(fields).length) throw new AppError("validation_failed", Object.entries(fields).map(([k, v]) => `${k}: ${v}`)[0], { fields });
   const bytes = await originalBytes(still);
   const noLoader = (): Promise<Uint8Array> => Promise.resolve(new Uint8Array());
-  const { before } = await withAnalysisSlot(() => runToFloat({ still: bytes, steps: [], space: input.space, loadStill: noLoader }).catch(mapLabError));
+  const { space, colour } = labColour(still, input.space, input.workingSpace);
+  const { before } = await withAnalysisSlot(() => runToFloat({ still: bytes, steps: [], space, colour, loadStill: noLoader }).catch(mapLabError));
   const samples: [number, number, number][] = [];
   const pixels: number[] = [];
   for (const b of input.boxes) {
