@@ -5,3 +5,4 @@ export * from "./stills";
 export * from "./shows";
 export * from "./mail";
 export * from "./changes";
+export * from "./plate-checks";

@@ -26,6 +26,9 @@ export const PERMISSIONS = [
   "still:upload-trial",
   "still:read",
   "lab:run",
+  "still:check",
+  "recipe:keep",
+  "recipe:read-kept",
   "subscription:manage",
   "token:manage",
   "people:manage",
@@ -45,6 +48,9 @@ const ARTIST: Permission[] = [
   "still:upload-trial",
   "still:read",
   "lab:run",
+  "still:check",
+  "recipe:keep",
+  "recipe:read-kept",
   "subscription:manage",
   "token:manage",
 ];
@@ -90,6 +96,8 @@ const OWNERSHIP_RULES: Partial<Record<Permission, (user: SessionUser, resource: 
   "question:resolve": (user, r) => r.ownerId === user.id || r.techniqueAuthorId === user.id || user.role === "lead",
   "question:answer": (user, r) => r.techniqueAuthorId === user.id || user.role === "lead",
   "still:read": (user, r) => r.stillOwner !== "trial" || r.ownerId === user.id || user.role === "lead",
+  /** A kept recipe is private like a trial: its keeper's and the leads'. */
+  "recipe:read-kept": (user, r) => r.ownerId === user.id || user.role === "lead",
 };
 
 /** Deny by default: a missing user, an unknown role or a missing permission is a no. */
