@@ -5,7 +5,7 @@ import { IMMERKAER_SCALE, laplacianAbsSumsRgb, robustSigma } from "@/lib/plate-c
 import type { DustFinding, Findings, MarkerFinding, MarkerShade, NoiseFinding, OverlayGrid, Rgb, ScreenFinding } from "@/lib/plate-check/schemas";
 import { guessScreen, MIN_SCREEN_COVERAGE, screenKind, screenLikeMask, screenStats, type ScreenStats } from "@/lib/plate-check/screen";
 import { findSpots, groupShades, type Spot } from "@/lib/plate-check/spots";
-import { blockMeans, blockSize, boxMean3, deviationMap, residualSigma, strongNearSampled, type SurfaceGrid } from "@/lib/plate-check/surface";
+import { blockMeans, blockSize, boxMean3, deviationMap, dropDepartingBlocks, residualSigma, strongNearSampled, type SurfaceGrid } from "@/lib/plate-check/surface";
 import { giveBack, takeBuffer } from "@/lib/plate-check/scratch";
 import { problemTagsFor } from "@/lib/plate-check/tags";
 
@@ -125,6 +125,9 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
   let coverage = 0;
   if (guess) {
     screenLikeMask(smooth, W, H, guess, mask);
+    // 0.4× to 2× in linear light; in sRGB code values that is 0.4^(1/2.4) to 2^(1/2.4).
+    const range: [number, number] = frame.colourSpace === "srgb" ? [0.683, 1.335] : [0.4, 2];
+    dropDepartingBlocks(blockMeans(smooth, W, H, size, mask, 2), mask, W, H, range);
     surface = fitSurface(frame, smooth, mask, size, floorSmooth);
     await stage("screen", 4);
     ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: true, surfaceMask: mask, toLinear }));

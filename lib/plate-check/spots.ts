@@ -117,7 +117,32 @@ export function findSpots(z2: Float32Array, linear: Float32Array, grid: SurfaceG
     raws.push(r);
   }
   const spots = raws.filter((r) => !r.big && r.area >= 2).map((r) => measure(r, z2, linear, labels, grid, rules, limits));
-  return { spots, labels };
+  return { spots: absorbFragments(spots), labels };
+}
+
+/**
+ * A motion-blurred marker can fall apart where its thin parts smear below the threshold; the
+ * pieces lie within a few pixels of its main body. A smaller marker spot whose box comes within a
+ * quarter of the larger one's size (at least 3 px) joins it: one marker, the union of the boxes.
+ */
+function absorbFragments(spots: Spot[]): Spot[] {
+  const markers = spots.filter((s) => s.kind === "marker").sort((a, b) => b.area - a.area);
+  const gone = new Set<Spot>();
+  for (const big of markers) {
+    if (gone.has(big)) continue;
+    const gap = Math.max(3, 0.25 * Math.max(big.box.w, big.box.h));
+    for (const small of markers) {
+      if (small === big || gone.has(small) || small.area > big.area) continue;
+      const dx = Math.max(0, big.box.x - (small.box.x + small.box.w), small.box.x - (big.box.x + big.box.w));
+      const dy = Math.max(0, big.box.y - (small.box.y + small.box.h), small.box.y - (big.box.y + big.box.h));
+      if (dx > gap || dy > gap) continue;
+      const x0 = Math.min(big.box.x, small.box.x), y0 = Math.min(big.box.y, small.box.y);
+      big.box = { x: x0, y: y0, w: Math.max(big.box.x + big.box.w, small.box.x + small.box.w) - x0, h: Math.max(big.box.y + big.box.h, small.box.y + small.box.h) - y0 };
+      big.area += small.area;
+      gone.add(small);
+    }
+  }
+  return spots.filter((s) => !gone.has(s));
 }
 
 function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Array, grid: SurfaceGrid, rules: SpotRules, limits: ReturnType<typeof spotLimits>): Spot {

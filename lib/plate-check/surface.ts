@@ -289,3 +289,56 @@ export function dilateThreshold(map: Float32Array, width: number, height: number
   for (let p = 0; p < hits.length; p++) hits[p] = map[p]! > threshold ? 1 : 0;
   dilateMask(hits, width, height, 1, out);
 }
+
+/**
+ * Takes out of `mask` the blocks of screen colour that cannot be screen: those departing from the
+ * median of the blocks around them (7×7) by more than `maxDeparture` of its value in some channel
+ * (lighting on a screen changes slowly), and those outside `globalRange` × the median of all such
+ * blocks (a screen lit from under half to twice its usual level is not keyable; rule of thumb) —
+ * a costume or prop in a similar hue, only darker or brighter. Returns how many were taken out.
+ */
+export function dropDepartingBlocks(grid: SurfaceGrid, mask: Uint8Array, width: number, height: number, globalRange: [number, number], maxDeparture = 0.12, step = 2): number {
+  const { size, gw, gh, mean, count } = grid;
+  const full = (size * size) / (step * step);
+  const considered = (g: number) => count[g]! >= 0.25 * full;
+  const dropped: number[] = [];
+  const vals: number[][] = [[], [], []];
+  const all: number[][] = [[], [], []];
+  for (let g = 0; g < gw * gh; g++) if (considered(g)) for (let c = 0; c < 3; c++) all[c]!.push(mean[g * 3 + c]!);
+  const globalMedian = all.map((v) => (v.length ? v.sort((a, b) => a - b)[v.length >> 1]! : 0));
+  for (let by = 0; by < gh; by++) {
+    for (let bx = 0; bx < gw; bx++) {
+      const g = by * gw + bx;
+      if (!considered(g)) continue;
+      for (const v of vals) v.length = 0;
+      for (let yy = Math.max(0, by - 3); yy <= Math.min(gh - 1, by + 3); yy++) {
+        for (let xx = Math.max(0, bx - 3); xx <= Math.min(gw - 1, bx + 3); xx++) {
+          const h = yy * gw + xx;
+          if (!considered(h)) continue;
+          for (let c = 0; c < 3; c++) vals[c]!.push(mean[h * 3 + c]!);
+        }
+      }
+      let departs = false;
+      for (let c = 0; c < 3 && !departs; c++) {
+        const k = mean[g * 3 + c]! / Math.max(globalMedian[c]!, 1e-6);
+        if (k < globalRange[0] || k > globalRange[1]) departs = true;
+      }
+      if (departs) {
+        dropped.push(g);
+        continue;
+      }
+      if (vals[0]!.length < 9) continue;
+      for (let c = 0; c < 3 && !departs; c++) {
+        const v = vals[c]!.sort((a, b) => a - b);
+        const med = v[v.length >> 1]!;
+        if (Math.abs(mean[g * 3 + c]! - med) > maxDeparture * Math.max(med, 0.02)) departs = true;
+      }
+      if (departs) dropped.push(g);
+    }
+  }
+  for (const g of dropped) {
+    const bx = g % gw, by = (g / gw) | 0;
+    for (let y = by * size; y < Math.min(height, (by + 1) * size); y++) mask.fill(0, y * width + bx * size, y * width + Math.min(width, (bx + 1) * size));
+  }
+  return dropped.length;
+}
