@@ -3,9 +3,12 @@ import type { MarkerShape, PlateSpec } from "@/tests/plate-check/synthetic-plate
 
 /*
  * Families of generated plates for the accuracy tests (test-only). "tuned" is what the detectors
- * were developed against (other seeds); "held out" uses settings never looked at while tuning —
+ * were developed against (other seeds). "held out" used settings never looked at while tuning —
  * another size, 8-bit codes, cyan-to-blue screens, square markers, longer motion blur, softer
- * edges, heavier grain and more defects — and is reported on its own. "no screen" has none.
+ * edges, heavier grain and more defects; its first run missed 2 of 200 hot pixels (on a bright,
+ * grainy foreground), the dead/hot rule was changed after looking at them, so it counts as seen
+ * since. "held out 2" was written after that change and run once before being committed: dark
+ * screens, heavier grain still, a larger frame. "no screen" has none.
  */
 
 const between = (r: () => number, lo: number, hi: number): number => lo + (hi - lo) * r();
@@ -61,4 +64,29 @@ export function heldOutSpec(seed: number): PlateSpec {
 export function noScreenSpec(seed: number): PlateSpec {
   const r = mulberry32(seed * 31 + 1);
   return { width: 800, height: 450, seed: 90_000 + seed, hasScreen: false, grain: between(r, 0.004, 0.012), deadHotStuck: 10, dust: 4, hairs: 1, foregroundShapes: 0, bits: 16 };
+}
+
+export function heldOut2Spec(seed: number): PlateSpec {
+  const r = mulberry32(seed * 104_729 + 71);
+  return {
+    width: 1600,
+    height: 900,
+    seed: 70_000 + seed,
+    screenHue: r() < 0.5 ? between(r, 95, 135) : between(r, 215, 240),
+    screenSat: between(r, 0.7, 0.95),
+    screenValue: between(r, 0.2, 0.35),
+    unevenness: between(r, 0.2, 0.4),
+    shades: 1 + Math.floor(r() * 4),
+    markerSize: 7,
+    markerPitch: 170,
+    shapes: pick<MarkerShape[]>(r, [["dot"], ["cross", "dot", "square"]]),
+    motionBlur: r() < 0.5 ? { length: between(r, 6, 12), angleDeg: between(r, 0, 180) } : null,
+    edgeSoftness: between(r, 1.5, 3),
+    foregroundShapes: 1 + Math.floor(r() * 3),
+    grain: between(r, 0.008, 0.025),
+    deadHotStuck: 30,
+    dust: 8,
+    hairs: 3,
+    bits: 16,
+  };
 }

@@ -364,18 +364,20 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
 
   // --- foreground over everything ---
   if (shapes.length) {
+    // Only pixels within the blur's and the edge ramp's reach of an edge need the blurred coverage.
+    const edgeReach = (blur ? blur.length / 2 : 0) + spec.edgeSoftness + 1;
     for (let y = 0, i = 0; y < H; y++) {
       for (let x = 0; x < W; x++, i++) {
-        const a = blurred(fgAt, x, y);
-        fgAlpha[i] = a;
-        if (a <= 0) continue;
-        const o = i * 3;
         let colour: Rgb = shapes[0]!.colour;
         let best = Infinity;
         for (const s of shapes) {
           const d = shapeDistance(s.shape, x, y);
           if (d < best) { best = d; colour = s.colour; }
         }
+        const a = best > edgeReach ? 0 : best < -edgeReach ? 1 : blurred(fgAt, x, y);
+        fgAlpha[i] = a;
+        if (a <= 0) continue;
+        const o = i * 3;
         const L = spec.hasScreen ? lightField[i]! : 1;
         for (let c = 0; c < 3; c++) lin[o + c] = lin[o + c]! * (1 - a) + colour[c]! * L * a;
       }

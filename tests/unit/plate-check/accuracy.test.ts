@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { checkFrame } from "@/lib/plate-check/check";
 import { frameFromCodes } from "@/lib/plate-check/frame";
 import type { Findings } from "@/lib/plate-check/schemas";
-import { heldOutSpec, noScreenSpec, tunedSpec } from "@/tests/plate-check/families";
+import { heldOut2Spec, heldOutSpec, noScreenSpec, tunedSpec } from "@/tests/plate-check/families";
 import { scoreFindings, type Score } from "@/tests/plate-check/score";
 import { generatePlate, type PlateSpec } from "@/tests/plate-check/synthetic-plates";
 
@@ -16,8 +16,8 @@ import { generatePlate, type PlateSpec } from "@/tests/plate-check/synthetic-pla
  *   Transform Pairs", SIGGRAPH 1978 — lighting multiplies all channels, so it does not move it;
  * - coverage and unevenness truth: the generator's foreground alpha and lighting field under the
  *   check's own stated definitions (own measures, no published source).
- * Each family is scored over all its plates together; the held-out family's settings were never
- * used while developing the detectors and are reported on their own.
+ * Each family is scored over all its plates together and reported on its own (tests/plate-check/
+ * families.ts says which were seen while developing the detectors).
  */
 
 type Totals = { plates: number; mT: number; mF: number; mM: number; dT: number; dF: number; dM: number; shadeExact: number; maxHue: number; maxNoise: number; maxCoverage: number; maxUneven: number; dustT: number; dustM: number; hairT: number; hairM: number };
@@ -64,8 +64,8 @@ function expectTargets(t: Totals): void {
 }
 
 describe("plate check accuracy on generated plates", () => {
-  it("tuned family: 16 plates, 960×540, 16-bit, green and blue screens, 1–4 shades, motion blur, foreground in marker colours", { timeout: 240_000 }, async () => {
-    const t = await runFamily(Array.from({ length: 16 }, (_, i) => tunedSpec(101 + i)));
+  it("tuned family: 12 plates, 960×540, 16-bit, green and blue screens, 1–4 shades, motion blur, foreground in marker colours", { timeout: 240_000 }, async () => {
+    const t = await runFamily(Array.from({ length: 12 }, (_, i) => tunedSpec(101 + i)));
     report("tuned", t);
     expectTargets(t);
     // Own definitions of coverage and unevenness, measured against the generator's fields. Coverage
@@ -76,14 +76,20 @@ describe("plate check accuracy on generated plates", () => {
     expect(t.shadeExact / t.plates, "shade count exact on 90 % of plates").toBeGreaterThanOrEqual(0.9);
   });
 
-  it("held-out family: 8 plates never tuned against (1280×720, 8-bit, cyan to blue, square markers, long blur, heavy grain)", { timeout: 240_000 }, async () => {
-    const t = await runFamily(Array.from({ length: 8 }, (_, i) => heldOutSpec(i + 1)));
-    report("held out", t);
+  it("held-out family, seen once (1280×720, 8-bit, cyan to blue, square markers, long blur, heavy grain): 6 plates", { timeout: 240_000 }, async () => {
+    const t = await runFamily(Array.from({ length: 6 }, (_, i) => heldOutSpec(i + 1)));
+    report("held out (seen once)", t);
+    expectTargets(t);
+  });
+
+  it("held-out family 2, never tuned against (1600×900, dark screens, very heavy grain, 30 defects): 5 plates", { timeout: 300_000 }, async () => {
+    const t = await runFamily(Array.from({ length: 5 }, (_, i) => heldOut2Spec(i + 1)));
+    report("held out 2", t);
     expectTargets(t);
   });
 
   it("a frame with no screen says so: no screen, markers not searched, and still measures noise and defects", { timeout: 120_000 }, async () => {
-    for (let i = 1; i <= 4; i++) {
+    for (let i = 1; i <= 3; i++) {
       const plate = generatePlate(noScreenSpec(i));
       const f = await checkFrame(frameFromCodes(plate.codes, plate.width, plate.height, plate.bits));
       expect(f.screen.present).toBe(false);
