@@ -195,5 +195,6 @@ export function fillRecipe(recipe: readonly RecipeStep[], findings: Findings): F
         out.push(step);
     }
   }
+  if (!out.length) return fail(`Nothing of its recipe runs on a dropped frame. ${skipped.join(" ")}`);
   return { recipe: out, filled, skipped, problem: null, targetChannel: target ?? "g", hide };
 }
