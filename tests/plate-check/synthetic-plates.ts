@@ -144,12 +144,12 @@ function pickShades(rand: () => number, screen: Rgb, count: number): Rgb[] {
   return out;
 }
 
-type Shape = { kind: "ellipse"; cx: number; cy: number; rx: number; ry: number; rot: number } | { kind: "bar"; x0: number; y0: number; x1: number; y1: number; r: number };
+type Shape = { kind: "ellipse"; cx: number; cy: number; rx: number; ry: number; cos: number; sin: number } | { kind: "bar"; x0: number; y0: number; x1: number; y1: number; r: number };
 
 /** Signed distance in px (negative inside). Ellipse distance is approximate (scaled by the smaller radius). */
 function shapeDistance(s: Shape, x: number, y: number): number {
   if (s.kind === "ellipse") {
-    const c = Math.cos(s.rot), sn = Math.sin(s.rot);
+    const c = s.cos, sn = s.sin;
     const dx = x - s.cx, dy = y - s.cy;
     const u = (dx * c + dy * sn) / s.rx, v = (-dx * sn + dy * c) / s.ry;
     return (Math.sqrt(u * u + v * v) - 1) * Math.min(s.rx, s.ry);
@@ -253,7 +253,8 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
     const colour = fgColours[Math.floor(rand() * fgColours.length)]!;
     if (rand() < 0.6) {
       const rx = (0.08 + 0.1 * rand()) * W, ry = (0.12 + 0.25 * rand()) * H;
-      shapes.push({ shape: { kind: "ellipse", cx: rand() * W, cy: (0.45 + 0.6 * rand()) * H, rx, ry, rot: (rand() - 0.5) * 1.2 }, colour });
+      const cx = rand() * W, cy = (0.45 + 0.6 * rand()) * H, rot = (rand() - 0.5) * 1.2;
+      shapes.push({ shape: { kind: "ellipse", cx, cy, rx, ry, cos: Math.cos(rot), sin: Math.sin(rot) }, colour });
     } else {
       const x0 = rand() * W, y0 = H + 10, x1 = x0 + (rand() - 0.5) * W * 0.5, y1 = (0.2 + 0.4 * rand()) * H;
       shapes.push({ shape: { kind: "bar", x0, y0, x1, y1, r: (0.025 + 0.03 * rand()) * W }, colour });
