@@ -1,5 +1,5 @@
 /*
- * `npm run bench`: the still lab, search and load benchmarks in turn, each in its own process
+ * `npm run bench`: the still lab, search, plate check and load benchmarks in turn, each in its own process
  * (so one's heap, worker threads and server do not weigh on the next), then one summary from
  * bench/results.json. `npm run bench -- --quick` passes --quick to lab and search and runs the
  * load targets for 10 s with 20 connections; LOAD_DURATION / LOAD_CONNECTIONS override.
@@ -18,6 +18,7 @@ const quick = process.argv.includes("--quick");
 const steps: { name: string; script: string; args: string[]; env?: Record<string, string> }[] = [
   { name: "lab", script: "bench/lab.ts", args: quick ? ["--quick"] : [] },
   { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
+  { name: "plate-check", script: "bench/plate-check.ts", args: quick ? ["--quick"] : [] },
   { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
 ];
 
@@ -47,6 +48,13 @@ if (lab) {
   console.table(
     Object.entries(sizes).map(([size, s]) => ({ size, "steps ms": fmt(s.recipeStepsMs, 0), "exact ms": fmt(s.recipeExactMs, 0), "proxy ms": fmt(s.proxyMs, 0), "float copy ms": fmt(s.copyMs, 2) })),
   );
+}
+
+const plate = results.plateCheck;
+if (plate) {
+  console.log(`Plate check (load average ${fmt(get(plate, "loadAverage", "before", 0), 2)} → ${fmt(get(plate, "loadAverage", "after", 0), 2)})`);
+  console.table(((get(plate, "check") ?? []) as Json[]).map((r) => ({ size: r.size, "check ms": r.checkMs, "cpu ms": r.checkCpuMs, "copy ms": r.copyMs, "× copy": r.ratio, "with decode ms": r.withDecodeMs })));
+  console.log("Plate check targets:", get(plate, "targets"));
 }
 
 const search = results.search;

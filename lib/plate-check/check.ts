@@ -5,7 +5,7 @@ import { IMMERKAER_SCALE, laplacianAbsSumsRgb, robustSigma } from "@/lib/plate-c
 import type { DustFinding, Findings, MarkerFinding, MarkerShade, NoiseFinding, OverlayGrid, Rgb, ScreenFinding } from "@/lib/plate-check/schemas";
 import { guessScreen, MIN_SCREEN_COVERAGE, screenKind, screenLikeMask, screenStats, type ScreenStats } from "@/lib/plate-check/screen";
 import { findSpots, groupShades, type Spot } from "@/lib/plate-check/spots";
-import { blockMeans, blockSize, boxMean3, deviationMap, dropDepartingBlocks, residualSigma, strongNearSampled, type SurfaceGrid } from "@/lib/plate-check/surface";
+import { blockMeans, blockSize, boxMean3, deviationMap, dilateMask, dropDepartingBlocks, residualSigma, strongNearSampled, type SurfaceGrid } from "@/lib/plate-check/surface";
 import { giveBack, takeBuffer } from "@/lib/plate-check/scratch";
 import { problemTagsFor } from "@/lib/plate-check/tags";
 
@@ -242,35 +242,27 @@ function cleanScreen(mask: Uint8Array, labels: Int32Array): Uint8Array {
 }
 
 /**
- * Where noise may be measured, at the centres the estimate samples (every other pixel each way):
- * two pixels clear of any departure from the surface or any defect, one clear of clipping.
+ * Where noise may be measured, at the centres the estimate samples (every `step`-th pixel each
+ * way): two pixels clear of any departure from the surface or any defect, one clear of clipping.
  */
 function noiseMask(frame: PlateFrame, z2: Float32Array, defects: readonly { x: number; y: number }[], step: number): Uint8Array {
   const { width: W, height: H, code } = frame;
-  const out = new Uint8Array(W * H);
-  const nearDefect = new Uint8Array(W * H);
-  for (const d of defects) {
-    for (let y = Math.max(0, d.y - 2); y <= Math.min(H - 1, d.y + 2); y++) nearDefect.fill(1, y * W + Math.max(0, d.x - 2), y * W + Math.min(W - 1, d.x + 2) + 1);
+  const n = W * H;
+  const hits = new Uint8Array(n);
+  for (let p = 0; p < n; p++) if (z2[p]! > SPOT_LO) hits[p] = 1;
+  for (const d of defects) hits[d.y * W + d.x] = 1;
+  const away = new Uint8Array(n);
+  dilateMask(hits, W, H, 2, away);
+  // Clipped values are rare: mark their 3×3 neighbourhoods directly.
+  for (let j = 0; j < n * 3; j++) {
+    const v = code[j]!;
+    if (v < 1 && v > 0) continue;
+    const p = (j / 3) | 0, x = p % W, y = (p / W) | 0;
+    for (let yy = Math.max(0, y - 1); yy <= Math.min(H - 1, y + 1); yy++) away.fill(1, yy * W + Math.max(0, x - 1), yy * W + Math.min(W - 1, x + 1) + 1);
   }
-  for (let y = 2; y < H - 2; y += step) {
-    for (let x = 2; x < W - 2; x += step) {
-      const p = y * W + x;
-      if (nearDefect[p] === 1) continue;
-      let ok = true;
-      for (let dy = -2; dy <= 2 && ok; dy++) {
-        const r = p + dy * W;
-        for (let dx = -2; dx <= 2; dx++) if (z2[r + dx]! > SPOT_LO) { ok = false; break; }
-      }
-      for (let dy = -1; dy <= 1 && ok; dy++) {
-        const r = (p + dy * W) * 3;
-        for (let j = r - 3; j < r + 6; j++) {
-          const v = code[j]!;
-          if (v >= 1 || v <= 0) { ok = false; break; }
-        }
-      }
-      if (ok) out[p] = 1;
-    }
-  }
+  const out = hits;
+  out.fill(0);
+  for (let y = step; y < H - 1; y += step) for (let x = step, p = y * W + step; x < W - 1; x += step, p += step) if (away[p] === 0) out[p] = 1;
   return out;
 }
 

@@ -15,6 +15,21 @@ import type { ChannelName, Findings } from "@/lib/plate-check/schemas";
  *   pixels) whose display value moved by more than one 8-bit sRGB code in any channel.
  */
 
+/**
+ * sRGB encode (IEC 61966-2-1) tabulated at 2¹⁶ steps of linear light: the nearest entry is within
+ * 2·10⁻⁴ of the encoded value everywhere (the curve is steepest at 0, slope 12.92), far below the
+ * one-code-in-255 a "visible change" asks for.
+ */
+const ENCODE_STEPS = 65535;
+let encodeLut: Float32Array | null = null;
+function encodeTable(): Float32Array {
+  if (!encodeLut) {
+    encodeLut = new Float32Array(ENCODE_STEPS + 1);
+    for (let k = 0; k <= ENCODE_STEPS; k++) encodeLut[k] = linearToSrgb(k / ENCODE_STEPS);
+  }
+  return encodeLut;
+}
+
 export type FloatFrame = { width: number; height: number; data: Float32Array };
 
 export type Measures = {
@@ -79,6 +94,8 @@ export function measureTry(before: FloatFrame, after: FloatFrame, findings: Find
 
   let outside = 0, changed = 0;
   const step = 1 / 255;
+  const enc = encodeTable();
+  const at = (v: number): number => enc[v <= 0 ? 0 : v >= 1 ? ENCODE_STEPS : Math.round(v * ENCODE_STEPS)]!;
   for (let p = 0; p < W * H; p++) {
     if (matte[p]) continue;
     outside++;
@@ -86,7 +103,7 @@ export function measureTry(before: FloatFrame, after: FloatFrame, findings: Find
     for (let j = 0; j < 3; j++) {
       const a = before.data[i + j]!, b = after.data[i + j]!;
       if (a === b) continue;
-      if (Math.abs(linearToSrgb(b) - linearToSrgb(a)) > step) {
+      if (Math.abs(at(b) - at(a)) > step) {
         changed++;
         break;
       }

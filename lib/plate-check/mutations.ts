@@ -6,16 +6,11 @@ import { AppError } from "@/lib/api/errors";
 import { writeAudit } from "@/lib/audit/log";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { decodeStill, LabInputError } from "@/lib/lab/engine";
-import { recipeSchema, type LabFormat, type RecipeStep } from "@/lib/lab/recipe";
-import { LabBusyError, LabTimeoutError, runLab, type LabRunOutput } from "@/lib/lab/runner";
 import { checkFrame, DETECTOR_VERSION, type CheckStage } from "@/lib/plate-check/check";
-import { fillRecipe } from "@/lib/plate-check/fill";
-import { frameFromCodes } from "@/lib/plate-check/frame";
-import { measureTry } from "@/lib/plate-check/measure";
 import { originalBytesOf, readStillLinear } from "@/lib/plate-check/pixels";
 import { checkDtoFor, storedCheck, storedTries, toKeptDto } from "@/lib/plate-check/queries";
-import { MAX_TRIES, PROXY_WIDTH, type CheckDto, type Findings, type KeptRecipeDto, type TryResult } from "@/lib/plate-check/schemas";
+import { MAX_TRIES, type CheckDto, type Findings, type KeptRecipeDto, type TryResult } from "@/lib/plate-check/schemas";
+import { plateProxy, tryRecipe } from "@/lib/plate-check/tries";
 import { approvedRecipe, suggestMethods } from "@/lib/plate-check/suggest";
 import { getStillForRead } from "@/lib/stills/queries";
 import { getTechnique } from "@/lib/techniques/queries";
@@ -79,32 +74,6 @@ async function currentFindings(user: SessionUser, stillId: string): Promise<{ st
   return { still, findings: stored.findings };
 }
 
-function labError(error: unknown): never {
-  if (error instanceof LabBusyError) throw new AppError("rate_limited", "The lab is busy. Try again in a moment.", { cause: error });
-  if (error instanceof LabTimeoutError) throw new AppError("unavailable", `${error.message}.`);
-  if (error instanceof LabInputError) throw new AppError("validation_failed", error.message);
-  throw error;
-}
-
-/** A filled recipe rendered through the lab's runner: a proxy at PROXY_WIDTH, or the exact frame. */
-export async function renderFilled(still: Pick<Still, "id" | "sha256">, recipe: RecipeStep[], format: LabFormat, exact: boolean, bytes?: Uint8Array): Promise<LabRunOutput> {
-  try {
-    return await runLab({
-      stillBytes: bytes ?? (await originalBytesOf(still)),
-      stillSha256: still.sha256,
-      request: { still: still.id, space: "linear", format, steps: recipe, ...(exact ? {} : { width: PROXY_WIDTH }) },
-    });
-  } catch (error) {
-    labError(error);
-  }
-}
-
-async function linearOf(png: Uint8Array): Promise<{ width: number; height: number; data: Float32Array }> {
-  const d = await decodeStill(png);
-  const f = frameFromCodes(d.codes, d.width, d.height, d.bits);
-  return { width: f.width, height: f.height, data: f.linear };
-}
-
 /**
  * Tries up to three techniques on the frame: each approved recipe filled from the findings,
  * rendered as a proxy through the lab's runner, and measured against the plate. With no slugs,
@@ -115,8 +84,7 @@ export async function tryMethods(user: SessionUser, stillId: string, slugs?: str
   let chosen = slugs ? [...new Set(slugs)] : (await suggestMethods(user, findings)).filter((s) => s.hasRecipe).map((s) => s.slug);
   chosen = chosen.slice(0, MAX_TRIES);
   const bytes = await originalBytesOf(still);
-  const decoded = await decodeStill(bytes, PROXY_WIDTH);
-  const before = frameFromCodes(decoded.codes, decoded.width, decoded.height, decoded.bits);
+  const before = await plateProxy(still, bytes);
   const results: TryResult[] = [];
   const ids: string[] = [];
   for (const slug of chosen) {
@@ -127,38 +95,7 @@ export async function tryMethods(user: SessionUser, stillId: string, slugs?: str
     }
     const base = { slug: approved.slug, title: approved.title, revision: approved.revision, isHouseMethod: approved.isHouseMethodFor.some((t) => findings.problemTags.some((p) => p.slug === t)) };
     ids.push(approved.techniqueId);
-    const fill = fillRecipe(approved.recipe, findings);
-    const parsed = recipeSchema.safeParse(fill.recipe);
-    if (fill.problem || !parsed.success) {
-      const problem = fill.problem ?? "The values solved for this frame are outside what the lab accepts (the marker shades are too close to the screen's colour).";
-      results.push({ ...base, recipe: [], filled: fill.filled, skipped: fill.skipped, measures: null, problem });
-      continue;
-    }
-    const t0 = performance.now();
-    // The display proxy first (kept in the runner's memory for the page to fetch), then the
-    // 16-bit proxy the measures are taken from.
-    await renderFilled(still, parsed.data, "webp", false, bytes);
-    const png16 = await renderFilled(still, parsed.data, "png16", false, bytes);
-    const renderMs = performance.now() - t0;
-    const after = await linearOf(png16.bytes);
-    const m = measureTry({ width: before.width, height: before.height, data: before.linear }, after, findings, fill.targetChannel);
-    results.push({
-      ...base,
-      recipe: parsed.data,
-      filled: fill.filled,
-      skipped: fill.skipped,
-      problem: null,
-      measures: {
-        targetChannel: fill.targetChannel,
-        markerContrast: m.markerContrast,
-        noiseGain: m.noiseGain,
-        matrixGain: fill.hide?.noiseGain ?? null,
-        changedOutsideMatte: m.changedOutsideMatte,
-        residualPerShade: fill.hide?.residualPerShade ?? [],
-        proxyWidth: after.width,
-        renderMs: Math.round(renderMs),
-      },
-    });
+    results.push(await tryRecipe({ still, bytes, before, findings, recipe: approved.recipe, ...base }));
   }
   await saveTries(still.id, results, ids);
   return results;

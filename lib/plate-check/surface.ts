@@ -302,35 +302,34 @@ export function dropDepartingBlocks(grid: SurfaceGrid, mask: Uint8Array, width: 
   const full = (size * size) / (step * step);
   const considered = (g: number) => count[g]! >= 0.25 * full;
   const dropped: number[] = [];
-  const vals: number[][] = [[], [], []];
-  const all: number[][] = [[], [], []];
-  for (let g = 0; g < gw * gh; g++) if (considered(g)) for (let c = 0; c < 3; c++) all[c]!.push(mean[g * 3 + c]!);
-  const globalMedian = all.map((v) => (v.length ? v.sort((a, b) => a - b)[v.length >> 1]! : 0));
+  const considered8 = new Uint8Array(gw * gh);
+  for (let g = 0; g < gw * gh; g++) considered8[g] = considered(g) ? 1 : 0;
+  const all = new Float64Array(gw * gh);
+  const globalMedian = [0, 0, 0].map((_, c) => {
+    let k = 0;
+    for (let g = 0; g < gw * gh; g++) if (considered8[g]) all[k++] = mean[g * 3 + c]!;
+    return k ? all.subarray(0, k).sort()[k >> 1]! : 0;
+  });
+  const near = new Float64Array(49);
   for (let by = 0; by < gh; by++) {
     for (let bx = 0; bx < gw; bx++) {
       const g = by * gw + bx;
-      if (!considered(g)) continue;
-      for (const v of vals) v.length = 0;
-      for (let yy = Math.max(0, by - 3); yy <= Math.min(gh - 1, by + 3); yy++) {
-        for (let xx = Math.max(0, bx - 3); xx <= Math.min(gw - 1, bx + 3); xx++) {
-          const h = yy * gw + xx;
-          if (!considered(h)) continue;
-          for (let c = 0; c < 3; c++) vals[c]!.push(mean[h * 3 + c]!);
-        }
-      }
+      if (!considered8[g]) continue;
       let departs = false;
       for (let c = 0; c < 3 && !departs; c++) {
         const k = mean[g * 3 + c]! / Math.max(globalMedian[c]!, 1e-6);
         if (k < globalRange[0] || k > globalRange[1]) departs = true;
       }
-      if (departs) {
-        dropped.push(g);
-        continue;
-      }
-      if (vals[0]!.length < 9) continue;
       for (let c = 0; c < 3 && !departs; c++) {
-        const v = vals[c]!.sort((a, b) => a - b);
-        const med = v[v.length >> 1]!;
+        let k = 0;
+        for (let yy = Math.max(0, by - 3); yy <= Math.min(gh - 1, by + 3); yy++) {
+          for (let xx = Math.max(0, bx - 3); xx <= Math.min(gw - 1, bx + 3); xx++) {
+            const h = yy * gw + xx;
+            if (considered8[h]) near[k++] = mean[h * 3 + c]!;
+          }
+        }
+        if (k < 9) break;
+        const med = near.subarray(0, k).sort()[k >> 1]!;
         if (Math.abs(mean[g * 3 + c]! - med) > maxDeparture * Math.max(med, 0.02)) departs = true;
       }
       if (departs) dropped.push(g);

@@ -1,12 +1,17 @@
+import sharp from "sharp";
 import { apiRoute, parseWith, searchParamsOf, uuidParam } from "@/lib/api/handler";
 import { requireUser } from "@/lib/auth/session";
-import { findTry, renderFilled } from "@/lib/plate-check/mutations";
+import { findTry } from "@/lib/plate-check/mutations";
+import { renderFilled } from "@/lib/plate-check/tries";
 import { renderQuerySchema } from "@/lib/plate-check/schemas";
 
 export const dynamic = "force-dynamic";
 export const runtime = "nodejs";
 
-/** A tried technique's render: the proxy (WebP, 1024 px) or, with `?size=exact`, the full frame as 16-bit PNG. */
+/**
+ * A tried technique's render: the proxy (1024 px, the 16-bit render the measures came from,
+ * encoded as WebP for display) or, with `?size=exact`, the full frame as 16-bit PNG.
+ */
 export const GET = apiRoute<{ id: string; slug: string }>(async (req, ctx) => {
   const user = await requireUser(req);
   const params = await ctx.params;
@@ -14,8 +19,16 @@ export const GET = apiRoute<{ id: string; slug: string }>(async (req, ctx) => {
   const { size } = parseWith(renderQuerySchema, searchParamsOf(req));
   const { still, result } = await findTry(user, id, params.slug);
   const exact = size === "exact";
-  const out = await renderFilled(still, result.recipe, exact ? "png16" : "webp", exact);
-  return new Response(new Uint8Array(out.bytes), {
-    headers: { "Content-Type": out.contentType, "Content-Length": String(out.bytes.length), "Cache-Control": "private, no-store", "X-Lab-Width": String(out.width), "X-Lab-Height": String(out.height) },
+  const out = await renderFilled(still, result.recipe, "png16", exact);
+  // The browser shows 8 bits anyway: the proxy goes out as WebP (a fifth of the bytes).
+  const bytes = exact ? out.bytes : await sharp(out.bytes, { ignoreIcc: true }).webp({ quality: 88 }).toBuffer();
+  return new Response(new Uint8Array(bytes), {
+    headers: {
+      "Content-Type": exact ? "image/png" : "image/webp",
+      "Content-Length": String(bytes.length),
+      "Cache-Control": "private, no-store",
+      "X-Lab-Width": String(out.width),
+      "X-Lab-Height": String(out.height),
+    },
   });
 });
