@@ -1,12 +1,13 @@
 import type { z } from "zod";
 
 /** Error codes of the API contract (shared/API.md) with their HTTP status. */
-export const ERROR_STATUS = {
+const ERROR_STATUS = {
   validation_failed: 400,
   bad_request: 400,
   unauthorized: 401,
   forbidden: 403,
   not_found: 404,
+  method_not_allowed: 405,
   conflict: 409,
   too_large: 413,
   unsupported_type: 415,
@@ -23,6 +24,7 @@ const DEFAULT_MESSAGES: Record<ErrorCode, string> = {
   unauthorized: "Please sign in.",
   forbidden: "Your role does not allow this.",
   not_found: "Not found.",
+  method_not_allowed: "This method is not allowed here.",
   conflict: "This conflicts with a newer change.",
   too_large: "That is too large.",
   unsupported_type: "That file type is not supported.",

@@ -2,7 +2,7 @@ import type { Findings, TagReason } from "@/lib/plate-check/schemas";
 import { UNEVEN_SCREEN_PERCENT } from "@/lib/plate-check/screen";
 
 /*
- * Findings → the department's problem tags (slugs of db/seed-data/tags.ts), each with the
+ * Findings → the department's problem tags (slugs of scripts/seed/data/tags.ts), each with the
  * measurement behind it. Client-safe. Clipping has no problem tag of its own: it is reported but
  * points to no method.
  */

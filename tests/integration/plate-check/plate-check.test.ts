@@ -13,8 +13,8 @@ import { POST as triesPost } from "@/app/api/stills/[id]/check/tries/route";
 import { POST as stillsPost } from "@/app/api/stills/route";
 import { getDb } from "@/db/client";
 import { plateChecks, tags } from "@/db/schema";
-import { DEMO_TAGS } from "@/db/seed-data/tags";
-import { DEMO_TECHNIQUES } from "@/db/seed-data/techniques";
+import { DEMO_TAGS } from "@/scripts/seed/data/tags";
+import { DEMO_TECHNIQUES } from "@/scripts/seed/data/techniques";
 import { env } from "@/lib/env";
 import { recipeSchema, type RecipeStep } from "@/lib/lab/recipe";
 import { solveRow } from "@/lib/lab/solver";
@@ -32,7 +32,7 @@ import { generatePlate, type GeneratedPlate } from "@/tests/plate-check/syntheti
  * generated plate (truth known) dropped as a private trial, checked, its suggested methods, the
  * side-by-side tries, keeping and proposing — and who may see what (a trial stays private:
  * shared/PRODUCT.md roles; OWASP ASVS 4.0.3 V4.1.1, deny by default, from memory).
- * The demo techniques are the real demo records (db/seed-data), approved and made the house
+ * The demo techniques are the real demo records (scripts/seed/data), approved and made the house
  * method for their problem as the seed does.
  */
 
@@ -42,7 +42,7 @@ let plate: GeneratedPlate;
 let png: Buffer;
 let trialId = "";
 
-const slugOf = (key: string) => key; // demo keys are their slugs (db/seed-data/techniques.ts)
+const slugOf = (key: string) => key; // demo keys are their slugs (scripts/seed/data/techniques.ts)
 
 async function upload(person: TestPerson, bytes: Buffer, name = "frame.png"): Promise<string> {
   const form = new FormData();

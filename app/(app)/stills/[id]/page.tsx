@@ -8,7 +8,7 @@ import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
 import { checkDtoFor } from "@/lib/plate-check/queries";
 import { getStillForRead } from "@/lib/stills/queries";
-import { listTags } from "@/lib/techniques/queries";
+import { listTags } from "@/lib/tags/queries";
 import { notFound } from "next/navigation";
 
 export const metadata: Metadata = { title: "Still" };
@@ -21,7 +21,7 @@ export default async function StillPage({ params }: Props) {
   const id = uuidParam.safeParse((await params).id);
   if (!id.success) notFound();
   const still = await loadOrNotFound(() => getStillForRead(user, id.data));
-  const [check, tags] = await Promise.all([can(user, "still:check") ? checkDtoFor(user, still) : null, listTags()]);
+  const [check, tags] = await Promise.all([can(user, "still:check") ? checkDtoFor(user, still) : null, listTags(user)]);
   const tagNames = Object.fromEntries(tags.map((t) => [t.slug, t.name]));
   return (
     <div className="space-y-6">

@@ -1,6 +1,4 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { assertCan } from "@/lib/auth/permissions";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { channelHistograms, lineProfile, type FloatImage } from "@/lib/lab/analysis";
 import { denoisedLoader, mapLabError, originalBytes, readableStill, withAnalysisSlot } from "@/app/api/lab/_lib/lab-server";
 import { runToFloat } from "@/app/api/lab/_lib/float-run";
@@ -15,10 +13,8 @@ const MAX_PROFILE_SAMPLES = 1024;
  * POST /api/lab/analyse: R, G, B along a line and per-channel histograms of the plate and of
  * the recipe's float result (before clipping, so values outside 0..1 show as below/above).
  */
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  assertCan(user, "lab:run");
-  const input = await parseJson(req, labAnalyseRequestSchema);
+export const POST = authedRoute("lab:run", async (req, { user, json }) => {
+  const input = await json(labAnalyseRequestSchema);
   const still = await readableStill(user, input.still);
   const loadStill = await denoisedLoader(user, input.steps);
   const bytes = await originalBytes(still);
@@ -48,3 +44,5 @@ export const POST = apiRoute(async (req) => {
   };
   return Response.json(body);
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

@@ -1,6 +1,4 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { assertCan } from "@/lib/auth/permissions";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { labRunRequestSchema } from "@/lib/lab/recipe";
 import { runLab, type LabRunOutput } from "@/lib/lab/runner";
 import { denoisedLoader, headerJson, labCacheDir, mapLabError, originalBytes, readableStill } from "@/app/api/lab/_lib/lab-server";
@@ -13,10 +11,8 @@ export const runtime = "nodejs";
  * the encoded image. Step reports travel in `X-Lab-Report` (base64url JSON); `?report=1`
  * answers them as JSON instead of the image.
  */
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  assertCan(user, "lab:run");
-  const input = await parseJson(req, labRunRequestSchema);
+export const POST = authedRoute("lab:run", async (req, { user, json }) => {
+  const input = await json(labRunRequestSchema);
   const still = await readableStill(user, input.still);
   const loadStill = await denoisedLoader(user, input.steps);
   const stillBytes = await originalBytes(still);
@@ -42,3 +38,5 @@ export const POST = apiRoute(async (req) => {
     },
   });
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

@@ -1,7 +1,5 @@
 import { AppError } from "@/lib/api/errors";
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { assertCan } from "@/lib/auth/permissions";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { boxMean } from "@/lib/lab/analysis";
 import { mapLabError, originalBytes, readableStill, withAnalysisSlot } from "@/app/api/lab/_lib/lab-server";
 import { runToFloat } from "@/app/api/lab/_lib/float-run";
@@ -11,10 +9,8 @@ export const dynamic = "force-dynamic";
 export const runtime = "nodejs";
 
 /** POST /api/lab/sample: mean RGB floats of boxes on the full-resolution still (the solver's samples). */
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  assertCan(user, "lab:run");
-  const input = await parseJson(req, labSampleRequestSchema);
+export const POST = authedRoute("lab:run", async (req, { user, json }) => {
+  const input = await json(labSampleRequestSchema);
   const still = await readableStill(user, input.still);
   const fields: Record<string, string> = {};
   input.boxes.forEach((b, i) => {
@@ -32,3 +28,5 @@ export const POST = apiRoute(async (req) => {
   }
   return Response.json({ samples, pixels } satisfies LabSampleResponse);
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

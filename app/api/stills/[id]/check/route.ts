@@ -1,6 +1,5 @@
-import { apiRoute, parseJson, parseWith, uuidParam } from "@/lib/api/handler";
 import { AppError } from "@/lib/api/errors";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
 import { runPlateCheck } from "@/lib/plate-check/mutations";
 import { getPlateCheck } from "@/lib/plate-check/queries";
 import { runCheckSchema, type CheckDto } from "@/lib/plate-check/schemas";
@@ -11,10 +10,8 @@ export const runtime = "nodejs";
 type Params = { id: string };
 
 /** The stored check (findings, suggestions, tries, the reader's kept recipes); 404 before the first check. */
-export const GET = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const id = parseWith(uuidParam, (await ctx.params).id);
-  const dto = await getPlateCheck(user, id);
+export const GET = authedRoute<Params>(async (req, { user, params }) => {
+  const dto = await getPlateCheck(user, parseWith(uuidParam, params.id));
   if (!dto) throw new AppError("not_found", "This still has not been checked yet.");
   return Response.json(dto satisfies CheckDto);
 });
@@ -24,10 +21,9 @@ export const GET = apiRoute<Params>(async (req, ctx) => {
  * `Accept: application/x-ndjson` the answer streams one `{ "stage": … }` line per detector,
  * then `{ "check": … }` (or `{ "error": … }`), for a progress bar.
  */
-export const POST = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const id = parseWith(uuidParam, (await ctx.params).id);
-  const { force } = await parseJson(req, runCheckSchema);
+export const POST = authedRoute<Params>("still:check", async (req, { user, params, json }) => {
+  const id = parseWith(uuidParam, params.id);
+  const { force } = await json(runCheckSchema);
   if (!(req.headers.get("accept") ?? "").includes("application/x-ndjson")) {
     return Response.json((await runPlateCheck(user, id, { force })) satisfies CheckDto);
   }
@@ -39,12 +35,13 @@ export const POST = apiRoute<Params>(async (req, ctx) => {
         const check = await runPlateCheck(user, id, { force, onStage: (stage, done, total) => line({ stage, done, total }) });
         line({ check });
       } catch (error) {
-        const e = error instanceof AppError ? error : new AppError("internal");
         if (!(error instanceof AppError)) console.error("[plate-check] stream:", error);
-        line(e.toBody());
+        line((error instanceof AppError ? error : new AppError("internal")).toBody());
       }
       controller.close();
     },
   });
   return new Response(body, { headers: { "Content-Type": "application/x-ndjson; charset=utf-8" } });
 });
+
+export const { HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ GET, POST });

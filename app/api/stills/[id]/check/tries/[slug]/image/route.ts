@@ -1,9 +1,8 @@
 import sharp from "sharp";
-import { apiRoute, parseWith, searchParamsOf, uuidParam } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, searchParamsOf, uuidParam } from "@/lib/api/handler";
 import { findTry } from "@/lib/plate-check/mutations";
-import { renderFilled } from "@/lib/plate-check/tries";
 import { renderQuerySchema } from "@/lib/plate-check/schemas";
+import { renderFilled } from "@/lib/plate-check/tries";
 
 export const dynamic = "force-dynamic";
 export const runtime = "nodejs";
@@ -12,9 +11,7 @@ export const runtime = "nodejs";
  * A tried technique's render: the proxy (1024 px, the 16-bit render the measures came from,
  * encoded as WebP for display) or, with `?size=exact`, the full frame as 16-bit PNG.
  */
-export const GET = apiRoute<{ id: string; slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const params = await ctx.params;
+export const GET = authedRoute<{ id: string; slug: string }>("still:check", async (req, { user, params }) => {
   const id = parseWith(uuidParam, params.id);
   const { size } = parseWith(renderQuerySchema, searchParamsOf(req));
   const { still, result } = await findTry(user, id, params.slug);
@@ -32,3 +29,5 @@ export const GET = apiRoute<{ id: string; slug: string }>(async (req, ctx) => {
     },
   });
 });
+
+export const { HEAD, OPTIONS, POST, PUT, PATCH, DELETE } = otherMethods({ GET });

@@ -1,17 +1,14 @@
-import { apiRoute, parseJson, parseWith, uuidParam } from "@/lib/api/handler";
-import { assertCan } from "@/lib/auth/permissions";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
 import { proposeRecipe } from "@/lib/plate-check/mutations";
 import { proposeRequestSchema } from "@/lib/plate-check/schemas";
 
 export const dynamic = "force-dynamic";
 
 /** Senior+: proposes the filled recipe as a new revision of the technique (it goes to review). */
-export const POST = apiRoute<{ id: string; slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  assertCan(user, "technique:write");
-  const params = await ctx.params;
+export const POST = authedRoute<{ id: string; slug: string }>("technique:write", async (req, { user, params, json }) => {
   const id = parseWith(uuidParam, params.id);
-  const { changeNote } = await parseJson(req, proposeRequestSchema);
+  const { changeNote } = await json(proposeRequestSchema);
   return Response.json(await proposeRecipe(user, id, params.slug, changeNote), { status: 201 });
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });
