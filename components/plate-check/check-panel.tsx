@@ -9,6 +9,7 @@ import { TryBoard } from "@/components/plate-check/try-board";
 import { Button } from "@/components/ui/button";
 import { Skeleton } from "@/components/ui/skeleton";
 import { ApiError } from "@/lib/api/fetcher";
+import { utcTime } from "@/lib/plate-check/format";
 import type { CheckDto } from "@/lib/plate-check/schemas";
 
 type Props = { stillId: string; alt: string; initial: CheckDto | null; tagNames: Record<string, string>; canPropose: boolean };
@@ -49,7 +50,7 @@ export function CheckPanel({ stillId, alt, initial, tagNames, canPropose }: Prop
     <div className="space-y-6">
       <div className="flex flex-wrap items-center gap-3">
         <h2 className="text-lg font-semibold">What the plate check measured</h2>
-        {dto ? <span className="text-xs text-muted">Checked {new Date(dto.checkedAt).toLocaleString()} · detector version {dto.findings.detectorVersion}</span> : null}
+        {dto ? <span className="text-xs text-muted">Checked {utcTime(dto.checkedAt)} · detector version {dto.findings.detectorVersion}</span> : null}
         <Button className="ml-auto" onClick={() => start(true)} disabled={running}>
           {dto ? "Check again" : "Check this plate"}
         </Button>

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { utcTime } from "@/lib/plate-check/format";
 import type { KeptRecipeDto } from "@/lib/plate-check/schemas";
 
 /** Filled recipes kept on this still (the reader's own; leads see everyone's). */
@@ -16,7 +17,7 @@ export function KeptList({ items }: { items: KeptRecipeDto[] }) {
               {k.title}
             </Link>{" "}
             <span className="text-xs text-muted">
-              rev {k.revision} · {new Date(k.createdAt).toLocaleString()} · {k.recipe.length} step{k.recipe.length === 1 ? "" : "s"}
+              rev {k.revision} · {utcTime(k.createdAt)} · {k.recipe.length} step{k.recipe.length === 1 ? "" : "s"}
             </span>
             {k.note ? <p className="text-muted">{k.note}</p> : null}
             <details className="text-xs">

@@ -30,3 +30,8 @@ export function gridBytes(data: string): Uint8Array {
   for (let i = 0; i < s.length; i++) out[i] = s.charCodeAt(i);
   return out;
 }
+
+/** A time the same on the server and in the browser (no locale or zone of either): "2026-03-04 10:28 UTC". */
+export function utcTime(iso: string): string {
+  return `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
+}

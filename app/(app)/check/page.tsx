@@ -4,6 +4,7 @@ import { FrameDrop } from "@/components/plate-check/frame-drop";
 import { Card, CardTitle } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { requireUser } from "@/lib/auth/session";
+import { utcTime } from "@/lib/plate-check/format";
 import { listMyChecks } from "@/lib/plate-check/queries";
 import { stillUrl } from "@/lib/stills/schemas";
 import { env } from "@/lib/env";
@@ -36,7 +37,7 @@ export default async function CheckPage() {
                   <img src={stillUrl(c.stillId, "thumb")} alt="" className="h-16 w-24 shrink-0 rounded object-cover" />
                   <span className="min-w-0 text-sm">
                     <span className="block truncate font-medium">{c.alt}</span>
-                    <span className="block text-xs text-muted">{new Date(c.checkedAt).toLocaleString()}</span>
+                    <span className="block text-xs text-muted">{utcTime(c.checkedAt)}</span>
                     <span className="line-clamp-2 block text-xs text-muted">{c.summary}</span>
                   </span>
                 </Link>
