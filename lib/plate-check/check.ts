@@ -1,6 +1,6 @@
 import { countClipping } from "@/lib/plate-check/clipping";
 import { findDefects, repairDefects } from "@/lib/plate-check/defects";
-import { CHANNELS, codeToLinear, round, type PlateFrame } from "@/lib/plate-check/image";
+import { CHANNELS, codeToLinear, linearToCode, round, type PlateFrame } from "@/lib/plate-check/image";
 import { IMMERKAER_SCALE, laplacianAbsSumsRgb, robustSigma } from "@/lib/plate-check/noise";
 import type { DustFinding, Findings, MarkerFinding, MarkerShade, NoiseFinding, OverlayGrid, Rgb, ScreenFinding } from "@/lib/plate-check/schemas";
 import { guessScreen, MIN_SCREEN_COVERAGE, screenKind, screenLikeMask, screenStats, type ScreenStats } from "@/lib/plate-check/screen";
@@ -19,7 +19,7 @@ import { problemTagsFor } from "@/lib/plate-check/tags";
  */
 
 /** Bump when any detector's output for the same frame changes: stored findings are then re-run. */
-export const DETECTOR_VERSION = 1;
+export const DETECTOR_VERSION = 2;
 
 /** Spot thresholds on z² (three channels): a core beyond 40 (p ≈ 2·10⁻⁸ for pure noise), grown through 16. */
 const SPOT_HI = 40;
@@ -85,6 +85,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     if (options.pause) await options.pause();
   };
   const toLinear = (v: number): number => codeToLinear(frame, v);
+  const toCode = (l: number): number => linearToCode(frame, l);
   // A floor for noise figures: quantisation of the stored depth (uniform: step/√12).
   const quantFloor = 1 / (frame.codeMax * Math.sqrt(12));
 
@@ -130,7 +131,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     dropDepartingBlocks(blockMeans(smooth, W, H, size, mask, 2), mask, W, H, range);
     surface = fitSurface(frame, smooth, mask, size, floorSmooth);
     await stage("screen", 4);
-    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: true, surfaceMask: mask, toLinear }));
+    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: true, surfaceMask: mask, toLinear, toCode }));
     stats = screenStats(linear, W, H, cleanScreen(mask, labels), size, 2);
     const onScreen = spots.filter((s) => s.kind !== "other").reduce((a, s) => a + s.area, 0);
     coverage = (stats.pixels + onScreen) / n;
@@ -143,7 +144,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     if (surface) giveBack(surface.z2.buffer as ArrayBuffer);
     mask.fill(1);
     surface = fitSurface(frame, smooth, mask, size, floorSmooth);
-    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: false, surfaceMask: flatMask(surface, W, H), toLinear }));
+    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: false, surfaceMask: flatMask(surface, W, H), toLinear, toCode }));
   }
   // A flagged pixel inside a spot that is there without it (the end of a hair, a fleck of a
   // marker) is structure, not a defect: give it back its value.

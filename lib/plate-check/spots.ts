@@ -9,7 +9,9 @@ import { modelAt, type SurfaceGrid } from "@/lib/plate-check/surface";
  * The sorting rules are our own, from how these things look on a plate (common practice, no
  * published source):
  * - a marker sits on the screen (most of the ring around it is screen), is not a thin stroke, is smaller than a few per cent of the frame, and differs from the
- *   screen in colour, not just in brightness — or is large enough to be tape rather than dirt;
+ *   screen in colour, not just in brightness — or, when it is only a darker or lighter patch of the
+ *   screen's own colour (tape of the screen's hue), is shaped like tape: a cross or another figure
+ *   well short of convex (solidity ≤ 0.8, where a blob at any angle is ≈ 1), and no smaller than a marker is drawn;
  * - dust is a small speck that darkens or lightens the surface by the same factor in every
  *   channel (it blocks light; it has no colour of its own) or is too small to be a marker;
  * - a hair is long, thin and colourless: at least ~1 % of the frame long, its stroke a few pixels wide;
@@ -38,7 +40,9 @@ export type Spot = {
   surface: [number, number, number];
   /** Σ over the spot of (linear pixel − linear surface): the direction a matrix sees. */
   direction: [number, number, number];
-  /** Spread of log(core / surface) across channels over (15 % of its largest size + 0.05): > 1 means coloured; ≈ 0 for a colourless speck. */
+  /** Its area over its convex hull's (solidity): ≈ 1 for a disc, an ellipse or a square at any angle; 0.4–0.75 for a plus or an X cross. */
+  solidity: number;
+  /** Spread of log(core / surface) across channels over (15 % of its largest size + 0.05), the smaller of linear light and code values: > 1 means coloured; ≈ 0 for a colourless speck. */
   chroma: number;
   confidence: number;
 };
@@ -53,6 +57,7 @@ export type SpotRules = {
   /** Pixels that belong to the clean surface (for the ring test). */
   surfaceMask: Uint8Array;
   toLinear: (v: number) => number;
+  toCode: (l: number) => number;
 };
 
 type Raw = { label: number; area: number; x0: number; y0: number; x1: number; y1: number; sx: number; sy: number; sw: number; peak: number; big: boolean };
@@ -66,6 +71,8 @@ export function spotLimits(width: number, height: number) {
     /** A coloured spot smaller than this is a speck, not a marker. */
     minChromaticMarkerArea: Math.max(6, 1e-5 * width * height),
     minHairLength: Math.max(10, 0.01 * D),
+    /** A colourless spot must span at least this to be taken for tape of the screen's hue (≈ 10 px at 2K). */
+    minTapeSide: Math.max(9, 0.005 * D),
   };
 }
 
@@ -145,9 +152,49 @@ function absorbFragments(spots: Spot[]): Spot[] {
   return spots.filter((s) => !gone.has(s));
 }
 
+/** Spread of log(core / surface) across channels over (15 % of its largest size + 0.05). */
+function chromaOf(core: readonly number[], surf: readonly number[]): number {
+  const eps = 1e-4;
+  const l = [0, 1, 2].map((c) => Math.log(Math.max(core[c]!, eps) / Math.max(surf[c]!, eps)));
+  const spread = Math.max(...l) - Math.min(...l), mag = Math.max(...l.map(Math.abs));
+  return spread / (0.15 * mag + 0.05);
+}
+
+/**
+ * Area of the convex hull of a spot's pixels, each taken as its unit square: the hull of each
+ * row's outer corners (Andrew's monotone chain), by the shoelace formula.
+ */
+function hullArea(labels: Int32Array, W: number, r: Raw): number {
+  const pts: [number, number][] = [];
+  for (let y = r.y0; y <= r.y1; y++) {
+    let lo = -1, hi = -1;
+    for (let x = r.x0; x <= r.x1; x++) if (labels[y * W + x] === r.label) { if (lo < 0) lo = x; hi = x; }
+    if (lo < 0) continue;
+    pts.push([lo, y], [lo, y + 1], [hi + 1, y], [hi + 1, y + 1]);
+  }
+  pts.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  const cross = (o: [number, number], a: [number, number], b: [number, number]) => (a[0] - o[0]) * (b[1] - o[1]) - (a[1] - o[1]) * (b[0] - o[0]);
+  const half = (list: [number, number][]) => {
+    const h: [number, number][] = [];
+    for (const p of list) {
+      while (h.length >= 2 && cross(h[h.length - 2]!, h[h.length - 1]!, p) <= 0) h.pop();
+      h.push(p);
+    }
+    h.pop();
+    return h;
+  };
+  const hull = [...half(pts), ...half([...pts].reverse())];
+  let twice = 0;
+  for (let i = 0; i < hull.length; i++) {
+    const a = hull[i]!, b = hull[(i + 1) % hull.length]!;
+    twice += a[0] * b[1] - b[0] * a[1];
+  }
+  return Math.max(r.area, Math.abs(twice) / 2);
+}
+
 function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Array, grid: SurfaceGrid, rules: SpotRules, limits: ReturnType<typeof spotLimits>): Spot {
   const { width: W, height: H } = rules;
-  const core: [number, number, number] = [0, 0, 0], surf: [number, number, number] = [0, 0, 0], dir: [number, number, number] = [0, 0, 0];
+  const core: [number, number, number] = [0, 0, 0], surf: [number, number, number] = [0, 0, 0], surfCode: [number, number, number] = [0, 0, 0], dir: [number, number, number] = [0, 0, 0];
   const s: [number, number, number] = [0, 0, 0];
   let coreN = 0, eroded = 0;
   const corePeak = r.peak * 0.5;
@@ -162,12 +209,13 @@ function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Ar
       if (z2[p]! >= corePeak) {
         core[0] += linear[i]!; core[1] += linear[i + 1]!; core[2] += linear[i + 2]!;
         surf[0] += s0; surf[1] += s1; surf[2] += s2;
+        surfCode[0] += s[0]; surfCode[1] += s[1]; surfCode[2] += s[2];
         coreN++;
       }
       if (x > 0 && x < W - 1 && y > 0 && y < H - 1 && labels[p - 1] === r.label && labels[p + 1] === r.label && labels[p - W] === r.label && labels[p + W] === r.label) eroded++;
     }
   }
-  for (let c = 0; c < 3; c++) { core[c]! /= coreN; surf[c]! /= coreN; }
+  for (let c = 0; c < 3; c++) { core[c]! /= coreN; surf[c]! /= coreN; surfCode[c]! /= coreN; }
   // Ring: the box grown by a margin, outside the spot itself.
   const g = 3 + Math.ceil(0.15 * Math.max(r.x1 - r.x0 + 1, r.y1 - r.y0 + 1));
   let ringTotal = 0, ringSurface = 0;
@@ -181,10 +229,10 @@ function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Ar
     }
   }
   const ring = ringTotal ? ringSurface / ringTotal : 0;
-  const eps = 1e-4;
-  const l = [0, 1, 2].map((c) => Math.log(Math.max(core[c]!, eps) / Math.max(surf[c]!, eps)));
-  const spread = Math.max(...l) - Math.min(...l), mag = Math.max(...l.map(Math.abs));
-  const chroma = spread / (0.15 * mag + 0.05);
+  // Colourless in light (dust on the sensor or film blocks every channel alike) or in the stored
+  // code values (a speck that scales the encoded values alike): either way it has no colour of its own.
+  const coreCode = core.map(rules.toCode);
+  const chroma = Math.min(chromaOf(core, surf), chromaOf(coreCode, surfCode));
   const boundary = r.area - eroded;
   const strokeWidth = boundary ? (2 * r.area) / boundary : r.area;
   const side = Math.max(r.x1 - r.x0 + 1, r.y1 - r.y0 + 1);
@@ -195,8 +243,12 @@ function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Ar
   const elongation = Math.max(r.area / (strokeWidth * strokeWidth), side / strokeWidth);
   // The 3×3 mean widens every spot by about two pixels; a hair's stroke stays narrow and long.
   const isHair = !isColoured && strokeWidth <= 6 && elongation >= 4.5 && side >= limits.minHairLength;
+  // Dust is a blob; tape of the screen's own hue is told from it by shape alone.
+  const solidity = r.area / hullArea(labels, W, r);
+  const isScreenHuedTape = !isColoured && rules.isScreen && solidity <= 0.88 && side >= limits.minTapeSide && elongation < 12;
   if (ring >= 0.6) {
     if (isHair) kind = "hair";
+    else if (isScreenHuedTape) kind = "marker";
     else if (!isColoured) kind = "dust";
     else if (r.area < limits.minChromaticMarkerArea) kind = "dust";
     else if (rules.isScreen && elongation < 12) kind = "marker";
@@ -214,6 +266,7 @@ function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Ar
     peakZ,
     ringSurface: ring,
     strokeWidth,
+    solidity,
     core,
     surface: surf,
     direction: dir,

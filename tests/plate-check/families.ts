@@ -90,3 +90,35 @@ export function heldOut2Spec(seed: number): PlateSpec {
     bits: 16,
   };
 }
+
+/**
+ * Tape of the screen's own hue (a darker patch of the screen colour, common practice on set) as
+ * one of the shades, crosses only: colour cannot tell such tape from dust, only its shape can (a
+ * screen-hued dot cannot be told from a dust speck in one frame and is not claimed). Written after
+ * probe plates made outside the project (crosses of dark screen colour, generated with numpy)
+ * showed them taken for dust. Seen: the solidity limit (0.88) was raised from 0.8 after this
+ * family's first run missed its chunky blurred crosses.
+ */
+export function screenHuedTapeSpec(seed: number): PlateSpec {
+  const r = mulberry32(seed * 6007 + 29);
+  return {
+    width: 1120,
+    height: 630,
+    seed: 90_000 + seed,
+    screenHue: r() < 0.5 ? between(r, 100, 140) : between(r, 210, 240),
+    screenSat: between(r, 0.7, 0.9),
+    screenValue: between(r, 0.35, 0.55),
+    unevenness: between(r, 0.1, 0.3),
+    shades: 2 + Math.floor(r() * 2),
+    screenHuedShade: between(r, 0.25, 0.45),
+    shapes: ["cross"],
+    motionBlur: r() < 0.5 ? { length: between(r, 4, 8), angleDeg: between(r, 0, 180) } : null,
+    edgeSoftness: between(r, 1, 2),
+    foregroundShapes: 1 + Math.floor(r() * 2),
+    grain: between(r, 0.004, 0.012),
+    deadHotStuck: 10,
+    dust: 8,
+    hairs: 2,
+    bits: 16,
+  };
+}

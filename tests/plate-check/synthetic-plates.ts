@@ -30,6 +30,8 @@ export type PlateSpec = {
   unevenness?: number;
   /** Number of distinct marker shades, 0–4. */
   shades?: number;
+  /** The first shade is tape of the screen's own hue: the screen's colour at this share of its level (e.g. 0.35). */
+  screenHuedShade?: number | null;
   /** Marker grid pitch and size in pixels (size: dot radius / cross half-arm). */
   markerPitch?: number;
   markerSize?: number;
@@ -177,6 +179,7 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
     screenValue: 0.45,
     unevenness: 0.25,
     shades: 2,
+    screenHuedShade: null as number | null,
     markerPitch: Math.round(input.width / 9),
     markerSize: Math.max(4, Math.round(input.width / 160)),
     shapes: ["cross", "dot"] as MarkerShape[],
@@ -247,6 +250,7 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
 
   // --- foreground shapes (composited after the markers, so markers behind them are hidden) ---
   const shades = spec.hasScreen ? pickShades(rand, screen, spec.shades) : [];
+  if (spec.hasScreen && spec.screenHuedShade !== null && shades.length) shades[0] = screen.map((v) => v * spec.screenHuedShade!) as Rgb;
   const fgColours: Rgb[] = [...MARKER_PALETTE, [0.03, 0.05, 0.07], [0.12, 0.08, 0.06]];
   const shapes: { shape: Shape; colour: Rgb }[] = [];
   for (let k = 0; k < spec.foregroundShapes; k++) {

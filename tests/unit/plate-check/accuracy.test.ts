@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { checkFrame } from "@/lib/plate-check/check";
 import { frameFromCodes } from "@/lib/plate-check/frame";
 import type { Findings } from "@/lib/plate-check/schemas";
-import { heldOut2Spec, heldOutSpec, noScreenSpec, tunedSpec } from "@/tests/plate-check/families";
+import { heldOut2Spec, heldOutSpec, noScreenSpec, screenHuedTapeSpec, tunedSpec } from "@/tests/plate-check/families";
 import { scoreFindings, type Score } from "@/tests/plate-check/score";
 import { generatePlate, type PlateSpec } from "@/tests/plate-check/synthetic-plates";
 
@@ -86,6 +86,13 @@ describe("plate check accuracy on generated plates", () => {
     const t = await runFamily(Array.from({ length: 3 }, (_, i) => heldOut2Spec(i + 1)));
     report("held out 2", t);
     expectTargets(t);
+  });
+
+  it("tape of the screen's own hue (crosses), told from dust by shape: 3 plates", { timeout: 240_000 }, async () => {
+    const t = await runFamily(Array.from({ length: 3 }, (_, i) => screenHuedTapeSpec(i + 1)));
+    report("screen-hued tape", t);
+    expectTargets(t);
+    expect(t.dustM / t.dustT, "dust specks still found as dust").toBeGreaterThanOrEqual(0.9);
   });
 
   it("a frame with no screen says so: no screen, markers not searched, and still measures noise and defects", { timeout: 120_000 }, async () => {
