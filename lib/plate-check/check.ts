@@ -34,6 +34,8 @@ const NOISE_STEP = 2;
 export type CheckStage = "noise estimate" | "dead and hot pixels" | "clipping" | "screen" | "markers and dust" | "noise" | "done";
 
 export type CheckOptions = {
+  /** The still was stored with lossy compression (JPEG): grain and single pixels are not what the camera saw. */
+  lossy?: boolean;
   onStage?: (stage: CheckStage, done: number, total: number) => void;
   pause?: () => Promise<void>;
 };
@@ -221,11 +223,26 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     plateTags: [],
     timings,
   };
+  if (options.lossy) markLossy(findings);
   const tagged = problemTagsFor(findings);
   findings.problemTags = tagged.problemTags;
   findings.plateTags = tagged.plateTags;
   await stage("done", total);
   return findings;
+}
+
+/**
+ * A lossy still (JPEG): its compression smooths grain and smears or invents single-pixel detail,
+ * so the noise, defect and dust figures are rough; they say so and claim half their confidence.
+ */
+function markLossy(f: Findings): void {
+  const note = " The still is JPEG-compressed: compression smooths grain and smears single pixels, so this is a rough figure.";
+  f.noise.summary += note;
+  f.noise.confidence = round(f.noise.confidence * 0.5, 2);
+  f.defects.summary += note;
+  f.defects.confidence = round(f.defects.confidence * 0.5, 2);
+  f.dust.summary += note;
+  f.dust.confidence = round(f.dust.confidence * 0.5, 2);
 }
 
 /** a ∧ ¬b, per pixel. */

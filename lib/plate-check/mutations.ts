@@ -53,7 +53,7 @@ export async function runPlateCheck(user: SessionUser, stillId: string, options:
   const still = await getStillForRead(user, stillId);
   const stored = await storedCheck(still.id);
   if (!stored || stored.detectorVersion !== DETECTOR_VERSION || options.force) {
-    const findings = await withCheckSlot(async () => checkFrame(await readStillLinear(still), { pause, onStage: options.onStage }));
+    const findings = await withCheckSlot(async () => checkFrame(await readStillLinear(still), { lossy: still.format === "jpeg", pause, onStage: options.onStage }));
     await getDb().transaction(async (tx) => {
       await tx
         .insert(plateChecks)

@@ -46,7 +46,7 @@ const slugOf = (key: string) => key; // demo keys are their slugs (scripts/seed/
 
 async function upload(person: TestPerson, bytes: Buffer, name = "frame.png"): Promise<string> {
   const form = new FormData();
-  form.set("file", new Blob([new Uint8Array(bytes)], { type: "image/png" }), name);
+  form.set("file", new Blob([new Uint8Array(bytes)], { type: name.endsWith(".jpg") ? "image/jpeg" : "image/png" }), name);
   form.set("alt", "Frame dropped for a plate check");
   form.set("owner", "trial");
   const res = await stillsPost(new Request("http://localhost/api/stills", { method: "POST", body: form, headers: { Authorization: `Bearer ${person.token}` } }), params({}));
@@ -187,6 +187,21 @@ describe("POST and GET /api/stills/{id}/check", () => {
     const out = (await (await tries(artist, id, { techniques: ["marker-channel-cleanup"] })).json()) as { tries: TryResult[] };
     expect(out.tries[0]!.problem).toMatch(/backing screen/);
     expect(out.tries[0]!.measures).toBeNull();
+  });
+
+  it("does not claim full confidence in grain, defects or dust on a JPEG, and says why", async () => {
+    const jpeg = await sharp(png).jpeg({ quality: 92 }).toBuffer();
+    const id = await upload(artist, jpeg, "frame.jpg");
+    const lossy = ((await (await check(artist, id)).json()) as CheckDto).findings;
+    const lossless = dto.findings;
+    for (const key of ["noise", "defects", "dust"] as const) {
+      expect(lossy[key].summary).toMatch(/JPEG-compressed/);
+      expect(lossy[key].confidence).toBeLessThanOrEqual(0.5);
+      expect(lossless[key].summary).not.toMatch(/JPEG/);
+    }
+    // The screen itself survives compression: still found, same hue within the 2° target.
+    expect(lossy.screen.present).toBe(true);
+    expect(Math.abs(lossy.screen.hue! - lossless.screen.hue!)).toBeLessThanOrEqual(2);
   });
 });
 
