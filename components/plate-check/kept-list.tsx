@@ -2,7 +2,7 @@ import Link from "next/link";
 import { utcTime } from "@/lib/plate-check/format";
 import type { KeptRecipeDto } from "@/lib/plate-check/schemas";
 
-/** Filled recipes kept on this still (the reader's own; leads see everyone's). */
+/** Filled recipes kept on this still (the reader's own: a kept recipe is its keeper's alone). */
 export function KeptList({ items }: { items: KeptRecipeDto[] }) {
   if (!items.length) return null;
   return (

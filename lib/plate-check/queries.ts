@@ -12,7 +12,7 @@ import { getStillForRead } from "@/lib/stills/queries";
 
 /*
  * Reading stored plate checks. Everything follows the still's own visibility (getStillForRead:
- * someone else's private trial is a 404), kept recipes their keeper's and the leads'.
+ * someone else's private trial is a 404), kept recipes their keeper's alone.
  */
 
 export type StoredCheck = { findings: Findings; checkedAt: Date; detectorVersion: number };

@@ -36,7 +36,7 @@ export default async function StillPage({ params }: Props) {
           <span>
             {still.width}×{still.height}, {still.format.toUpperCase()} {still.bitDepth}-bit
           </span>
-          {still.owner === "trial" ? <Badge>Private trial: only you{user.id === still.uploaderId ? "" : " (its uploader)"} and leads see it</Badge> : null}
+          {still.owner === "trial" ? <Badge>Private trial: only you see it</Badge> : null}
           {still.caption ? <span>{still.caption}</span> : null}
         </p>
       </div>

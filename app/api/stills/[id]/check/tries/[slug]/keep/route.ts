@@ -4,7 +4,7 @@ import { keepRequestSchema, type KeptRecipeDto } from "@/lib/plate-check/schemas
 
 export const dynamic = "force-dynamic";
 
-/** Keeps the filled recipe of a tried technique for the reader (private: theirs and the leads'). */
+/** Keeps the filled recipe of a tried technique for the reader (private: theirs alone). */
 export const POST = authedRoute<{ id: string; slug: string }>("recipe:keep", async (req, { user, params, json }) => {
   const id = parseWith(uuidParam, params.id);
   const { note } = await json(keepRequestSchema);
