@@ -14,7 +14,7 @@ import { plateProxy, tryRecipe } from "@/lib/plate-check/tries";
 import { approvedRecipe, suggestMethods } from "@/lib/plate-check/suggest";
 import { getStillForRead } from "@/lib/stills/queries";
 import { getTechnique } from "@/lib/techniques/queries";
-import { updateTechnique } from "@/lib/techniques/mutations";
+import { submitTechnique, updateTechnique } from "@/lib/techniques/mutations";
 
 /*
  * Running the plate check, trying methods on the frame, keeping and proposing filled recipes.
@@ -154,5 +154,7 @@ export async function proposeRecipe(user: SessionUser, stillId: string, slug: st
     changeNote,
   });
   await writeAudit(getDb(), { actorId: user.id, action: "plate-check.propose", targetType: "technique", targetId: t.id, detail: { still: still.id, revision: out.revision, from: result.revision } });
-  return out;
+  // A saved revision is a draft (issue 13); a proposal is meant for review, so it is sent there.
+  const sent = await submitTechnique(user, out.slug);
+  return { slug: sent.slug, revision: sent.revision };
 }
