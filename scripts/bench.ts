@@ -1,5 +1,5 @@
 /*
- * `npm run bench`: the still lab, search, load, oversized-body, password-reset timing and soak
+ * `npm run bench`: the still lab, search, plate check, load, oversized-body, password-reset timing and soak
  * benchmarks in turn, each in its own process (so one's heap, worker threads and server do not
  * weigh on the next), then one summary from bench/results.json. Names after `--` run only those
  * steps: `npm run bench -- technique-page` (the uncached technique-page row alone). `npm run bench -- --quick` passes
@@ -24,6 +24,7 @@ const steps: { name: string; script: string; args: string[]; env?: Record<string
   { name: "exr", script: "bench/exr.ts", args: quick ? ["--quick"] : [] },
   { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
   { name: "technique-page", script: "bench/technique-page.ts", args: [], env: quick ? { PAGE_DURATION: process.env.PAGE_DURATION ?? "10" } : {} },
+  { name: "plate-check", script: "bench/plate-check.ts", args: quick ? ["--quick"] : [] },
   { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
   { name: "bodies", script: "bench/bodies.ts", args: [] },
   { name: "reset-timing", script: "bench/reset-timing.ts", args: [], env: quick ? { RESET_PAIRS: process.env.RESET_PAIRS ?? "40" } : {} },
@@ -65,6 +66,13 @@ if (exr) {
   console.log(`OpenEXR decode (load average ${fmt(get(exr, "loadAverage", "before", 0), 2)})`);
   console.table(((get(exr, "decode") ?? []) as Json[]).map((r) => ({ size: r.size, compression: r.compression, "decode ms": r.decodeMs, "float copy ms": r.copyMs, "× copy": r.ratio })));
   console.log("4K OpenEXR upload:", get(exr, "upload4k"));
+}
+
+const plate = results.plateCheck;
+if (plate) {
+  console.log(`Plate check (load average ${fmt(get(plate, "loadAverage", "before", 0), 2)} → ${fmt(get(plate, "loadAverage", "after", 0), 2)})`);
+  console.table(((get(plate, "check") ?? []) as Json[]).map((r) => ({ size: r.size, "check ms": r.checkMs, "cpu ms": r.checkCpuMs, "copy ms": r.copyMs, "× copy": r.ratio, "with decode ms": r.withDecodeMs })));
+  console.log("Plate check targets:", get(plate, "targets"));
 }
 
 const search = results.search;

@@ -27,6 +27,11 @@ export default async function HomePage() {
         <Link href="/search" className={buttonClasses("secondary", "ml-auto")}>
           Find a method by problem
         </Link>
+        {can(user, "still:check") ? (
+          <Link href="/check" className={buttonClasses("secondary")}>
+            Check a plate: drop a frame
+          </Link>
+        ) : null}
       </div>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <div className="space-y-6">

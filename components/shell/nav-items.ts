@@ -8,6 +8,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/techniques", label: "Techniques", permission: "technique:read" },
   { href: "/problems", label: "Problems", permission: "technique:read" },
   { href: "/search", label: "Search", permission: "technique:read" },
+  { href: "/check", label: "Plate check", permission: "still:check" },
   { href: "/shows", label: "Shows", permission: "technique:read" },
   { href: "/review", label: "Review", permission: "technique:review", badge: "review" },
   { href: "/thesaurus", label: "Thesaurus", permission: "thesaurus:manage" },

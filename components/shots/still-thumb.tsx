@@ -7,7 +7,12 @@ export function StillThumb({ id, alt, label }: { id: string; alt: string | null;
         {/* eslint-disable-next-line @next/next/no-img-element -- private, permission-checked still; next/image would cache it */}
         <img src={`/api/stills/${id}/thumb`} alt={text} loading="lazy" className="h-20 w-full rounded object-cover" />
       </a>
-      <figcaption className="mt-0.5 text-xs text-muted">{label}</figcaption>
+      <figcaption className="mt-0.5 flex justify-between text-xs text-muted">
+        {label}
+        <a href={`/stills/${id}`} className="hover:text-accent" title={`Plate check of the ${label.toLowerCase()} still`}>
+          Check
+        </a>
+      </figcaption>
     </figure>
   );
 }

@@ -53,6 +53,16 @@ export function EvidencePanel({ slug, pairs, stills, canUpload, isApproved }: Pr
       ) : (
         <EmptyState title="No before/after stills yet." />
       )}
+      {stills.length ? (
+        <p className="flex flex-wrap gap-x-3 gap-y-1 text-sm">
+          <span className="text-muted">Plate check of each still:</span>
+          {stills.map((s) => (
+            <a key={s.id} href={`/stills/${s.id}`} className="text-accent underline-offset-2 hover:underline">
+              {s.alt}
+            </a>
+          ))}
+        </p>
+      ) : null}
       {canUpload ? (
         <details className="rounded border border-line p-3">
           <summary className="cursor-pointer text-sm font-medium">Add stills and pair them</summary>

@@ -6,3 +6,4 @@ export * from "./shows";
 export * from "./mail";
 export * from "./changes";
 export * from "./thesaurus";
+export * from "./plate-checks";

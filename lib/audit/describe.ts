@@ -26,6 +26,7 @@ export const AUDIT_ACTIONS: Record<string, { area: Area; label: string }> = {
   "technique.create": { area: "Techniques", label: "Started a technique" },
   "technique.edit": { area: "Techniques", label: "Saved a revision" },
   "technique.retire": { area: "Techniques", label: "Retired a technique" },
+  "plate-check.propose": { area: "Techniques", label: "Proposed recipe values from a plate check" },
   "technique.submit": { area: "Review", label: "Submitted for review" },
   "technique.approve": { area: "Review", label: "Approved a revision" },
   "technique.return": { area: "Review", label: "Sent a revision back" },
@@ -123,6 +124,8 @@ function predicate(entry: AuditEntryInput, names: AuditNames): SentencePart[] {
       const note = str(d.changeNote);
       return [`saved ${revisionOf(d)} of `, technique, note ? `: ${quote(note)}` : "."];
     }
+    case "plate-check.propose":
+      return [`saved ${revisionOf(d)} of `, technique, " with recipe values filled from a checked frame."];
     case "technique.submit":
       return [`submitted ${revisionOf(d)} of `, technique, " for review."];
     case "technique.approve":

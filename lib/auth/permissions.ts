@@ -27,6 +27,9 @@ export const PERMISSIONS = [
   "still:upload-trial",
   "still:read",
   "lab:run",
+  "still:check",
+  "recipe:keep",
+  "recipe:read-kept",
   "subscription:manage",
   "token:manage",
   "people:manage",
@@ -46,6 +49,9 @@ const ARTIST: Permission[] = [
   "still:upload-trial",
   "still:read",
   "lab:run",
+  "still:check",
+  "recipe:keep",
+  "recipe:read-kept",
   "subscription:manage",
   "token:manage",
 ];
@@ -93,6 +99,8 @@ const OWNERSHIP_RULES: Partial<Record<Permission, (user: SessionUser, resource: 
   "question:answer": (user, r) => r.techniqueAuthorId === user.id || user.role === "lead",
   // Not leads, not admins: a trial is someone's own experiment until they attach it somewhere.
   "still:read": (user, r) => r.stillOwner !== "trial" || r.ownerId === user.id,
+  /** A kept recipe is private like a trial: its keeper's alone. */
+  "recipe:read-kept": (user, r) => r.ownerId === user.id,
 };
 
 /** Deny by default: a missing user, an unknown role or a missing permission is a no. */

@@ -9,7 +9,8 @@ import { DEMO_TECHNIQUES, type DemoTechnique } from "@/scripts/seed/data/techniq
 import type { SessionUser } from "@/lib/auth/roles";
 import { runRecipe } from "@/lib/lab/engine";
 import { recipeSchema, type RecipeStep } from "@/lib/lab/recipe";
-import { demoCleanupRecipe, generateSyntheticPlate } from "@/lib/lab/synthetic";
+import { demoCleanupRecipe, generateSyntheticPlate, MARKER_COLOURS, SCREEN_COLOURS } from "@/lib/lab/synthetic";
+import { solveRow } from "@/lib/lab/solver";
 import { logUse } from "@/lib/uses/mutations";
 import { createPair, createStill } from "@/lib/stills/mutations";
 import { newIncomingPath } from "@/lib/stills/storage";
@@ -25,6 +26,22 @@ import type { TechniqueDocument } from "@/lib/techniques/document";
 /** Techniques that get generated stills and a runnable recipe, with the screen colour of their plate. */
 const WITH_STILLS: Record<string, { screen: "green" | "blue"; seed: number }> = {
   "marker-channel-cleanup": { screen: "green", seed: 7 },
+};
+/**
+ * Recipes of techniques without generated stills: screen flattening keeps the markers out of the
+ * screen estimate with a solved matte, then divides by the estimate (the plate check fills the
+ * matte row and the target colour from each frame it tries them on).
+ */
+const STATIC_RECIPES: Record<string, () => RecipeStep[]> = {
+  "screen-flattening-by-normalized-convolution": () => {
+    const matte = solveRow({ markers: MARKER_COLOURS, screen: [SCREEN_COLOURS.green], goal: { kind: "matte", channel: "g" } });
+    const round6 = (v: number) => Math.round(v * 1e6) / 1e6;
+    return recipeSchema.parse([
+      { op: "matte", channel: matte.row.map(round6), source: "plate", black: 0.08, white: 0.35 },
+      { op: "grow", px: 4 },
+      { op: "flatten", sigma: 40, color: SCREEN_COLOURS.green, weight: "outside" },
+    ]);
+  },
 };
 const STILL_WIDTH = 1280;
 const STILL_HEIGHT = 720;
@@ -92,7 +109,7 @@ export async function seedTechniques(log: (line: string) => void): Promise<void>
   const ordered: DemoTechnique[] = [...DEMO_TECHNIQUES].sort((a, b) => Number(a.lifecycle === "retired-superseded") - Number(b.lifecycle === "retired-superseded"));
   for (const t of ordered) {
     const author = person(t.author);
-    let { slug, revision } = await createTechnique(author, { title: t.title, summary: t.summary, aliases: t.aliases, tags: t.tags, body: t.body, recipe: [] });
+    let { slug, revision } = await createTechnique(author, { title: t.title, summary: t.summary, aliases: t.aliases, tags: t.tags, body: t.body, recipe: STATIC_RECIPES[t.key]?.() ?? [] });
     slugs.set(t.key, slug);
     const stills = WITH_STILLS[t.key];
     if (stills) {

@@ -1,17 +1,14 @@
-import fs from "node:fs";
-import path from "node:path";
 import type { Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
 import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
 import { useAppAndBrowser } from "@/tests/e2e/running-app";
+import { seriousViolations } from "@/tests/e2e/axe";
 
 /*
  * Issue 13, item 9: every page, for every role, checked in Chromium with axe-core (Deque's engine
  * of the WCAG 2.1 rules, an outside checker): no serious or critical violation. Also the quick
  * finder hands focus to the page it opens.
  */
-
-const AXE_SOURCE = fs.readFileSync(path.join(process.cwd(), "node_modules", "axe-core", "axe.min.js"), "utf8");
 
 const MARKER = "marker-channel-cleanup";
 const PENDING_EDIT = "boom-shadow-lift-by-gain-matching";
@@ -26,6 +23,7 @@ const EVERYONE = [
   "/shows/SLM",
   "/shots/SLM_040_0120",
   "/settings",
+  "/check",
   `/techniques/${MARKER}`,
   `/techniques/${MARKER}/history`,
   "/no/such/page",
@@ -40,23 +38,6 @@ const ROLES: Record<string, string[]> = {
   "lead@kestrel.test": [...EVERYONE, ...WRITERS, ...LEADS],
   "admin@kestrel.test": [...EVERYONE, ...ADMINS],
 };
-
-type Violation = { id: string; impact: string | null; help: string; nodes: { target: string[]; failureSummary?: string }[] };
-
-/** Runs axe-core on the page as it is; the serious and critical violations, in words a reader can act on. */
-async function seriousViolations(page: Page): Promise<string[]> {
-  // Evaluated through the debugging protocol, so the app's Content-Security-Policy stays as it is.
-  if (!(await page.evaluate(() => "axe" in window))) await page.evaluate(AXE_SOURCE);
-  const violations = await page.evaluate(async () => {
-    const result = await (window as unknown as { axe: { run(ctx: Document, options: object): Promise<{ violations: Violation[] }> } }).axe.run(document, {
-      resultTypes: ["violations"],
-    });
-    return result.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.map((n) => ({ target: n.target, failureSummary: n.failureSummary })) }));
-  });
-  return violations
-    .filter((v) => v.impact === "serious" || v.impact === "critical")
-    .flatMap((v) => v.nodes.map((n) => `${v.id} (${v.impact}): ${v.help} at ${n.target.join(" ")} — ${n.failureSummary ?? ""}`));
-}
 
 /** Waits for client rendering to settle: the editor's toolbar, the lab, lists that load after paint. */
 async function settle(page: Page): Promise<void> {

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { FrameDrop } from "@/components/plate-check/frame-drop";
 import { FacetPanel } from "@/components/search/facet-panel";
 import { RequestOffer } from "@/components/search/request-offer";
 import { ResultList } from "@/components/search/result-list";
@@ -6,6 +7,7 @@ import { SearchBox } from "@/components/search/search-box";
 import { PendingRegion, SearchNavProvider } from "@/components/search/search-nav";
 import { SearchSummary } from "@/components/search/search-summary";
 import { SortControl } from "@/components/search/sort-control";
+import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
 import { isWeakMatch } from "@/lib/search-ui/coverage";
 import { PAGE_SIZE, parseSearchState } from "@/lib/search-ui/params";
@@ -36,6 +38,7 @@ export default async function SearchPage({ searchParams }: { searchParams: Promi
       <div className="space-y-5">
         <h1 className="text-2xl font-semibold">Search</h1>
         <SearchBox key={state.q} state={state} userId={user.id} />
+        {can(user, "still:check") ? <FrameDrop compact /> : null}
         {invalid.length ? (
           <p role="alert" className="text-sm text-warn">
             Parts of this address were not understood and were left out: {invalid.join(", ")}.

@@ -9,6 +9,11 @@ import { logUse } from "@/lib/uses/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
 import { createThesaurusEntry } from "@/lib/thesaurus/mutations";
 import { createPerson, params, simpleDoc, type TestPerson } from "@/tests/factories";
+import { getDb } from "@/db/client";
+import { plateCheckTries } from "@/db/schema";
+import { DETECTOR_VERSION } from "@/lib/plate-check/check";
+import { runPlateCheck } from "@/lib/plate-check/mutations";
+import { findTechniqueBySlug } from "@/lib/techniques/queries";
 import { approvedTechnique, buildWorld, draftTechnique, expectErrorShape, inReviewTechnique, uniq, useTempFolders, type World } from "./world";
 
 /*
@@ -44,6 +49,7 @@ let retireSlug = "";
 let mergeTag = "";
 let personId = "";
 let thesaurusId = "";
+let triedSlug = "";
 
 /** The routes fuzzed here; one generated test each. */
 const FUZZED = [
@@ -54,6 +60,8 @@ const FUZZED = [
   "POST /api/shows/[code]/shots", "POST /api/stills/pairs", "POST /api/lab/run", "POST /api/lab/analyse", "POST /api/lab/sample",
   "POST /api/lab/solve", "POST /api/people", "PATCH /api/people/[id]", "POST /api/tokens", "POST /api/subscriptions",
   "DELETE /api/subscriptions", "PUT /api/subscriptions/mode", "POST /api/password-resets", "POST /api/thesaurus", "PUT /api/thesaurus/[id]",
+  "POST /api/stills/[id]/check", "POST /api/stills/[id]/check/tries", "POST /api/stills/[id]/check/tries/[slug]/keep",
+  "POST /api/stills/[id]/check/tries/[slug]/propose",
 ] as const;
 
 function targets(): Target[] {
@@ -99,6 +107,10 @@ function targets(): Target[] {
     t("POST", "/api/thesaurus", () => p.lead, () => "/api/thesaurus", none, () => ({ kind: "narrower", broader: "marker", terms: ["tape cross", "dot"], note: "On screens." })),
     t("PUT", "/api/thesaurus/[id]", () => p.lead, () => `/api/thesaurus/${thesaurusId}`, () => ({ id: thesaurusId }), () => ({ kind: "synonyms", terms: ["regrain", "grain restore"] })),
     t("POST", "/api/password-resets", () => p.artist, () => "/api/password-resets", none, () => ({ email: "someone@kestrel.test" })),
+    t("POST", "/api/stills/[id]/check", () => p.artist, () => `/api/stills/${w.still}/check`, () => ({ id: w.still }), () => ({ force: false })),
+    t("POST", "/api/stills/[id]/check/tries", () => p.artist, () => `/api/stills/${w.still}/check/tries`, () => ({ id: w.still }), () => ({ techniques: [w.approved] })),
+    t("POST", "/api/stills/[id]/check/tries/[slug]/keep", () => p.artist, () => `/api/stills/${w.still}/check/tries/${triedSlug}/keep`, () => ({ id: w.still, slug: triedSlug }), () => ({ note: "For the marker shot." })),
+    t("POST", "/api/stills/[id]/check/tries/[slug]/propose", () => p.senior, () => `/api/stills/${w.still}/check/tries/${triedSlug}/propose`, () => ({ id: w.still, slug: triedSlug }), () => ({ changeNote: "Values from a checked frame." })),
   ];
 }
 
@@ -191,6 +203,12 @@ beforeAll(async () => {
   personId = (await createPerson("artist")).id;
   thesaurusId = (await createThesaurusEntry(p.lead, { kind: "synonyms", terms: ["seam", "join"], note: "" })).id;
   await createRequest(p.artist, { query: "Lens flare over markers", note: "" });
+  // A checked still with a stored try (an identity matrix) of its own approved technique.
+  await runPlateCheck(p.artist, w.still);
+  triedSlug = await approvedTechnique(p.senior, p.lead, [w.tag.slug]);
+  const tried = (await findTechniqueBySlug(triedSlug))!.technique;
+  const result = { slug: triedSlug, title: "Tried", revision: 1, isHouseMethod: false, recipe: [{ op: "matrix", m: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }], filled: [], skipped: [], measures: null, problem: null };
+  await getDb().insert(plateCheckTries).values({ stillId: w.still, techniqueId: tried.id, revisionNumber: 1, detectorVersion: DETECTOR_VERSION, result });
 }, 120_000);
 
 afterAll(() => folders?.cleanup());

@@ -3,7 +3,7 @@ import path from "node:path";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db/client";
-import { users } from "@/db/schema";
+import { plateCheckTries, users } from "@/db/schema";
 import {
   HTTP_METHODS,
   ROUTE_TABLE,
@@ -20,6 +20,9 @@ import { askQuestion } from "@/lib/questions/mutations";
 import { createRequest } from "@/lib/requests/mutations";
 import { logUse } from "@/lib/uses/mutations";
 import { createPair } from "@/lib/stills/mutations";
+import { DETECTOR_VERSION } from "@/lib/plate-check/check";
+import { runPlateCheck } from "@/lib/plate-check/mutations";
+import { findTechniqueBySlug } from "@/lib/techniques/queries";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
 import { createThesaurusEntry } from "@/lib/thesaurus/mutations";
 import { createPerson, params, sessionCookie, simpleDoc, type TestPerson } from "@/tests/factories";
@@ -196,6 +199,20 @@ const doc = simpleDoc("Check the edges at frame 1012.");
 function cases(): Record<string, Case> {
   const p = w.people;
   const stillOf = async (owner?: TestPerson) => (owner ? uploadStill(owner, { owner: "trial" }) : w.still);
+  // A checked still, and one with a stored try of a fresh approved technique (an identity matrix).
+  const checkedOf = async (owner?: TestPerson) => {
+    const id = await stillOf(owner);
+    await runPlateCheck(owner ?? p.senior, id);
+    return id;
+  };
+  const triedOf = async (owner?: TestPerson) => {
+    const id = await checkedOf(owner);
+    const slug = await approvedTechnique(p.senior, p.lead, [w.tag.slug]);
+    const t = (await findTechniqueBySlug(slug))!.technique;
+    const result = { slug, title: "Tried", revision: 1, isHouseMethod: false, recipe: [{ op: "matrix", m: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }], filled: [], skipped: [], measures: null, problem: null };
+    await getDb().insert(plateCheckTries).values({ stillId: id, techniqueId: t.id, revisionNumber: 1, detectorVersion: DETECTOR_VERSION, result });
+    return { id, slug };
+  };
   const c: Record<string, Case> = {
     "GET /api/health": { ok: 200, prep: () => ({ url: "/api/health" }) },
     "POST /api/password-resets": { ok: 202, prep: () => ({ url: "/api/password-resets", body: { email: `someone-${crypto.randomUUID()}@kestrel.test` } }) },
@@ -419,6 +436,48 @@ function cases(): Record<string, Case> {
       prep: async (caller, owner) => {
         const id = await stillOf(owner);
         return { url: `/api/stills/${id}/pixel?x=1&y=2`, params: { id } };
+      },
+    },
+    "GET /api/stills/[id]/check": {
+      ok: 200,
+      prep: async (caller, owner) => {
+        const id = await checkedOf(owner);
+        return { url: `/api/stills/${id}/check`, params: { id } };
+      },
+    },
+    "POST /api/stills/[id]/check": {
+      ok: 200,
+      prep: async (caller, owner) => {
+        const id = await stillOf(owner);
+        return { url: `/api/stills/${id}/check`, params: { id }, body: {} };
+      },
+    },
+    "POST /api/stills/[id]/check/tries": {
+      ok: 200,
+      prep: async (caller, owner) => {
+        const id = await checkedOf(owner);
+        return { url: `/api/stills/${id}/check/tries`, params: { id }, body: {} };
+      },
+    },
+    "GET /api/stills/[id]/check/tries/[slug]/image": {
+      ok: 200,
+      prep: async (caller, owner) => {
+        const { id, slug } = await triedOf(owner);
+        return { url: `/api/stills/${id}/check/tries/${slug}/image`, params: { id, slug } };
+      },
+    },
+    "POST /api/stills/[id]/check/tries/[slug]/keep": {
+      ok: 201,
+      prep: async (caller, owner) => {
+        const { id, slug } = await triedOf(owner);
+        return { url: `/api/stills/${id}/check/tries/${slug}/keep`, params: { id, slug }, body: { note: "for the marker shot" } };
+      },
+    },
+    "POST /api/stills/[id]/check/tries/[slug]/propose": {
+      ok: 201,
+      prep: async (caller, owner) => {
+        const { id, slug } = await triedOf(owner);
+        return { url: `/api/stills/${id}/check/tries/${slug}/propose`, params: { id, slug }, body: { changeNote: "Values filled from a checked frame." } };
       },
     },
     "GET /api/stills/pairs": { ok: 200, prep: () => ({ url: `/api/stills/pairs?technique=${w.approved}` }) },

@@ -151,6 +151,18 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { path: "/api/stills/[id]", method: "GET", access: "signed-in", trialStills: TRIAL },
   { path: "/api/stills/[id]/[variant]", method: "GET", access: "signed-in", trialStills: TRIAL },
   { path: "/api/stills/[id]/pixel", method: "GET", access: "signed-in", trialStills: TRIAL },
+  // The plate check (issue 18): anyone signed in, on stills they may read; proposing an edit is writing.
+  { path: "/api/stills/[id]/check", method: "GET", access: "signed-in", trialStills: TRIAL },
+  { path: "/api/stills/[id]/check", method: "POST", access: "signed-in", trialStills: TRIAL },
+  { path: "/api/stills/[id]/check/tries", method: "POST", access: "signed-in", trialStills: TRIAL },
+  { path: "/api/stills/[id]/check/tries/[slug]/image", method: "GET", access: "signed-in", trialStills: TRIAL },
+  { path: "/api/stills/[id]/check/tries/[slug]/keep", method: "POST", access: "signed-in", trialStills: TRIAL },
+  {
+    path: "/api/stills/[id]/check/tries/[slug]/propose",
+    method: "POST",
+    access: SENIOR,
+    note: "On someone else's private trial a senior gets 404 like every trial read (tests/integration/plate-check).",
+  },
   { path: "/api/stills/pairs", method: "GET", access: "signed-in" },
   { path: "/api/stills/pairs", method: "POST", access: SENIOR },
   { path: "/api/stills/pairs/[id]", method: "DELETE", access: SENIOR },

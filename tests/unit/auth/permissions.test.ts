@@ -6,11 +6,11 @@ const user = (role: Role, id = `${role}-id`): SessionUser => ({ id, email: `${ro
 
 /**
  * The expected table, written out by hand from shared/PRODUCT.md ("Who uses it"): artists read,
- * subscribe, log uses, ask, request and try the lab; seniors also write; leads also review and
+ * subscribe, log uses, ask, request and try the lab (and check their plates, issue 18); seniors also write; leads also review and
  * manage tags and shows; admins manage people, mail and the audit log and otherwise read.
  */
 const EXPECTED: Record<Role, Permission[]> = {
-  artist: ["technique:read", "use:log", "use:edit", "question:ask", "question:answer", "question:resolve", "request:create", "still:upload-trial", "still:read", "lab:run", "subscription:manage", "token:manage"],
+  artist: ["technique:read", "use:log", "use:edit", "question:ask", "question:answer", "question:resolve", "request:create", "still:upload-trial", "still:read", "lab:run", "still:check", "recipe:keep", "recipe:read-kept", "subscription:manage", "token:manage"],
   senior: [],
   lead: [],
   admin: [],
@@ -19,7 +19,7 @@ EXPECTED.senior = [...EXPECTED.artist, "technique:read-working", "technique:writ
 EXPECTED.lead = [...EXPECTED.senior, "technique:review", "technique:retire", "technique:set-house-method", "tag:manage", "thesaurus:manage", "show:manage"];
 EXPECTED.admin = [...EXPECTED.artist, "people:manage", "mail:read-outbox", "audit:read"];
 
-const OWNERSHIP: Permission[] = ["use:edit", "question:answer", "question:resolve", "still:read"];
+const OWNERSHIP: Permission[] = ["use:edit", "question:answer", "question:resolve", "still:read", "recipe:read-kept"];
 
 describe("permissions table: every role × every permission", () => {
   for (const role of ROLES) {
@@ -58,6 +58,15 @@ describe("ownership rules", () => {
     expect(can(user("admin", "d"), "still:read", { stillOwner: "trial", ownerId: "b" })).toBe(false);
     expect(can(user("lead", "l"), "still:read", { stillOwner: "trial", ownerId: "l" })).toBe(true);
     expect(can(user("artist", "a"), "still:read", { stillOwner: "technique", ownerId: "b" })).toBe(true);
+  });
+
+  it("kept recipes (plate check): the keeper and leads only", () => {
+    expect(can(user("artist", "a"), "recipe:read-kept", { ownerId: "a" })).toBe(true);
+    expect(can(user("artist", "a"), "recipe:read-kept", { ownerId: "b" })).toBe(false);
+    expect(can(user("senior", "s"), "recipe:read-kept", { ownerId: "b" })).toBe(false);
+    expect(can(user("admin", "x"), "recipe:read-kept", { ownerId: "b" })).toBe(false);
+    expect(can(user("lead", "l"), "recipe:read-kept", { ownerId: "b" })).toBe(false);
+    expect(can(user("artist", "a"), "recipe:read-kept")).toBe(false);
   });
 
   it("answers: the technique's author and leads", () => {
