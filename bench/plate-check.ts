@@ -58,7 +58,7 @@ async function benchCheck(width: number, height: number, reps: number): Promise<
     scratch.set(frame.linear);
     const copy2 = performance.now() - c1;
     const t1 = performance.now();
-    await checkFrame(await readStillLinear({ sha256: "" }, png));
+    await checkFrame(await readStillLinear({ sha256: "", colourSpace: "srgb" }, png));
     const withDecode = performance.now() - t1;
     if (withDecode < bestDecode) {
       bestDecode = withDecode;

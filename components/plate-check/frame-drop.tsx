@@ -39,7 +39,7 @@ export function FrameDrop({ compact = false, maxBytes = 80 * 1024 * 1024 }: { co
     },
     [maxBytes, router],
   );
-  const { getRootProps, getInputProps, isDragActive, open } = useDropzone({ onDrop, multiple: false, noClick: true, noKeyboard: true });
+  const { getRootProps, getInputProps, isDragActive, open } = useDropzone({ onDrop: (files: File[]) => void onDrop(files), multiple: false, noClick: true, noKeyboard: true });
   const busy = state.status === "uploading";
 
   return (

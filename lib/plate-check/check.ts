@@ -154,7 +154,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     const structure = new Set(spots.filter((s) => s.kind !== "other").map((s) => s.label));
     const keep: typeof defects = [];
     defects.forEach((d, k) => {
-      const l = labels![d.y * W + d.x]!;
+      const l = labels[d.y * W + d.x]!;
       if (l && structure.has(l)) {
         const i = (d.y * W + d.x) * 3;
         code.set(saved[k]!.code, i);

@@ -64,7 +64,7 @@ export function findDefects(code: Float32Array, width: number, height: number, o
   const defects: Defect[] = [];
   const W3 = width * 3;
   const nb = new Float64Array(8);
-  const q0 = 0.6 * one.step[0]!, q1 = 0.6 * one.step[1]!, q2 = 0.6 * one.step[2]!;
+  const q0 = 0.6 * one.step[0], q1 = 0.6 * one.step[1], q2 = 0.6 * one.step[2];
   const j0 = 0.6 * all.step[0]!, j1 = 0.6 * all.step[1]!, j2 = 0.6 * all.step[2]!;
   for (let y = 2; y < height - 2; y++) {
     for (let x = 2; x < width - 2; x++) {

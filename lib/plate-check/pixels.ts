@@ -8,11 +8,22 @@ import type { PlateFrame } from "@/lib/plate-check/image";
 import { variantPath } from "@/lib/stills/storage";
 
 /*
- * The one place the plate check reads pixels. Today stills are 8/16-bit sRGB-encoded images
- * decoded by the lab's decoder (stored values, ICC ignored); when stills carry their own colour
- * space and OpenEXR input (issue 17), this function switches to the stills module's linear float
- * reader and nothing else in lib/plate-check changes: frameFromLinear() takes its floats.
+ * The one place the plate check reads pixels: 8/16-bit sRGB-encoded images decoded by the lab's
+ * decoder (stored values, ICC ignored). Stills in a linear colour space would come in through the
+ * stills module's linear float reader and frameFromLinear(); until the tries can render them too,
+ * assertCheckable() refuses them.
  */
+
+/**
+ * The check and its tries read sRGB-encoded stills only: the detectors' thresholds and the tries'
+ * lab renders assume stored sRGB codes. OpenEXR and linear stills are refused in words until they
+ * go through frameFromLinear() and the lab's colour-managed entry.
+ */
+export function assertCheckable(still: Pick<Still, "colourSpace">): void {
+  if (still.colourSpace !== "srgb") {
+    throw new AppError("unsupported_type", "The plate check reads sRGB-encoded stills (PNG, JPEG, TIFF, WebP). This still is in a linear or data colour space (for example OpenEXR), which the check cannot read yet.");
+  }
+}
 
 /** The still's original file, exactly as stored. Its caller has checked who may read the still. */
 export async function originalBytesOf(still: Pick<Still, "sha256">): Promise<Uint8Array> {
@@ -24,7 +35,8 @@ export async function originalBytesOf(still: Pick<Still, "sha256">): Promise<Uin
 }
 
 /** A still's pixels as the check's two views (scene-linear and stored code values). */
-export async function readStillLinear(still: Pick<Still, "sha256">, bytes?: Uint8Array): Promise<PlateFrame> {
+export async function readStillLinear(still: Pick<Still, "sha256" | "colourSpace">, bytes?: Uint8Array): Promise<PlateFrame> {
+  assertCheckable(still);
   const decoded = await decodeStill(bytes ?? (await originalBytesOf(still)));
   return frameFromCodes(decoded.codes, decoded.width, decoded.height, decoded.bits);
 }

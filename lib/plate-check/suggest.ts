@@ -20,7 +20,7 @@ export async function suggestMethods(user: SessionUser, findings: Findings): Pro
   const byslug = new Map<string, { title: string; summary: string; problems: string[]; house: number; plate: boolean; rank: number }>();
   let rank = 0;
   findings.problemTags.forEach(({ slug: problem }, problemIndex) => {
-    const res = runSearch(user, { q: "", tag: [problem], status: ["approved"], sort: "relevance", retired: false, offset: 0, limit: PER_PROBLEM });
+    const res = runSearch(user, { q: "", tag: [problem], status: ["approved"], sort: "relevance", retired: false, exact: false, offset: 0, limit: PER_PROBLEM });
     for (const r of res.results) {
       const entry = byslug.get(r.slug) ?? { title: r.title, summary: r.summary, problems: [], house: Infinity, plate: false, rank: rank++ };
       entry.problems.push(problem);

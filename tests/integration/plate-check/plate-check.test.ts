@@ -24,6 +24,7 @@ import type { CheckDto, KeptRecipeDto, TryResult } from "@/lib/plate-check/schem
 import { createTechnique, reviewTechnique, setHouseMethod, submitTechnique } from "@/lib/techniques/mutations";
 import { getTechnique } from "@/lib/techniques/queries";
 import { apiRequest, createPerson, params, type TestPerson } from "@/tests/factories";
+import { float32ToHalf, rawExr } from "@/tests/exr/reference";
 import { scoreFindings } from "@/tests/plate-check/score";
 import { generatePlate, type GeneratedPlate } from "@/tests/plate-check/synthetic-plates";
 
@@ -46,7 +47,8 @@ const slugOf = (key: string) => key; // demo keys are their slugs (scripts/seed/
 
 async function upload(person: TestPerson, bytes: Buffer, name = "frame.png"): Promise<string> {
   const form = new FormData();
-  form.set("file", new Blob([new Uint8Array(bytes)], { type: name.endsWith(".jpg") ? "image/jpeg" : "image/png" }), name);
+  const type = name.endsWith(".jpg") ? "image/jpeg" : name.endsWith(".exr") ? "image/x-exr" : "image/png";
+  form.set("file", new Blob([new Uint8Array(bytes)], { type }), name);
   form.set("alt", "Frame dropped for a plate check");
   form.set("owner", "trial");
   const res = await stillsPost(new Request("http://localhost/api/stills", { method: "POST", body: form, headers: { Authorization: `Bearer ${person.token}` } }), params({}));
@@ -201,6 +203,19 @@ describe("POST and GET /api/stills/{id}/check", () => {
     // The screen itself survives compression: still found, same hue within the 2° target.
     expect(lossy.screen.present).toBe(true);
     expect(Math.abs(lossy.screen.hue! - lossless.screen.hue!)).toBeLessThanOrEqual(2);
+  });
+
+  it("refuses an OpenEXR (scene-linear) frame in words instead of misreading it as sRGB codes", async () => {
+    // An uncompressed 8 × 8 half-float frame written from the OpenEXR file layout (tests/exr/reference.ts).
+    const samples = float32ToHalf(new Float32Array(64).fill(0.18));
+    const exr = rawExr({ channels: ["R", "G", "B"].map((name) => ({ name, type: "half" as const, samples })), dataWindow: [0, 0, 7, 7] });
+    const id = await upload(artist, exr, "frame.exr");
+    const res = await check(artist, id);
+    expect(res.status).toBe(415);
+    const body = (await res.json()) as { error: { code: string; message: string } };
+    expect(body.error.code).toBe("unsupported_type");
+    expect(body.error.message).toMatch(/sRGB-encoded stills/);
+    expect((await getDb().select().from(plateChecks).where(eq(plateChecks.stillId, id))).length).toBe(0);
   });
 });
 
