@@ -9,8 +9,9 @@ import {
 } from "@/lib/lab/recipe";
 import { codeLut, quantise, quantise8Consuming, quantiser } from "@/lib/lab/srgb";
 import { releaseSimdRgb, takeSimdRgb } from "@/lib/lab/simd";
+import { blurExact, exactBlurWith, releaseExactBlurMemory } from "@/lib/lab/gaussian";
 import {
-  blurPlane,
+  blurPlaneApprox,
   copyChannel,
   extractChannel,
   insertChannel,
@@ -18,11 +19,18 @@ import {
   morphPlane,
   rampPlane,
 } from "@/lib/lab/kernels";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
 
 /*
  * The still lab engine: decode with sharp (stored values, ICC ignored), run the recipe in
- * float32 on reused buffers with no clipping between steps, quantise once at encoding.
- * LAB-NOTES.md explains why per-pixel work is JS loops rather than libvips operations.
+ * float32 on reused buffers with no clipping between steps (the matte and flatten's weights in
+ * float64), quantise once at encoding. LAB-NOTES.md explains why per-pixel work is JS loops and
+ * WebAssembly rather than libvips operations.
+ *
+ * Exact renders (full resolution) blur with the exact Gaussian of lib/lab/gaussian.ts; proxy
+ * renders (resized) with the fast approximation of kernels.ts, and say so (`approximate`).
+ * Every step's result stays finite: a step whose values could have left the float range is
+ * checked, and one that did fails the run with LabOverflowError naming it.
  */
 
 /** Decoded stored codes, always RGB interleaved. */
@@ -42,10 +50,15 @@ export type LabState = {
   base: PixelSource;
   /** The plate as shot (with grain). */
   plate: PixelSource;
-  matte: Float32Array | null;
+  /** The matte in float64: 1 − m keeps its digits where m is near 1 (flatten's weights). */
+  matte: Float64Array | null;
   /** Full-resolution pixels per working pixel (rects in steps are in full-res pixels). */
   scale: number;
+  /** Full resolution: blurs are the exact Gaussian (else the proxy's approximation). */
+  exact: boolean;
   scratch: Float32Array[];
+  /** Upper bounds of |value| in cur, base and plate, to know when a step needs an overflow check. */
+  bound: { cur: number; base: number; plate: number };
   /**
    * Set when the last step run was a mix + grain over a float plate that carries its 8-bit codes:
    * per row y the pixels [spans[2y], spans[2y+1]) (indices in the frame) outside which the result is the plate itself,
@@ -65,6 +78,14 @@ export class LabInputError extends Error {
   constructor(message: string, readonly stepIndex?: number) {
     super(message);
     this.name = "LabInputError";
+  }
+}
+
+/** A step's result left the float range (an infinite or not-a-number value): the run fails. */
+export class LabOverflowError extends Error {
+  constructor(readonly stepIndex: number, readonly op: RecipeStep["op"]) {
+    super(`step ${stepIndex} (${op}) produced values beyond the floating-point range; reduce its gains`);
+    this.name = "LabOverflowError";
   }
 }
 
@@ -131,6 +152,18 @@ export function codesSource(still: StillCodes, space: LabSpace): PixelSource {
   return { kind: "codes", codes: still.codes, lut: codeLut(still.bits, space === "linear") };
 }
 
+/** Largest |value| a source holds; a float source with a non-finite value is refused. */
+function sourceBound(src: PixelSource): number {
+  const values = src.kind === "codes" ? src.lut : src.data;
+  let m = 0;
+  for (let i = 0; i < values.length; i++) {
+    const a = Math.abs(values[i]!);
+    if (!(a <= FLOAT32_MAX)) throw new LabInputError("the still holds values that are not finite numbers");
+    if (a > m) m = a;
+  }
+  return m;
+}
+
 export function createLabState(opts: { width: number; height: number; plate: PixelSource; base?: PixelSource; scale?: number }): LabState {
   const { width, height, plate } = opts;
   const base = opts.base ?? plate;
@@ -140,33 +173,92 @@ export function createLabState(opts: { width: number; height: number; plate: Pix
     const { codes, lut } = base;
     for (let i = 0; i < cur.length; i++) cur[i] = lut[codes[i]!]!;
   }
-  return { width, height, cur, base, plate, matte: null, scale: opts.scale ?? 1, scratch: [] };
+  const scale = opts.scale ?? 1;
+  const baseBound = sourceBound(base);
+  const bound = { cur: baseBound, base: baseBound, plate: base === plate ? baseBound : sourceBound(plate) };
+  return { width, height, cur, base, plate, matte: null, scale, exact: scale === 1, scratch: [], bound };
 }
 
 /*
  * Planes (matte, scratch) are pooled like the RGB buffers: two fresh 2 MB planes per proxy render
  * are ~4 ms of page faults and collector work. Every user overwrites the whole plane first.
  */
-const PLANE_POOL_BYTES = 64 * 1024 * 1024;
-const idlePlanes: Float32Array[] = [];
+const PLANE_POOL_BYTES = MEMORY_BUDGET.labPlanePool;
+const idlePlanes: (Float32Array | Float64Array)[] = [];
 
 function takePlane(n: number): Float32Array {
-  const i = idlePlanes.findIndex((a) => a.length === n);
-  return i >= 0 ? idlePlanes.splice(i, 1)[0]! : new Float32Array(n);
+  const i = idlePlanes.findIndex((a) => a.length === n && a instanceof Float32Array);
+  return i >= 0 ? (idlePlanes.splice(i, 1)[0] as Float32Array) : new Float32Array(n);
+}
+
+function takePlane64(n: number): Float64Array {
+  const i = idlePlanes.findIndex((a) => a.length === n && a instanceof Float64Array);
+  return i >= 0 ? (idlePlanes.splice(i, 1)[0] as Float64Array) : new Float64Array(n);
+}
+
+function poolPlanes(planes: (Float32Array | Float64Array)[]): void {
+  for (const a of planes) if (!idlePlanes.includes(a)) idlePlanes.push(a);
+  let bytes = idlePlanes.reduce((t, a) => t + a.byteLength, 0);
+  while (bytes > PLANE_POOL_BYTES && idlePlanes.length) bytes -= idlePlanes.shift()!.byteLength;
 }
 
 /** Gives the state's matte and scratch planes back to the pool; the state must not use them again. */
 function releasePlanes(state: LabState): void {
-  for (const a of [...state.scratch, ...(state.matte ? [state.matte] : [])]) if (!idlePlanes.includes(a)) idlePlanes.push(a);
+  poolPlanes([...state.scratch, ...(state.matte ? [state.matte] : [])]);
   state.scratch = [];
   state.matte = null;
-  let bytes = idlePlanes.reduce((t, a) => t + a.byteLength, 0);
-  while (bytes > PLANE_POOL_BYTES && idlePlanes.length) bytes -= idlePlanes.shift()!.byteLength;
 }
 
 function scratch(state: LabState, i: number): Float32Array {
   while (state.scratch.length <= i) state.scratch.push(takePlane(state.width * state.height));
   return state.scratch[i]!;
+}
+
+// ---------------------------------------------------------------------------------------
+// Overflow: float32 holds magnitudes up to ~3.4e38. Each step's effect on the largest |value| is
+// bounded from its parameters; only when that bound passes SCAN_ABOVE is the working image read
+// to find the true largest value, and an infinite or not-a-number value fails the run.
+
+const FLOAT32_MAX = 3.4028234663852886e38;
+const SCAN_ABOVE = 1e30;
+
+function maxAbsChecked(cur: Float32Array, index: number, op: RecipeStep["op"]): number {
+  let m = 0;
+  for (let i = 0; i < cur.length; i++) {
+    const a = Math.abs(cur[i]!);
+    if (!(a <= FLOAT32_MAX)) throw new LabOverflowError(index, op);
+    if (a > m) m = a;
+  }
+  return m;
+}
+
+/** The bound on |cur| after `step` ran (its report in hand); a scan where the bound says it could have overflowed. */
+function updateBound(state: LabState, step: RecipeStep, report: StepReport): void {
+  const b = state.bound;
+  let next = b.cur;
+  switch (step.op) {
+    case "matrix": {
+      const rowSum = Math.max(...step.m.map((row) => Math.abs(row[0]) + Math.abs(row[1]) + Math.abs(row[2])));
+      next = rowSum * b.cur + Math.max(...(step.offset ?? [0, 0, 0]).map(Math.abs));
+      break;
+    }
+    case "level":
+      if (report.op === "level") next = Math.abs(report.gain) * b.cur + Math.abs(report.offset);
+      if (!Number.isFinite(next)) next = Infinity;
+      break;
+    case "mix":
+      next = Math.max(b.cur, b.base); // matte in 0..1: a blend of the two
+      break;
+    case "grain":
+      next = b.cur + b.base + b.plate; // mix + grain fused: m·(cur − base) + plate
+      break;
+    case "flatten":
+      next = Infinity; // divides by a screen estimate: always checked
+      break;
+    default:
+      break; // copy, matte, grow, soften: no value leaves the range it had
+  }
+  b.cur = next > SCAN_ABOVE ? maxAbsChecked(state.cur, report.index, step.op) : next;
 }
 
 /**
@@ -241,7 +333,7 @@ function levelFit(state: LabState, step: Extract<RecipeStep, { op: "level" }>, i
 
 function matteStep(state: LabState, step: Extract<RecipeStep, { op: "matte" }>, index: number): StepReport {
   const n = state.width * state.height;
-  const matte = state.matte ?? takePlane(n);
+  const matte = state.matte ?? takePlane64(n);
   const w = typeof step.channel === "string"
     ? ([0, 0, 0].map((_, i) => (i === CHANNEL_INDEX[step.channel as "r"] ? 1 : 0)) as number[])
     : step.channel;
@@ -377,7 +469,7 @@ function mixGrainStep(state: LabState, invert: boolean, final = false): boolean 
  * mixGrainStep over working-space floats (cached proxies): the same arithmetic, no table. Where
  * a row's matte is 0 the plate is copied as a block (a marker matte is ~1 % of the frame).
  */
-function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number,
+function mixGrainFloat(cur: Float32Array, matte: Float64Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number,
   skipPlate: boolean): Int32Array | null {
   if (!invert) {
     const height = matte.length / width;
@@ -411,7 +503,7 @@ function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array,
   return null;
 }
 
-function mixGrainRange(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, p0: number, p1: number): void {
+function mixGrainRange(cur: Float32Array, matte: Float64Array, pd: Float32Array, bd: Float32Array, p0: number, p1: number): void {
   for (let p = p0, i = 3 * p0; p < p1; p++, i += 3) {
     const m = matte[p]!;
     if (m === 0) {
@@ -458,34 +550,81 @@ export function applyStepsAt(state: LabState, steps: readonly RecipeStep[], i: n
   return [applyStep(state, step, i)];
 }
 
+/**
+ * Below this share of the kernel's weight on clean screen within reach, a pixel's local screen
+ * estimate is topped up with the frame's mean screen colour (see flattenStep).
+ */
+export const FLATTEN_MIN_SCREEN = 0.01;
+
+/*
+ * flatten: divide the image by a smooth estimate of the screen and multiply by the target colour
+ * (Knutsson & Westin's normalized convolution, CVPR 1993). With w the screen weight of each pixel
+ * (outside the matte: 1 − m; inside: m; everywhere: 1; m clamped to 0..1, in float64) and G the
+ * Gaussian of the step's sigma:
+ *   D = G(w), N_c = G(value_c · w)                       (float64 blurs)
+ *   estimate_c = N_c / D                        where D ≥ τ = FLATTEN_MIN_SCREEN
+ *              = (N_c + (τ − D) · mean_c) / τ   where D < τ ("thin": too little screen within reach)
+ *   mean_c = Σ value_c · w / Σ w over the whole frame
+ *   value_c ← value_c / estimate_c · target_c, left as it is where estimate_c ≤ 0
+ * The fill is continuous at D = τ, so no pixel jumps between "estimated" and "filled"; a pixel
+ * with no screen at all within reach takes the frame's mean screen colour.
+ */
 function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" }>, index: number): StepReport {
   const { cur, width, height } = state;
   const n = width * height;
-  const w = scratch(state, 0), den = scratch(state, 1), num = scratch(state, 2), tmp = scratch(state, 3);
   const matte = state.matte;
-  for (let p = 0; p < n; p++) {
-    let m = matte && step.weight !== "all" ? matte[p]! : 0;
-    m = m < 0 ? 0 : m > 1 ? 1 : m;
-    w[p] = step.weight === "inside" ? m : step.weight === "outside" ? 1 - m : 1;
+  const mode = !matte || step.weight === "all" ? 0 : step.weight === "inside" ? 1 : 2;
+  const weight = (p: number): number => {
+    if (mode === 0) return 1;
+    const v = matte![p]!;
+    const m = v < 0 ? 0 : v > 1 ? 1 : v;
+    return mode === 1 ? m : 1 - m;
+  };
+  let s0 = 0, s1 = 0, s2 = 0, sumW = 0;
+  for (let p = 0, i = 0; p < n; p++, i += 3) {
+    const w = weight(p);
+    sumW += w;
+    s0 += w * cur[i]!; s1 += w * cur[i + 1]!; s2 += w * cur[i + 2]!;
   }
-  den.set(w);
-  blurPlane(den, width, height, step.sigma, tmp);
-  let unfilled = 0;
-  for (let p = 0; p < n; p++) if (!(den[p]! > 1e-6)) unfilled++;
-  for (let c = 0; c < 3; c++) {
-    for (let p = 0, i = c; p < n; p++, i += 3) num[p] = cur[i]! * w[p]!;
-    blurPlane(num, width, height, step.sigma, tmp);
-    const target = step.color[c]!;
-    // Knutsson & Westin: screen estimate = blur(plate × w) / blur(w); where no screen was
-    // seen within reach the pixel is left as it is.
-    for (let p = 0, i = c; p < n; p++, i += 3) {
-      const d = den[p]!;
-      if (!(d > 1e-6)) continue;
-      const est = num[p]! / d;
-      if (est !== 0) cur[i] = (cur[i]! / est) * target;
+  const mean: [number, number, number] = sumW > 0 ? [s0 / sumW, s1 / sumW, s2 / sumW] : [0, 0, 0];
+  const tau = FLATTEN_MIN_SCREEN;
+  const den = takePlane64(n);
+  const left = new Uint8Array(n);
+  let thin = 0;
+  const blur = (fill: (a: Float32Array | Float64Array) => void, use: (b: Float32Array | Float64Array) => void): void => {
+    if (state.exact) {
+      exactBlurWith(width, height, step.sigma, "f64", fill, use);
+      return;
     }
+    const plane = takePlane64(n), tmp = takePlane64(n);
+    fill(plane);
+    blurPlaneApprox(plane, width, height, step.sigma, tmp);
+    use(plane);
+    poolPlanes([plane, tmp]);
+  };
+  try {
+    blur((a) => { for (let p = 0; p < n; p++) a[p] = weight(p); }, (b) => den.set(b));
+    for (let p = 0; p < n; p++) if (den[p]! < tau) thin++;
+    for (let c = 0; c < 3; c++) {
+      const target = step.color[c]!, g = mean[c]!;
+      blur(
+        (a) => { for (let p = 0, i = c; p < n; p++, i += 3) a[p] = cur[i]! * weight(p); },
+        (num) => {
+          for (let p = 0, i = c; p < n; p++, i += 3) {
+            const d = den[p]!;
+            const est = d >= tau ? num[p]! / d : (num[p]! + (tau - d) * g) / tau;
+            if (est > 0) cur[i] = (cur[i]! / est) * target;
+            else left[p] = 1;
+          }
+        },
+      );
+    }
+  } finally {
+    poolPlanes([den]);
   }
-  return { index, op: "flatten", unfilled };
+  let leftAsIs = 0;
+  for (let p = 0; p < n; p++) leftAsIs += left[p]!;
+  return { index, op: "flatten", thin, leftAsIs, screenMean: mean };
 }
 
 /** Runs one validated step on the state. */
@@ -510,11 +649,21 @@ export function applyStep(state: LabState, step: RecipeStep, index: number): Ste
       const sigma = step.sigma / state.scale;
       if (step.target === "matte") {
         if (!state.matte) throw new LabInputError(`step ${index}: soften needs a matte`, index);
-        blurPlane(state.matte, width, height, sigma, scratch(state, 0));
+        if (state.exact) blurExact(state.matte, width, height, sigma);
+        else {
+          const tmp = takePlane64(width * height);
+          blurPlaneApprox(state.matte, width, height, sigma, tmp);
+          poolPlanes([tmp]);
+        }
+      } else if (state.exact) {
+        const c = CHANNEL_INDEX[step.target], n = width * height;
+        exactBlurWith(width, height, sigma, "f32",
+          (a) => { for (let p = 0, i = c; p < n; p++, i += 3) a[p] = cur[i]!; },
+          (b) => { for (let p = 0, i = c; p < n; p++, i += 3) cur[i] = b[p]!; });
       } else {
         const plane = scratch(state, 1);
         extractChannel(cur, CHANNEL_INDEX[step.target], plane);
-        blurPlane(plane, width, height, sigma, scratch(state, 0));
+        blurPlaneApprox(plane, width, height, sigma, scratch(state, 0));
         insertChannel(cur, CHANNEL_INDEX[step.target], plane);
       }
       return { index, op: "soften" };
@@ -672,6 +821,8 @@ export type RunRecipeResult = {
   sourceWidth: number;
   sourceHeight: number;
   reports: StepReport[];
+  /** A proxy render: resized, and blurred with the fast approximation, not the exact Gaussian. */
+  approximate: boolean;
   timings: { decodeMs: number; stepsMs: number; encodeMs: number };
 };
 
@@ -718,22 +869,30 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?:
   const t1 = performance.now();
   const reports: StepReport[] = [];
   let lastYield = t1;
-  for (let i = 0; i < steps.length; ) {
-    onProgress?.({ done: i + 1, total, label: steps[i]!.op });
-    state.tail = null; // only the last step's result may be marked
-    const ran = applyStepsAt(state, steps, i);
-    reports.push(...ran);
-    i += ran.length;
-    checkAbort(signal);
-    // Let the event loop breathe between steps so timeouts and other requests get a turn — once
-    // some milliseconds of work have gone by, not after every ~1 ms step of a proxy render.
-    if (performance.now() - lastYield >= YIELD_AFTER_MS) {
-      await new Promise<void>((resolve) => setImmediate(resolve));
-      lastYield = performance.now();
+  try {
+    for (let i = 0; i < steps.length; ) {
+      onProgress?.({ done: i + 1, total, label: steps[i]!.op });
+      state.tail = null; // only the last step's result may be marked
+      const ran = applyStepsAt(state, steps, i);
+      for (const r of ran) updateBound(state, steps[r.index]!, r);
+      reports.push(...ran);
+      i += ran.length;
+      checkAbort(signal);
+      // Let the event loop breathe between steps so timeouts and other requests get a turn — once
+      // some milliseconds of work have gone by, not after every ~1 ms step of a proxy render.
+      if (performance.now() - lastYield >= YIELD_AFTER_MS) {
+        await new Promise<void>((resolve) => setImmediate(resolve));
+        lastYield = performance.now();
+      }
     }
+  } catch (error) {
+    releaseSimdRgb(state.cur);
+    throw error;
+  } finally {
+    releasePlanes(state);
+    releaseExactBlurMemory();
   }
   const t2 = performance.now();
-  releasePlanes(state);
   return { state, plateCodes, reports, decodeMs: t1 - t0, stepsMs: t2 - t1 };
 }
 
@@ -756,6 +915,7 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
     sourceWidth: plateCodes.sourceWidth,
     sourceHeight: plateCodes.sourceHeight,
     reports,
+    approximate: !state.exact,
     timings: { decodeMs, stepsMs, encodeMs: t3 - t2 },
   };
 }
@@ -768,6 +928,7 @@ export type FloatRunResult = {
   reports: StepReport[];
   sourceWidth: number;
   sourceHeight: number;
+  approximate: boolean;
 };
 
 /** As runRecipe, but answers the float result instead of encoded bytes (for plots and samples). */
@@ -787,11 +948,6 @@ export async function runRecipeToFloat(opts: Omit<RunRecipeOptions, "format"> & 
     reports,
     sourceWidth: plateCodes.sourceWidth,
     sourceHeight: plateCodes.sourceHeight,
+    approximate: !state.exact,
   };
-}
-
-/** A still as interleaved RGB floats in the lab's working space (for plots and sample boxes). */
-export async function decodeStillFloat(bytes: Uint8Array, space: LabSpace, width?: number): Promise<{ width: number; height: number; data: Float32Array }> {
-  const still = await decodeStill(bytes, width);
-  return { width: still.width, height: still.height, data: toFloats(still, space) };
 }

@@ -1,4 +1,5 @@
 import "server-only";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
 import { labWasmInstance } from "@/lib/lab/wasm/modules";
 
 /*
@@ -43,14 +44,9 @@ export function gaussianHalfKernel(sigma: number): Float64Array {
  * planes, bench/lab.ts "exact blur methods"); float64 direct passes carry two values per SIMD lane
  * group instead of four, so they cross earlier.
  */
-export const DIRECT_MAX_RADIUS = { f32: 64, f64: 32 } as const;
+export const DIRECT_MAX_RADIUS = { f32: 48, f64: 16 } as const;
 
 export type BlurMethod = "direct" | "fft";
-
-export function exactBlurMethod(sigma: number, plane: Float32Array | Float64Array): BlurMethod {
-  const r = gaussianRadius(sigma);
-  return r <= (plane instanceof Float64Array ? DIRECT_MAX_RADIUS.f64 : DIRECT_MAX_RADIUS.f32) ? "direct" : "fft";
-}
 
 type GaussExports = {
   rows32(src: number, dst: number, w: number, rows: number, k: number, r: number, pad: number): void;
@@ -67,13 +63,14 @@ type FftExports = {
 /*
  * One working memory per process for both modules (a blur runs to the end without yielding, so
  * calls never overlap). It grows to the largest plane blurred — two float64 planes of it, ~140 MB
- * for a 4096 × 2160 flatten — and is dropped when idle above EXACT_BLUR_KEEP_BYTES.
+ * for a 4096 × 2160 flatten — and the engine lets it go after a run when it holds more than
+ * EXACT_BLUR_KEEP_BYTES.
  */
 let memory: WebAssembly.Memory | null = null;
 let gauss: GaussExports | null = null;
 let fft: FftExports | null = null;
 
-export const EXACT_BLUR_KEEP_BYTES = 96 * 1024 * 1024;
+export const EXACT_BLUR_KEEP_BYTES = MEMORY_BUDGET.labExactBlurIdle;
 
 function workspace(bytes: number): { buffer: ArrayBuffer; gauss: GaussExports; fft: FftExports } {
   const pages = Math.ceil(bytes / 65536);
@@ -86,14 +83,6 @@ function workspace(bytes: number): { buffer: ArrayBuffer; gauss: GaussExports; f
     }
   }
   return { buffer: memory.buffer, gauss: gauss!, fft: fft! };
-}
-
-function releaseWorkspace(): void {
-  if (memory && memory.buffer.byteLength > EXACT_BLUR_KEEP_BYTES) {
-    memory = null;
-    gauss = null;
-    fft = null;
-  }
 }
 
 const align = (n: number): number => (n + 63) & ~63;
@@ -163,52 +152,88 @@ function transformLength(n: number, r: number): number {
   return best;
 }
 
+/** How often each method ran in this process (tests check that the WebAssembly paths serve). */
+const counts = { direct: 0, fft: 0, definition: 0 };
+export function exactBlurCounts(): Readonly<typeof counts> {
+  return { ...counts };
+}
+
+type Plane = Float32Array | Float64Array;
+
 /**
- * Gaussian blur of a plane in place, exactly as defined above: float32 planes keep float32
- * storage (the FFT path computes in float64 and rounds once), float64 planes stay float64.
+ * The exact Gaussian of a plane held in the blur's own working memory: `fill` writes the input
+ * (width × height values, row by row) into the plane it is handed, `use` reads the result from the
+ * plane it is handed; neither may keep it. `kind` is the precision the caller needs: "f64" keeps
+ * float64 throughout; "f32" may store the direct passes' values in float32 (the FFT path computes
+ * in float64 either way). Saves the copies (and a 4K plane's memory) that blurExact makes.
  */
-export function blurExact(plane: Float32Array | Float64Array, width: number, height: number, sigma: number, method = exactBlurMethod(sigma, plane)): void {
+export function exactBlurWith(width: number, height: number, sigma: number, kind: "f32" | "f64",
+  fill: (input: Plane) => void, use: (output: Plane) => void, method: BlurMethod = defaultMethod(sigma, kind)): void {
   const k = gaussianHalfKernel(sigma);
   const r = k.length - 1;
-  if (r === 0 || plane.length === 0) return;
-  if (plane.length !== width * height) throw new Error("blurExact: plane size does not match width × height");
-  const is64 = plane instanceof Float64Array;
-  if (width < 4 || height < 4) {
-    blurDefinition(plane, width, height, k);
+  const n = width * height;
+  if (width < 4 || height < 4 || r === 0) {
+    const plane = new Float64Array(n);
+    fill(plane);
+    if (r > 0) {
+      counts.definition++;
+      blurDefinition(plane, width, height, k);
+    }
+    use(plane);
     return;
   }
-  const n = width * height;
   if (method === "direct") {
-    const e = is64 ? 8 : 4;
+    counts.direct++;
+    const is64 = kind === "f64", e = is64 ? 8 : 4;
     const K = 0, PAD = align((r + 1) * e), A = align(PAD + (Math.max(width, height) + 2 * r) * e);
     const B = align(A + n * e), end = B + n * e;
     const { buffer, gauss: g } = workspace(end);
-    const view = (off: number, len: number) => (is64 ? new Float64Array(buffer, off, len) : new Float32Array(buffer, off, len));
+    const view = (off: number, len: number): Plane => (is64 ? new Float64Array(buffer, off, len) : new Float32Array(buffer, off, len));
     view(K, r + 1).set(k);
-    view(A, n).set(plane);
+    fill(view(A, n));
     const rows = is64 ? g.rows64 : g.rows32, transpose = is64 ? g.transpose64 : g.transpose32;
     rows(A, B, width, height, K, r, PAD);
     transpose(B, A, width, height);
     rows(A, B, height, width, K, r, PAD);
     transpose(B, A, height, width);
-    plane.set(view(A, n));
-  } else {
-    const mRow = transformLength(width, r), mCol = transformLength(height, r), mMax = Math.max(mRow, mCol);
-    const SPEC = 0, TW = align(SPEC + mMax * 8), WORK = align(TW + mMax * 16), A = align(WORK + mMax * 16);
-    const B = align(A + n * 8), end = B + n * 8;
-    const { buffer, fft: f } = workspace(end);
-    new Float64Array(buffer, A, n).set(plane);
-    const pass = (src: number, dst: number, len: number, lines: number, lineStride: number, elemStride: number, m: number): void => {
-      const spec = spectrumFor(sigma, k, m);
-      new Float64Array(buffer, SPEC, m).set(spec);
-      new Float64Array(buffer, TW, 2 * m).set(twiddles(m));
-      f.convLines(src, dst, len, lines, lineStride, elemStride, r, m, SPEC, TW, WORK);
-    };
-    pass(A, B, width, height, width * 8, 8, mRow); // rows
-    pass(B, A, height, width, 8, width * 8, mCol); // columns, two neighbours per transform
-    plane.set(new Float64Array(buffer, A, n));
+    use(view(A, n));
+    return;
   }
-  releaseWorkspace();
+  counts.fft++;
+  const mRow = transformLength(width, r), mCol = transformLength(height, r), mMax = Math.max(mRow, mCol);
+  const specRow = spectrumFor(sigma, k, mRow), specCol = spectrumFor(sigma, k, mCol);
+  const SPEC = 0, TW = align(SPEC + mMax * 8), WORK = align(TW + mMax * 16), A = align(WORK + mMax * 16);
+  const B = align(A + n * 8), end = B + n * 8;
+  const { buffer, fft: f } = workspace(end);
+  fill(new Float64Array(buffer, A, n));
+  const pass = (src: number, dst: number, len: number, lines: number, lineStride: number, elemStride: number, m: number,
+    spec: Float64Array): void => {
+    new Float64Array(buffer, SPEC, m).set(spec);
+    new Float64Array(buffer, TW, 2 * m).set(twiddles(m));
+    f.convLines(src, dst, len, lines, lineStride, elemStride, r, m, SPEC, TW, WORK);
+  };
+  pass(A, B, width, height, width * 8, 8, mRow, specRow); // rows
+  pass(B, A, height, width, 8, width * 8, mCol, specCol); // columns, two neighbours per transform
+  use(new Float64Array(buffer, A, n));
+}
+
+function defaultMethod(sigma: number, kind: "f32" | "f64"): BlurMethod {
+  return gaussianRadius(sigma) <= DIRECT_MAX_RADIUS[kind] ? "direct" : "fft";
+}
+
+/** Gaussian blur of a plane in place, exactly as defined above (float32 planes keep float32 storage). */
+export function blurExact(plane: Plane, width: number, height: number, sigma: number, method?: BlurMethod): void {
+  if (plane.length !== width * height) throw new Error("blurExact: plane size does not match width × height");
+  exactBlurWith(width, height, sigma, plane instanceof Float64Array ? "f64" : "f32", (a) => a.set(plane), (b) => plane.set(b), method);
+}
+
+/** Lets the blur's working memory go if it grew beyond EXACT_BLUR_KEEP_BYTES (call after a run). */
+export function releaseExactBlurMemory(): void {
+  if (memory && memory.buffer.byteLength > EXACT_BLUR_KEEP_BYTES) {
+    memory = null;
+    gauss = null;
+    fft = null;
+  }
 }
 
 /** The definition, literally (float64 sums): for planes too narrow for the SIMD passes. */

@@ -186,7 +186,12 @@ export type LabSolveResponse = {
 export type StepReport =
   | { index: number; op: "level"; gain: number; offset: number; residual: number; samples: number }
   | { index: number; op: "matte"; coverage: number }
-  | { index: number; op: "flatten"; unfilled: number }
+  /**
+   * thin: pixels with less than 1 % of the kernel's weight on clean screen within reach (their
+   * estimate topped up with the frame's mean screen colour); leftAsIs: pixels with a channel whose
+   * screen estimate was not positive (left unchanged); screenMean: that mean colour.
+   */
+  | { index: number; op: "flatten"; thin: number; leftAsIs: number; screenMean: [number, number, number] }
   | { index: number; op: Exclude<RecipeOp, "level" | "matte" | "flatten"> };
 
 export const IDENTITY3: [[number, number, number], [number, number, number], [number, number, number]] = [

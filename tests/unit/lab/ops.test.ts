@@ -65,7 +65,7 @@ describe("flatten screen (normalized convolution)", () => {
     for (const [seed, sigma] of [[1, 6], [2, 6], [3, 20]] as const) {
       const r = rand(seed);
       const plate = new Float32Array(w * h * 3);
-      const matte = new Float32Array(w * h);
+      const matte = new Float64Array(w * h);
       for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
         const hole = holesAt(x, y), p = y * w + x;
         matte[p] = hole ? 1 : 0;
@@ -98,7 +98,7 @@ describe("mix and grain", () => {
     const state = createLabState({ width: w, height: h, plate: floatSource(plate) });
     const cleaned = Float32Array.from({ length: w * h * 3 }, () => r());
     state.cur.set(cleaned);
-    state.matte = Float32Array.from({ length: w * h }, (_, i) => (i % 4) / 3);
+    state.matte = Float64Array.from({ length: w * h }, (_, i) => (i % 4) / 3);
     applyStep(state, step({ op: "mix" }), 0);
     for (let p = 0; p < w * h; p++) for (let c = 0; c < 3; c++) {
       const m = (p % 4) / 3;
@@ -164,8 +164,8 @@ describe("one-pass paths the engine takes", () => {
       const { w, h, r, make } = codeState(invert ? 12 : 11);
       const a = make(), b = make();
       const cleaned = Float32Array.from({ length: w * h * 3 }, () => r() * 1.2 - 0.1);
-      const matte = Float32Array.from({ length: w * h }, (_, p) => (p % 3 === 0 ? (invert ? 1 : 0) : r()));
-      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float32Array(matte); }
+      const matte = Float64Array.from({ length: w * h }, (_, p) => (p % 3 === 0 ? (invert ? 1 : 0) : r()));
+      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float64Array(matte); }
       const steps = [step({ op: "mix", invert }), step({ op: "grain", denoised: "d" })];
       const reports = applyStepsAt(a, steps, 0);
       expect(reports.map((x) => x.op)).toEqual(["mix", "grain"]);
@@ -209,11 +209,11 @@ describe("proxy paths (decoded proxy kept as working-space floats)", () => {
       const cleaned = Float32Array.from({ length: w * h * 3 }, () => r() * 1.2 - 0.1);
       // Whole zero rows, zero margins and zeros inside a span: every branch of the span copy.
       const zero = invert ? 1 : 0;
-      const matte = Float32Array.from({ length: w * h }, (_, p) => {
+      const matte = Float64Array.from({ length: w * h }, (_, p) => {
         const x = p % w, y = Math.floor(p / w);
         return y % 4 === 0 || x < 5 || x > 20 || x === 11 ? zero : r();
       });
-      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float32Array(matte); }
+      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float64Array(matte); }
       const steps = [step({ op: "mix", invert }), step({ op: "grain", denoised: "d" })];
       expect(applyStepsAt(a, steps, 0).map((x) => x.op)).toEqual(["mix", "grain"]);
       applyStep(b, steps[0]!, 0);
