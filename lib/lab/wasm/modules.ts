@@ -20,15 +20,20 @@ const BINARIES: Record<LabWasmName, () => Uint8Array> = {
 
 const compiled = new Map<LabWasmName, WebAssembly.Module>();
 
+/** Compiles one module's bytes; throws, naming the module, when they are not a valid module. */
+export function compileLabWasm(name: LabWasmName, bytes: () => Uint8Array): WebAssembly.Module {
+  try {
+    return new WebAssembly.Module(bytes() as Uint8Array<ArrayBuffer>);
+  } catch (cause) {
+    throw new Error(`the lab's WebAssembly module ${name}.wasm could not be loaded: ${(cause as Error).message}`, { cause });
+  }
+}
+
 /** The compiled module; throws (with the module's name) when its binary is missing or invalid. */
 export function labWasmModule(name: LabWasmName): WebAssembly.Module {
   let mod = compiled.get(name);
   if (!mod) {
-    try {
-      mod = new WebAssembly.Module(BINARIES[name]() as Uint8Array<ArrayBuffer>);
-    } catch (cause) {
-      throw new Error(`the lab's WebAssembly module ${name}.wasm could not be loaded: ${(cause as Error).message}`, { cause });
-    }
+    mod = compileLabWasm(name, BINARIES[name]);
     compiled.set(name, mod);
   }
   return mod;

@@ -111,7 +111,7 @@ const size = (): [number, number] => [40 + Math.floor(r() * 320), 20 + Math.floo
 
 function jobs(): ReferenceJob[] {
   const out: ReferenceJob[] = [];
-  const space = (i: number) => (i % 2 === 0 ? "stored" : "linear") as const;
+  const space = (i: number): "stored" | "linear" => (i % 2 === 0 ? "stored" : "linear");
   fixedSigmas.forEach((sigma, i) => {
     const [width, height] = [301, 167];
     out.push({ kind: "soften", sigma, channel: (["r", "g", "b"] as const)[i % 3]!, width, height, space: space(i), codes: randomStill(width, height) });

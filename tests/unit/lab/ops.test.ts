@@ -293,3 +293,63 @@ describe("float result", () => {
     expect(r.after.data[2]).toBe(-1);
   });
 });
+
+describe("values beyond the float range", () => {
+  async function still16(w: number, h: number, seed: number): Promise<{ png: Buffer; codes: Uint16Array }> {
+    const r = rand(seed);
+    const codes = Uint16Array.from({ length: w * h * 3 }, () => 1000 + Math.floor(r() * 60000));
+    const png = await sharp(codes, { raw: { width: w, height: h, channels: 3 } }).toColourspace("rgb16").png().toBuffer();
+    return { png, codes };
+  }
+  const gains = (k: number, times: number) => Array.from({ length: times }, () => step({ op: "matrix", m: [[k, 0, 0], [0, k, 0], [0, 0, k]] }));
+
+  it("twenty gains of 100 then twenty of 0.01 fail the run at the step that overflowed, never as black pixels", async () => {
+    // 100^20 = 1e40 exceeds float32's largest value (about 3.4e38, IEEE 754 binary32): step 20.
+    const { png } = await still16(16, 8, 5);
+    const { LabOverflowError } = await import("@/lib/lab/engine");
+    for (const space of ["stored", "linear"] as const) {
+      const run = runRecipe({ still: png, steps: [...gains(100, 20), ...gains(0.01, 20)], space, format: "png16" });
+      await expect(run).rejects.toBeInstanceOf(LabOverflowError);
+      await expect(run).rejects.toMatchObject({ stepIndex: 19, op: "matrix" });
+    }
+  });
+
+  it("ten gains of 100 then ten of 0.01 stay finite and give the still back (within a code)", async () => {
+    const { png, codes } = await still16(16, 8, 6);
+    const out = await runRecipe({ still: png, steps: [...gains(100, 10), ...gains(0.01, 10)], space: "stored", format: "png16" });
+    const { data } = await sharp(out.bytes).toColourspace("rgb16").raw({ depth: "ushort" }).toBuffer({ resolveWithObject: true });
+    const back = new Uint16Array(data.buffer, data.byteOffset, data.length / 2);
+    for (let i = 0; i < codes.length; i++) expect(Math.abs(back[i]! - codes[i]!)).toBeLessThanOrEqual(1);
+  });
+});
+
+describe("flatten's fill where too little screen is within reach", () => {
+  it("a constant screen with a hole wider than the kernel's reach is recovered everywhere, hole centre included (Knutsson & Westin, CVPR 1993)", () => {
+    // Deep in the hole blur(w) → 0, where the estimate is the frame's mean screen colour; on a
+    // constant screen that is the screen itself, so the result is the same as near the edges.
+    const w = 160, h = 120, screen = [0.12, 0.5, 0.2], target = [0.1, 0.45, 0.15], sigma = 6;
+    const r = rand(41);
+    const inHole = (x: number, y: number) => (x - 80) ** 2 + (y - 60) ** 2 < 45 ** 2;
+    const plate = new Float32Array(w * h * 3), matte = new Float64Array(w * h);
+    for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+      const p = y * w + x, hole = inHole(x, y);
+      matte[p] = hole ? 1 : 0;
+      for (let c = 0; c < 3; c++) plate[p * 3 + c] = hole ? 0.05 + r() : screen[c]!;
+    }
+    const state = createLabState({ width: w, height: h, plate: floatSource(plate) });
+    state.matte = matte;
+    const rep = applyStep(state, step({ op: "flatten", sigma, color: target, weight: "outside" }), 3);
+    if (rep.op !== "flatten") throw new Error("wrong report");
+    // The hole's middle (radius 45 − 4σ = 21) sees no screen at all; its rim some.
+    expect(rep.thin).toBeGreaterThan(Math.PI * 21 ** 2);
+    expect(rep.thin).toBeLessThan(Math.PI * 45 ** 2);
+    expect(rep.leftAsIs).toBe(0);
+    for (let c = 0; c < 3; c++) expect(rep.screenMean[c]).toBeCloseTo(screen[c]!, 6);
+    let worst = 0;
+    for (let p = 0; p < w * h; p++) for (let c = 0; c < 3; c++) {
+      const expected = (plate[p * 3 + c]! / screen[c]!) * target[c]!;
+      worst = Math.max(worst, Math.abs(state.cur[p * 3 + c]! - expected) / Math.max(1, expected));
+    }
+    expect(worst).toBeLessThan(2e-6);
+  });
+});
