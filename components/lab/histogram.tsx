@@ -6,7 +6,7 @@ import { analyseLab, CHANNEL_COLOURS, errorText, type LabStillInfo } from "@/com
 import { Choice } from "@/components/lab/recipe/number-input";
 import { Button } from "@/components/ui/button";
 import type { LabSpace, RecipeStep } from "@/lib/lab/recipe";
-import type { HistogramData, LabAnalyseResponse } from "@/app/api/lab/_lib/schemas";
+import type { HistogramData, LabAnalyseResponse } from "@/lib/lab/analysis-schemas";
 
 /** Per-channel histograms of the plate and of the recipe's float result. */
 export function Histogram({ still, space, steps }: { still: LabStillInfo; space: LabSpace; steps: RecipeStep[] }) {

@@ -1,7 +1,7 @@
 import { apiFetch, ApiError } from "@/lib/api/fetcher";
 import type { ErrorBody } from "@/lib/api/errors";
 import type { LabRunRequestInput, LabSolveRequest, LabSolveResponse, StepReport } from "@/lib/lab/recipe";
-import type { LabAnalyseRequest, LabAnalyseResponse, LabSampleRequest, LabSampleResponse } from "@/app/api/lab/_lib/schemas";
+import type { LabAnalyseRequest, LabAnalyseResponse, LabSampleRequest, LabSampleResponse } from "@/lib/lab/analysis-schemas";
 
 /** Client calls of the lab routes (app/api/lab). */
 

@@ -8,7 +8,7 @@ import { NumberInput } from "@/components/lab/recipe/number-input";
 import { Button } from "@/components/ui/button";
 import type { LabSpace, RecipeStep } from "@/lib/lab/recipe";
 import { stillUrl } from "@/lib/stills/schemas";
-import type { LabAnalyseResponse } from "@/app/api/lab/_lib/schemas";
+import type { LabAnalyseResponse } from "@/lib/lab/analysis-schemas";
 
 type Line = { x0: number; y0: number; x1: number; y1: number };
 

@@ -2,34 +2,23 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { mkdir, readFile, rename, writeFile } from "node:fs/promises";
 import path from "node:path";
+import { LRUCache } from "lru-cache";
 import { canonicalJson, type LabRunRequest, type StepReport } from "@/lib/lab/recipe";
 import { LabAbortedError, runRecipe, type DecodeCache, type ProxyStill, type DenoisedLoader, type LabProgress } from "@/lib/lab/engine";
+import { createLabLimiter, labLimiter, LabTimeoutError, type LabLimiter } from "@/lib/lab/limiter";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
+
+export { LabBusyError, LabTimeoutError } from "@/lib/lab/limiter";
 
 /*
  * Runs lab recipes with a result cache (memory LRU with a byte cap, then an on-disk folder)
- * and a bound on how many run at once, how many wait, and how long a run may take, so one
- * heavy render cannot starve the server. Errors are typed for the route handler:
- * LabBusyError → 429, LabTimeoutError → 503, LabInputError (engine) → 400.
+ * under the lab's concurrency limiter (lib/lab/limiter.ts) and a bound on how long a run may
+ * take. Errors are typed for the route handler: LabBusyError → 429, LabTimeoutError → 503,
+ * LabInputError (engine) → 400, LabOverflowError (engine) → 422.
  */
 
 /** Bump when the engine's output for the same inputs changes, to retire old cache entries. */
-export const LAB_ENGINE_VERSION = 1;
-
-export class LabBusyError extends Error {
-  readonly code = "rate_limited" as const;
-  constructor() {
-    super("the lab is busy; try again shortly");
-    this.name = "LabBusyError";
-  }
-}
-
-export class LabTimeoutError extends Error {
-  readonly code = "timeout" as const;
-  constructor(ms: number) {
-    super(`the lab run took longer than ${Math.round(ms / 1000)} s`);
-    this.name = "LabTimeoutError";
-  }
-}
+export const LAB_ENGINE_VERSION = 2;
 
 export type LabRunInput = {
   stillBytes: Uint8Array;
@@ -46,6 +35,8 @@ export type LabRunOutput = {
   width: number;
   height: number;
   reports: StepReport[];
+  /** A proxy render (resized, blurs approximated): see RunRecipeResult.approximate. */
+  approximate: boolean;
   key: string;
   cached: "memory" | "disk" | false;
 };
@@ -54,6 +45,8 @@ export type LabRunnerOptions = {
   /** On-disk cache folder; no disk cache when absent. */
   cacheDir?: string;
   memoryCacheBytes?: number;
+  /** The concurrency bound; a fresh one with these limits when absent (the app passes the shared one). */
+  limiter?: LabLimiter;
   maxConcurrent?: number;
   maxQueue?: number;
   timeoutMs?: number;
@@ -79,52 +72,28 @@ export type LabRunner = {
 const pendingWrites = new Map<string, Promise<void>>();
 
 export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
-  const memCap = options.memoryCacheBytes ?? 256 * 1024 * 1024;
-  const maxConcurrent = options.maxConcurrent ?? 2;
-  const maxQueue = options.maxQueue ?? 8;
+  const limiter = options.limiter ?? createLabLimiter({ maxConcurrent: options.maxConcurrent, maxQueue: options.maxQueue });
   const timeoutMs = options.timeoutMs ?? 60_000;
-  const memory = new Map<string, { bytes: Buffer; meta: Meta }>();
-  let memBytes = 0;
-  let active = 0;
-  const waiting: (() => void)[] = [];
+  // Encoded results; an entry larger than the whole cap is not kept.
+  const memory = new LRUCache<string, { bytes: Buffer; meta: Meta }>({
+    maxSize: options.memoryCacheBytes ?? MEMORY_BUDGET.labResults,
+    sizeCalculation: (v) => Math.max(1, v.bytes.length),
+  });
   const inflight = new Map<string, Promise<LabRunOutput>>();
-  // Decoded proxy stills as working-space floats plus 8-bit codes (≈ 8.3 MB each at 1024 × 540),
-  // least recently used first out.
-  const decoded = new Map<string, ProxyStill>();
-  let decodedBytes = 0;
-  const decodedCap = options.decodedCacheBytes ?? 128 * 1024 * 1024;
+  // Decoded proxy stills as working-space floats plus 8-bit codes (≈ 8.3 MB each at 1024 × 540).
+  const decoded = new LRUCache<string, ProxyStill>({
+    maxSize: options.decodedCacheBytes ?? MEMORY_BUDGET.labDecodedProxies,
+    sizeCalculation: (v) => v.data.byteLength + (v.codes8?.byteLength ?? 0),
+  });
   const decodeCache: DecodeCache = {
-    get(key) {
-      const v = decoded.get(key);
-      if (v) {
-        decoded.delete(key);
-        decoded.set(key, v);
-      }
-      return v;
-    },
-    set(key, value) {
-      const size = (v: ProxyStill): number => v.data.byteLength + (v.codes8?.byteLength ?? 0);
-      if (decoded.has(key) || size(value) > decodedCap) return;
-      decoded.set(key, value);
-      decodedBytes += size(value);
-      for (const [k, v] of decoded) {
-        if (decodedBytes <= decodedCap) break;
-        decoded.delete(k);
-        decodedBytes -= size(v);
-      }
+    get: (key) => decoded.get(key),
+    set: (key, value) => {
+      if (!decoded.has(key)) decoded.set(key, value);
     },
   };
 
   function remember(key: string, bytes: Buffer, meta: Meta): void {
-    if (bytes.length > memCap) return;
-    memory.delete(key);
     memory.set(key, { bytes, meta });
-    memBytes += bytes.length;
-    for (const [k, v] of memory) {
-      if (memBytes <= memCap) break;
-      memory.delete(k);
-      memBytes -= v.bytes.length;
-    }
   }
 
   async function fromDisk(key: string): Promise<{ bytes: Buffer; meta: Meta } | null> {
@@ -154,35 +123,9 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
     await rename(json + tmp, json);
   }
 
-  async function acquire(deadline: number): Promise<void> {
-    if (active < maxConcurrent) {
-      active++;
-      return;
-    }
-    if (waiting.length >= maxQueue) throw new LabBusyError();
-    await new Promise<void>((resolve, reject) => {
-      const grant = (): void => {
-        clearTimeout(timer);
-        active++;
-        resolve();
-      };
-      const timer = setTimeout(() => {
-        const i = waiting.indexOf(grant);
-        if (i >= 0) waiting.splice(i, 1);
-        reject(new LabTimeoutError(timeoutMs));
-      }, Math.max(0, deadline - Date.now()));
-      waiting.push(grant);
-    });
-  }
-
-  function release(): void {
-    active--;
-    waiting.shift()?.();
-  }
-
   async function compute(key: string, input: LabRunInput): Promise<LabRunOutput> {
     const deadline = Date.now() + timeoutMs;
-    await acquire(deadline);
+    const release = await limiter.acquire(deadline, timeoutMs);
     const controller = new AbortController();
     const run = runRecipe({
       still: input.stillBytes,
@@ -207,7 +150,9 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
     });
     try {
       const result = await Promise.race([run, timeout]);
-      const meta: Meta = { contentType: result.contentType, width: result.width, height: result.height, reports: result.reports, key };
+      const meta: Meta = {
+        contentType: result.contentType, width: result.width, height: result.height, reports: result.reports, approximate: result.approximate, key,
+      };
       remember(key, result.bytes, meta);
       if (options.cacheDir) {
         // The answer does not wait for the disk copy (1–3 ms of file system calls per render, more
@@ -249,7 +194,7 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       }
       return pending;
     },
-    stats: () => ({ active, queued: waiting.length, memoryEntries: memory.size, memoryBytes: memBytes }),
+    stats: () => ({ ...limiter.stats(), memoryEntries: memory.size, memoryBytes: memory.calculatedSize }),
   };
 }
 
@@ -261,7 +206,7 @@ export function runLab(input: LabRunInput & { cacheDir?: string }): Promise<LabR
   const id = input.cacheDir ?? "";
   let runner = runners.get(id);
   if (!runner) {
-    runner = createLabRunner({ cacheDir: input.cacheDir });
+    runner = createLabRunner({ cacheDir: input.cacheDir, limiter: labLimiter() });
     runners.set(id, runner);
   }
   return runner.run(input);

@@ -1,4 +1,5 @@
 import "server-only";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
 import { labWasmInstance } from "@/lib/lab/wasm/modules";
 
 /*
@@ -39,7 +40,7 @@ export function allocSimdRgb(length: number): Float32Array {
  * Working buffers are pooled: a fresh 2K frame's memory costs ~12 ms of page faults on first
  * touch (a 4K one ~50 ms) and wasm memories are only freed by GC. At most POOL_BYTES stay idle.
  */
-const POOL_BYTES = 160 * 1024 * 1024;
+const POOL_BYTES = MEMORY_BUDGET.labRgbPool;
 const idle: Float32Array[] = [];
 
 /** As allocSimdRgb, but may hand back a released buffer with old contents (caller overwrites all). */

@@ -1,29 +1,20 @@
 import "server-only";
+import { LRUCache } from "lru-cache";
 import sharp from "sharp";
 import { AppError } from "@/lib/api/errors";
 import type { Still } from "@/db/schema";
 import { PIXEL_LIMIT } from "@/lib/stills/inspect";
 import type { PixelResponse } from "@/lib/stills/schemas";
 import { variantPath } from "@/lib/stills/storage";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
 
 type Decoded = { data: Uint8Array | Uint16Array | Float32Array; width: number; height: number; channels: number; max: number };
 
 /** Decoded originals kept for the pixel probe, bounded by bytes (a 4K 16-bit RGB frame is ~53 MB). */
-const CACHE_BUDGET = 256 * 1024 * 1024;
-const cache = new Map<string, Decoded>();
-let cachedBytes = 0;
-
-function remember(key: string, value: Decoded): void {
-  const bytes = value.data.byteLength;
-  if (bytes > CACHE_BUDGET) return;
-  while (cachedBytes + bytes > CACHE_BUDGET && cache.size) {
-    const oldest = cache.keys().next().value as string;
-    cachedBytes -= cache.get(oldest)!.data.byteLength;
-    cache.delete(oldest);
-  }
-  cache.set(key, value);
-  cachedBytes += bytes;
-}
+const cache = new LRUCache<string, Decoded>({
+  maxSize: MEMORY_BUDGET.stillPixels,
+  sizeCalculation: (v) => Math.max(1, v.data.byteLength),
+});
 
 /**
  * Stored code values exactly: `ignoreIcc` so an embedded profile does not change them, and
@@ -32,11 +23,7 @@ function remember(key: string, value: Decoded): void {
 async function decode(still: Pick<Still, "sha256" | "bitDepth" | "channels">, root?: string): Promise<Decoded> {
   const key = `${root ?? ""}:${still.sha256}`;
   const hit = cache.get(key);
-  if (hit) {
-    cache.delete(key);
-    cache.set(key, hit);
-    return hit;
-  }
+  if (hit) return hit;
   const grey = still.channels <= 2;
   let pipeline = sharp(variantPath(still.sha256, "original", root), { ignoreIcc: true, limitInputPixels: PIXEL_LIMIT });
   let depth: "uchar" | "ushort" | "float" = "uchar";
@@ -57,7 +44,7 @@ async function decode(still: Pick<Still, "sha256" | "bitDepth" | "channels">, ro
         ? new Float32Array(data.buffer, data.byteOffset, data.byteLength / 4)
         : new Uint8Array(data.buffer, data.byteOffset, data.byteLength);
   const decoded: Decoded = { data: view, width: info.width, height: info.height, channels: info.channels, max: depth === "ushort" ? 65535 : depth === "float" ? 1 : 255 };
-  remember(key, decoded);
+  cache.set(key, decoded);
   return decoded;
 }
 
