@@ -50,7 +50,8 @@ export function Histogram({ still, space, steps }: { still: LabStillInfo; space:
             </AreaChart>
           </ResponsiveContainer>
           <figcaption className="text-xs text-muted">
-            {data!.width}×{data!.height} px in {space === "linear" ? "linear light" : "stored values"}. Below 0: R {h.below[0]}, G {h.below[1]}, B {h.below[2]}; 1 and
+            {data!.width}×{data!.height} px in {space === "linear" ? "linear light" : "stored values"}
+            {data!.approximate ? " (a resized copy: blurs approximate)" : ""}. Below 0: R {h.below[0]}, G {h.below[1]}, B {h.below[2]}; 1 and
             above: R {h.above[0]}, G {h.above[1]}, B {h.above[2]}.
           </figcaption>
         </figure>

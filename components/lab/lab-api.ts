@@ -6,7 +6,8 @@ import type { LabAnalyseRequest, LabAnalyseResponse, LabSampleRequest, LabSample
 /** Client calls of the lab routes (app/api/lab). */
 
 export type LabStillInfo = { id: string; alt: string; width: number; height: number; bitDepth: number };
-export type LabRender = { url: string; width: number; height: number; reports: StepReport[]; cached: string };
+/** `approximate`: a proxy render (resized, fast blur approximations), from the X-Lab-Render header. */
+export type LabRender = { url: string; width: number; height: number; reports: StepReport[]; cached: string; approximate: boolean };
 export type Box = { x: number; y: number; w: number; h: number };
 
 /** POST /api/lab/run; the image comes back as an object URL the caller must revoke. */
@@ -39,6 +40,7 @@ export async function renderLab(body: LabRunRequestInput, signal?: AbortSignal):
     height: Number(res.headers.get("X-Lab-Height")) || 0,
     reports,
     cached: res.headers.get("X-Lab-Cache") ?? "miss",
+    approximate: res.headers.get("X-Lab-Render") === "approximate",
   };
 }
 

@@ -88,6 +88,7 @@ export function LineProfile({ still, space, steps }: { still: LabStillInfo; spac
           </ResponsiveContainer>
           <figcaption className="text-xs text-muted">
             Values in {space === "linear" ? "linear light" : "stored values"} (0..1), unclipped; distance along the line in full-resolution pixels.
+            {data?.approximate ? " Sampled from a resized copy, so blurs are approximate." : ""}
           </figcaption>
         </figure>
       ) : null}

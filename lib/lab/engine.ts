@@ -591,15 +591,15 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
   const den = takePlane64(n);
   const left = new Uint8Array(n);
   let thin = 0;
-  const blur = (fill: (a: Float32Array | Float64Array) => void, use: (b: Float32Array | Float64Array) => void): void => {
+  const blur = (fill: (a: Float32Array | Float64Array) => void, read: (b: Float32Array | Float64Array) => void): void => {
     if (state.exact) {
-      exactBlurWith(width, height, step.sigma, "f64", fill, use);
+      exactBlurWith(width, height, step.sigma, "f64", fill, read);
       return;
     }
     const plane = takePlane64(n), tmp = takePlane64(n);
     fill(plane);
     blurPlaneApprox(plane, width, height, step.sigma, tmp);
-    use(plane);
+    read(plane);
     poolPlanes([plane, tmp]);
   };
   try {

@@ -162,13 +162,13 @@ type Plane = Float32Array | Float64Array;
 
 /**
  * The exact Gaussian of a plane held in the blur's own working memory: `fill` writes the input
- * (width × height values, row by row) into the plane it is handed, `use` reads the result from the
+ * (width × height values, row by row) into the plane it is handed, `read` reads the result from the
  * plane it is handed; neither may keep it. `kind` is the precision the caller needs: "f64" keeps
  * float64 throughout; "f32" may store the direct passes' values in float32 (the FFT path computes
  * in float64 either way). Saves the copies (and a 4K plane's memory) that blurExact makes.
  */
 export function exactBlurWith(width: number, height: number, sigma: number, kind: "f32" | "f64",
-  fill: (input: Plane) => void, use: (output: Plane) => void, method: BlurMethod = defaultMethod(sigma, kind)): void {
+  fill: (input: Plane) => void, read: (output: Plane) => void, method: BlurMethod = defaultMethod(sigma, kind)): void {
   const k = gaussianHalfKernel(sigma);
   const r = k.length - 1;
   const n = width * height;
@@ -179,7 +179,7 @@ export function exactBlurWith(width: number, height: number, sigma: number, kind
       counts.definition++;
       blurDefinition(plane, width, height, k);
     }
-    use(plane);
+    read(plane);
     return;
   }
   if (method === "direct") {
@@ -196,7 +196,7 @@ export function exactBlurWith(width: number, height: number, sigma: number, kind
     transpose(B, A, width, height);
     rows(A, B, height, width, K, r, PAD);
     transpose(B, A, height, width);
-    use(view(A, n));
+    read(view(A, n));
     return;
   }
   counts.fft++;
@@ -214,7 +214,7 @@ export function exactBlurWith(width: number, height: number, sigma: number, kind
   };
   pass(A, B, width, height, width * 8, 8, mRow, specRow); // rows
   pass(B, A, height, width, 8, width * 8, mCol, specCol); // columns, two neighbours per transform
-  use(new Float64Array(buffer, A, n));
+  read(new Float64Array(buffer, A, n));
 }
 
 function defaultMethod(sigma: number, kind: "f32" | "f64"): BlurMethod {
