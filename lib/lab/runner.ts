@@ -63,6 +63,13 @@ export function labCacheKey(stillSha256: string, request: LabRunRequest): string
     .digest("hex");
 }
 
+/*
+ * A file in the result cache folder. The folder is chosen at run time (inside the data folder) and
+ * holds no source: the build's file tracing must not follow these paths (it would otherwise trace
+ * the whole project into the lab routes).
+ */
+const cacheFile = (dir: string, name: string): string => path.join(/* turbopackIgnore: true */ dir, name);
+
 export type LabRunner = {
   run(input: LabRunInput): Promise<LabRunOutput>;
   stats(): { active: number; queued: number; memoryEntries: number; memoryBytes: number };
@@ -99,11 +106,11 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
   async function fromDisk(key: string): Promise<{ bytes: Buffer; meta: Meta } | null> {
     if (!options.cacheDir) return null;
     // A result still being written by this process is read once it is complete.
-    await pendingWrites.get(path.join(options.cacheDir, key));
+    await pendingWrites.get(cacheFile(options.cacheDir, key));
     try {
       const [bytes, metaText] = await Promise.all([
-        readFile(path.join(options.cacheDir, `${key}.bin`)),
-        readFile(path.join(options.cacheDir, `${key}.json`), "utf8"),
+        readFile(cacheFile(options.cacheDir, `${key}.bin`)),
+        readFile(cacheFile(options.cacheDir, `${key}.json`), "utf8"),
       ]);
       return { bytes, meta: JSON.parse(metaText) as Meta };
     } catch {
@@ -113,10 +120,10 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
 
   async function toDisk(key: string, bytes: Buffer, meta: Meta): Promise<void> {
     if (!options.cacheDir) return;
-    await mkdir(options.cacheDir, { recursive: true });
+    await mkdir(/* turbopackIgnore: true */ options.cacheDir, { recursive: true });
     // Write then rename, so a reader never sees half a file; bytes before meta, since meta marks it complete.
     const tmp = `.${process.pid}-${Math.random().toString(36).slice(2)}`;
-    const bin = path.join(options.cacheDir, `${key}.bin`), json = path.join(options.cacheDir, `${key}.json`);
+    const bin = cacheFile(options.cacheDir, `${key}.bin`), json = cacheFile(options.cacheDir, `${key}.json`);
     await writeFile(bin + tmp, bytes);
     await rename(bin + tmp, bin);
     await writeFile(json + tmp, JSON.stringify(meta));
@@ -157,7 +164,7 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       if (options.cacheDir) {
         // The answer does not wait for the disk copy (1–3 ms of file system calls per render, more
         // under load, which an interactive proxy render feels); readers in this process wait for it.
-        const id = path.join(options.cacheDir, key);
+        const id = cacheFile(options.cacheDir, key);
         const write = toDisk(key, result.bytes, meta).catch(() => undefined).finally(() => {
           if (pendingWrites.get(id) === write) pendingWrites.delete(id);
         });
