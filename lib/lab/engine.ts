@@ -84,7 +84,7 @@ export class LabInputError extends Error {
 /** A step's result left the float range (an infinite or not-a-number value): the run fails. */
 export class LabOverflowError extends Error {
   constructor(readonly stepIndex: number, readonly op: RecipeStep["op"]) {
-    super(`step ${stepIndex} (${op}) produced values beyond the floating-point range; reduce its gains`);
+    super(`this ${op} step's result left the floating-point range (a value became infinite or not a number); lower its gains`);
     this.name = "LabOverflowError";
   }
 }
