@@ -12,6 +12,7 @@ import { releaseSimdRgb, takeSimdRgb } from "@/lib/lab/simd";
 import { blurExact, exactBlurWith, releaseExactBlurMemory } from "@/lib/lab/gaussian";
 import {
   blurPlaneApprox,
+  blurSampledSparse,
   copyChannel,
   extractChannel,
   insertChannel,
@@ -573,22 +574,23 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
   const { cur, width, height } = state;
   const n = width * height;
   const matte = state.matte;
+  // 0: every pixel is screen; 1: the matte is the screen weight; 2: 1 − matte is.
   const mode = !matte || step.weight === "all" ? 0 : step.weight === "inside" ? 1 : 2;
-  const weight = (p: number): number => {
-    if (mode === 0) return 1;
-    const v = matte![p]!;
-    const m = v < 0 ? 0 : v > 1 ? 1 : v;
-    return mode === 1 ? m : 1 - m;
-  };
+  const den = takePlane64(n);
+  // w into den first (loops per mode, no call per pixel): the frame's weighted mean, then its blur.
+  if (mode === 0) den.fill(1);
+  else for (let p = 0; p < n; p++) {
+    const v = matte![p]!, m = v < 0 ? 0 : v > 1 ? 1 : v;
+    den[p] = mode === 1 ? m : 1 - m;
+  }
   let s0 = 0, s1 = 0, s2 = 0, sumW = 0;
   for (let p = 0, i = 0; p < n; p++, i += 3) {
-    const w = weight(p);
+    const w = den[p]!;
     sumW += w;
     s0 += w * cur[i]!; s1 += w * cur[i + 1]!; s2 += w * cur[i + 2]!;
   }
   const mean: [number, number, number] = sumW > 0 ? [s0 / sumW, s1 / sumW, s2 / sumW] : [0, 0, 0];
   const tau = FLATTEN_MIN_SCREEN;
-  const den = takePlane64(n);
   const left = new Uint8Array(n);
   let thin = 0;
   const blur = (fill: (a: Float32Array | Float64Array) => void, read: (b: Float32Array | Float64Array) => void): void => {
@@ -602,13 +604,24 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
     read(plane);
     poolPlanes([plane, tmp]);
   };
+  /** a[p] = value_c · w, w recomputed from the matte as above. */
+  const weighted = (a: Float32Array | Float64Array, c: number): void => {
+    if (mode === 0) for (let p = 0, i = c; p < n; p++, i += 3) a[p] = cur[i]!;
+    else if (mode === 1) for (let p = 0, i = c; p < n; p++, i += 3) {
+      const v = matte![p]!;
+      a[p] = cur[i]! * (v < 0 ? 0 : v > 1 ? 1 : v);
+    } else for (let p = 0, i = c; p < n; p++, i += 3) {
+      const v = matte![p]!;
+      a[p] = cur[i]! * (1 - (v < 0 ? 0 : v > 1 ? 1 : v));
+    }
+  };
   try {
-    blur((a) => { for (let p = 0; p < n; p++) a[p] = weight(p); }, (b) => den.set(b));
+    blur((a) => a.set(den), (b) => den.set(b));
     for (let p = 0; p < n; p++) if (den[p]! < tau) thin++;
     for (let c = 0; c < 3; c++) {
       const target = step.color[c]!, g = mean[c]!;
       blur(
-        (a) => { for (let p = 0, i = c; p < n; p++, i += 3) a[p] = cur[i]! * weight(p); },
+        (a) => weighted(a, c),
         (num) => {
           for (let p = 0, i = c; p < n; p++, i += 3) {
             const d = den[p]!;
@@ -649,7 +662,13 @@ export function applyStep(state: LabState, step: RecipeStep, index: number): Ste
       const sigma = step.sigma / state.scale;
       if (step.target === "matte") {
         if (!state.matte) throw new LabInputError(`step ${index}: soften needs a matte`, index);
-        if (state.exact) blurExact(state.matte, width, height, sigma);
+        // A marker matte is mostly zero: the sampled kernel over only its non-zero blocks (exact,
+        // float64 arithmetic) beats the full-frame passes while the radius is small.
+        if (state.exact) {
+          const tmp = takePlane64(width * height);
+          if (!blurSampledSparse(state.matte, width, height, sigma, tmp)) blurExact(state.matte, width, height, sigma);
+          poolPlanes([tmp]);
+        }
         else {
           const tmp = takePlane64(width * height);
           blurPlaneApprox(state.matte, width, height, sigma, tmp);

@@ -371,6 +371,32 @@ function firBlur(plane: Plane, width: number, height: number, k: Float64Array, t
   }
 }
 
+/** Above this share of a plane's column blocks (grown by the radius) the sparse path stops paying. */
+const SPARSE_MAX_SHARE = 0.25;
+
+/**
+ * The exact sampled Gaussian of gaussian.ts (same kernel, edges repeated), computed only over the
+ * column blocks and rows that hold non-zero values grown by the radius — for mostly-zero planes
+ * such as marker mattes, with R ≤ FIR_MAX_RADIUS. Answers false (plane untouched) when the plane
+ * is not sparse enough or the radius too large; the caller then runs the full-frame passes.
+ */
+export function blurSampledSparse(plane: Plane, width: number, height: number, sigma: number, tmp: Plane): boolean {
+  const k = gaussianHalfKernel(sigma);
+  const r = k.length - 1;
+  if (r === 0) return true;
+  if (r > FIR_MAX_RADIUS) return false;
+  const hb = growBlocks(rowBlocks(plane, width, height), width, r);
+  let marked = 0;
+  for (let y = 0; y < height; y++) {
+    let m = hb.masks[y]!;
+    while (m !== 0) { m &= m - 1; marked++; }
+  }
+  // Rows within r of a marked row are computed too.
+  if ((marked * (2 * r + 1)) / (32 * height) > SPARSE_MAX_SHARE) return false;
+  firBlur(plane, width, height, k, tmp);
+  return true;
+}
+
 /**
  * Approximate Gaussian blur of a plane in place (proxy renders); `tmp` is a scratch plane of the
  * same size and type.
