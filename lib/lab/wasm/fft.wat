@@ -18,8 +18,8 @@
 (module
   (import "e" "m" (memory 1))
 
-  ;; Calls are not inlined by every engine, so the complex multiply x·tw[p] is written out:
-  ;;   x·[c, c] + swap(x)·[s, −s]     and x·(−i) = swap(x) xor [0, −0] = [im, −re]
+  ;; Calls are not inlined by every engine, so the complex multiply is written out each time:
+  ;;   x·e^(-iθ) = x·[c, c] + swap(x)·[s, −s]        and x·(−i) = swap(x) xor [0, −0] = [im, −re]
 
   ;; One radix-2 stage of span 1 (twiddle 1): pairs (0,1), (2,3), ...
   (func $span1 (param $buf i32) (param $m i32)
@@ -36,18 +36,22 @@
       (br $l))))
 
   ;; Forward transform (decimation in frequency), natural order in, bit-reversed order out.
+  ;; Spans 2q and q together for q = M/4, M/16, ... > 1; the last pair (q = 1, all twiddles 1)
+  ;; without multiplies; a single span-1 stage left over when log2 M is odd.
   (func $dif (export "dif") (param $buf i32) (param $m i32) (param $tw i32)
     (local $q i32) (local $qb i32) (local $end i32) (local $s i32) (local $p i32) (local $pe i32)
+    (local $p1 i32) (local $p2 i32) (local $p3 i32)
     (local $stepT i32) (local $stepW i32) (local $pt i32) (local $pw i32)
+    (local $tc v128) (local $ts v128) (local $wc v128) (local $ws v128) (local $neg1 v128)
     (local $x0 v128) (local $x1 v128) (local $x2 v128) (local $x3 v128)
     (local $y0 v128) (local $y1 v128) (local $y2 v128) (local $y3 v128) (local $t v128)
+    (local.set $neg1 (v128.const i64x2 0 0x8000000000000000))
     (local.set $end (i32.add (local.get $buf) (i32.shl (local.get $m) (i32.const 4))))
-    ;; spans 2q and q together, q = M/4, M/16, ... down to 1 (or 2 when log2 M is odd)
     (local.set $q (i32.shr_u (local.get $m) (i32.const 2)))
     (block $qd (loop $ql
-      (br_if $qd (i32.lt_u (local.get $q) (i32.const 1)))
+      (br_if $qd (i32.le_u (local.get $q) (i32.const 1)))
       (local.set $qb (i32.shl (local.get $q) (i32.const 4)))
-      ;; T = e^(-2πi j / 4q): table step M/4q entries; W = T²: step M/2q
+      ;; T = e^(-2πi j / 4q): table step M/4q entries of 32 bytes; W = T²: twice that
       (local.set $stepT (i32.shl (i32.div_u (local.get $m) (i32.shl (local.get $q) (i32.const 2))) (i32.const 5)))
       (local.set $stepW (i32.shl (local.get $stepT) (i32.const 1)))
       (local.set $s (local.get $buf))
@@ -59,25 +63,40 @@
         (local.set $pw (local.get $tw))
         (block $jd (loop $jl
           (br_if $jd (i32.ge_u (local.get $p) (local.get $pe)))
+          (local.set $p1 (i32.add (local.get $p) (local.get $qb)))
+          (local.set $p2 (i32.add (local.get $p1) (local.get $qb)))
+          (local.set $p3 (i32.add (local.get $p2) (local.get $qb)))
+          (local.set $tc (v128.load (local.get $pt)))
+          (local.set $ts (v128.load offset=16 (local.get $pt)))
+          (local.set $wc (v128.load (local.get $pw)))
+          (local.set $ws (v128.load offset=16 (local.get $pw)))
           (local.set $x0 (v128.load (local.get $p)))
-          (local.set $x1 (v128.load (i32.add (local.get $p) (local.get $qb))))
-          (local.set $x2 (v128.load (i32.add (local.get $p) (i32.shl (local.get $qb) (i32.const 1)))))
-          (local.set $x3 (v128.load (i32.add (local.get $p) (i32.mul (local.get $qb) (i32.const 3)))))
+          (local.set $x1 (v128.load (local.get $p1)))
+          (local.set $x2 (v128.load (local.get $p2)))
+          (local.set $x3 (v128.load (local.get $p3)))
           ;; span 2q: (x0, x2) with T, (x1, x3) with T·(−i)
           (local.set $y0 (f64x2.add (local.get $x0) (local.get $x2)))
           (local.set $t (f64x2.sub (local.get $x0) (local.get $x2)))
-          (local.set $y2 (f64x2.add (f64x2.mul (local.get $t) (v128.load (local.get $pt))) (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (v128.load offset=16 (local.get $pt)))))
+          (local.set $y2 (f64x2.add
+            (f64x2.mul (local.get $t) (local.get $tc))
+            (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (local.get $ts))))
           (local.set $y1 (f64x2.add (local.get $x1) (local.get $x3)))
           (local.set $t (f64x2.sub (local.get $x1) (local.get $x3)))
-          (local.set $t (f64x2.add (f64x2.mul (local.get $t) (v128.load (local.get $pt))) (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (v128.load offset=16 (local.get $pt)))))
-          (local.set $y3 (v128.xor (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (v128.const i64x2 0 0x8000000000000000)))
+          (local.set $t (f64x2.add
+            (f64x2.mul (local.get $t) (local.get $tc))
+            (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (local.get $ts))))
+          (local.set $y3 (v128.xor (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (local.get $neg1)))
           ;; span q: (y0, y1), (y2, y3) with W
           (v128.store (local.get $p) (f64x2.add (local.get $y0) (local.get $y1)))
           (local.set $t (f64x2.sub (local.get $y0) (local.get $y1)))
-          (v128.store (i32.add (local.get $p) (local.get $qb)) (f64x2.add (f64x2.mul (local.get $t) (v128.load (local.get $pw))) (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (v128.load offset=16 (local.get $pw)))))
-          (v128.store (i32.add (local.get $p) (i32.shl (local.get $qb) (i32.const 1))) (f64x2.add (local.get $y2) (local.get $y3)))
+          (v128.store (local.get $p1) (f64x2.add
+            (f64x2.mul (local.get $t) (local.get $wc))
+            (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (local.get $ws))))
+          (v128.store (local.get $p2) (f64x2.add (local.get $y2) (local.get $y3)))
           (local.set $t (f64x2.sub (local.get $y2) (local.get $y3)))
-          (v128.store (i32.add (local.get $p) (i32.mul (local.get $qb) (i32.const 3))) (f64x2.add (f64x2.mul (local.get $t) (v128.load (local.get $pw))) (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (v128.load offset=16 (local.get $pw)))))
+          (v128.store (local.get $p3) (f64x2.add
+            (f64x2.mul (local.get $t) (local.get $wc))
+            (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (local.get $ws))))
           (local.set $p (i32.add (local.get $p) (i32.const 16)))
           (local.set $pt (i32.add (local.get $pt) (local.get $stepT)))
           (local.set $pw (i32.add (local.get $pw) (local.get $stepW)))
@@ -86,23 +105,68 @@
         (br $sl)))
       (local.set $q (i32.shr_u (local.get $q) (i32.const 2)))
       (br $ql)))
-    ;; log2 M odd: the last stage, span 1, is left over
-    (if (i32.and (i32.ctz (local.get $m)) (i32.const 1))
-      (then (call $span1 (local.get $buf) (local.get $m)))))
+    (if (i32.eq (local.get $q) (i32.const 1))
+      (then
+        ;; q = 1: groups of four neighbours, every twiddle 1
+        (local.set $p (local.get $buf))
+        (block $d (loop $l
+          (br_if $d (i32.ge_u (local.get $p) (local.get $end)))
+          (local.set $x0 (v128.load (local.get $p)))
+          (local.set $x1 (v128.load offset=16 (local.get $p)))
+          (local.set $x2 (v128.load offset=32 (local.get $p)))
+          (local.set $x3 (v128.load offset=48 (local.get $p)))
+          (local.set $y0 (f64x2.add (local.get $x0) (local.get $x2)))
+          (local.set $y2 (f64x2.sub (local.get $x0) (local.get $x2)))
+          (local.set $y1 (f64x2.add (local.get $x1) (local.get $x3)))
+          (local.set $t (f64x2.sub (local.get $x1) (local.get $x3)))
+          (local.set $y3 (v128.xor (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (local.get $neg1)))
+          (v128.store (local.get $p) (f64x2.add (local.get $y0) (local.get $y1)))
+          (v128.store offset=16 (local.get $p) (f64x2.sub (local.get $y0) (local.get $y1)))
+          (v128.store offset=32 (local.get $p) (f64x2.add (local.get $y2) (local.get $y3)))
+          (v128.store offset=48 (local.get $p) (f64x2.sub (local.get $y2) (local.get $y3)))
+          (local.set $p (i32.add (local.get $p) (i32.const 64)))
+          (br $l))))
+      (else
+        ;; log2 M odd: the last stage, span 1, is left over
+        (call $span1 (local.get $buf) (local.get $m)))))
 
-  ;; Forward transform by decimation in time: bit-reversed order in, natural order out.
+  ;; The same transform by decimation in time: bit-reversed order in, natural order out. The first
+  ;; pair of spans (1 and 2, all twiddles 1) without multiplies, or a single span-1 stage when
+  ;; log2 M is odd; then spans q and 2q together for q = 4 (or 2), ×4 up to M/4.
   (func $dit (export "dit") (param $buf i32) (param $m i32) (param $tw i32)
     (local $q i32) (local $qb i32) (local $end i32) (local $s i32) (local $p i32) (local $pe i32)
+    (local $p1 i32) (local $p2 i32) (local $p3 i32)
     (local $stepT i32) (local $stepW i32) (local $pt i32) (local $pw i32)
+    (local $tc v128) (local $ts v128) (local $wc v128) (local $ws v128) (local $neg1 v128)
     (local $x0 v128) (local $x1 v128) (local $x2 v128) (local $x3 v128)
     (local $y0 v128) (local $y1 v128) (local $y2 v128) (local $y3 v128) (local $t v128)
+    (local.set $neg1 (v128.const i64x2 0 0x8000000000000000))
     (local.set $end (i32.add (local.get $buf) (i32.shl (local.get $m) (i32.const 4))))
-    (local.set $q (i32.const 1))
     (if (i32.and (i32.ctz (local.get $m)) (i32.const 1))
       (then
         (call $span1 (local.get $buf) (local.get $m))
-        (local.set $q (i32.const 2))))
-    ;; spans q and 2q together, q = 1 (or 2), then ×4 up to M/4
+        (local.set $q (i32.const 2)))
+      (else
+        ;; q = 1: groups of four neighbours, every twiddle 1
+        (local.set $p (local.get $buf))
+        (block $d (loop $l
+          (br_if $d (i32.ge_u (local.get $p) (local.get $end)))
+          (local.set $x0 (v128.load (local.get $p)))
+          (local.set $x1 (v128.load offset=16 (local.get $p)))
+          (local.set $x2 (v128.load offset=32 (local.get $p)))
+          (local.set $x3 (v128.load offset=48 (local.get $p)))
+          (local.set $y0 (f64x2.add (local.get $x0) (local.get $x1)))
+          (local.set $y1 (f64x2.sub (local.get $x0) (local.get $x1)))
+          (local.set $y2 (f64x2.add (local.get $x2) (local.get $x3)))
+          (local.set $t (f64x2.sub (local.get $x2) (local.get $x3)))
+          (local.set $y3 (v128.xor (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (local.get $neg1)))
+          (v128.store (local.get $p) (f64x2.add (local.get $y0) (local.get $y2)))
+          (v128.store offset=32 (local.get $p) (f64x2.sub (local.get $y0) (local.get $y2)))
+          (v128.store offset=16 (local.get $p) (f64x2.add (local.get $y1) (local.get $y3)))
+          (v128.store offset=48 (local.get $p) (f64x2.sub (local.get $y1) (local.get $y3)))
+          (local.set $p (i32.add (local.get $p) (i32.const 64)))
+          (br $l)))
+        (local.set $q (i32.const 4))))
     (block $qd (loop $ql
       (br_if $qd (i32.gt_u (i32.shl (local.get $q) (i32.const 2)) (local.get $m)))
       (local.set $qb (i32.shl (local.get $q) (i32.const 4)))
@@ -117,25 +181,40 @@
         (local.set $pw (local.get $tw))
         (block $jd (loop $jl
           (br_if $jd (i32.ge_u (local.get $p) (local.get $pe)))
+          (local.set $p1 (i32.add (local.get $p) (local.get $qb)))
+          (local.set $p2 (i32.add (local.get $p1) (local.get $qb)))
+          (local.set $p3 (i32.add (local.get $p2) (local.get $qb)))
+          (local.set $tc (v128.load (local.get $pt)))
+          (local.set $ts (v128.load offset=16 (local.get $pt)))
+          (local.set $wc (v128.load (local.get $pw)))
+          (local.set $ws (v128.load offset=16 (local.get $pw)))
           (local.set $x0 (v128.load (local.get $p)))
-          (local.set $x1 (v128.load (i32.add (local.get $p) (local.get $qb))))
-          (local.set $x2 (v128.load (i32.add (local.get $p) (i32.shl (local.get $qb) (i32.const 1)))))
-          (local.set $x3 (v128.load (i32.add (local.get $p) (i32.mul (local.get $qb) (i32.const 3)))))
+          (local.set $x1 (v128.load (local.get $p1)))
+          (local.set $x2 (v128.load (local.get $p2)))
+          (local.set $x3 (v128.load (local.get $p3)))
           ;; span q: (x0, x1), (x2, x3) with W = e^(-2πi j / 2q)
-          (local.set $t (f64x2.add (f64x2.mul (local.get $x1) (v128.load (local.get $pw))) (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $x1) (local.get $x1)) (v128.load offset=16 (local.get $pw)))))
+          (local.set $t (f64x2.add
+            (f64x2.mul (local.get $x1) (local.get $wc))
+            (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $x1) (local.get $x1)) (local.get $ws))))
           (local.set $y0 (f64x2.add (local.get $x0) (local.get $t)))
           (local.set $y1 (f64x2.sub (local.get $x0) (local.get $t)))
-          (local.set $t (f64x2.add (f64x2.mul (local.get $x3) (v128.load (local.get $pw))) (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $x3) (local.get $x3)) (v128.load offset=16 (local.get $pw)))))
+          (local.set $t (f64x2.add
+            (f64x2.mul (local.get $x3) (local.get $wc))
+            (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $x3) (local.get $x3)) (local.get $ws))))
           (local.set $y2 (f64x2.add (local.get $x2) (local.get $t)))
           (local.set $y3 (f64x2.sub (local.get $x2) (local.get $t)))
           ;; span 2q: (y0, y2) with T = e^(-2πi j / 4q), (y1, y3) with T·(−i)
-          (local.set $t (f64x2.add (f64x2.mul (local.get $y2) (v128.load (local.get $pt))) (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $y2) (local.get $y2)) (v128.load offset=16 (local.get $pt)))))
+          (local.set $t (f64x2.add
+            (f64x2.mul (local.get $y2) (local.get $tc))
+            (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $y2) (local.get $y2)) (local.get $ts))))
           (v128.store (local.get $p) (f64x2.add (local.get $y0) (local.get $t)))
-          (v128.store (i32.add (local.get $p) (i32.shl (local.get $qb) (i32.const 1))) (f64x2.sub (local.get $y0) (local.get $t)))
-          (local.set $t (f64x2.add (f64x2.mul (local.get $y3) (v128.load (local.get $pt))) (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $y3) (local.get $y3)) (v128.load offset=16 (local.get $pt)))))
-          (local.set $t (v128.xor (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (v128.const i64x2 0 0x8000000000000000)))
-          (v128.store (i32.add (local.get $p) (local.get $qb)) (f64x2.add (local.get $y1) (local.get $t)))
-          (v128.store (i32.add (local.get $p) (i32.mul (local.get $qb) (i32.const 3))) (f64x2.sub (local.get $y1) (local.get $t)))
+          (v128.store (local.get $p2) (f64x2.sub (local.get $y0) (local.get $t)))
+          (local.set $t (f64x2.add
+            (f64x2.mul (local.get $y3) (local.get $tc))
+            (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $y3) (local.get $y3)) (local.get $ts))))
+          (local.set $t (v128.xor (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $t) (local.get $t)) (local.get $neg1)))
+          (v128.store (local.get $p1) (f64x2.add (local.get $y1) (local.get $t)))
+          (v128.store (local.get $p3) (f64x2.sub (local.get $y1) (local.get $t)))
           (local.set $p (i32.add (local.get $p) (i32.const 16)))
           (local.set $pt (i32.add (local.get $pt) (local.get $stepT)))
           (local.set $pw (i32.add (local.get $pw) (local.get $stepW)))
