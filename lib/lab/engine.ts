@@ -40,7 +40,7 @@ export type StillCodes = { width: number; height: number; bits: 8 | 16; codes: U
 /** A read-only image the steps refer to: stored codes through a LUT, or plain floats (tests). */
 export type PixelSource =
   | { kind: "codes"; codes: Uint8Array | Uint16Array; lut: Float32Array }
-  | { kind: "float"; data: Float32Array; codes8?: Uint8Array };
+  | { kind: "float"; data: Float32Array; codes8?: Uint8Array; /** Largest |value| of data, when known. */ maxAbs?: number };
 
 export type LabState = {
   width: number;
@@ -153,15 +153,24 @@ export function codesSource(still: StillCodes, space: LabSpace): PixelSource {
   return { kind: "codes", codes: still.codes, lut: codeLut(still.bits, space === "linear") };
 }
 
-/** Largest |value| a source holds; a float source with a non-finite value is refused. */
-function sourceBound(src: PixelSource): number {
-  const values = src.kind === "codes" ? src.lut : src.data;
+/** Largest |value| in an array; a non-finite value is refused (a still must hold numbers). */
+function maxAbsOf(values: Float32Array): number {
   let m = 0;
   for (let i = 0; i < values.length; i++) {
     const a = Math.abs(values[i]!);
     if (!(a <= FLOAT32_MAX)) throw new LabInputError("the still holds values that are not finite numbers");
     if (a > m) m = a;
   }
+  return m;
+}
+
+const lutBounds = new WeakMap<Float32Array, number>();
+
+/** Largest |value| a source holds (a table's is computed once; a float source's kept with it). */
+function sourceBound(src: PixelSource): number {
+  if (src.kind === "float") return (src.maxAbs ??= maxAbsOf(src.data));
+  let m = lutBounds.get(src.lut);
+  if (m === undefined) lutBounds.set(src.lut, (m = maxAbsOf(src.lut)));
   return m;
 }
 
@@ -254,8 +263,7 @@ function updateBound(state: LabState, step: RecipeStep, report: StepReport): voi
       next = b.cur + b.base + b.plate; // mix + grain fused: m·(cur − base) + plate
       break;
     case "flatten":
-      next = Infinity; // divides by a screen estimate: always checked
-      break;
+      break; // divides by a screen estimate: flattenStep checks every value it writes and sets the bound
     default:
       break; // copy, matte, grow, soften: no value leaves the range it had
   }
@@ -593,6 +601,8 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
   const tau = FLATTEN_MIN_SCREEN;
   const left = new Uint8Array(n);
   let thin = 0;
+  // Largest |value| written: the division can leave the float range (checked after the step).
+  let most = state.bound.cur;
   const blur = (fill: (a: Float32Array | Float64Array) => void, read: (b: Float32Array | Float64Array) => void): void => {
     if (state.exact) {
       exactBlurWith(width, height, step.sigma, "f64", fill, read);
@@ -626,8 +636,11 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
           for (let p = 0, i = c; p < n; p++, i += 3) {
             const d = den[p]!;
             const est = d >= tau ? num[p]! / d : (num[p]! + (tau - d) * g) / tau;
-            if (est > 0) cur[i] = (cur[i]! / est) * target;
-            else left[p] = 1;
+            if (est > 0) {
+              const v = (cur[i] = (cur[i]! / est) * target);
+              const a = v < 0 ? -v : v;
+              if (!(a <= most)) most = a; // also catches NaN
+            } else left[p] = 1;
           }
         },
       );
@@ -635,6 +648,8 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
   } finally {
     poolPlanes([den]);
   }
+  if (!(most <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten");
+  state.bound.cur = most;
   let leftAsIs = 0;
   for (let p = 0; p < n; p++) leftAsIs += left[p]!;
   return { index, op: "flatten", thin, leftAsIs, screenMean: mean };
@@ -784,6 +799,8 @@ export type DecodedStill = StillCodes & { sourceWidth: number; sourceHeight: num
 export type ProxyStill = {
   width: number; height: number; bits: 8 | 16; sourceWidth: number; sourceHeight: number; space: LabSpace;
   data: Float32Array;
+  /** Largest |value| of data. */
+  maxAbs: number;
   /** `data` quantised for an 8-bit encode (png, webp) in the same space. */
   codes8?: Uint8Array;
 };
@@ -813,7 +830,7 @@ async function decodeCached(bytes: () => Promise<Uint8Array>, width: number | un
   // Only proxies are kept: a full-resolution decode is as large as the render it feeds.
   const k = cache && key && width ? `${key}@${width}:${space}` : null;
   const hit = k ? cache!.get(k) : undefined;
-  if (hit) return { ...hit, source: { kind: "float", data: hit.data, codes8: hit.codes8 }, spare16: null };
+  if (hit) return { ...hit, source: { kind: "float", data: hit.data, codes8: hit.codes8, maxAbs: hit.maxAbs }, spare16: null };
   const still = await decodeStill(await bytes(), width);
   const { sourceWidth, sourceHeight, bits } = still;
   if (k) {
@@ -822,8 +839,9 @@ async function decodeCached(bytes: () => Promise<Uint8Array>, width: number | un
     // need no quantising (a third of a 1024-px render's encode).
     const codes8 = new Uint8Array(data.length);
     quantise(data, codes8, quantiser(8, space === "linear"));
-    cache!.set(k, { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, space, data, codes8 });
-    return { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, source: { kind: "float", data, codes8 }, spare16: null };
+    const maxAbs = maxAbsOf(data);
+    cache!.set(k, { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, space, data, codes8, maxAbs });
+    return { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, source: { kind: "float", data, codes8, maxAbs }, spare16: null };
   }
   return {
     width: still.width, height: still.height, bits, sourceWidth, sourceHeight,
