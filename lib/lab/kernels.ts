@@ -407,11 +407,35 @@ export function blurPlaneApprox(plane: Plane, width: number, height: number, sig
     if (k.length > 1) firBlur(plane, width, height, k, tmp);
     return;
   }
-  // Reduce by f so the small blur stays within the FIR range; the box (variance (f²−1)/12)
-  // and the bilinear enlargement (about (f²−1)/6) are taken out of the small blur's sigma.
-  const f = Math.max(2, Math.ceil(sigma / 3));
-  const sw = Math.ceil(width / f), sh = Math.ceil(height / f);
+  const red = approxReduction(sigma)!;
+  const { sw, sh } = reducedSize(width, height, red.f);
   const small = like(plane, sw * sh);
+  boxReduce(plane, width, height, red.f, small);
+  blurPlaneApprox(small, sw, sh, red.smallSigma, like(plane, sw * sh));
+  const up = bilinearUp(width, height, red.f, sw, sh);
+  for (let y = 0; y < height; y++) {
+    const { r0, r1, wy } = up.row(y), o = y * width;
+    for (let x = 0; x < width; x++) plane[o + x] = up.at(small, r0, r1, wy, x);
+  }
+}
+
+/**
+ * The proxy blur's reduced path, for a sigma beyond the FIR range (else null): reduce by f so the
+ * small blur stays within the FIR range; the box (variance (f²−1)/12) and the bilinear enlargement
+ * (about (f²−1)/6) are taken out of the small blur's sigma.
+ */
+export function approxReduction(sigma: number): { f: number; smallSigma: number } | null {
+  if (gaussianHalfKernel(sigma).length - 1 <= FIR_MAX_RADIUS) return null;
+  const f = Math.max(2, Math.ceil(sigma / 3));
+  const residual = sigma * sigma - (f * f - 1) / 12 - (f * f - 1) / 6;
+  return { f, smallSigma: Math.max(0.5, Math.sqrt(Math.max(residual, 0)) / f) };
+}
+
+export const reducedSize = (width: number, height: number, f: number) => ({ sw: Math.ceil(width / f), sh: Math.ceil(height / f) });
+
+/** Mean of each f × f block (the last row and column of blocks may be smaller). */
+export function boxReduce(plane: Plane, width: number, height: number, f: number, small: Plane): void {
+  const { sw, sh } = reducedSize(width, height, f);
   for (let sy = 0; sy < sh; sy++) {
     const y0 = sy * f, y1 = Math.min(height, y0 + f);
     for (let sx = 0; sx < sw; sx++) {
@@ -421,10 +445,10 @@ export function blurPlaneApprox(plane: Plane, width: number, height: number, sig
       small[sy * sw + sx] = s / ((y1 - y0) * (x1 - x0));
     }
   }
-  const residual = sigma * sigma - (f * f - 1) / 12 - (f * f - 1) / 6;
-  const ss = Math.max(0.5, Math.sqrt(Math.max(residual, 0)) / f);
-  blurPlaneApprox(small, sw, sh, ss, like(plane, sw * sh));
-  // Bilinear back to full size; small pixel i is centred at full coordinate (i + 0.5)·f − 0.5.
+}
+
+/** Bilinear enlargement of a reduced plane: small pixel i is centred at full coordinate (i + 0.5)·f − 0.5. */
+export function bilinearUp(width: number, height: number, f: number, sw: number, sh: number) {
   const xi0 = new Int32Array(width), xi1 = new Int32Array(width), xw = new Float64Array(width);
   for (let x = 0; x < width; x++) {
     let u = (x + 0.5) / f - 0.5;
@@ -432,16 +456,18 @@ export function blurPlaneApprox(plane: Plane, width: number, height: number, sig
     const i = Math.floor(u);
     xi0[x] = i; xi1[x] = Math.min(sw - 1, i + 1); xw[x] = u - i;
   }
-  for (let y = 0; y < height; y++) {
-    let v = (y + 0.5) / f - 0.5;
-    v = v < 0 ? 0 : v > sh - 1 ? sh - 1 : v;
-    const j = Math.floor(v), j1 = Math.min(sh - 1, j + 1), wy = v - j;
-    const r0 = j * sw, r1 = j1 * sw, o = y * width;
-    for (let x = 0; x < width; x++) {
+  return {
+    row(y: number): { r0: number; r1: number; wy: number } {
+      let v = (y + 0.5) / f - 0.5;
+      v = v < 0 ? 0 : v > sh - 1 ? sh - 1 : v;
+      const j = Math.floor(v);
+      return { r0: j * sw, r1: Math.min(sh - 1, j + 1) * sw, wy: v - j };
+    },
+    at(small: Plane, r0: number, r1: number, wy: number, x: number): number {
       const a = small[r0 + xi0[x]!]!, b = small[r0 + xi1[x]!]!, c = small[r1 + xi0[x]!]!, d = small[r1 + xi1[x]!]!;
       const wx = xw[x]!;
       const top = a + (b - a) * wx, bot = c + (d - c) * wx;
-      plane[o + x] = top + (bot - top) * wy;
-    }
-  }
+      return top + (bot - top) * wy;
+    },
+  };
 }

@@ -353,3 +353,39 @@ describe("flatten's fill where too little screen is within reach", () => {
     expect(worst).toBeLessThan(2e-6);
   });
 });
+
+describe("flatten on a proxy (the approximate blur's reduced path)", () => {
+  it("the fused pass equals blurring w and value·w plane by plane with the same approximation", async () => {
+    const { blurPlaneApprox } = await import("@/lib/lab/kernels");
+    const { FLATTEN_MIN_SCREEN } = await import("@/lib/lab/engine");
+    const w = 97, h = 61, r = rand(52), sigma = 40, target = [0.1, 0.45, 0.15] as const;
+    const plate = Float32Array.from({ length: w * h * 3 }, (_, i) => 0.05 + r() * (i % 3 === 1 ? 0.6 : 0.2));
+    const matte = Float64Array.from({ length: w * h }, (_, p) => ((p % w) - 40) ** 2 + (Math.floor(p / w) - 30) ** 2 < 400 ? 1 : r() * 0.1);
+    const state = createLabState({ width: w, height: h, plate: floatSource(plate), scale: 2 });
+    expect(state.exact).toBe(false);
+    state.matte = new Float64Array(matte);
+    const rep = applyStep(state, step({ op: "flatten", sigma: sigma * 2, color: [...target], weight: "outside" }), 0);
+    if (rep.op !== "flatten") throw new Error("wrong report");
+    // Plane by plane: D = G̃(w), N_c = G̃(value_c·w), the same fill rule.
+    const wt = Float64Array.from(matte, (m) => 1 - Math.min(1, Math.max(0, m)));
+    const D = new Float64Array(wt);
+    blurPlaneApprox(D, w, h, sigma, new Float64Array(w * h));
+    let sumW = 0;
+    const sums = [0, 0, 0];
+    for (let p = 0; p < w * h; p++) { sumW += wt[p]!; for (let c = 0; c < 3; c++) sums[c] += wt[p]! * plate[p * 3 + c]!; }
+    let worst = 0, thin = 0;
+    for (let p = 0; p < w * h; p++) if (D[p]! < FLATTEN_MIN_SCREEN) thin++;
+    for (let c = 0; c < 3; c++) {
+      const N = Float64Array.from({ length: w * h }, (_, p) => plate[p * 3 + c]! * wt[p]!);
+      blurPlaneApprox(N, w, h, sigma, new Float64Array(w * h));
+      for (let p = 0; p < w * h; p++) {
+        const d = D[p]!, tau = FLATTEN_MIN_SCREEN;
+        const est = d >= tau ? N[p]! / d : (N[p]! + (tau - d) * (sums[c]! / sumW)) / tau;
+        const want = (plate[p * 3 + c]! / est) * target[c];
+        worst = Math.max(worst, Math.abs(state.cur[p * 3 + c]! - want) / Math.max(1, Math.abs(want)));
+      }
+    }
+    expect(worst).toBeLessThan(1e-6);
+    expect(rep.thin).toBe(thin);
+  });
+});
