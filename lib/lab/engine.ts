@@ -587,6 +587,8 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
   const matte = state.matte;
   // 0: every pixel is screen; 1: the matte is the screen weight; 2: 1 − matte is.
   const mode = !matte || step.weight === "all" ? 0 : step.weight === "inside" ? 1 : 2;
+  const reduced = state.exact ? null : approxReduction(step.sigma);
+  if (reduced) return flattenReduced(state, step, index, mode, reduced);
   const den = takePlane64(n);
   // w into den first (loops per mode, no call per pixel): the frame's weighted mean, then its blur.
   if (mode === 0) den.fill(1);
@@ -602,11 +604,6 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
   }
   const mean: [number, number, number] = sumW > 0 ? [s0 / sumW, s1 / sumW, s2 / sumW] : [0, 0, 0];
   const tau = FLATTEN_MIN_SCREEN;
-  const reduced = state.exact ? null : approxReduction(step.sigma);
-  if (reduced) {
-    poolPlanes([den]);
-    return flattenReduced(state, step, index, mode, mean, reduced);
-  }
   const left = new Uint8Array(n);
   let thin = 0;
   // Largest |value| written: the division can leave the float range (checked after the step).
@@ -647,7 +644,10 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
             if (est > 0) {
               const v = (cur[i] = (cur[i]! / est) * target);
               const a = v < 0 ? -v : v;
-              if (!(a <= most)) most = a; // also catches NaN
+              if (!(a <= most)) {
+                if (!(a <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten"); // infinite or not a number
+                most = a;
+              }
             } else left[p] = 1;
           }
         },
@@ -670,13 +670,14 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
  * straight into the division, instead of sixteen full-size passes.
  */
 function flattenReduced(state: LabState, step: Extract<RecipeStep, { op: "flatten" }>, index: number, mode: number,
-  mean: [number, number, number], red: { f: number; smallSigma: number }): StepReport {
+  red: { f: number; smallSigma: number }): StepReport {
   const { cur, width, height } = state;
   const matte = state.matte;
   const { f } = red;
   const { sw, sh } = reducedSize(width, height, f);
   const m = sw * sh;
   const sW = new Float64Array(m), s0 = new Float64Array(m), s1 = new Float64Array(m), s2 = new Float64Array(m);
+  const blockOf = Int32Array.from({ length: width }, (_, x) => Math.floor(x / f));
   for (let y = 0; y < height; y++) {
     const row = Math.floor(y / f) * sw;
     for (let x = 0, p = y * width, i = 3 * p; x < width; x++, p++, i += 3) {
@@ -685,35 +686,54 @@ function flattenReduced(state: LabState, step: Extract<RecipeStep, { op: "flatte
         const v = matte![p]!, mm = v < 0 ? 0 : v > 1 ? 1 : v;
         w = mode === 1 ? mm : 1 - mm;
       }
-      const b = row + Math.floor(x / f);
+      const b = row + blockOf[x]!;
       sW[b] = sW[b]! + w; s0[b] = s0[b]! + w * cur[i]!; s1[b] = s1[b]! + w * cur[i + 1]!; s2[b] = s2[b]! + w * cur[i + 2]!;
     }
   }
+  // The frame's weighted mean screen colour from the block sums, before they become means.
+  let sumW = 0, m0 = 0, m1 = 0, m2 = 0;
+  for (let b = 0; b < m; b++) { sumW += sW[b]!; m0 += s0[b]!; m1 += s1[b]!; m2 += s2[b]!; }
+  const mean: [number, number, number] = sumW > 0 ? [m0 / sumW, m1 / sumW, m2 / sumW] : [0, 0, 0];
   for (let sy = 0; sy < sh; sy++) for (let sx = 0; sx < sw; sx++) {
     const area = (Math.min(height, sy * f + f) - sy * f) * (Math.min(width, sx * f + f) - sx * f), b = sy * sw + sx;
     sW[b] = sW[b]! / area; s0[b] = s0[b]! / area; s1[b] = s1[b]! / area; s2[b] = s2[b]! / area;
   }
   const tmp = new Float64Array(m);
   for (const small of [sW, s0, s1, s2]) blurPlaneApprox(small, sw, sh, red.smallSigma, tmp);
-  const up = bilinearUp(width, height, f, sw, sh);
-  const tau = FLATTEN_MIN_SCREEN, nums = [s0, s1, s2], target = step.color;
+  // Enlarge bilinearly: each small row pair once per output row, then across the row.
+  const { xi0, xi1, xw, row } = bilinearUp(width, height, f, sw, sh);
+  const rW = new Float64Array(sw), r0 = new Float64Array(sw), r1 = new Float64Array(sw), r2 = new Float64Array(sw);
+  const tau = FLATTEN_MIN_SCREEN, t0 = step.color[0], t1 = step.color[1], t2 = step.color[2];
+  const g0 = mean[0], g1 = mean[1], g2 = mean[2];
   let thin = 0, leftAsIs = 0, most = state.bound.cur;
   for (let y = 0; y < height; y++) {
-    const { r0, r1, wy } = up.row(y);
+    const { r0: a, r1: b, wy } = row(y);
+    for (let sx = 0; sx < sw; sx++) {
+      rW[sx] = sW[a + sx]! + (sW[b + sx]! - sW[a + sx]!) * wy;
+      r0[sx] = s0[a + sx]! + (s0[b + sx]! - s0[a + sx]!) * wy;
+      r1[sx] = s1[a + sx]! + (s1[b + sx]! - s1[a + sx]!) * wy;
+      r2[sx] = s2[a + sx]! + (s2[b + sx]! - s2[a + sx]!) * wy;
+    }
     for (let x = 0, i = 3 * y * width; x < width; x++, i += 3) {
-      const d = up.at(sW, r0, r1, wy, x);
-      if (d < tau) thin++;
-      let left = false;
-      for (let c = 0; c < 3; c++) {
-        const num = up.at(nums[c]!, r0, r1, wy, x);
-        const est = d >= tau ? num / d : (num + (tau - d) * mean[c]!) / tau;
-        if (est > 0) {
-          const v = (cur[i + c] = (cur[i + c]! / est) * target[c]!);
-          const a = v < 0 ? -v : v;
-          if (!(a <= most)) most = a;
-        } else left = true;
+      const j0 = xi0[x]!, j1 = xi1[x]!, wx = xw[x]!;
+      const d = rW[j0]! + (rW[j1]! - rW[j0]!) * wx;
+      // value / (N / D) · target as value · target · D / N: one division per channel. Below τ the
+      // estimate is (N + (τ − D)·mean) / τ, so D becomes τ and N gains the mean's share.
+      const full = d >= tau;
+      if (!full) thin++;
+      const scale = full ? d : tau, fill = full ? 0 : tau - d;
+      const n0 = r0[j0]! + (r0[j1]! - r0[j0]!) * wx + fill * g0;
+      const n1 = r1[j0]! + (r1[j1]! - r1[j0]!) * wx + fill * g1;
+      const n2 = r2[j0]! + (r2[j1]! - r2[j0]!) * wx + fill * g2;
+      if (n0 > 0) cur[i] = (cur[i]! * t0 * scale) / n0;
+      if (n1 > 0) cur[i + 1] = (cur[i + 1]! * t1 * scale) / n1;
+      if (n2 > 0) cur[i + 2] = (cur[i + 2]! * t2 * scale) / n2;
+      if (!(n0 > 0 && n1 > 0 && n2 > 0)) leftAsIs++;
+      const a0 = Math.abs(cur[i]!), a1 = Math.abs(cur[i + 1]!), a2 = Math.abs(cur[i + 2]!);
+      if (!(a0 <= most && a1 <= most && a2 <= most)) {
+        most = Math.max(a0, a1, a2);
+        if (!(most <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten");
       }
-      if (left) leftAsIs++;
     }
   }
   if (!(most <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten");

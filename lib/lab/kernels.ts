@@ -457,6 +457,7 @@ export function bilinearUp(width: number, height: number, f: number, sw: number,
     xi0[x] = i; xi1[x] = Math.min(sw - 1, i + 1); xw[x] = u - i;
   }
   return {
+    xi0, xi1, xw,
     row(y: number): { r0: number; r1: number; wy: number } {
       let v = (y + 0.5) / f - 0.5;
       v = v < 0 ? 0 : v > sh - 1 ? sh - 1 : v;

@@ -371,8 +371,8 @@ describe("flatten on a proxy (the approximate blur's reduced path)", () => {
     const D = new Float64Array(wt);
     blurPlaneApprox(D, w, h, sigma, new Float64Array(w * h));
     let sumW = 0;
-    const sums = [0, 0, 0];
-    for (let p = 0; p < w * h; p++) { sumW += wt[p]!; for (let c = 0; c < 3; c++) sums[c] += wt[p]! * plate[p * 3 + c]!; }
+    const sums: number[] = [0, 0, 0];
+    for (let p = 0; p < w * h; p++) { sumW += wt[p]!; for (let c = 0; c < 3; c++) sums[c] = sums[c]! + wt[p]! * plate[p * 3 + c]!; }
     let worst = 0, thin = 0;
     for (let p = 0; p < w * h; p++) if (D[p]! < FLATTEN_MIN_SCREEN) thin++;
     for (let c = 0; c < 3; c++) {
@@ -381,7 +381,7 @@ describe("flatten on a proxy (the approximate blur's reduced path)", () => {
       for (let p = 0; p < w * h; p++) {
         const d = D[p]!, tau = FLATTEN_MIN_SCREEN;
         const est = d >= tau ? N[p]! / d : (N[p]! + (tau - d) * (sums[c]! / sumW)) / tau;
-        const want = (plate[p * 3 + c]! / est) * target[c];
+        const want = (plate[p * 3 + c]! / est) * target[c]!;
         worst = Math.max(worst, Math.abs(state.cur[p * 3 + c]! - want) / Math.max(1, Math.abs(want)));
       }
     }
