@@ -639,10 +639,12 @@ function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" 
         (a) => weighted(a, c),
         (num) => {
           for (let p = 0, i = c; p < n; p++, i += 3) {
-            const d = den[p]!;
-            const est = d >= tau ? num[p]! / d : (num[p]! + (tau - d) * g) / tau;
-            if (est > 0) {
-              const v = (cur[i] = (cur[i]! / est) * target);
+            // value / estimate · target with estimate = N / D, or (N + (τ − D)·mean) / τ below τ:
+            // as value · target · D' / N', one division.
+            const d = den[p]!, full = d >= tau;
+            const nn = full ? num[p]! : num[p]! + (tau - d) * g;
+            if (nn > 0) {
+              const v = (cur[i] = (cur[i]! * target * (full ? d : tau)) / nn);
               const a = v < 0 ? -v : v;
               if (!(a <= most)) {
                 if (!(a <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten"); // infinite or not a number
