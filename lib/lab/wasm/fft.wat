@@ -224,6 +224,93 @@
       (local.set $q (i32.shl (local.get $q) (i32.const 2)))
       (br $ql))))
 
+  ;; The circular convolution of one complex line in place: forward transform, times the kernel's
+  ;; spectrum (conjugated, for the inverse by the same forward transform), forward transform again.
+  ;; The line comes out conjugated: the caller takes (Re, −Im).
+  (func $filter (param $work i32) (param $m i32) (param $spec i32) (param $tw i32)
+    (local $q i32) (local $e i32) (local $sp i32)
+    (call $dif (local.get $work) (local.get $m) (local.get $tw))
+    ;; conj(X) · spec, both in bit-reversed order
+    (local.set $q (local.get $work))
+    (local.set $sp (local.get $spec))
+    (local.set $e (i32.add (local.get $work) (i32.shl (local.get $m) (i32.const 4))))
+    (block $d (loop $l
+      (br_if $d (i32.ge_u (local.get $q) (local.get $e)))
+      (v128.store (local.get $q)
+        (f64x2.mul (v128.load (local.get $q))
+          (v128.xor (f64x2.splat (f64.load (local.get $sp))) (v128.const i64x2 0 0x8000000000000000))))
+      (local.set $q (i32.add (local.get $q) (i32.const 16)))
+      (local.set $sp (i32.add (local.get $sp) (i32.const 8)))
+      (br $l)))
+    (call $dit (local.get $work) (local.get $m) (local.get $tw)))
+
+  ;; convColumns8(src, dst, w, h, x0, x1, r, m, spec, tw, work): the columns [x0, x1) of a w-wide,
+  ;; h-tall f64 plane convolved, src -> dst (distinct), eight columns at a time (x1 − x0 a multiple
+  ;; of 8): one 64-byte line of each row feeds four complex lines (neighbour pairs) held in four work
+  ;; buffers of M complex each (work, work + 16M, ...), so each row's cache line and memory page
+  ;; are visited once per eight columns instead of once per two. Segments as in convLines.
+  (func (export "convColumns8") (param $src i32) (param $dst i32) (param $w i32) (param $h i32)
+    (param $x0 i32) (param $x1 i32) (param $r i32) (param $m i32) (param $spec i32) (param $tw i32) (param $work i32)
+    (local $x i32) (local $rb i32) (local $wb i32) (local $y0 i32) (local $len i32) (local $cnt i32) (local $i i32)
+    (local $row i32) (local $a i32) (local $q i32) (local $k i32)
+    (local.set $rb (i32.shl (local.get $w) (i32.const 3)))
+    (local.set $wb (i32.shl (local.get $m) (i32.const 4)))
+    (local.set $x (local.get $x0))
+    (block $xd (loop $xl
+      (br_if $xd (i32.ge_u (local.get $x) (local.get $x1)))
+      (local.set $y0 (i32.const 0))
+      (block $sd (loop $sl
+        (br_if $sd (i32.ge_u (local.get $y0) (local.get $h)))
+        (local.set $len (i32.sub (i32.sub (local.get $m) (local.get $r)) (local.get $r)))
+        (if (i32.gt_u (i32.add (local.get $y0) (local.get $len)) (local.get $h))
+          (then (local.set $len (i32.sub (local.get $h) (local.get $y0)))))
+        (local.set $cnt (i32.add (local.get $len) (i32.shl (local.get $r) (i32.const 1))))
+        ;; padded index i reads row clamp(y0 + i − r): four 16-byte pairs from one 64-byte line
+        (local.set $i (i32.const 0))
+        (block $pd (loop $pl
+          (br_if $pd (i32.ge_u (local.get $i) (local.get $cnt)))
+          (local.set $row (i32.sub (i32.add (local.get $y0) (local.get $i)) (local.get $r)))
+          (if (i32.lt_s (local.get $row) (i32.const 0)) (then (local.set $row (i32.const 0))))
+          (if (i32.ge_s (local.get $row) (local.get $h)) (then (local.set $row (i32.sub (local.get $h) (i32.const 1)))))
+          (local.set $a (i32.add (local.get $src)
+            (i32.add (i32.mul (local.get $row) (local.get $rb)) (i32.shl (local.get $x) (i32.const 3)))))
+          (local.set $q (i32.add (local.get $work) (i32.shl (local.get $i) (i32.const 4))))
+          (v128.store (local.get $q) (v128.load (local.get $a)))
+          (v128.store (i32.add (local.get $q) (local.get $wb)) (v128.load offset=16 (local.get $a)))
+          (v128.store (i32.add (local.get $q) (i32.shl (local.get $wb) (i32.const 1))) (v128.load offset=32 (local.get $a)))
+          (v128.store (i32.add (local.get $q) (i32.mul (local.get $wb) (i32.const 3))) (v128.load offset=48 (local.get $a)))
+          (local.set $i (i32.add (local.get $i) (i32.const 1)))
+          (br $pl)))
+        (local.set $k (i32.const 0))
+        (block $kd (loop $kl
+          (br_if $kd (i32.ge_u (local.get $k) (i32.const 4)))
+          (local.set $q (i32.add (local.get $work) (i32.mul (local.get $k) (local.get $wb))))
+          (memory.fill (i32.add (local.get $q) (i32.shl (local.get $cnt) (i32.const 4))) (i32.const 0)
+            (i32.shl (i32.sub (local.get $m) (local.get $cnt)) (i32.const 4)))
+          (call $filter (local.get $q) (local.get $m) (local.get $spec) (local.get $tw))
+          (local.set $k (i32.add (local.get $k) (i32.const 1)))
+          (br $kl)))
+        ;; outputs y0 .. y0 + len: (Re, −Im) of padded index r + i, one 64-byte line per row
+        (local.set $i (i32.const 0))
+        (block $od (loop $ol
+          (br_if $od (i32.ge_u (local.get $i) (local.get $len)))
+          (local.set $a (i32.add (local.get $dst)
+            (i32.add (i32.mul (i32.add (local.get $y0) (local.get $i)) (local.get $rb)) (i32.shl (local.get $x) (i32.const 3)))))
+          (local.set $q (i32.add (local.get $work) (i32.shl (i32.add (local.get $r) (local.get $i)) (i32.const 4))))
+          (v128.store (local.get $a) (v128.xor (v128.load (local.get $q)) (v128.const i64x2 0 0x8000000000000000)))
+          (v128.store offset=16 (local.get $a)
+            (v128.xor (v128.load (i32.add (local.get $q) (local.get $wb))) (v128.const i64x2 0 0x8000000000000000)))
+          (v128.store offset=32 (local.get $a)
+            (v128.xor (v128.load (i32.add (local.get $q) (i32.shl (local.get $wb) (i32.const 1)))) (v128.const i64x2 0 0x8000000000000000)))
+          (v128.store offset=48 (local.get $a)
+            (v128.xor (v128.load (i32.add (local.get $q) (i32.mul (local.get $wb) (i32.const 3)))) (v128.const i64x2 0 0x8000000000000000)))
+          (local.set $i (i32.add (local.get $i) (i32.const 1)))
+          (br $ol)))
+        (local.set $y0 (i32.add (local.get $y0) (local.get $len)))
+        (br $sl)))
+      (local.set $x (i32.add (local.get $x) (i32.const 8)))
+      (br $xl))))
+
   ;; convLines(src, dst, n, lines, lineStride, elemStride, r, m, spec, tw, work): lines of n f64 values
   ;; (n >= 1) convolved, src -> dst (distinct planes). Line l starts at src + l·lineStride, its values
   ;; elemStride bytes apart: rows of a w-wide plane are (w·8, 8), its columns (8, w·8). Lines go in
@@ -297,20 +384,7 @@
           (br $l6)))
         (memory.fill (local.get $q) (i32.const 0)
           (i32.sub (i32.add (local.get $work) (i32.shl (local.get $m) (i32.const 4))) (local.get $q)))
-        (call $dif (local.get $work) (local.get $m) (local.get $tw))
-        ;; conj(X) · spec, both in bit-reversed order
-        (local.set $q (local.get $work))
-        (local.set $sp (local.get $spec))
-        (local.set $e (i32.add (local.get $work) (i32.shl (local.get $m) (i32.const 4))))
-        (block $d (loop $l2
-          (br_if $d (i32.ge_u (local.get $q) (local.get $e)))
-          (v128.store (local.get $q)
-            (f64x2.mul (v128.load (local.get $q))
-              (v128.xor (f64x2.splat (f64.load (local.get $sp))) (v128.const i64x2 0 0x8000000000000000))))
-          (local.set $q (i32.add (local.get $q) (i32.const 16)))
-          (local.set $sp (i32.add (local.get $sp) (i32.const 8)))
-          (br $l2)))
-        (call $dit (local.get $work) (local.get $m) (local.get $tw))
+        (call $filter (local.get $work) (local.get $m) (local.get $spec) (local.get $tw))
         ;; line a = Re, line b = −Im, at padded indices r .. r + len
         (local.set $q (i32.add (local.get $work) (i32.shl (local.get $r) (i32.const 4))))
         (local.set $i (i32.const 0))
