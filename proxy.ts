@@ -1,4 +1,5 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { crossOriginWriteReason } from "@/lib/api/origin";
 import { cachedPage, isCacheablePageRequest, pageResponse } from "@/lib/page-cache/rendered-pages";
 
 const SESSION_COOKIES = ["authjs.session-token", "__Secure-authjs.session-token"];
@@ -9,7 +10,7 @@ const PUBLIC_PATHS = ["/login", "/set-password", "/forgot-password", "/unsubscri
  * scripts, and 'strict-dynamic' lets those load the rest. No 'unsafe-eval' outside development
  * (React's dev tooling needs it there).
  */
-export function contentSecurityPolicy(nonce: string, isDev = process.env.NODE_ENV === "development"): string {
+function contentSecurityPolicy(nonce: string, isDev = process.env.NODE_ENV === "development"): string {
   return [
     "default-src 'self'",
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${isDev ? " 'unsafe-eval'" : ""}`,
@@ -30,11 +31,15 @@ export function contentSecurityPolicy(nonce: string, isDev = process.env.NODE_EN
  * Sets the CSP and redirects signed-out visitors of app pages to sign-in. The redirect is a
  * convenience, not the gate: every page, action and route handler checks the session itself.
  * Technique pages loaded as documents are answered from lib/page-cache when a current copy exists.
+ * A server action posted with the session cookie from another origin is refused here by the same
+ * rule the API uses (lib/api/origin.ts), which compares scheme, host and port, not just the host.
  */
 export async function proxy(req: NextRequest): Promise<Response> {
   const { pathname, search } = req.nextUrl;
   const isPublic = PUBLIC_PATHS.some((p) => pathname === p || pathname.startsWith(`${p}/`));
   const hasSession = SESSION_COOKIES.some((name) => req.cookies.has(name));
+  const refusal = hasSession ? crossOriginWriteReason(req.method, req.headers) : null;
+  if (refusal) return new Response(refusal, { status: 403, headers: { "Content-Type": "text/plain; charset=utf-8", "X-Content-Type-Options": "nosniff" } });
   if (!isPublic && !hasSession) {
     const url = req.nextUrl.clone();
     url.pathname = "/login";

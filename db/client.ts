@@ -11,7 +11,7 @@ import * as schema from "@/db/schema";
 
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
 
-export type Driver = "pglite" | "postgres";
+type Driver = "pglite" | "postgres";
 type Holder = { db?: Database; driver?: Driver; pglite?: PGlite; close?: () => Promise<void> };
 const globalHolder = globalThis as unknown as { __plateroomDb?: Holder };
 const holder: Holder = (globalHolder.__plateroomDb ??= {});

@@ -7,7 +7,7 @@ import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import { currentDriver, getDb, type Database } from "@/db/client";
 
 /** Resolved from the working directory: inside a Next.js bundle import.meta.url points into .next/. */
-export const MIGRATIONS_FOLDER = path.resolve(process.cwd(), "db/migrations");
+const MIGRATIONS_FOLDER = path.resolve(process.cwd(), "db/migrations");
 
 /** Applies the committed drizzle-kit migrations; safe to run on every start. */
 export async function runMigrations(db: Database = getDb(), folder = MIGRATIONS_FOLDER): Promise<void> {

@@ -24,7 +24,7 @@ const envSchema = z.object({
   PLATEROOM_MAIL_SENDER: z.enum(["on", "off"]).default("on"),
 });
 
-export type Env = z.infer<typeof envSchema>;
+type Env = z.infer<typeof envSchema>;
 
 function readEnv(): Env {
   if (process.env.SKIP_ENV_VALIDATION) return envSchema.parse({});
@@ -38,8 +38,15 @@ function readEnv(): Env {
 
 export const env: Env = readEnv();
 
+/** The public address people use; links in mail start with it, and writes must come from its origin. */
 export function baseUrl(): string {
-  return env.PLATEROOM_BASE_URL ?? `http://localhost:${env.PORT}`;
+  // Read at call time without a configured address: `next start -p N` sets PORT only once it listens.
+  return (env.PLATEROOM_BASE_URL ?? `http://localhost:${process.env.PORT ?? env.PORT}`).replace(/\/+$/, "");
+}
+
+/** The app's own origin (RFC 6454 §4: scheme, host and port), from PLATEROOM_BASE_URL. */
+export function appOrigin(): string {
+  return new URL(baseUrl()).origin;
 }
 
 /**

@@ -1,5 +1,5 @@
 /*
- * `npm run bench`: the still lab, search and load benchmarks in turn, each in its own process
+ * `npm run bench`: the still lab, search, load and oversized-body benchmarks in turn, each in its own process
  * (so one's heap, worker threads and server do not weigh on the next), then one summary from
  * bench/results.json. `npm run bench -- --quick` passes --quick to lab and search and runs the
  * load targets for 10 s with 20 connections; LOAD_DURATION / LOAD_CONNECTIONS override.
@@ -19,6 +19,7 @@ const steps: { name: string; script: string; args: string[]; env?: Record<string
   { name: "lab", script: "bench/lab.ts", args: quick ? ["--quick"] : [] },
   { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
   { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
+  { name: "bodies", script: "bench/bodies.ts", args: [] },
 ];
 
 // A child inherits the -C react-server of `npm run bench`'s tsx only through NODE_OPTIONS, which
@@ -73,6 +74,12 @@ if (load) {
         : { target: name, "req/s": t.requestsPerSec, "p50 ms": t.p50, "p95 ms": t.p95, "p99 ms": t.p99, errors: Number(t.errors) + Number(t.timeouts), non2xx: t.non2xx, "p95 target": t.targetP95Ms ? (t.metTarget ? "met" : "not met") : "" },
     ),
   );
+}
+
+const bodies = results.bodies;
+if (bodies) {
+  console.log("Oversized bodies (server memory, MB)");
+  console.table(["streamed", "declared"].map((k) => ({ round: k, ...(get(bodies, k) as Json) })));
 }
 
 process.exitCode = outcomes.every((o) => o.status === 0) ? 0 : 1;

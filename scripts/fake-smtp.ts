@@ -1,12 +1,13 @@
 /**
- * A local SMTP server that keeps what it receives (see lib/mail/fake-smtp.ts).
+ * A local SMTP server that keeps what it receives (see scripts/fake-smtp/server.ts).
  *   tsx --conditions=react-server scripts/fake-smtp.ts [--port N] [--dir PATH]
  * The port defaults to the one in SMTP_URL (2525), the folder to PLATEROOM_DATA_DIR/mail-inbox,
  * which is where the admin mail view reads.
  */
 import { parseArgs } from "node:util";
 import { env } from "@/lib/env";
-import { inboxDir, startFakeSmtp } from "@/lib/mail/fake-smtp";
+import { inboxDir } from "@/lib/mail/inbox";
+import { startFakeSmtp } from "@/scripts/fake-smtp/server";
 
 function defaultPort(): number {
   try {

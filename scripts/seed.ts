@@ -1,6 +1,6 @@
 import { closeDb } from "@/db/client";
 import { runMigrations } from "@/db/migrate";
-import { seedDemo } from "@/db/seed";
+import { seedDemo } from "@/scripts/seed/demo";
 
 try {
   await runMigrations();

@@ -6,8 +6,7 @@
  */
 import { closeDb } from "@/db/client";
 import { env } from "@/lib/env";
-import { SWEEP_GRACE_MS } from "@/lib/stills/storage";
-import { sweepUploads } from "@/lib/stills/sweep";
+import { SWEEP_GRACE_MS, sweepUploads } from "@/lib/stills/sweep";
 
 async function main(): Promise<void> {
   const graceArg = process.argv.find((a) => a.startsWith("--grace-minutes="));

@@ -6,7 +6,7 @@ import { Card, CardTitle } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
-import { listRequests } from "@/lib/requests";
+import { listRequests } from "@/lib/requests/queries";
 import { listSubscriptions } from "@/lib/subscriptions/queries";
 import { listMyDrafts, listReviewQueue, listTechniques } from "@/lib/techniques/queries";
 

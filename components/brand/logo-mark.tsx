@@ -1,5 +1,5 @@
 /** Plateroom's mark: a plate frame, half wiped clean, with one tracking marker left to remove. */
-export function LogoMark({ size = 28 }: { size?: number }) {
+function LogoMark({ size = 28 }: { size?: number }) {
   return (
     <svg width={size} height={size} viewBox="0 0 32 32" aria-hidden focusable="false">
       <rect x="3" y="6" width="26" height="20" rx="2" fill="var(--color-surface-2)" stroke="currentColor" strokeWidth="1.5" />

@@ -1,6 +1,6 @@
 import { formatDateTime } from "@/lib/utils";
 
-export type DraftBannerProps = {
+type DraftBannerProps = {
   savedAt: Date | null;
   onRestore(): void;
   onDiscard(): void;

@@ -15,7 +15,7 @@ import { techniqueDocumentSchema, type TechniqueDocument } from "@/lib/technique
 
 export type UploadImage = (file: File) => Promise<{ stillId: string; alt: string }>;
 
-export type TechniqueEditorProps = {
+type TechniqueEditorProps = {
   value: TechniqueDocument;
   onChange(doc: TechniqueDocument): void;
   /** Keeps an unsaved body in this browser and offers it back; leave unset when the whole form uses useDraftRecovery. */

@@ -36,7 +36,7 @@ const SafeCodeBlock = CodeBlock.extend({
   },
 });
 
-export type EditorExtensionOptions = { placeholder?: string };
+type EditorExtensionOptions = { placeholder?: string };
 
 /** Everything the technique editor can make, and nothing the document schema would refuse. */
 export function createEditorExtensions({ placeholder }: EditorExtensionOptions = {}): Extensions {

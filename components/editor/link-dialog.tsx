@@ -2,7 +2,7 @@ import { useEffect, useId, useRef, useState, type FormEvent } from "react";
 
 import { safeHref } from "@/lib/techniques/document";
 
-export type LinkDialogProps = {
+type LinkDialogProps = {
   open: boolean;
   /** The link under the cursor, if any. */
   currentHref: string | null;

@@ -3,7 +3,7 @@
  * and what aria-keyshortcuts expects (WAI-ARIA 1.2: "Control+Alt+W", "Meta+B").
  */
 
-export type ShortcutText = { label: string; aria: string };
+type ShortcutText = { label: string; aria: string };
 
 export function isApplePlatform(): boolean {
   if (typeof navigator === "undefined") return false;

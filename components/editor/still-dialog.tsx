@@ -4,7 +4,7 @@ import { DOCUMENT_LIMITS } from "@/lib/techniques/document";
 
 export type StillDialogValue = { alt: string; caption: string };
 
-export type StillDialogProps = {
+type StillDialogProps = {
   open: boolean;
   /** "insert" asks for a file; "edit" changes the text of the selected still. */
   mode: "insert" | "edit";

@@ -12,7 +12,7 @@ declare module "@tiptap/core" {
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const PREVIEW_PATH = /^\/api\/stills\/([0-9a-f-]{36})\/preview$/i;
 
-export function stillPreviewUrl(stillId: string): string {
+function stillPreviewUrl(stillId: string): string {
   return `/api/stills/${encodeURIComponent(stillId)}/preview`;
 }
 

@@ -3,7 +3,7 @@ import type { ReactNode } from "react";
 import { describeShortcut } from "@/components/editor/shortcuts";
 import { cn } from "@/lib/utils";
 
-export type ToolbarButtonProps = {
+type ToolbarButtonProps = {
   /** Accessible name, also the tooltip. */
   label: string;
   children: ReactNode;

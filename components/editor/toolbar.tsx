@@ -6,7 +6,7 @@ import { isApplePlatform } from "@/components/editor/shortcuts";
 import { ToolbarButton } from "@/components/editor/toolbar-button";
 import { CALLOUT_KINDS, CALLOUT_LABELS, HEADING_LEVELS } from "@/lib/techniques/document";
 
-export type EditorToolbarProps = {
+type EditorToolbarProps = {
   editor: Editor;
   /** id of the editable area, for aria-controls */
   controlsId: string;

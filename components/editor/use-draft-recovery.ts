@@ -27,7 +27,7 @@ export function draftStorageKey(draftKey: string): string {
 }
 
 /** Remove a stored draft, e.g. after a save that did not go through the hook's clear(). */
-export function clearStoredDraft(draftKey: string): void {
+function clearStoredDraft(draftKey: string): void {
   try {
     window.localStorage.removeItem(draftStorageKey(draftKey));
   } catch {
@@ -57,7 +57,7 @@ export type DraftRecovery<T> = {
   clear(): void;
 };
 
-export type DraftRecoveryOptions<T> = {
+type DraftRecoveryOptions<T> = {
   /** localStorage key suffix, e.g. `technique:${slug}` or "technique:new"; undefined turns it off. */
   draftKey: string | undefined;
   /** The form as it is now. */

@@ -5,7 +5,7 @@ import { DeliveredPanel } from "@/components/mail/delivered-panel";
 import { OutboxPanel } from "@/components/mail/outbox-panel";
 import { cn } from "@/lib/utils";
 
-export type MailTab = "outbox" | "delivered";
+type MailTab = "outbox" | "delivered";
 const TABS: [MailTab, string][] = [
   ["outbox", "Outbox"],
   ["delivered", "Delivered"],

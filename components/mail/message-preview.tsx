@@ -8,7 +8,7 @@ import { cn } from "@/lib/utils";
 const PREVIEW_CSP = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; font-src data:";
 
 /** The HTML part with a Content-Security-Policy meta element placed first in its head. */
-export function previewDocument(html: string): string {
+function previewDocument(html: string): string {
   const meta = `<meta http-equiv="Content-Security-Policy" content="${PREVIEW_CSP}">`;
   const head = /<head(\s[^>]*)?>/i.exec(html);
   if (head) return html.slice(0, head.index + head[0].length) + meta + html.slice(head.index + head[0].length);

@@ -6,7 +6,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import type { TechniqueRequestResponse } from "@/lib/requests/types";
+import type { TechniqueRequestResponse } from "@/lib/requests/schemas";
 
 const STATUS = { open: "open", claimed: "being written", resolved: "answered" } as const;
 

@@ -8,7 +8,7 @@ import { ConfidentialNotice } from "@/components/stills/confidential-notice";
 import { Button } from "@/components/ui/button";
 import { Field, TextArea } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import type { UseOutcome } from "@/lib/shots/schemas";
+import type { UseOutcome } from "@/lib/uses/schemas";
 import { OutcomeRadios } from "@/components/shots/outcome-radios";
 
 type Outcome = UseOutcome;

@@ -1,4 +1,4 @@
-import type { OutcomeCounts } from "@/lib/shots/schemas";
+import type { OutcomeCounts } from "@/lib/uses/schemas";
 
 const ROWS = [
   { key: "clean", label: "Clean", bar: "bg-ok" },

@@ -1,4 +1,4 @@
-import { USE_OUTCOME_LABELS, USE_OUTCOMES, type UseOutcome } from "@/lib/shots/schemas";
+import { USE_OUTCOME_LABELS, USE_OUTCOMES, type UseOutcome } from "@/lib/uses/schemas";
 
 /** The three outcomes of a use log as one radio group. */
 export function OutcomeRadios({ name, value, onChange }: { name: string; value: UseOutcome; onChange(outcome: UseOutcome): void }) {

@@ -11,14 +11,14 @@ import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Field, TextArea } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import { USE_OUTCOME_LABELS, type ShotUseResponse, type UpdateUseInput, type UseOutcome, type UseResponse } from "@/lib/shots/schemas";
+import { USE_OUTCOME_LABELS, type ShotUseResponse, type UpdateUseInput, type UseOutcome, type UseResponse } from "@/lib/uses/schemas";
 import { formatDate } from "@/lib/utils";
 import { OutcomeRadios } from "@/components/shots/outcome-radios";
 
 const OUTCOME_TONE = { clean: "ok", "touch-up": "warn", failed: "bad" } as const;
 
 /** The changes an edit makes, and nothing else: an untouched field is not sent. */
-export function editBody(
+function editBody(
   use: Pick<ShotUseResponse, "outcome" | "note" | "beforeStill" | "afterStill">,
   edit: { outcome: UseOutcome; note: string; dropBefore: boolean; dropAfter: boolean },
 ): UpdateUseInput | null {

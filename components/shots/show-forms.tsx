@@ -6,20 +6,7 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, Select, TextInput } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import {
-  compileShotPattern,
-  createShowSchema,
-  DEFAULT_SHOT_PATTERN,
-  SHOW_KIND_LABELS,
-  SHOW_KINDS,
-  SHOW_STATE_LABELS,
-  SHOW_STATES,
-  updateShowSchema,
-  type ShowKind,
-  type ShowResponse,
-  type ShowState,
-  type UpdateShowInput,
-} from "@/lib/shots/schemas";
+import { compileShotPattern, createShowSchema, DEFAULT_SHOT_PATTERN, SHOW_KIND_LABELS, SHOW_KINDS, SHOW_STATE_LABELS, SHOW_STATES, updateShowSchema, type ShowKind, type ShowResponse, type ShowState, type UpdateShowInput } from "@/lib/shows/schemas";
 
 type Errors = Record<string, string>;
 

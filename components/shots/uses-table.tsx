@@ -6,7 +6,7 @@ import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Select, TextInput } from "@/components/ui/field";
-import type { UseResponse } from "@/lib/shots/schemas";
+import type { UseResponse } from "@/lib/uses/schemas";
 import { formatDate } from "@/lib/utils";
 
 const OUTCOME_LABEL = { clean: "clean", "touch-up": "needed touch-up", failed: "failed" } as const;

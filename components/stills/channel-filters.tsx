@@ -19,7 +19,7 @@ export function ChannelFilters({ idPrefix }: { idPrefix: string }) {
   );
 }
 
-export function channelFilterId(idPrefix: string, view: ChannelView): string {
+function channelFilterId(idPrefix: string, view: ChannelView): string {
   return `${idPrefix.replace(/[^a-zA-Z0-9_-]/g, "")}-channel-${view}`;
 }
 

@@ -7,9 +7,9 @@ import { ApiError, apiFetch } from "@/lib/api/fetcher";
 import { stillUrl, type StillPairResponse, type StillResponse } from "@/lib/stills/schemas";
 import { cn } from "@/lib/utils";
 
-export type PairCandidate = Pick<StillResponse, "id" | "alt" | "role" | "width" | "height">;
+type PairCandidate = Pick<StillResponse, "id" | "alt" | "role" | "width" | "height">;
 
-export type PairEditorProps = {
+type PairEditorProps = {
   /** Technique slug; both stills must belong to it. */
   technique: string;
   /** Stills of the technique to choose from (e.g. GET /api/stills?technique=… or fresh uploads). */

@@ -6,7 +6,7 @@ import { readPixel, type PixelReading } from "@/components/stills/pixel-source";
 import { channelLabels, formatFloat, pixelAt, pointOf, type ProbePoint } from "@/lib/stills/probe";
 import type { StillResponse } from "@/lib/stills/schemas";
 
-export type PixelProbeProps = {
+type PixelProbeProps = {
   before: StillResponse;
   after: StillResponse;
   /** Where the pointer is, relative to the image (0..1); null before the first move. */

@@ -5,7 +5,7 @@ import { valuesFromRgba } from "@/lib/stills/probe";
 export type PixelReading = { x: number; y: number; values: number[]; max: number };
 
 /** 8-bit PNG, JPEG and WebP originals decode in the browser exactly; 16-bit and TIFF are read on the server. */
-export function readsInBrowser(still: Pick<StillResponse, "bitDepth" | "format">): boolean {
+function readsInBrowser(still: Pick<StillResponse, "bitDepth" | "format">): boolean {
   return still.bitDepth === 8 && still.format !== "tiff";
 }
 

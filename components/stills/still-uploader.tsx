@@ -12,9 +12,9 @@ import { cn } from "@/lib/utils";
 // crypto.randomUUID needs a secure context; studio intranets often serve plain http.
 let nextKey = 0;
 
-export type UploadedStill = StillCreatedResponse & { alt: string; caption: string; role: StillRole; originalName: string };
+type UploadedStill = StillCreatedResponse & { alt: string; caption: string; role: StillRole; originalName: string };
 
-export type StillUploaderProps = {
+type StillUploaderProps = {
   /** Technique slug the stills belong to (or are tried against, for trials). */
   technique?: string;
   owner: StillOwner;

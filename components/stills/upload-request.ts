@@ -1,8 +1,8 @@
 import type { StillCreatedResponse, StillOwner, StillRole } from "@/lib/stills/schemas";
 
-export type UploadFields = { alt: string; caption?: string; credit?: string; technique?: string; role?: StillRole; owner: StillOwner };
+type UploadFields = { alt: string; caption?: string; credit?: string; technique?: string; role?: StillRole; owner: StillOwner };
 
-export type UploadOutcome =
+type UploadOutcome =
   | { ok: true; still: StillCreatedResponse }
   | { ok: false; cancelled: boolean; status: number; message: string; fields?: Record<string, string> };
 

@@ -10,7 +10,7 @@ import { Skeleton } from "@/components/ui/skeleton";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
 import { documentToPlainText } from "@/lib/techniques/plain-text";
 import { documentFromText } from "@/lib/techniques/document";
-import type { QuestionResponse } from "@/lib/questions/types";
+import type { QuestionResponse } from "@/lib/questions/schemas";
 import { formatDateTime } from "@/lib/utils";
 
 /** Questions and answers under a technique; plain text in, rendered as text (never markup). */

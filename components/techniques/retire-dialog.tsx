@@ -7,7 +7,7 @@ import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Select, TextArea } from "@/components/ui/field";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import { USE_OUTCOME_LABELS, type TechniqueUsesResponse, type UseOutcome } from "@/lib/shots/schemas";
+import { USE_OUTCOME_LABELS, type TechniqueUsesResponse, type UseOutcome } from "@/lib/uses/schemas";
 import type { TechniqueListResponse } from "@/lib/techniques/schemas";
 
 /** Retire, optionally naming the approved technique that replaces it; lists shots to follow up first. */

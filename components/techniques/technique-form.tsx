@@ -17,7 +17,7 @@ import type { TagRef } from "@/lib/techniques/schemas";
 import { uploadStillForEditor } from "@/components/techniques/upload-still";
 import { formatDateTime } from "@/lib/utils";
 
-export type TechniqueFormValue = TechniqueDraft & { recipe: RecipeStep[] };
+type TechniqueFormValue = TechniqueDraft & { recipe: RecipeStep[] };
 
 type Props = {
   mode: "create" | "edit";

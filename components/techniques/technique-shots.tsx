@@ -4,7 +4,7 @@ import { UsesTable } from "@/components/shots/uses-table";
 import { LogUseForm } from "@/components/shots/log-use-form";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { listTechniqueUses } from "@/lib/shots/queries";
+import { listTechniqueUses } from "@/lib/uses/queries";
 import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
 /** Where the technique was used and how it went: outcome counts, the shot table, and logging a use. */

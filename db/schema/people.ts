@@ -19,7 +19,6 @@ export const users = pgTable("users", {
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
 export type User = typeof users.$inferSelect;
-export type NewUser = typeof users.$inferInsert;
 
 export const apiTokens = pgTable("api_tokens", {
   id: uuid("id").primaryKey().defaultRandom(),
@@ -31,7 +30,6 @@ export const apiTokens = pgTable("api_tokens", {
   lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
   revokedAt: timestamp("revoked_at", { withTimezone: true }),
 });
-export type ApiToken = typeof apiTokens.$inferSelect;
 
 export const oneTimeTokenPurposeEnum = pgEnum("one_time_token_purpose", ["invite", "reset"]);
 
@@ -70,4 +68,3 @@ export const auditLog = pgTable(
   },
   (t) => [index("audit_log_at").on(t.at)],
 );
-export type AuditEntry = typeof auditLog.$inferSelect;

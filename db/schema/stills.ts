@@ -42,4 +42,3 @@ export const stillPairs = pgTable("still_pairs", {
   position: integer("position").notNull().default(0),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
-export type StillPair = typeof stillPairs.$inferSelect;

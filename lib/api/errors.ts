@@ -1,12 +1,13 @@
 import type { z } from "zod";
 
 /** Error codes of the API contract (shared/API.md) with their HTTP status. */
-export const ERROR_STATUS = {
+const ERROR_STATUS = {
   validation_failed: 400,
   bad_request: 400,
   unauthorized: 401,
   forbidden: 403,
   not_found: 404,
+  method_not_allowed: 405,
   conflict: 409,
   too_large: 413,
   unprocessable: 422,
@@ -24,6 +25,7 @@ const DEFAULT_MESSAGES: Record<ErrorCode, string> = {
   unauthorized: "Please sign in.",
   forbidden: "Your role does not allow this.",
   not_found: "Not found.",
+  method_not_allowed: "This method is not allowed here.",
   conflict: "This conflicts with a newer change.",
   too_large: "That is too large.",
   unprocessable: "The request is valid but cannot be carried out.",

@@ -2,7 +2,7 @@ import "server-only";
 import type { Database } from "@/db/client";
 import { auditLog } from "@/db/schema";
 
-export type AuditInput = {
+type AuditInput = {
   actorId: string | null;
   action: string;
   targetType: string;

@@ -5,7 +5,7 @@ import { auditLog, users } from "@/db/schema";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 
-export type AuditEntryResponse = {
+type AuditEntryResponse = {
   id: number;
   at: string;
   actor: { id: string; name: string } | null;

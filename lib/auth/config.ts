@@ -2,7 +2,7 @@ import type { NextAuthConfig } from "next-auth";
 import type { Role } from "@/lib/auth/roles";
 
 /** Session lifetime: a working day and a bit; after it people sign in again. */
-export const SESSION_MAX_AGE_SECONDS = 12 * 60 * 60;
+const SESSION_MAX_AGE_SECONDS = 12 * 60 * 60;
 
 /**
  * Database-free part of the Auth.js configuration, shared by proxy.ts and lib/auth/index.ts.

@@ -5,15 +5,13 @@ import { hash, verify } from "@node-rs/argon2";
  * argon2id with the OWASP Password Storage Cheat Sheet's first recommended setting:
  * m = 19 MiB, t = 2, p = 1.
  */
-export const PASSWORD_HASH_OPTIONS = {
+const PASSWORD_HASH_OPTIONS = {
   // Algorithm.Argon2id; the package exports a const enum, which verbatimModuleSyntax cannot read.
   algorithm: 2,
   memoryCost: 19 * 1024,
   timeCost: 2,
   parallelism: 1,
 } as const;
-
-export const MIN_PASSWORD_LENGTH = 10;
 
 export function hashPassword(password: string): Promise<string> {
   return hash(password, PASSWORD_HASH_OPTIONS);

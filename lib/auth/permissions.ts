@@ -75,7 +75,7 @@ export const ROLE_PERMISSIONS: Record<Role, ReadonlySet<Permission>> = {
 };
 
 /** What a check may need to know about the thing acted on, for rules that depend on ownership. */
-export type Resource = {
+type Resource = {
   /** Who owns it: the author of a use log or question, the uploader of a still. */
   ownerId?: string | null;
   /** For stills: private trials are visible to their owner and leads only. */

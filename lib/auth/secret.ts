@@ -21,7 +21,7 @@ export function authSecret(): string {
   return cached;
 }
 
-export function readOrCreateSecret(dataDir: string): string {
+function readOrCreateSecret(dataDir: string): string {
   const file = path.resolve(dataDir, "auth-secret");
   try {
     return fs.readFileSync(file, "utf8").trim();

@@ -8,7 +8,7 @@ import type { SessionUser } from "@/lib/auth/roles";
 import { changeGeneration } from "@/db/change-watch";
 import { findActiveUserAndChangeStamp, findUserByApiToken } from "@/lib/people/queries";
 
-export const SESSION_COOKIE_NAMES = ["__Secure-authjs.session-token", "authjs.session-token"] as const;
+const SESSION_COOKIE_NAMES = ["__Secure-authjs.session-token", "authjs.session-token"] as const;
 
 /**
  * Who is calling: a personal API token (`Authorization: Bearer …`) or the Auth.js session
@@ -17,7 +17,7 @@ export const SESSION_COOKIE_NAMES = ["__Secure-authjs.session-token", "authjs.se
  * or tokens (db/change-watch.ts) — so disabling someone, changing their role, revoking a token
  * or signing out takes effect on the next request rather than at cookie expiry.
  */
-export async function userFromHeaders(h: Headers, cookieValue: (name: string) => string | undefined): Promise<SessionUser | null> {
+async function userFromHeaders(h: Headers, cookieValue: (name: string) => string | undefined): Promise<SessionUser | null> {
   const authorization = h.get("authorization");
   if (authorization) {
     const match = /^Bearer\s+(\S+)$/i.exec(authorization);
@@ -81,7 +81,7 @@ async function sessionClaims(cookieValue: (name: string) => string | undefined):
 }
 
 /** For route handlers: authenticates from the Request itself. */
-export function userFromRequest(req: Request): Promise<SessionUser | null> {
+function userFromRequest(req: Request): Promise<SessionUser | null> {
   const jar = parseCookies(req.headers.get("cookie") ?? "");
   return userFromHeaders(req.headers, (name) => jar.get(name));
 }

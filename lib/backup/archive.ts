@@ -9,8 +9,8 @@ import * as tar from "tar";
  * dump, and the uploads folder as it is on disk. Both folders must not be in use by a running
  * app (PGlite allows one process on a data folder).
  */
-export type BackupPaths = { dataDir: string; uploadsDir: string };
-export type BackupManifest = { format: "plateroom-backup"; version: 1; createdAt: string; database: "pglite"; files: number };
+type BackupPaths = { dataDir: string; uploadsDir: string };
+type BackupManifest = { format: "plateroom-backup"; version: 1; createdAt: string; database: "pglite"; files: number };
 
 const MANIFEST = "manifest.json";
 const DATABASE = "database.tar.gz";
@@ -28,7 +28,7 @@ function countFiles(dir: string): number {
 }
 
 /** Refuses to touch a data folder whose app is running (server.pid names a live process). */
-export function assertNotRunning(dataDir: string): void {
+function assertNotRunning(dataDir: string): void {
   const pidFile = path.join(dataDir, "server.pid");
   if (!fs.existsSync(pidFile)) return;
   const pid = Number(fs.readFileSync(pidFile, "utf8"));

@@ -6,11 +6,11 @@ import { env } from "@/lib/env";
 import { escapeHtml, renderMail, safeHref, type MailContent } from "@/lib/mail/templates";
 import { unsubscribeUrl, type UnsubscribeTarget } from "@/lib/mail/unsubscribe";
 
-export type MailRecipient = { id?: string; email: string; name?: string };
+type MailRecipient = { id?: string; email: string; name?: string };
 
 type Rendered = { subject: string; html: string; text: string };
 
-export type EnqueueMailInput = {
+type EnqueueMailInput = {
   to: MailRecipient;
   /** e.g. "invite", "revision-approved", "digest"; shown in the admin outbox. */
   kind: string;
@@ -23,12 +23,12 @@ export type EnqueueMailInput = {
 export type Tx = Pick<Database, "insert" | "select">;
 
 /** The domain of PLATEROOM_MAIL_FROM, for Message-IDs (RFC 5322 §3.6.4 wants a unique id-right, from memory). */
-export function mailDomain(from: string = env.PLATEROOM_MAIL_FROM): string {
+function mailDomain(from: string = env.PLATEROOM_MAIL_FROM): string {
   const match = /@([A-Za-z0-9.-]+)/.exec(from);
   return match?.[1] ?? "plateroom.invalid";
 }
 
-export function newMessageId(): string {
+function newMessageId(): string {
   return `<${crypto.randomUUID()}@${mailDomain()}>`;
 }
 

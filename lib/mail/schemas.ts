@@ -35,7 +35,7 @@ export type OutboxListResponse = {
   counts: Record<OutboxState, number>;
 };
 
-/** One message as the fake SMTP server received it (lib/mail/fake-smtp.ts), for the in-app mail view. */
+/** One message as the fake SMTP server received it (scripts/fake-smtp/server.ts), for the in-app mail view. */
 export type InboxMessage = {
   id: string;
   receivedAt: string;

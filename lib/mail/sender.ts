@@ -14,21 +14,21 @@ import type { OutboxItemResponse } from "@/lib/mail/schemas";
 import { digestMail } from "@/lib/mail/templates";
 
 /** Waits after a refused message: attempt 1 → 5 s, 2 → 30 s, then 2 min, 10 min, 30 min, 1 h. */
-export const RETRY_DELAYS_MS = [5_000, 30_000, 120_000, 600_000, 1_800_000, 3_600_000] as const;
+const RETRY_DELAYS_MS = [5_000, 30_000, 120_000, 600_000, 1_800_000, 3_600_000] as const;
 /** A temporary refusal (4xx) is retried this many times; a permanent one (5xx) fewer. */
-export const MAX_ATTEMPTS = 6;
+const MAX_ATTEMPTS = 6;
 export const MAX_ATTEMPTS_PERMANENT = 3;
 /** While the server cannot be reached at all, retry every 5 s growing to at most 1 min, without limit: nothing is dropped. */
-export const OUTAGE_RETRY_MIN_MS = 5_000;
-export const OUTAGE_RETRY_MAX_MS = 60_000;
+const OUTAGE_RETRY_MIN_MS = 5_000;
+const OUTAGE_RETRY_MAX_MS = 60_000;
 /** A row left in "sending" longer than this belongs to a crashed sender and is queued again. */
-export const SENDING_LEASE_MS = 5 * 60_000;
-export const SENDER_INTERVAL_MS = 5_000;
+const SENDING_LEASE_MS = 5 * 60_000;
+const SENDER_INTERVAL_MS = 5_000;
 
 // Errors that mean "no server to talk to", not "the server refused this message".
 const UNREACHABLE_CODES = new Set(["ECONNECTION", "ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "ESOCKET", "EDNS", "ETLS", "EAUTH", "EPROTOCOL"]);
 
-export type FlushResult = {
+type FlushResult = {
   /** Rows taken for sending in this run. */
   claimed: number;
   sent: number;
@@ -314,7 +314,7 @@ export function startMailSender(opts: { intervalMs?: number } = {}): () => void 
   return stopMailSender;
 }
 
-export function stopMailSender(): void {
+function stopMailSender(): void {
   if (state.timer) clearInterval(state.timer);
   state.timer = undefined;
 }

@@ -4,7 +4,7 @@
  * so the admin mail view and unit tests can use it too.
  */
 
-export type MailBlock =
+type MailBlock =
   | { type: "paragraph"; text: string }
   /** A quoted passage written by a person, e.g. a change note. */
   | { type: "quote"; label?: string; text: string }
@@ -25,7 +25,7 @@ export type MailContent = {
   unsubscribeUrl?: string;
 };
 
-export type RenderedMail = { subject: string; html: string; text: string };
+type RenderedMail = { subject: string; html: string; text: string };
 
 const HTML_ESCAPES: Record<string, string> = { "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" };
 
@@ -278,7 +278,7 @@ export function personalMail(m: { name: string; kind: "question-answered" | "req
   };
 }
 
-export type DigestEntry = { kind: string; title: string; summary: string; link: string; createdAt: Date };
+type DigestEntry = { kind: string; title: string; summary: string; link: string; createdAt: Date };
 
 const DIGEST_SECTION_TITLES: Record<string, string> = {
   "revision-approved": "New approved revisions",

@@ -54,7 +54,7 @@ export function unsubscribeUrl(target: UnsubscribeTarget, now?: Date): string {
   return `${baseUrl()}/api/unsubscribe?token=${encodeURIComponent(createUnsubscribeToken(target, now))}`;
 }
 
-export type UnsubscribeResult = { removed: number; target: { kind: UnsubscribeTarget["kind"]; key: string } };
+type UnsubscribeResult = { removed: number; target: { kind: UnsubscribeTarget["kind"]; key: string } };
 
 /**
  * The one-click action (RFC 8058): needs no session, the signature is the authority.

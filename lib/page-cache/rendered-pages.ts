@@ -24,7 +24,7 @@ const TECHNIQUE_PAGE = /^\/techniques\/(?!new$)[a-z0-9][a-z0-9-]*$/;
 const NOT_KEPT = new Set(["content-security-policy", "set-cookie", "content-length", "content-encoding", "transfer-encoding", "connection", "keep-alive", "date"]);
 
 /** The page's bytes cut where the render's nonce stood, so each answer joins them around its own. */
-export type RenderedPage = { pieces: Buffer[]; size: number; headers: [string, string][] };
+type RenderedPage = { pieces: Buffer[]; size: number; headers: [string, string][] };
 type RenderContext = { path: string; cookie: string };
 
 let renderFailureLogged = false;

@@ -13,8 +13,8 @@ import { toPersonResponse } from "@/lib/people/queries";
 import type { InvitePersonInput, InviteResponse, PersonResponse, UpdatePersonInput } from "@/lib/people/schemas";
 import { enqueueAccountMail } from "@/lib/mail/account-mail";
 
-export const INVITE_VALID_MS = 7 * 24 * 60 * 60 * 1000;
-export const RESET_VALID_MS = 60 * 60 * 1000;
+const INVITE_VALID_MS = 7 * 24 * 60 * 60 * 1000;
+const RESET_VALID_MS = 60 * 60 * 1000;
 
 /** Creates the account without a password and mails a single-use set-password link. */
 export async function invitePerson(actor: SessionUser, input: InvitePersonInput): Promise<InviteResponse> {

@@ -7,7 +7,7 @@ import type { SessionUser } from "@/lib/auth/roles";
 import { hashToken } from "@/lib/people/tokens";
 import type { PersonResponse, TokenResponse } from "@/lib/people/schemas";
 
-export function toSessionUser(u: Pick<User, "id" | "email" | "name" | "role">): SessionUser {
+function toSessionUser(u: Pick<User, "id" | "email" | "name" | "role">): SessionUser {
   return { id: u.id, email: u.email, name: u.name, role: u.role };
 }
 

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { emailSchema, passwordSchema, roleSchema } from "@/lib/auth/schemas";
 import type { Role } from "@/lib/auth/roles";
 
-export const personNameSchema = z.string().trim().min(1, "Enter a name.").max(120);
+const personNameSchema = z.string().trim().min(1, "Enter a name.").max(120);
 
 export const invitePersonSchema = z.object({
   email: emailSchema,

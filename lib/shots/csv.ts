@@ -1,18 +1,6 @@
 import Papa from "papaparse";
-import {
-  compileShotPattern,
-  sequenceFromCode,
-  shotRowSchema,
-  SHOT_FIELD_LABELS,
-  SHOT_FIELDS,
-  type ColumnMapping,
-  type ImportPlan,
-  type ImportRowError,
-  type PlannedShot,
-  type ShotChange,
-  type ShotField,
-  type ShotState,
-} from "@/lib/shots/schemas";
+import { sequenceFromCode, shotRowSchema, SHOT_FIELD_LABELS, SHOT_FIELDS, type ColumnMapping, type ImportPlan, type ImportRowError, type PlannedShot, type ShotChange, type ShotField, type ShotState } from "@/lib/shots/schemas";
+import { compileShotPattern } from "@/lib/shows/schemas";
 
 /*
  * Shot lists as CSV: reading (with the lead's column mapping), planning an import against the
@@ -25,13 +13,13 @@ import {
  * 1 is the first record under the header, blank lines are not counted. `line` is the physical
  * line (header = line 1, blank lines counted) where the record starts, for a text editor.
  */
-export type CsvRecord = {
+type CsvRecord = {
   row: number;
   line: number;
   raw: Record<string, string>;
   values: Partial<Record<ShotField, string>>;
 };
-export type ReadShotCsvResult = {
+type ReadShotCsvResult = {
   headers: string[];
   /** The mapping that was applied: the one passed in, else a guess; null when no code column was found. */
   mapping: ColumnMapping | null;
@@ -183,7 +171,7 @@ export type ExistingShot = {
   frameEnd: number | null;
   state: ShotState;
 };
-export type PlanShow = { code: string; shotPattern: string };
+type PlanShow = { code: string; shotPattern: string };
 
 const VALUE_FIELDS = ["sequence", "description", "frameStart", "frameEnd", "state"] as const;
 
@@ -278,7 +266,7 @@ export function csvRecordsToRows(records: readonly CsvRecord[]): ImportRow[] {
   return records.map((r) => ({ row: r.row, line: r.line, values: r.values }));
 }
 
-export const EXPORT_HEADERS = ["Shot", "Sequence", "Description", "Frame start", "Frame end", "State"] as const;
+const EXPORT_HEADERS = ["Shot", "Sequence", "Description", "Frame start", "Frame end", "State"] as const;
 export type ExportableShot = {
   code: string;
   sequence: string;

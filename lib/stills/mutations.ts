@@ -22,7 +22,7 @@ import {
 } from "@/lib/stills/schemas";
 import { ensureDerived, removeStored, storeOriginal } from "@/lib/stills/storage";
 
-export type CreateStillInput = {
+type CreateStillInput = {
   /** A received upload: temp file path, its sha256 and size. createStill consumes the file. */
   file: { path: string; sha256: string; size: number; originalName?: string };
   alt: string;

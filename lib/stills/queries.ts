@@ -1,11 +1,12 @@
 import "server-only";
 import { asc, eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { stillPairs, stills, techniques, type Still } from "@/db/schema";
+import { stillPairs, stills, techniques, type Still, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import type { StillFormat, StillPairResponse, StillResponse } from "@/lib/stills/schemas";
+import { isTechniqueVisible } from "@/lib/techniques/queries";
 
 export function toStillResponse(s: Still): StillResponse {
   return {
@@ -28,23 +29,24 @@ export function toStillResponse(s: Still): StillResponse {
   };
 }
 
-/** A technique's stills are visible once it has an approved revision, or to those who read working copies. */
-function techniqueVisible(user: SessionUser, t: { approvedRevisionId: string | null } | undefined): boolean {
-  if (!t) return false;
-  return t.approvedRevisionId !== null || can(user, "technique:read-working");
+/** A technique's stills are visible to whoever may see the technique (lib/techniques/queries.ts). */
+function techniqueVisible(user: SessionUser, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId"> | undefined): boolean {
+  return t !== undefined && isTechniqueVisible(user, t);
 }
+
+const visibilityColumns = { approvedRevisionId: techniques.approvedRevisionId, latestRevisionId: techniques.latestRevisionId };
 
 /**
  * Whether this person may see this still: private trials only their uploader and leads
  * (lib/auth/permissions.ts "still:read"); stills tied to a technique whoever may see the
  * technique; the uploader always sees their own.
  */
-export async function canReadStill(user: SessionUser, s: Still): Promise<boolean> {
+async function canReadStill(user: SessionUser, s: Still): Promise<boolean> {
   if (!can(user, "still:read", { stillOwner: s.owner, ownerId: s.uploaderId })) return false;
   if (s.uploaderId === user.id) return true;
   if (s.owner === "trial") return true;
   if (!s.techniqueId) return s.owner === "use" || can(user, "technique:read-working");
-  const [t] = await getDb().select({ approvedRevisionId: techniques.approvedRevisionId }).from(techniques).where(eq(techniques.id, s.techniqueId)).limit(1);
+  const [t] = await getDb().select(visibilityColumns).from(techniques).where(eq(techniques.id, s.techniqueId)).limit(1);
   return techniqueVisible(user, t);
 }
 
@@ -60,7 +62,7 @@ export async function getStillForRead(user: SessionUser, id: string): Promise<St
 
 /** Stills attached to a technique (not private trials of others), newest last. */
 export async function listStillsForTechnique(user: SessionUser, techniqueId: string): Promise<StillResponse[]> {
-  const [t] = await getDb().select({ approvedRevisionId: techniques.approvedRevisionId }).from(techniques).where(eq(techniques.id, techniqueId)).limit(1);
+  const [t] = await getDb().select(visibilityColumns).from(techniques).where(eq(techniques.id, techniqueId)).limit(1);
   if (!techniqueVisible(user, t)) throw new AppError("not_found", "No technique at this address.");
   const rows = await getDb().select().from(stills).where(eq(stills.techniqueId, techniqueId)).orderBy(asc(stills.createdAt));
   const visible: StillResponse[] = [];
@@ -71,7 +73,7 @@ export async function listStillsForTechnique(user: SessionUser, techniqueId: str
 /** Before/after pairs shown on a technique page, in their order. */
 export async function listPairsForTechnique(user: SessionUser, techniqueId: string): Promise<StillPairResponse[]> {
   const db = getDb();
-  const [t] = await db.select({ approvedRevisionId: techniques.approvedRevisionId }).from(techniques).where(eq(techniques.id, techniqueId)).limit(1);
+  const [t] = await db.select(visibilityColumns).from(techniques).where(eq(techniques.id, techniqueId)).limit(1);
   if (!techniqueVisible(user, t)) throw new AppError("not_found", "No technique at this address.");
   const pairs = await db.select().from(stillPairs).where(eq(stillPairs.techniqueId, techniqueId)).orderBy(asc(stillPairs.position), asc(stillPairs.createdAt));
   if (!pairs.length) return [];

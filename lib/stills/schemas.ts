@@ -2,9 +2,9 @@ import { z } from "zod";
 
 /** Client-safe shapes of the stills API (shared/API.md, "POST /api/stills"). */
 
-export const STILL_OWNERS = ["technique", "use", "trial"] as const;
+const STILL_OWNERS = ["technique", "use", "trial"] as const;
 export type StillOwner = (typeof STILL_OWNERS)[number];
-export const STILL_ROLES = ["before", "after", "reference"] as const;
+const STILL_ROLES = ["before", "after", "reference"] as const;
 export type StillRole = (typeof STILL_ROLES)[number];
 export const STILL_VARIANTS = ["original", "preview", "thumb"] as const;
 export type StillVariant = (typeof STILL_VARIANTS)[number];
@@ -40,7 +40,6 @@ export const stillFieldsSchema = z.object({
   role: z.enum(STILL_ROLES, { error: "Role is before, after or reference." }).default("reference"),
   owner: z.enum(STILL_OWNERS, { error: "Owner is technique, use or trial." }).optional(),
 });
-export type StillFields = z.infer<typeof stillFieldsSchema>;
 
 export const createPairSchema = z
   .object({

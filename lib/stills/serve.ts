@@ -15,12 +15,12 @@ const ORIGINAL_TYPES: Record<string, { type: string; ext: string }> = {
 };
 
 /** Strong validator: the bytes of a variant are fixed by the content hash. */
-export function stillEtag(sha256: string, variant: StillVariant): string {
+function stillEtag(sha256: string, variant: StillVariant): string {
   return `"${sha256}-${variant}"`;
 }
 
 /** If-None-Match uses the weak comparison (RFC 9110 §13.1.2), so a W/ prefix still matches. */
-export function etagMatches(header: string | null, etag: string): boolean {
+function etagMatches(header: string | null, etag: string): boolean {
   if (!header) return false;
   if (header.trim() === "*") return true;
   return header.split(",").some((t) => t.trim().replace(/^W\//, "") === etag);

@@ -17,11 +17,8 @@ import type { StillVariant } from "@/lib/stills/schemas";
  * Every function takes the root as a parameter (tests use a temporary folder).
  */
 
-export const PREVIEW_MAX = 2048;
-export const THUMB_MAX = 400;
-/** Files younger than this are never swept: an upload may be between its file and its row. */
-export const SWEEP_GRACE_MS = 60 * 60 * 1000;
-
+const PREVIEW_MAX = 2048;
+const THUMB_MAX = 400;
 const SHA_RE = /^[0-9a-f]{64}$/;
 
 export function uploadsRoot(root?: string): string {
@@ -41,7 +38,7 @@ export function variantPath(sha: string, variant: StillVariant, root?: string): 
   return path.join(base, variant === "preview" ? "previews" : "thumbs", shard, `${sha}.webp`);
 }
 
-export function incomingDir(root?: string): string {
+function incomingDir(root?: string): string {
   return path.join(uploadsRoot(root), "tmp");
 }
 
@@ -64,7 +61,7 @@ async function fsyncPath(p: string): Promise<void> {
   }
 }
 
-function isCode(error: unknown, ...codes: string[]): boolean {
+export function isCode(error: unknown, ...codes: string[]): boolean {
   return typeof error === "object" && error !== null && codes.includes((error as { code?: string }).code ?? "");
 }
 
@@ -78,7 +75,7 @@ export async function exists(p: string): Promise<boolean> {
 }
 
 /** Writes bytes atomically: a temp file in the target's own folder, fsync, rename, fsync the folder. */
-export async function writeFileAtomic(target: string, data: Uint8Array): Promise<void> {
+async function writeFileAtomic(target: string, data: Uint8Array): Promise<void> {
   const dir = path.dirname(target);
   await fs.mkdir(dir, { recursive: true, mode: 0o700 });
   const temp = path.join(dir, `.${path.basename(target)}.${crypto.randomUUID()}.tmp`);
@@ -145,61 +142,4 @@ export async function ensureDerived(sha: string, root?: string): Promise<void> {
 /** Removes the original and derived files of one hash (callers first check no row refers to it). */
 export async function removeStored(sha: string, root?: string): Promise<void> {
   await Promise.all((["original", "preview", "thumb"] as const).map((v) => fs.rm(variantPath(sha, v, root), { force: true })));
-}
-
-export type SweepResult = { removed: string[]; kept: number };
-
-/**
- * Deletes stored files whose hash no still row references, and stale temp files, when older
- * than the grace period (an upload in flight has its file before its row). `referenced`
- * gets the hashes found and returns those still in use.
- */
-export async function sweepOrphans(options: {
-  root?: string;
-  referenced: (hashes: string[]) => Promise<Set<string>>;
-  graceMs?: number;
-  now?: number;
-  /** false lists what would go without deleting it. */
-  remove?: boolean;
-}): Promise<SweepResult> {
-  const base = uploadsRoot(options.root);
-  const cutoff = (options.now ?? Date.now()) - (options.graceMs ?? SWEEP_GRACE_MS);
-  const files: { file: string; sha: string | null; mtime: number }[] = [];
-  for (const folder of ["originals", "previews", "thumbs"]) {
-    for (const shard of await listDir(path.join(base, folder))) {
-      for (const name of await listDir(path.join(base, folder, shard))) {
-        const file = path.join(base, folder, shard, name);
-        const stat = await fs.stat(file).catch(() => null);
-        if (!stat?.isFile()) continue;
-        const match = /^([0-9a-f]{64})\.(bin|webp)$/.exec(name);
-        files.push({ file, sha: match?.[1] ?? null, mtime: stat.mtimeMs });
-      }
-    }
-  }
-  for (const name of await listDir(path.join(base, "tmp"))) {
-    const file = path.join(base, "tmp", name);
-    const stat = await fs.stat(file).catch(() => null);
-    if (stat?.isFile()) files.push({ file, sha: null, mtime: stat.mtimeMs });
-  }
-  const hashes = [...new Set(files.map((f) => f.sha).filter((s): s is string => s !== null))];
-  const inUse = hashes.length ? await options.referenced(hashes) : new Set<string>();
-  const removed: string[] = [];
-  let kept = 0;
-  for (const f of files) {
-    const orphan = f.sha === null || !inUse.has(f.sha);
-    if (orphan && f.mtime < cutoff) {
-      if (options.remove !== false) await fs.rm(f.file, { force: true });
-      removed.push(path.relative(base, f.file));
-    } else kept++;
-  }
-  return { removed, kept };
-}
-
-async function listDir(dir: string): Promise<string[]> {
-  try {
-    return await fs.readdir(dir);
-  } catch (error) {
-    if (isCode(error, "ENOENT")) return [];
-    throw error;
-  }
 }

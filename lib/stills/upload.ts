@@ -13,6 +13,8 @@ import { newIncomingPath } from "@/lib/stills/storage";
 
 /** Room for the text fields and part headers around the file in a multipart body. */
 const FORM_OVERHEAD = 64 * 1024;
+/** The most body bytes an upload request may declare: the file limit plus the form around it. */
+export const MAX_UPLOAD_BODY_BYTES = env.PLATEROOM_MAX_UPLOAD_BYTES + FORM_OVERHEAD;
 const TEXT_FIELDS = ["alt", "caption", "credit", "technique", "role", "owner"] as const;
 
 export type ReceivedFile = { path: string; sha256: string; size: number; originalName: string };

@@ -2,17 +2,17 @@ import { z } from "zod";
 
 export const SUBSCRIPTION_KINDS = ["technique", "tag", "show"] as const;
 export type SubscriptionKind = (typeof SUBSCRIPTION_KINDS)[number];
-export const MAIL_MODES = ["immediate", "daily"] as const;
+const MAIL_MODES = ["immediate", "daily"] as const;
 export type MailMode = (typeof MAIL_MODES)[number];
 
 /** A technique slug, a tag slug or a show code (shared/API.md, /api/subscriptions). */
-export const subscriptionTargetSchema = z.object({
+const subscriptionTargetSchema = z.object({
   kind: z.enum(SUBSCRIPTION_KINDS),
   key: z.string().trim().min(1, "Name what to follow.").max(200),
 });
 export type SubscriptionTarget = z.infer<typeof subscriptionTargetSchema>;
 
-export const mailModeSchema = z.enum(MAIL_MODES);
+const mailModeSchema = z.enum(MAIL_MODES);
 
 /** POST /api/subscriptions; without `mode` the person's chosen mail mode applies. */
 export const subscribeSchema = z.object({ target: subscriptionTargetSchema, mode: mailModeSchema.optional() });
@@ -20,7 +20,6 @@ export type SubscribeInput = z.infer<typeof subscribeSchema>;
 
 /** DELETE /api/subscriptions (`mode` may be sent and is ignored). */
 export const unsubscribeSchema = z.object({ target: subscriptionTargetSchema, mode: mailModeSchema.optional() });
-export type UnsubscribeInput = z.infer<typeof unsubscribeSchema>;
 
 export const setMailModeSchema = z.object({ mode: mailModeSchema });
 

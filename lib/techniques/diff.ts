@@ -32,7 +32,7 @@ export type RevisionSnapshot = {
   recipe: unknown;
 };
 
-export type RevisionField = "title" | "summary" | "aliases" | "tags" | "bodyText" | "recipe";
+type RevisionField = "title" | "summary" | "aliases" | "tags" | "bodyText" | "recipe";
 
 export type FieldDiff = { field: RevisionField; label: string; segments: DiffSegment[] };
 

@@ -7,7 +7,7 @@ import { z } from "zod";
  */
 
 export const HEADING_LEVELS = [2, 3, 4] as const;
-export type HeadingLevel = (typeof HEADING_LEVELS)[number];
+type HeadingLevel = (typeof HEADING_LEVELS)[number];
 
 export const CALLOUT_KINDS = ["works", "fails", "caution"] as const;
 export type CalloutKind = (typeof CALLOUT_KINDS)[number];
@@ -34,15 +34,15 @@ export const DOCUMENT_LIMITS = {
 
 // ---------- types ----------
 
-export type BoldMark = { type: "bold" };
-export type ItalicMark = { type: "italic" };
-export type CodeMark = { type: "code" };
-export type LinkMark = { type: "link"; attrs: { href: string } };
+type BoldMark = { type: "bold" };
+type ItalicMark = { type: "italic" };
+type CodeMark = { type: "code" };
+type LinkMark = { type: "link"; attrs: { href: string } };
 export type DocumentMark = BoldMark | ItalicMark | CodeMark | LinkMark;
 
 export type TextNode = { type: "text"; text: string; marks?: DocumentMark[] };
 /** Marks on a break come from the editor carrying the surrounding formatting across it. */
-export type HardBreakNode = { type: "hardBreak"; marks?: DocumentMark[] };
+type HardBreakNode = { type: "hardBreak"; marks?: DocumentMark[] };
 export type InlineNode = TextNode | HardBreakNode;
 
 export type ParagraphNode = { type: "paragraph"; content?: InlineNode[] };
@@ -62,7 +62,7 @@ export type CodeBlockNode = {
   content?: { type: "text"; text: string }[];
 };
 export type HorizontalRuleNode = { type: "horizontalRule" };
-export type TableCellAttrs = {
+type TableCellAttrs = {
   colspan?: number;
   rowspan?: number;
   colwidth?: number[] | null;
@@ -70,9 +70,9 @@ export type TableCellAttrs = {
 };
 export type TableCellNode = { type: "tableCell"; attrs?: TableCellAttrs; content: BlockNode[] };
 export type TableHeaderNode = { type: "tableHeader"; attrs?: TableCellAttrs; content: BlockNode[] };
-export type TableRowNode = { type: "tableRow"; content?: (TableCellNode | TableHeaderNode)[] };
+type TableRowNode = { type: "tableRow"; content?: (TableCellNode | TableHeaderNode)[] };
 export type TableNode = { type: "table"; content: TableRowNode[] };
-export type StillNode = { type: "still"; attrs: { stillId: string; alt: string; caption: string } };
+type StillNode = { type: "still"; attrs: { stillId: string; alt: string; caption: string } };
 
 export type BlockNode =
   | ParagraphNode
@@ -87,14 +87,6 @@ export type BlockNode =
   | StillNode;
 
 export type TechniqueDocument = { type: "doc"; content: BlockNode[] };
-export type DocumentNode =
-  | TechniqueDocument
-  | BlockNode
-  | ListItemNode
-  | TableRowNode
-  | TableCellNode
-  | TableHeaderNode
-  | InlineNode;
 
 // ---------- links ----------
 

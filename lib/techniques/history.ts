@@ -1,9 +1,10 @@
 import "server-only";
 import type { SessionUser } from "@/lib/auth/roles";
 import { diffRevisions, type FieldDiff } from "@/lib/techniques/diff";
-import { getRevisionsByNumber, loadTagMap } from "@/lib/techniques/queries";
+import { loadTagMap } from "@/lib/tags/queries";
+import { getRevisionsByNumber } from "@/lib/techniques/queries";
 
-export type RevisionDiffResponse = { slug: string; from: number; to: number; fields: FieldDiff[] };
+type RevisionDiffResponse = { slug: string; from: number; to: number; fields: FieldDiff[] };
 
 /** Field-by-field word diff of two revisions the person may see. */
 export async function revisionDiff(user: SessionUser, slug: string, from: number, to: number): Promise<RevisionDiffResponse> {

@@ -1,36 +1,24 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { getDb, type Database } from "@/db/client";
-import { houseMethods, revisions, tags, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
+import { houseMethods, revisions, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { emptyDocument, type TechniqueDocument } from "@/lib/techniques/document";
 import type { RecipeStep } from "@/lib/lab/recipe";
+import { loadTagMap, tagRefs } from "@/lib/tags/queries";
 import type {
   PersonRef,
   RevisionSummary,
-  TagRef,
   TechniqueListItem,
   TechniqueResponse,
   TechniqueStatus,
 } from "@/lib/techniques/schemas";
 
 /** Seniors and leads work on the newest revision; everyone else reads the approved one. */
-export function readsWorkingCopy(user: SessionUser): boolean {
+function readsWorkingCopy(user: SessionUser): boolean {
   return can(user, "technique:read-working");
-}
-
-export async function loadTagMap(): Promise<Map<string, TagRef & { id: string }>> {
-  const rows = await getDb().select({ id: tags.id, slug: tags.slug, name: tags.name, kind: tags.kind }).from(tags);
-  return new Map(rows.map((t) => [t.id, t]));
-}
-
-export function tagRefs(tagIds: string[], tagMap: Map<string, TagRef & { id: string }>): TagRef[] {
-  return tagIds
-    .map((id) => tagMap.get(id))
-    .filter((t): t is TagRef & { id: string } => Boolean(t))
-    .map(({ slug, name, kind }) => ({ slug, name, kind }));
 }
 
 async function people(ids: (string | null | undefined)[]): Promise<Map<string, { id: string; name: string }>> {
@@ -61,9 +49,17 @@ export async function findTechniqueBySlug(
 }
 
 /** The revision this person should see, or null when the technique is not visible to them. */
-export function visibleRevisionId(user: SessionUser, t: Technique): string | null {
+export function visibleRevisionId(user: SessionUser, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId">): string | null {
   if (readsWorkingCopy(user)) return t.latestRevisionId ?? t.approvedRevisionId;
   return t.approvedRevisionId;
+}
+
+/**
+ * The one visibility rule for a technique and what hangs off it (stills, pairs, use logs):
+ * seniors and leads read working copies; everyone else sees it once it has an approved revision.
+ */
+export function isTechniqueVisible(user: SessionUser, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId">): boolean {
+  return visibleRevisionId(user, t) !== null;
 }
 
 /** Resolves a slug to a technique this person may see; 404 otherwise (no hint that drafts exist). */
@@ -77,7 +73,7 @@ export async function requireVisibleTechnique(user: SessionUser, slug: string): 
   return { technique: found.technique, revision, renamedFrom: found.renamedFrom };
 }
 
-export function toRevisionSummary(r: Revision, names: Map<string, { id: string; name: string }>): RevisionSummary {
+function toRevisionSummary(r: Revision, names: Map<string, { id: string; name: string }>): RevisionSummary {
   return {
     number: r.number,
     state: r.state,
@@ -194,7 +190,7 @@ export async function listTechniques(user: SessionUser, options: ListOptions = {
   return { items, total: countRows[0]?.n ?? 0 };
 }
 
-export type ReviewQueueItem = { slug: string; title: string; revision: number; author: PersonRef; submittedAt: string; isEdit: boolean };
+type ReviewQueueItem = { slug: string; title: string; revision: number; author: PersonRef; submittedAt: string; isEdit: boolean };
 
 /** Revisions waiting for a lead. */
 export async function listReviewQueue(user: SessionUser): Promise<ReviewQueueItem[]> {
@@ -226,7 +222,7 @@ export async function countReviewQueue(user: SessionUser): Promise<number> {
   return row?.n ?? 0;
 }
 
-export type MyDraftItem = { slug: string; title: string; revision: number; state: Revision["state"]; reviewNote: string | null; updatedAt: string };
+type MyDraftItem = { slug: string; title: string; revision: number; state: Revision["state"]; reviewNote: string | null; updatedAt: string };
 
 /** A writer's own unfinished revisions: drafts, and revisions a lead sent back. */
 export async function listMyDrafts(user: SessionUser): Promise<MyDraftItem[]> {
@@ -262,18 +258,4 @@ export async function getRevisionsByNumber(user: SessionUser, slug: string, numb
     if (!r) throw new AppError("not_found", `No revision ${n} of this technique.`);
     return r;
   });
-}
-
-export async function listTags(): Promise<Array<TagRef & { id: string; description: string; aliases: string[] }>> {
-  return getDb()
-    .select({ id: tags.id, slug: tags.slug, name: tags.name, kind: tags.kind, description: tags.description, aliases: tags.aliases })
-    .from(tags)
-    .orderBy(asc(tags.kind), asc(tags.name));
-}
-
-export async function getTag(slug: string) {
-  const [tag] = await getDb().select().from(tags).where(eq(tags.slug, slug)).limit(1);
-  if (!tag) throw new AppError("not_found", "No such tag.");
-  const [house] = await getDb().select().from(houseMethods).where(eq(houseMethods.tagId, tag.id)).limit(1);
-  return { tag, houseMethodTechniqueId: house?.techniqueId ?? null };
 }

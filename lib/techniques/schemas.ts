@@ -60,8 +60,6 @@ export const retireSchema = z.object({
 });
 export type RetireInput = z.infer<typeof retireSchema>;
 
-export const houseMethodSchema = z.object({ tag: slugSchema, technique: slugSchema.nullable() });
-
 export const listTechniquesQuerySchema = z.object({
   status: z.enum(TECHNIQUE_STATUSES).optional(),
   tag: slugSchema.optional(),
@@ -71,14 +69,6 @@ export const listTechniquesQuerySchema = z.object({
 });
 
 export const diffQuerySchema = z.object({ from: z.coerce.number().int().min(1), to: z.coerce.number().int().min(1) });
-
-export const questionSchema = z.object({ body: techniqueDocumentSchema });
-export const answerSchema = z.object({ body: techniqueDocumentSchema });
-
-export const requestSchema = z.object({
-  query: z.string().trim().min(2, "Describe the problem in a few words.").max(200),
-  note: z.string().trim().max(2000).default(""),
-});
 
 export type TagRef = { slug: string; name: string; kind: "problem" | "plate" };
 export type PersonRef = { id: string; name: string } | null;

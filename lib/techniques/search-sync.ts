@@ -8,7 +8,7 @@ import { RECIPE_PARAMETER_LABELS } from "@/lib/techniques/recipe-labels";
 type TagRow = { id: string; slug: string; name: string; kind: "problem" | "plate"; aliases: string[] };
 
 /** Words a recipe contributes to search: its operations and their parameter names. */
-export function recipeParameterNames(recipe: unknown): string[] {
+function recipeParameterNames(recipe: unknown): string[] {
   if (!Array.isArray(recipe)) return [];
   const names = new Set<string>();
   for (const step of recipe) {
@@ -45,7 +45,7 @@ function toDocument(t: Technique, r: Revision, tagById: Map<string, TagRow>, sho
 }
 
 /** Builds both views (published = approved revision, working = newest) of the given techniques, or of all. */
-export async function loadSearchEntries(ids?: string[]): Promise<SearchIndexEntry[]> {
+async function loadSearchEntries(ids?: string[]): Promise<SearchIndexEntry[]> {
   const db = getDb();
   const techniqueRows = ids ? (ids.length ? await db.select().from(techniques).where(inArray(techniques.id, ids)) : []) : await db.select().from(techniques);
   if (!techniqueRows.length) return [];

@@ -14,7 +14,7 @@ import { DEMO_PASSWORD, startApp, type RunningApp } from "@/tests/e2e/harness";
 type ErrorBody = { error: { code: string; message: string; latest?: { number: number; author: string | null; savedAt: string } } };
 
 let app: RunningApp;
-let joel: Api; // senior@kestrel.test, Joel Brackwell (db/seed-data/people.ts)
+let joel: Api; // senior@kestrel.test, Joel Brackwell (scripts/seed/data/people.ts)
 let kofi: Api; // kofi.ashdown@kestrel.test, Kofi Ashdown, also a senior
 
 function walk(dir: string): string[] {

@@ -18,7 +18,7 @@ const BURST = 500;
 const KILL_AFTER = 250;
 const LANES = 6;
 const SEEDED_TECHNIQUE = "marker-channel-cleanup";
-// Seeded shots of the show Saltmarsh (db/seed-data/shows.ts).
+// Seeded shots of the show Saltmarsh (scripts/seed/data/shows.ts).
 const SHOTS = ["SLM_010_0010", "SLM_040_0120", "SLM_040_0130", "SLM_070_0030"];
 
 type Ack =

@@ -84,7 +84,7 @@ export function ensureBuild(): void {
 export function seededTemplate(): { data: string; uploads: string } {
   const stamp = crypto
     .createHash("sha256")
-    .update(String(newestMtime(["db", "lib/lab/synthetic.ts"])))
+    .update(String(newestMtime(["db", "scripts/seed", "scripts/seed.ts", "lib/lab/synthetic.ts"])))
     .digest("hex")
     .slice(0, 12);
   const dir = path.join(root, "tests", ".tmp", `e2e-template-${stamp}`);

@@ -18,6 +18,12 @@ describe.skipIf(!hasChromium())("security headers on every page type", () => {
   const running = useAppAndBrowser();
 
   it("sign-in page, API JSON and API errors", async () => {
+    // RFC 9110 §15.5.6: a wrong method on a real route is 405 with Allow, in the API's error shape.
+    const wrong = await fetch(`${running.app.baseUrl}/api/health`, { method: "DELETE" });
+    expect(wrong.status).toBe(405);
+    expect(wrong.headers.get("allow")).toBe("GET, HEAD, OPTIONS");
+    expect((await wrong.json()).error.code).toBe("method_not_allowed");
+    expectSecurityHeaders(wrong.headers, "api");
     const login = await fetch(`${running.app.baseUrl}/login`);
     expectSecurityHeaders(login.headers, "page");
     const health = await fetch(`${running.app.baseUrl}/api/health`);
@@ -53,6 +59,22 @@ describe.skipIf(!hasChromium())("security headers on every page type", () => {
     expect(res.status()).toBe(403);
     const same = await page.request.post("/api/tokens", { data: { name: "same-site" }, headers: { Origin: running.app.baseUrl } });
     expect(same.status()).toBe(201);
+    // RFC 6454: the same host and port over another scheme is another origin (this used to pass).
+    const otherScheme = running.app.baseUrl.replace(/^http:/, "https:");
+    expect((await page.request.post("/api/tokens", { data: { name: "x" }, headers: { Origin: otherScheme } })).status()).toBe(403);
+    // W3C Fetch Metadata: a page on another site, even when no Origin header is sent.
+    expect((await page.request.post("/api/tokens", { data: { name: "x" }, headers: { "Sec-Fetch-Site": "cross-site" } })).status()).toBe(403);
+    // A server action posted to a page with the cookie from another origin: the same rule, in proxy.ts.
+    const action = await page.request.post("/settings", { data: "[]", headers: { Origin: otherScheme, "Next-Action": "00" } });
+    expect(action.status()).toBe(403);
+    await context.close();
+  });
+
+  it("answers an oversized JSON body with 413 in the error shape over real HTTP (RFC 9110 §15.5.14)", async () => {
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "senior@kestrel.test");
+    const res = await page.request.post("/api/tokens", { data: JSON.stringify({ name: "x", pad: "x".repeat(2 * 1024 * 1024) }), headers: { "Content-Type": "application/json", Origin: running.app.baseUrl } });
+    expect(res.status()).toBe(413);
+    expect((await res.json()).error.code).toBe("too_large");
     await context.close();
   });
 });

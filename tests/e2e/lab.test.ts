@@ -10,7 +10,7 @@ import type { LabAnalyseResponse, LabSampleResponse } from "@/lib/lab/analysis-s
 /*
  * Issue 5, "Browser (Chromium)": a senior solves a colour-matrix row from samples picked on the
  * demo still, applies it, renders exact, and sees the line profile flatten across a marker.
- * The seed (db/seed-techniques.ts) stores generateSyntheticPlate({ 1280×720, seed 7, green }) as
+ * The seed (scripts/seed/techniques.ts) stores generateSyntheticPlate({ 1280×720, seed 7, green }) as
  * the marker-cleanup technique's plate; regenerating it here tells us where its markers are.
  */
 

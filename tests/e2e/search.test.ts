@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
 import { useAppAndBrowser } from "@/tests/e2e/running-app";
 
-// The seeded demo data (db/seed-data) makes "Marker channel cleanup" the department's approved
+// The seeded demo data (scripts/seed/data) makes "Marker channel cleanup" the department's approved
 // method for the "Tracking markers" problem; the journeys below are issue 6's. Our own behaviour,
 // no outside source.
 

@@ -12,7 +12,7 @@ import { hasChromium, isShown, launchBrowser, screenshot, signIn, startApp, type
 
 const SHOW = "SLM";
 const TECHNIQUE = "marker-channel-cleanup";
-const TECHNIQUE_TITLE = "Marker channel cleanup"; // db/seed-data/techniques.ts
+const TECHNIQUE_TITLE = "Marker channel cleanup"; // scripts/seed/data/techniques.ts
 const NEW_CODES = ["SLM_160_0010", "SLM_160_0020", "SLM_160_0030", "SLM_170_0010"];
 const USED_SHOT = "SLM_160_0030";
 const BAD_PATTERN_CODE = "SLM_16_0040"; // two-digit sequence: breaks SHOW_SEQ_SHOT (common practice, no published source)
@@ -69,7 +69,7 @@ describe.skipIf(!hasChromium())("shows and shots in Chromium", () => {
     await page.goto(`/shows/${SHOW}`);
     const shotsTitle = page.locator("#shots-title");
     await shotsTitle.waitFor();
-    // db/seed-data/shows.ts seeds twelve shots on SLM.
+    // scripts/seed/data/shows.ts seeds twelve shots on SLM.
     expect(await shotsTitle.textContent()).toContain("(12)");
     const table = page.getByTestId("show-shots");
     for (const code of NEW_CODES) expect(await table.getByRole("link", { name: code, exact: true }).count()).toBe(0);
@@ -131,7 +131,7 @@ describe.skipIf(!hasChromium())("shows and shots in Chromium", () => {
     const { context, page } = await signIn(browser, app.baseUrl, "artist@kestrel.test");
     await page.goto(`/techniques/${TECHNIQUE}`);
     touchUpBefore = await outcomeCount(page, "touch-up");
-    // db/seed-data/techniques.ts logs one touch-up among the five seeded uses of this technique.
+    // scripts/seed/data/techniques.ts logs one touch-up among the five seeded uses of this technique.
     expect(touchUpBefore).toBe(1);
     const uses = page.getByTestId("uses-table");
     expect(await uses.getByRole("link", { name: USED_SHOT, exact: true }).count()).toBe(0);
@@ -201,7 +201,7 @@ describe.skipIf(!hasChromium())("shows and shots in Chromium", () => {
     await page.getByRole("button", { name: "Retire…" }).click();
     const dialog = page.getByRole("dialog");
     await dialog.waitFor();
-    // The seeded uses (db/seed-data/techniques.ts: SLM_040_0120, SLM_040_0130, SLM_070_0010,
+    // The seeded uses (scripts/seed/data/techniques.ts: SLM_040_0120, SLM_040_0130, SLM_070_0010,
     // LTH_104_0030, LTH_101_0020) and the one logged above, each shot once.
     const expected = ["LTH_101_0020", "LTH_104_0030", "SLM_040_0120", "SLM_040_0130", "SLM_070_0010", USED_SHOT];
     const heading = dialog.getByText(/^Shots that used it \(\d+\)$/);

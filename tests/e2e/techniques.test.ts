@@ -194,7 +194,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     const alert = lead.page.getByRole("alert").filter({ hasText: "Someone else saved first" });
     expect(await isShown(alert, 30_000)).toBe(true);
     // The 409 names who saved and which revision (issue 3: "says who saved what and when"); the
-    // senior is Joel Brackwell in db/seed-data/people.ts.
+    // senior is Joel Brackwell in scripts/seed/data/people.ts.
     const said = (await alert.textContent()) ?? "";
     expect(said).toContain("Joel Brackwell saved revision 3");
     // Said in words a person reads, not a raw ISO 8601 stamp.

@@ -5,13 +5,13 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { TagManager } from "@/components/tags/tag-manager";
 import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
-import { listTags } from "@/lib/techniques/queries";
+import { listTags } from "@/lib/tags/queries";
 
 export const metadata: Metadata = { title: "Problems" };
 
 export default async function ProblemsPage() {
   const user = await requireUser();
-  const tags = await listTags();
+  const tags = await listTags(user);
   const groups = [
     { kind: "problem" as const, title: "By problem in the plate" },
     { kind: "plate" as const, title: "By kind of plate" },

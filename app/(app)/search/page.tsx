@@ -10,14 +10,14 @@ import { requireUser } from "@/lib/auth/session";
 import { isWeakMatch } from "@/lib/search-ui/coverage";
 import { PAGE_SIZE, parseSearchState } from "@/lib/search-ui/params";
 import { runSearch } from "@/lib/search-ui/run";
-import { listTags } from "@/lib/techniques/queries";
+import { listTags } from "@/lib/tags/queries";
 
 export const metadata: Metadata = { title: "Search" };
 
 export default async function SearchPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requireUser();
   const { state, invalid } = parseSearchState(await searchParams);
-  const tags = await listTags();
+  const tags = await listTags(user);
   const response = runSearch(user, { ...state, limit: PAGE_SIZE });
   const tagInfo = Object.fromEntries(tags.map((t) => [t.slug, { name: t.name, kind: t.kind }]));
   const asked = response.corrected ?? state.q;

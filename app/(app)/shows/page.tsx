@@ -7,8 +7,8 @@ import { DataTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
-import { listShows } from "@/lib/shots/queries";
-import { SHOW_KIND_LABELS, SHOW_STATE_LABELS } from "@/lib/shots/schemas";
+import { listShows } from "@/lib/shows/queries";
+import { SHOW_KIND_LABELS, SHOW_STATE_LABELS } from "@/lib/shows/schemas";
 
 export const metadata: Metadata = { title: "Shows" };
 

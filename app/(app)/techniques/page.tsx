@@ -4,7 +4,8 @@ import { TechniqueList } from "@/components/techniques/technique-list";
 import { buttonClasses } from "@/components/ui/button";
 import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
-import { listTags, listTechniques } from "@/lib/techniques/queries";
+import { listTags } from "@/lib/tags/queries";
+import { listTechniques } from "@/lib/techniques/queries";
 import { STATUS_LABELS, TECHNIQUE_STATUSES, type TechniqueStatus } from "@/lib/techniques/schemas";
 import { cn } from "@/lib/utils";
 
@@ -14,7 +15,7 @@ export default async function TechniquesPage({ searchParams }: { searchParams: P
   const user = await requireUser();
   const sp = await searchParams;
   const status = TECHNIQUE_STATUSES.includes(sp.status as TechniqueStatus) ? (sp.status as TechniqueStatus) : undefined;
-  const [{ items, total }, tags] = await Promise.all([listTechniques(user, { status, tag: sp.tag, limit: 200 }), listTags()]);
+  const [{ items, total }, tags] = await Promise.all([listTechniques(user, { status, tag: sp.tag, limit: 200 }), listTags(user)]);
   const statuses = can(user, "technique:read-working") ? TECHNIQUE_STATUSES : (["approved", "retired"] as const);
   return (
     <div className="space-y-5">

@@ -1,16 +1,12 @@
-import { sql } from "drizzle-orm";
-import { getDb } from "@/db/client";
-import { apiRoute } from "@/lib/api/handler";
+import { otherMethods, publicRoute } from "@/lib/api/handler";
+import { databaseAnswers } from "@/lib/health";
 
 export const dynamic = "force-dynamic";
 
-export const GET = apiRoute(async () => {
-  let db: "ok" | "error" = "ok";
-  try {
-    await getDb().execute(sql`select 1`);
-  } catch (error) {
-    console.error("[health] database check failed:", error);
-    db = "error";
-  }
-  return Response.json({ status: db === "ok" ? "ok" : "degraded", db }, { status: db === "ok" ? 200 : 503 });
+/** Public: for load balancers and monitors; says only whether the database answers. */
+export const GET = publicRoute(async () => {
+  const ok = await databaseAnswers();
+  return Response.json({ status: ok ? "ok" : "degraded", db: ok ? "ok" : "error" }, { status: ok ? 200 : 503 });
 });
+
+export const { HEAD, OPTIONS, POST, PUT, PATCH, DELETE } = otherMethods({ GET });

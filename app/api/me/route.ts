@@ -1,8 +1,8 @@
-import { apiRoute } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import type { MeResponse } from "@/lib/people/schemas";
 
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute(async (req, { user }) => {
   return Response.json({ id: user.id, email: user.email, name: user.name, role: user.role } satisfies MeResponse);
 });
+
+export const { HEAD, OPTIONS, POST, PUT, PATCH, DELETE } = otherMethods({ GET });

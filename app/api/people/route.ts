@@ -1,16 +1,15 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { invitePerson } from "@/lib/people/mutations";
 import { listPeople } from "@/lib/people/queries";
 import { invitePersonSchema, type PeopleResponse } from "@/lib/people/schemas";
 
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute("people:manage", async (req, { user }) => {
   return Response.json({ items: await listPeople(user) } satisfies PeopleResponse);
 });
 
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, invitePersonSchema);
+export const POST = authedRoute("people:manage", async (req, { user, json }) => {
+  const input = await json(invitePersonSchema);
   return Response.json(await invitePerson(user, input), { status: 201 });
 });
+
+export const { HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ GET, POST });

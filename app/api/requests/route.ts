@@ -1,19 +1,19 @@
 import { z } from "zod";
-import { apiRoute, parseJson, parseWith, searchParamsOf } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
-import { createRequest, listRequests } from "@/lib/requests";
-import { requestSchema } from "@/lib/techniques/schemas";
+import { authedRoute, otherMethods, parseWith, searchParamsOf } from "@/lib/api/handler";
+import { createRequest } from "@/lib/requests/mutations";
+import { listRequests } from "@/lib/requests/queries";
+import { requestSchema } from "@/lib/requests/schemas";
 
 const listSchema = z.object({ scope: z.enum(["open", "mine"]).default("open") });
 
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute(async (req, { user }) => {
   const { scope } = parseWith(listSchema, searchParamsOf(req));
   return Response.json({ items: await listRequests(user, scope) });
 });
 
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, requestSchema);
+export const POST = authedRoute("request:create", async (req, { user, json }) => {
+  const input = await json(requestSchema);
   return Response.json(await createRequest(user, input), { status: 201 });
 });
+
+export const { HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ GET, POST });

@@ -1,8 +1,8 @@
-import { apiRoute } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { listReviewQueue } from "@/lib/techniques/queries";
 
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute("technique:review", async (req, { user }) => {
   return Response.json({ items: await listReviewQueue(user) });
 });
+
+export const { HEAD, OPTIONS, POST, PUT, PATCH, DELETE } = otherMethods({ GET });

@@ -1,10 +1,10 @@
-import { apiRoute, parseWith, searchParamsOf } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, searchParamsOf } from "@/lib/api/handler";
 import { searchQuerySchema, type SearchApiResponse } from "@/lib/search-ui/params";
 import { runSearch } from "@/lib/search-ui/run";
 
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute(async (req, { user }) => {
   const query = parseWith(searchQuerySchema, searchParamsOf(req));
   return Response.json(runSearch(user, query) satisfies SearchApiResponse);
 });
+
+export const { HEAD, OPTIONS, POST, PUT, PATCH, DELETE } = otherMethods({ GET });

@@ -1,17 +1,16 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
-import { createShow } from "@/lib/shots/mutations";
-import { listShows } from "@/lib/shots/queries";
-import { createShowSchema, type ShowResponse, type ShowsResponse } from "@/lib/shots/schemas";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
+import { createShow } from "@/lib/shows/mutations";
+import { listShows } from "@/lib/shows/queries";
+import { createShowSchema, type ShowResponse, type ShowsResponse } from "@/lib/shows/schemas";
 
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute(async (req, { user }) => {
   return Response.json({ items: await listShows(user) } satisfies ShowsResponse);
 });
 
 /** Leads only. */
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, createShowSchema);
+export const POST = authedRoute("show:manage", async (req, { user, json }) => {
+  const input = await json(createShowSchema);
   return Response.json((await createShow(user, input)) satisfies ShowResponse, { status: 201 });
 });
+
+export const { HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ GET, POST });

@@ -1,19 +1,18 @@
 import fs from "node:fs/promises";
 import { z } from "zod";
-import { apiRoute, parseWith, searchParamsOf } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, searchParamsOf } from "@/lib/api/handler";
 import { requireVisibleTechnique } from "@/lib/techniques/queries";
 import { createStill } from "@/lib/stills/mutations";
 import { listStillsForTechnique } from "@/lib/stills/queries";
 import type { StillCreatedResponse, StillResponse, StillOwner, StillRole } from "@/lib/stills/schemas";
-import { receiveStillUpload } from "@/lib/stills/upload";
+import { MAX_UPLOAD_BODY_BYTES, receiveStillUpload } from "@/lib/stills/upload";
 
 // Uploads are streamed from the request body; never prerendered or cached.
 export const dynamic = "force-dynamic";
 export const runtime = "nodejs";
 
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
+// Anyone signed in uploads trials and use-log stills; createStill checks "still:upload" for technique stills.
+export const POST = authedRoute({ bodyLimit: MAX_UPLOAD_BODY_BYTES }, async (req, { user }) => {
   const { file, fields } = await receiveStillUpload(req);
   try {
     const created = await createStill(user, {
@@ -33,10 +32,11 @@ export const POST = apiRoute(async (req) => {
 
 const listQuery = z.object({ technique: z.string().min(1, "Name a technique.") });
 
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute(async (req, { user }) => {
   const q = parseWith(listQuery, searchParamsOf(req));
   const { technique } = await requireVisibleTechnique(user, q.technique);
   const items = await listStillsForTechnique(user, technique.id);
   return Response.json({ items } satisfies { items: StillResponse[] });
 });
+
+export const { HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ GET, POST });

@@ -1,6 +1,5 @@
 import { z } from "zod";
-import { apiRoute, parseJson, parseWith, searchParamsOf } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, searchParamsOf } from "@/lib/api/handler";
 import { subscribe, unsubscribe } from "@/lib/subscriptions/mutations";
 import { getSubscription, listSubscriptions } from "@/lib/subscriptions/queries";
 import { SUBSCRIPTION_KINDS, subscribeSchema, unsubscribeSchema } from "@/lib/subscriptions/schemas";
@@ -8,8 +7,7 @@ import { SUBSCRIPTION_KINDS, subscribeSchema, unsubscribeSchema } from "@/lib/su
 const oneSchema = z.object({ kind: z.enum(SUBSCRIPTION_KINDS), key: z.string().min(1).max(200) });
 
 /** The caller's subscriptions, or with ?kind=&key= just that one (`subscription: null` when none). */
-export const GET = apiRoute(async (req) => {
-  const user = await requireUser(req);
+export const GET = authedRoute("subscription:manage", async (req, { user }) => {
   const query = searchParamsOf(req);
   if (query.kind || query.key) {
     const { kind, key } = parseWith(oneSchema, query);
@@ -18,14 +16,14 @@ export const GET = apiRoute(async (req) => {
   return Response.json(await listSubscriptions(user));
 });
 
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, subscribeSchema);
+export const POST = authedRoute("subscription:manage", async (req, { user, json }) => {
+  const input = await json(subscribeSchema);
   return Response.json(await subscribe(user, input), { status: 201 });
 });
 
-export const DELETE = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  const { target } = await parseJson(req, unsubscribeSchema);
+export const DELETE = authedRoute("subscription:manage", async (req, { user, json }) => {
+  const { target } = await json(unsubscribeSchema);
   return Response.json(await unsubscribe(user, target));
 });
+
+export const { HEAD, OPTIONS, PUT, PATCH } = otherMethods({ GET, POST, DELETE });

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { AppError } from "@/lib/api/errors";
-import { apiRoute, errorResponse, parseWith, searchParamsOf } from "@/lib/api/handler";
+import { BODY_LIMITS } from "@/lib/api/body-limits";
+import { otherMethods, parseWith, publicRoute, searchParamsOf } from "@/lib/api/handler";
 import { applyUnsubscribe } from "@/lib/mail/unsubscribe";
 
 const tokenQuery = z.object({ token: z.string().trim().min(1, "The link has no token.").max(2000) });
@@ -11,28 +12,20 @@ const tokenQuery = z.object({ token: z.string().trim().min(1, "The link has no t
  * the signed token in the URL is the only authority. The answer is never a redirect (same
  * section). Using it twice is harmless.
  */
-// The context is unused; taking it keeps the handler's signature the same as apiRoute's.
-export async function POST(req: Request, _ctx?: { params: Promise<Record<string, never>> }): Promise<Response> {
-  // Not wrapped in apiRoute: its cross-site check guards cookie sessions, and this endpoint uses
-  // none. A webmail page or a receiver's server may POST from anywhere; the token decides.
-  try {
-    const { token } = parseWith(tokenQuery, searchParamsOf(req));
-    await checkOneClickBody(req);
-    const result = await applyUnsubscribe(token);
-    return Response.json(
-      { unsubscribed: true, removed: result.removed, target: result.target },
-      { headers: { "Cache-Control": "private, no-store", "X-Content-Type-Options": "nosniff" } },
-    );
-  } catch (error) {
-    return errorResponse(error);
-  }
-}
+// Public, and no cross-site check: that guards cookie sessions, and this endpoint uses none. A
+// webmail page or a receiver's server may POST from anywhere; the token decides.
+export const POST = publicRoute({ bodyLimit: BODY_LIMITS.form }, async (req, { form }) => {
+  const { token } = parseWith(tokenQuery, searchParamsOf(req));
+  await checkOneClickBody(req, form);
+  const result = await applyUnsubscribe(token);
+  return Response.json({ unsubscribed: true, removed: result.removed, target: result.target });
+});
 
 /**
  * A person clicking the link (or a link scanner fetching it, RFC 8058 §1, from memory) must not
  * unsubscribe anyone: GET only leads to the confirmation page, whose button does it.
  */
-export const GET = apiRoute(async (req) => {
+export const GET = publicRoute(async (req) => {
   const token = new URL(req.url).searchParams.get("token") ?? "";
   // A relative Location (RFC 9110 §10.2.2, from memory) keeps whatever host the person used.
   return new Response(null, { status: 303, headers: { Location: `/unsubscribe?token=${encodeURIComponent(token)}` } });
@@ -42,14 +35,11 @@ export const GET = apiRoute(async (req) => {
  * The body RFC 8058 names is `List-Unsubscribe=One-Click`, form-encoded. An empty body is
  * accepted (the token decides); a body that says something else is refused.
  */
-async function checkOneClickBody(req: Request): Promise<void> {
+async function checkOneClickBody(req: Request, form: () => Promise<FormData>): Promise<void> {
   const type = req.headers.get("content-type") ?? "";
   if (!type.includes("application/x-www-form-urlencoded") && !type.includes("multipart/form-data")) return;
-  let value: FormDataEntryValue | null;
-  try {
-    value = (await req.formData()).get("List-Unsubscribe");
-  } catch {
-    throw new AppError("bad_request", "The form body could not be read.");
-  }
+  const value = (await form()).get("List-Unsubscribe");
   if (value !== null && value !== "One-Click") throw new AppError("bad_request", "Expected List-Unsubscribe=One-Click.");
 }
+
+export const { HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ GET, POST });

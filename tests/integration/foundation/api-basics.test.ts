@@ -50,7 +50,7 @@ describe("health and identity", () => {
   });
 
   it("answers unknown API paths with the error shape, not an HTML page", async () => {
-    await expectErrorShape(await unknownApi(), 404, "not_found");
+    await expectErrorShape(await unknownApi(apiRequest("GET", "/api/no/such/thing", null)), 404, "not_found");
   });
 });
 

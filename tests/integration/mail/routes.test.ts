@@ -7,7 +7,7 @@ import { getDb } from "@/db/client";
 import { outbox, subscriptions } from "@/db/schema";
 import { env } from "@/lib/env";
 import { notifyTechniqueEvent } from "@/lib/mail/events";
-import { startFakeSmtp, type FakeSmtp } from "@/lib/mail/fake-smtp";
+import { startFakeSmtp, type FakeSmtp } from "@/scripts/fake-smtp/server";
 import { enqueueMail } from "@/lib/mail/outbox";
 import type { InboxMessage, OutboxItemResponse, OutboxListResponse } from "@/lib/mail/schemas";
 import { flushUntilIdle } from "@/lib/mail/sender";

@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as requestsRoute from "@/app/api/requests/route";
 import * as searchRoute from "@/app/api/search/route";
 import * as suggestRoute from "@/app/api/search/suggest/route";
-import { listRequests } from "@/lib/requests";
+import { listRequests } from "@/lib/requests/queries";
 import type { SearchApiResponse, SuggestApiResponse } from "@/lib/search-ui/params";
 import { createTechnique, retireTechnique, reviewTechnique, submitTechnique, updateTechnique } from "@/lib/techniques/mutations";
 import { rebuildSearchFromDb } from "@/lib/techniques/search-sync";

@@ -1,11 +1,11 @@
 import path from "node:path";
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { ROUTE_TABLE, routeFileOf } from "@/lib/auth/route-table";
+import { ROUTE_TABLE, routeFileOf } from "@/tests/integration/security/route-table";
 import { createUnsubscribeToken } from "@/lib/mail/unsubscribe";
-import { createRequest } from "@/lib/requests";
-import { askQuestion } from "@/lib/questions";
-import { logUse } from "@/lib/shots/mutations";
+import { createRequest } from "@/lib/requests/mutations";
+import { askQuestion } from "@/lib/questions/mutations";
+import { logUse } from "@/lib/uses/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
 import { createPerson, params, simpleDoc, type TestPerson } from "@/tests/factories";
 import { approvedTechnique, buildWorld, draftTechnique, expectErrorShape, inReviewTechnique, uniq, useTempFolders, type World } from "./world";
@@ -193,7 +193,7 @@ describe("every JSON route's handler under arbitrary and mutated bodies", () => 
   it("covers every route that reads a JSON body", () => {
     const fuzzed = new Set(targets().map((t) => `${t.method} ${t.path}`));
     expect([...fuzzed].sort()).toEqual([...FUZZED].sort());
-    // Routes whose handlers call parseJson, from the route table (kept in step by hand; a new JSON route belongs here).
+    // Routes whose handlers read a JSON body (`json()`), from the route table (kept in step by hand; a new JSON route belongs here).
     const jsonRoutes = ROUTE_TABLE.filter((e) => ["POST", "PUT", "PATCH", "DELETE"].includes(e.method)).map((e) => `${e.method} ${e.path}`);
     const bodyless = new Set([
       "POST /api/[...unknown]", "PUT /api/[...unknown]", "PATCH /api/[...unknown]", "DELETE /api/[...unknown]",

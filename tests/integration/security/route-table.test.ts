@@ -12,13 +12,13 @@ import {
   rolesPassing,
   routeFileOf,
   type RouteEntry,
-} from "@/lib/auth/route-table";
+} from "@/tests/integration/security/route-table";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { createUnsubscribeToken } from "@/lib/mail/unsubscribe";
 import { createApiToken } from "@/lib/people/mutations";
-import { askQuestion } from "@/lib/questions";
-import { createRequest } from "@/lib/requests";
-import { logUse } from "@/lib/shots/mutations";
+import { askQuestion } from "@/lib/questions/mutations";
+import { createRequest } from "@/lib/requests/mutations";
+import { logUse } from "@/lib/uses/mutations";
 import { createPair } from "@/lib/stills/mutations";
 import { createTag as createTagRow } from "@/lib/tags/mutations";
 import { createPerson, params, sessionCookie, simpleDoc, type TestPerson } from "@/tests/factories";
@@ -37,7 +37,7 @@ import {
 } from "./world";
 
 /*
- * Access control, complete (issue 9). Every route in lib/auth/route-table.ts is called as signed
+ * Access control, complete (issue 9). Every route in tests/integration/security/route-table.ts is called as signed
  * out, artist, senior, lead and admin, and as owner and non-owner where ownership decides.
  * Source: OWASP ASVS 4.0.3 V4.1.1 (access rules enforced on the server side, on every request)
  * and V4.1.3/V4.1.5 (least privilege, deny by default, fail securely) — section numbers from memory.
@@ -57,16 +57,25 @@ function routeFiles(): string[] {
     .sort();
 }
 
-async function exportedMethods(file: string): Promise<string[]> {
+const CATCH_ALL = "app/api/[...unknown]/route.ts";
+type RouteModule = Record<string, ((req: Request, ctx?: unknown) => Promise<Response>) | undefined>;
+
+/**
+ * The methods a route file declares: its `otherMethods({ … })` makes OPTIONS answer them in
+ * `Allow` (RFC 9110 §9.3.7). The catch-all declares every method (each answers 404).
+ */
+async function declaredMethods(file: string): Promise<string[]> {
   if (NOT_IMPORTABLE.has(file)) {
     const src = fs.readFileSync(file, "utf8");
-    const found = new Set<string>();
-    for (const m of src.matchAll(/export\s+(?:const|async\s+function|function)\s+(GET|POST|PUT|PATCH|DELETE)\b/g)) found.add(m[1]!);
-    for (const m of src.matchAll(/export\s+const\s*\{([^}]*)\}/g)) for (const name of m[1]!.split(",")) if ((HTTP_METHODS as readonly string[]).includes(name.trim())) found.add(name.trim());
-    return [...found].sort();
+    const names = /otherMethods\(\{([^}]*)\}\)/.exec(src)?.[1] ?? "";
+    return HTTP_METHODS.filter((m) => names.split(",").map((n) => n.trim()).includes(m));
   }
-  const mod = (await import(/* @vite-ignore */ path.resolve(file))) as Record<string, unknown>;
-  return HTTP_METHODS.filter((m) => typeof mod[m] === "function");
+  if (file === CATCH_ALL) return [...HTTP_METHODS];
+  const mod = (await import(/* @vite-ignore */ path.resolve(file))) as RouteModule;
+  const res = await mod.OPTIONS!(new Request("http://localhost/", { method: "OPTIONS" }), params({}));
+  expect(res.status, `OPTIONS ${file}`).toBe(204);
+  const allow = (res.headers.get("allow") ?? "").split(",").map((m) => m.trim());
+  return HTTP_METHODS.filter((m) => allow.includes(m));
 }
 
 describe("the route table is complete (a new route missing from it fails here)", () => {
@@ -74,11 +83,11 @@ describe("the route table is complete (a new route missing from it fails here)",
     const files = routeFiles();
     expect(files.length).toBeGreaterThan(40);
     const inCode = new Set<string>();
-    for (const file of files) for (const m of await exportedMethods(file)) inCode.add(`${m} ${file}`);
+    for (const file of files) for (const m of await declaredMethods(file)) inCode.add(`${m} ${file}`);
     const inTable = new Set(ROUTE_TABLE.map((e) => `${e.method} ${routeFileOf(e.path)}`));
     // Deny by default (ASVS V4.1.3, from memory): a handler nobody classified is a defect.
-    expect([...inCode].filter((k) => !inTable.has(k)), "exported but not in lib/auth/route-table.ts").toEqual([]);
-    expect([...inTable].filter((k) => !inCode.has(k)), "in the table but not exported").toEqual([]);
+    expect([...inCode].filter((k) => !inTable.has(k)), "declared but not in tests/integration/security/route-table.ts").toEqual([]);
+    expect([...inTable].filter((k) => !inCode.has(k)), "in the table but not declared").toEqual([]);
     expect(ROUTE_TABLE.length).toBe(inTable.size);
   });
 
@@ -97,9 +106,78 @@ describe("the route table is complete (a new route missing from it fails here)",
   });
 });
 
+describe("every route answers a method it does not serve (RFC 9110 §15.5.6 405, §9.3.2 HEAD, §9.3.7 OPTIONS)", () => {
+  const ALL_METHODS = ["GET", "HEAD", "OPTIONS", "POST", "PUT", "PATCH", "DELETE"] as const;
+
+  it("exports all seven methods from every route file, so the framework never answers with an empty 405", async () => {
+    for (const file of routeFiles()) {
+      if (NOT_IMPORTABLE.has(file)) {
+        // Read from the source: the declared methods and `otherMethods` for the rest.
+        expect(fs.readFileSync(file, "utf8"), file).toMatch(/export const \{ HEAD, OPTIONS(, \w+)* \} = otherMethods\(/);
+        continue;
+      }
+      const mod = (await import(/* @vite-ignore */ path.resolve(file))) as RouteModule;
+      expect(ALL_METHODS.filter((m) => typeof mod[m] !== "function"), file).toEqual([]);
+    }
+  });
+
+  it("answers 405 in the error shape with Allow naming exactly the methods served, before reading the body or the caller", { timeout: 120_000 }, async () => {
+    const lead = w.people.lead;
+    let checked = 0;
+    for (const file of routeFiles()) {
+      if (NOT_IMPORTABLE.has(file) || file === CATCH_ALL) continue;
+      const served = ROUTE_TABLE.filter((e) => routeFileOf(e.path) === file).map((e) => e.method as string);
+      const expectedAllow = new Set([...served, ...(served.includes("GET") ? ["HEAD"] : []), "OPTIONS"]);
+      const mod = (await import(/* @vite-ignore */ path.resolve(file))) as RouteModule;
+      for (const method of ALL_METHODS.filter((m) => !expectedAllow.has(m))) {
+        for (const who of [null, lead]) {
+          const headers = new Headers({ "Content-Type": "application/json" });
+          if (who) headers.set("Authorization", `Bearer ${who.token}`);
+          const withBody = method !== "HEAD" && method !== "GET";
+          const req = new Request("http://localhost/", { method, headers, body: withBody ? "{ not json" : undefined });
+          const res = await mod[method]!(req, params({}));
+          const label = `${method} ${file} as ${who ? "lead" : "nobody"}`;
+          expect(res.status, label).toBe(405);
+          expect(new Set((res.headers.get("allow") ?? "").split(",").map((m) => m.trim())), `${label} Allow`).toEqual(expectedAllow);
+          if (method === "HEAD") expect(await res.text(), `${label} HEAD has no content`).toBe("");
+          else expect((await expectErrorShape(res, label)).code).toBe("method_not_allowed");
+          checked += 1;
+        }
+      }
+      const options = await mod.OPTIONS!(new Request("http://localhost/", { method: "OPTIONS" }), params({}));
+      expect(options.status, `OPTIONS ${file}`).toBe(204);
+      expect(new Set((options.headers.get("allow") ?? "").split(",").map((m) => m.trim())), `OPTIONS ${file}`).toEqual(expectedAllow);
+    }
+    expect(checked).toBeGreaterThan(200);
+  });
+
+  it("answers HEAD like GET without the content", async () => {
+    const { GET, HEAD } = (await import("@/app/api/me/route")) as RouteModule;
+    const headers = { Authorization: `Bearer ${w.people.senior.token}` };
+    const get = await GET!(new Request("http://localhost/api/me", { headers }), params({}));
+    const head = await HEAD!(new Request("http://localhost/api/me", { method: "HEAD", headers }), params({}));
+    expect(head.status).toBe(200);
+    expect(head.headers.get("content-type")).toBe(get.headers.get("content-type"));
+    expect(head.headers.get("cache-control")).toBe("private, no-store");
+    expect(await head.text()).toBe("");
+    expect((await get.json()).email).toBe(w.people.senior.email);
+    const anon = await HEAD!(new Request("http://localhost/api/me", { method: "HEAD" }), params({}));
+    expect(anon.status).toBe(401);
+  });
+
+  it("answers every method of an unknown path with 404 in the error shape", async () => {
+    const mod = (await import(/* @vite-ignore */ path.resolve(CATCH_ALL))) as RouteModule;
+    for (const method of ALL_METHODS) {
+      const res = await mod[method]!(new Request("http://localhost/api/no/such", { method }), params({ unknown: ["no", "such"] }));
+      expect(res.status, method).toBe(404);
+      if (method !== "HEAD") expect((await expectErrorShape(res, method)).code).toBe("not_found");
+    }
+  });
+});
+
 // ---------------------------------------------------------------------------------------------
 
-type Prep = { url: string; body?: unknown; params?: Record<string, string>; headers?: Record<string, string>; form?: FormData };
+type Prep = { url: string; body?: unknown; raw?: string; params?: Record<string, string>; headers?: Record<string, string>; form?: FormData };
 type Case = {
   /** Status an allowed caller gets with these fixtures. */
   ok: number;
@@ -360,7 +438,10 @@ async function call(entry: RouteEntry, prep: Prep, caller: TestPerson | null, au
   if (caller && auth === "cookie") headers.set("Cookie", await sessionCookie(caller));
   let body: BodyInit | undefined;
   if (prep.form) body = prep.form;
-  else if (prep.body !== undefined) {
+  else if (prep.raw !== undefined) {
+    headers.set("Content-Type", "application/json");
+    body = prep.raw;
+  } else if (prep.body !== undefined) {
     headers.set("Content-Type", "application/json");
     body = JSON.stringify(prep.body);
   }
@@ -386,7 +467,7 @@ async function expectStatus(res: Response, status: number, label: string): Promi
 beforeAll(async () => {
   folders = useTempFolders();
   w = await buildWorld();
-  // One received message in the local inbox, as lib/mail/fake-smtp.ts files them.
+  // One received message in the local inbox, as scripts/fake-smtp/server.ts files them.
   const inbox = path.join(folders.data, "mail-inbox");
   fs.mkdirSync(inbox, { recursive: true });
   fs.writeFileSync(
@@ -432,6 +513,14 @@ describe("every route as signed out, artist, senior, lead and admin (ASVS V4.1.1
         const res = await call(entry, await c.prep(me), me);
         // Roles below the minimum: 403; allowed roles: the route's answer, never 401/403/500.
         await expectStatus(res, passing.includes(role) ? c.ok : 403, `${label} as ${role}`);
+        if (!passing.includes(role) && entry.method !== "GET") {
+          // The role is checked before the body is read: a refused role learns nothing about the
+          // body's rules from field errors (OWASP ASVS 4.0.3 V4.1.1, V4.1.5 fail securely, from memory).
+          const garbage = await call(entry, { ...(await c.prep(me)), body: undefined, form: undefined, raw: "{ not json" }, me);
+          await expectStatus(garbage, 403, `${label} as ${role} with a malformed body`);
+          const wrongShape = await call(entry, { ...(await c.prep(me)), body: { title: 1, rows: "x", into: [], role: "boss" }, form: undefined }, me);
+          await expectStatus(wrongShape, 403, `${label} as ${role} with a wrong-shaped body`);
+        }
       }
 
       if (entry.trialStills) {

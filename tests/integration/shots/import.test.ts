@@ -5,7 +5,8 @@ import { auditLog, shots, shows } from "@/db/schema";
 import * as showsRoute from "@/app/api/shows/route";
 import * as showRoute from "@/app/api/shows/[code]/route";
 import * as showShotsRoute from "@/app/api/shows/[code]/shots/route";
-import type { ImportShotsResponse, ShotsResponse, ShowResponse, ShowsResponse } from "@/lib/shots/schemas";
+import type { ImportShotsResponse, ShotsResponse } from "@/lib/shots/schemas";
+import type { ShowResponse, ShowsResponse } from "@/lib/shows/schemas";
 import { ctx, makePerson, request, type ErrorJson, type Person } from "./factories";
 
 // Shot codes SHOW_SEQ_SHOT (e.g. SLM_040_0120): common practice, no published source.

@@ -3,7 +3,8 @@ import * as showShotsRoute from "@/app/api/shows/[code]/shots/route";
 import * as techniqueUsesRoute from "@/app/api/techniques/[slug]/uses/route";
 import * as useRoute from "@/app/api/uses/[id]/route";
 import { getSearchIndex } from "@/lib/search";
-import type { ImportShotsResponse, UseResponse } from "@/lib/shots/schemas";
+import type { ImportShotsResponse } from "@/lib/shots/schemas";
+import type { UseResponse } from "@/lib/uses/schemas";
 import { ctx, makePerson, makeShot, makeShow, makeTechnique, request, type Person } from "./factories";
 
 // Our own behaviour, no outside source: shared/PRODUCT.md lists shot codes among the fields

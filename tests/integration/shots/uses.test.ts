@@ -6,8 +6,9 @@ import * as shotRoute from "@/app/api/shots/[code]/route";
 import * as shotSearchRoute from "@/app/api/shots/route";
 import * as techniqueUsesRoute from "@/app/api/techniques/[slug]/uses/route";
 import * as useRoute from "@/app/api/uses/[id]/route";
-import { shotCodesForTechnique, shotsToFollowUp } from "@/lib/shots/queries";
-import type { ShotDetailResponse, ShotSearchResponse, TechniqueUsesResponse, UseResponse } from "@/lib/shots/schemas";
+import { shotCodesForTechnique, shotsToFollowUp } from "@/lib/uses/queries";
+import type { ShotDetailResponse, ShotSearchResponse } from "@/lib/shots/schemas";
+import type { TechniqueUsesResponse, UseResponse } from "@/lib/uses/schemas";
 import { ctx, makePerson, makeShot, makeShow, makeStill, makeTechnique, request, type ErrorJson, type Person } from "./factories";
 
 // Rules under test come from shared/PRODUCT.md (roles table: anyone logs a use; people edit or

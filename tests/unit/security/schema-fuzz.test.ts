@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { labRunRequestSchema, recipeSchema, RECIPE_OPS } from "@/lib/lab/recipe";
 import { planImport, readShotCsv, type ImportRow } from "@/lib/shots/csv";
-import { DEFAULT_SHOT_PATTERN } from "@/lib/shots/schemas";
+import { DEFAULT_SHOT_PATTERN } from "@/lib/shows/schemas";
 import { techniqueDocumentSchema } from "@/lib/techniques/document";
 import { renderDocumentToHtml } from "@/lib/techniques/render";
 

@@ -1,15 +1,17 @@
 import { describe, expect, it } from "vitest";
-import { DEMO_PASSWORD, DEMO_PEOPLE } from "@/db/seed-data/people";
-import { DEMO_TAGS } from "@/db/seed-data/tags";
-import { DEMO_SHOWS } from "@/db/seed-data/shows";
-import { DEMO_TECHNIQUES, type DemoLifecycle } from "@/db/seed-data/techniques";
-import { b, code, codeBlock, doc, li, md, p, table, ul } from "@/db/seed-data/doc";
+import { DEMO_PASSWORD, DEMO_PEOPLE } from "@/scripts/seed/data/people";
+import { DEMO_TAGS } from "@/scripts/seed/data/tags";
+import { DEMO_SHOWS } from "@/scripts/seed/data/shows";
+import { DEMO_TECHNIQUES, type DemoLifecycle } from "@/scripts/seed/data/techniques";
+import { b, code, codeBlock, doc, li, md, p, table, ul } from "@/scripts/seed/data/doc";
 import { findDocumentIssues, techniqueDocumentSchema } from "@/lib/techniques/document";
 import { documentToPlainText } from "@/lib/techniques/plain-text";
 import { createTechniqueSchema, updateTechniqueSchema } from "@/lib/techniques/schemas";
 import { slugify } from "@/lib/techniques/slug";
 import { tagInputSchema } from "@/lib/tags/schemas";
-import { logUseSchema, shotRowSchema, showSchema } from "@/lib/shots/schemas";
+import { shotRowSchema } from "@/lib/shots/schemas";
+import { showSchema } from "@/lib/shows/schemas";
+import { logUseSchema } from "@/lib/uses/schemas";
 import { MARKER_COLOURS, SCREEN_COLOURS } from "@/lib/lab/synthetic";
 import { solveRow } from "@/lib/lab/solver";
 

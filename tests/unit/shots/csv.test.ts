@@ -1,7 +1,7 @@
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
 import { csvRecordsToRows, guessMapping, planImport, readShotCsv, shotsToCsv, type ExistingShot, type ExportableShot, type ImportRow } from "@/lib/shots/csv";
-import { DEFAULT_SHOT_PATTERN } from "@/lib/shots/schemas";
+import { DEFAULT_SHOT_PATTERN } from "@/lib/shows/schemas";
 
 // Shot codes SHOW_SEQ_SHOT (e.g. SLM_040_0120): common practice, no published source.
 // CSV syntax (quotes, doubled quotes, CRLF records, header row): RFC 4180, sections 2.1–2.7.

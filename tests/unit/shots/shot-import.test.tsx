@@ -4,7 +4,8 @@ import { createRoot, type Root } from "react-dom/client";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { ShotImport } from "@/components/shots/shot-import";
 import { csvRecordsToRows, planImport, readShotCsv } from "@/lib/shots/csv";
-import { columnMappingSchema, DEFAULT_SHOT_PATTERN, type ImportShotsResponse } from "@/lib/shots/schemas";
+import { columnMappingSchema, type ImportShotsResponse } from "@/lib/shots/schemas";
+import { DEFAULT_SHOT_PATTERN } from "@/lib/shows/schemas";
 
 // The "server" here is the real planner on the posted CSV, so the preview shows what the
 // import code decides; only the network is replaced.

@@ -8,7 +8,8 @@ import { patternAccepts } from "@/components/shots/show-forms";
 import { frameRange } from "@/lib/shots/format";
 import { ShotUses } from "@/components/shots/shot-uses";
 import { matchesTechnique } from "@/components/shots/technique-picker";
-import { DEFAULT_SHOT_PATTERN, type ShotUseResponse } from "@/lib/shots/schemas";
+import { DEFAULT_SHOT_PATTERN } from "@/lib/shows/schemas";
+import type { ShotUseResponse } from "@/lib/uses/schemas";
 import type { TechniqueListResponse } from "@/lib/techniques/schemas";
 
 // The rules checked here are our own (shared/PRODUCT.md "Shows and shots" and issue 7): a use is

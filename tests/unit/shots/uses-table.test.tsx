@@ -3,7 +3,7 @@ import { act } from "react";
 import { createRoot } from "react-dom/client";
 import { describe, expect, it, vi } from "vitest";
 import { UsesTable } from "@/components/shots/uses-table";
-import type { UseResponse } from "@/lib/shots/schemas";
+import type { UseResponse } from "@/lib/uses/schemas";
 
 vi.mock("next/link", () => ({ default: ({ children, href }: { children: React.ReactNode; href: string }) => <a href={href}>{children}</a> }));
 

@@ -4,14 +4,15 @@ import { TechniqueList } from "@/components/techniques/technique-list";
 import { SubscribeButton } from "@/components/subscriptions/subscribe-button";
 import { loadOrNotFound } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
-import { getTag, listTechniques } from "@/lib/techniques/queries";
+import { getTag } from "@/lib/tags/queries";
+import { listTechniques } from "@/lib/techniques/queries";
 
 export const metadata: Metadata = { title: "Problem" };
 
 export default async function ProblemPage({ params }: { params: Promise<{ slug: string }> }) {
   const user = await requireUser();
   const { slug } = await params;
-  const { tag } = await loadOrNotFound(() => getTag(slug));
+  const { tag } = await loadOrNotFound(() => getTag(user, slug));
   const { items } = await listTechniques(user, { tag: slug, limit: 200 });
   // The department's approved method first, then approved ones, then the rest; retired last.
   const rank = (t: (typeof items)[number]) => (t.isHouseMethodFor.includes(slug) ? 0 : t.status === "approved" ? 1 : t.status === "retired" ? 3 : 2);

@@ -12,9 +12,10 @@ import { loadOrNotFound } from "@/lib/api/page-guards";
 import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
 import { SHOTS_PAGE_SIZE } from "@/lib/shots/format";
-import { getShow, listShots } from "@/lib/shots/queries";
+import { listShots } from "@/lib/shots/queries";
+import { getShow } from "@/lib/shows/queries";
 import { paramValue } from "@/lib/shots/params";
-import { SHOW_KIND_LABELS, SHOW_STATE_LABELS } from "@/lib/shots/schemas";
+import { SHOW_KIND_LABELS, SHOW_STATE_LABELS } from "@/lib/shows/schemas";
 
 type Props = { params: Promise<{ code: string }> };
 

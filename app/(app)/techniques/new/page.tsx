@@ -3,7 +3,7 @@ import { TechniqueForm } from "@/components/techniques/technique-form";
 import { assertCan } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
 import { emptyDocument } from "@/lib/techniques/document";
-import { listTags } from "@/lib/techniques/queries";
+import { listTags } from "@/lib/tags/queries";
 
 export const metadata: Metadata = { title: "Write a technique" };
 
@@ -11,7 +11,7 @@ export default async function NewTechniquePage({ searchParams }: { searchParams:
   const user = await requireUser();
   assertCan(user, "technique:write");
   const sp = await searchParams;
-  const tags = (await listTags()).map(({ slug, name, kind }) => ({ slug, name, kind }));
+  const tags = (await listTags(user)).map(({ slug, name, kind }) => ({ slug, name, kind }));
   const requestId = typeof sp.request === "string" && /^[0-9a-f-]{36}$/.test(sp.request) ? sp.request : undefined;
   return (
     <div className="mx-auto max-w-4xl space-y-4">

@@ -1,6 +1,4 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { assertCan } from "@/lib/auth/permissions";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { labRunRequestSchema } from "@/lib/lab/recipe";
 import { labRunHeaders, runLabFor } from "@/lib/lab/service";
 
@@ -12,10 +10,8 @@ export const runtime = "nodejs";
  * the encoded image, with step reports in `X-Lab-Report` (base64url JSON) and `X-Lab-Render:
  * exact | approximate`; `?report=1` answers the reports as JSON instead of the image.
  */
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  assertCan(user, "lab:run");
-  const input = await parseJson(req, labRunRequestSchema);
+export const POST = authedRoute("lab:run", async (req, { user, json }) => {
+  const input = await json(labRunRequestSchema);
   const out = await runLabFor(user, input);
   if (new URL(req.url).searchParams.get("report") === "1") {
     const { width, height, contentType, cached, approximate, reports } = out;
@@ -26,3 +22,5 @@ export const POST = apiRoute(async (req) => {
     headers: { "Content-Type": out.contentType, "Content-Length": String(out.bytes.length), "Cache-Control": "private, no-store", ...labRunHeaders(out) },
   });
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

@@ -1,6 +1,4 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { assertCan } from "@/lib/auth/permissions";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { labSampleRequestSchema, type LabSampleResponse } from "@/lib/lab/analysis-schemas";
 import { sampleLab } from "@/lib/lab/service";
 
@@ -8,9 +6,9 @@ export const dynamic = "force-dynamic";
 export const runtime = "nodejs";
 
 /** POST /api/lab/sample: mean RGB floats of boxes on the full-resolution still (the solver's samples). */
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  assertCan(user, "lab:run");
-  const input = await parseJson(req, labSampleRequestSchema);
+export const POST = authedRoute("lab:run", async (req, { user, json }) => {
+  const input = await json(labSampleRequestSchema);
   return Response.json((await sampleLab(user, input)) satisfies LabSampleResponse);
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

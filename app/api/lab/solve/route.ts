@@ -1,17 +1,13 @@
 import { AppError } from "@/lib/api/errors";
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { assertCan } from "@/lib/auth/permissions";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { labSolveRequestSchema, type LabSolveResponse } from "@/lib/lab/recipe";
 import { solveRow } from "@/lib/lab/solver";
 
 export const dynamic = "force-dynamic";
 
 /** POST /api/lab/solve (shared/API.md "The lab"): one channel's matrix row from picked samples. */
-export const POST = apiRoute(async (req) => {
-  const user = await requireUser(req);
-  assertCan(user, "lab:run");
-  const input = await parseJson(req, labSolveRequestSchema);
+export const POST = authedRoute("lab:run", async (req, { json }) => {
+  const input = await json(labSolveRequestSchema);
   const result = solveRow(input);
   // Degenerate samples (e.g. a screen of pure black) can leave nothing to solve for.
   if (![...result.row, result.residual, result.noiseGain].every(Number.isFinite)) {
@@ -21,3 +17,5 @@ export const POST = apiRoute(async (req) => {
   }
   return Response.json(result satisfies LabSolveResponse);
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

@@ -1,19 +1,18 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
-import { updateShow } from "@/lib/shots/mutations";
-import { getShow } from "@/lib/shots/queries";
-import { updateShowSchema, type ShowResponse } from "@/lib/shots/schemas";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
+import { updateShow } from "@/lib/shows/mutations";
+import { getShow } from "@/lib/shows/queries";
+import { updateShowSchema, type ShowResponse } from "@/lib/shows/schemas";
 
 type Params = { code: string };
 
-export const GET = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  return Response.json((await getShow(user, (await ctx.params).code)) satisfies ShowResponse);
+export const GET = authedRoute<Params>(async (req, { user, params }) => {
+  return Response.json((await getShow(user, params.code)) satisfies ShowResponse);
 });
 
 /** Leads only; the code itself cannot change (it is part of every shot code). */
-export const PATCH = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, updateShowSchema);
-  return Response.json((await updateShow(user, (await ctx.params).code, input)) satisfies ShowResponse);
+export const PATCH = authedRoute<Params>("show:manage", async (req, { user, params, json }) => {
+  const input = await json(updateShowSchema);
+  return Response.json((await updateShow(user, params.code, input)) satisfies ShowResponse);
 });
+
+export const { HEAD, OPTIONS, POST, PUT, DELETE } = otherMethods({ GET, PATCH });

@@ -1,5 +1,5 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { BODY_LIMITS } from "@/lib/api/body-limits";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { updateTechnique } from "@/lib/techniques/mutations";
 import { getTechnique } from "@/lib/techniques/queries";
 import { updateTechniqueSchema } from "@/lib/techniques/schemas";
@@ -7,14 +7,14 @@ import { updateTechniqueSchema } from "@/lib/techniques/schemas";
 type Params = { slug: string };
 
 /** Readers get the approved revision; seniors and leads the newest. A renamed slug still answers. */
-export const GET = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const { renamedFrom: _renamedFrom, ...technique } = await getTechnique(user, (await ctx.params).slug);
+export const GET = authedRoute<Params>(async (req, { user, params }) => {
+  const { renamedFrom: _renamedFrom, ...technique } = await getTechnique(user, params.slug);
   return Response.json(technique);
 });
 
-export const PUT = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, updateTechniqueSchema);
-  return Response.json(await updateTechnique(user, (await ctx.params).slug, input));
+export const PUT = authedRoute<Params>({ permission: "technique:write", bodyLimit: BODY_LIMITS.document }, async (req, { user, params, json }) => {
+  const input = await json(updateTechniqueSchema);
+  return Response.json(await updateTechnique(user, params.slug, input));
 });
+
+export const { HEAD, OPTIONS, POST, PATCH, DELETE } = otherMethods({ GET, PUT });

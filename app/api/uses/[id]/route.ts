@@ -1,25 +1,23 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
-import { deleteUse, updateUse } from "@/lib/shots/mutations";
-import { getUse } from "@/lib/shots/queries";
-import { updateUseSchema, type UseResponse } from "@/lib/shots/schemas";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
+import { deleteUse, updateUse } from "@/lib/uses/mutations";
+import { getUse } from "@/lib/uses/queries";
+import { updateUseSchema, type UseResponse } from "@/lib/uses/schemas";
 
 type Params = { id: string };
 
-export const GET = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  return Response.json((await getUse(user, (await ctx.params).id)) satisfies UseResponse);
+export const GET = authedRoute<Params>(async (req, { user, params }) => {
+  return Response.json((await getUse(user, params.id)) satisfies UseResponse);
 });
 
 /** The log's author, or a lead. */
-export const PATCH = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, updateUseSchema);
-  return Response.json((await updateUse(user, (await ctx.params).id, input)) satisfies UseResponse);
+export const PATCH = authedRoute<Params>(async (req, { user, params, json }) => {
+  const input = await json(updateUseSchema);
+  return Response.json((await updateUse(user, params.id, input)) satisfies UseResponse);
 });
 
-export const DELETE = apiRoute<Params>(async (req, ctx) => {
-  const user = await requireUser(req);
-  await deleteUse(user, (await ctx.params).id);
+export const DELETE = authedRoute<Params>(async (req, { user, params }) => {
+  await deleteUse(user, params.id);
   return new Response(null, { status: 204 });
 });
+
+export const { HEAD, OPTIONS, POST, PUT } = otherMethods({ GET, PATCH, DELETE });

@@ -5,7 +5,8 @@ import { Refused } from "@/components/ui/refused";
 import { loadOrNotFound } from "@/lib/api/page-guards";
 import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
-import { getTechnique, listTags } from "@/lib/techniques/queries";
+import { listTags } from "@/lib/tags/queries";
+import { getTechnique } from "@/lib/techniques/queries";
 
 export const metadata: Metadata = { title: "Edit technique" };
 
@@ -15,7 +16,7 @@ export default async function EditTechniquePage({ params }: { params: Promise<{ 
   const { slug } = await params;
   const t = await loadOrNotFound(() => getTechnique(user, slug));
   if (t.renamedFrom) redirect(`/techniques/${t.slug}/edit`);
-  const tags = (await listTags()).map(({ slug: s, name, kind }) => ({ slug: s, name, kind }));
+  const tags = (await listTags(user)).map(({ slug: s, name, kind }) => ({ slug: s, name, kind }));
   return (
     <div className="mx-auto max-w-4xl space-y-4">
       <h1 className="text-2xl font-semibold">Edit: {t.title}</h1>

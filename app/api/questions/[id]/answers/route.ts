@@ -1,11 +1,12 @@
-import { apiRoute, parseJson, parseWith, uuidParam } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
-import { answerQuestion } from "@/lib/questions";
-import { answerSchema } from "@/lib/techniques/schemas";
+import { BODY_LIMITS } from "@/lib/api/body-limits";
+import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
+import { answerQuestion } from "@/lib/questions/mutations";
+import { answerSchema } from "@/lib/questions/schemas";
 
-export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const id = parseWith(uuidParam, (await ctx.params).id);
-  const { body } = await parseJson(req, answerSchema);
+export const POST = authedRoute<{ id: string }>({ bodyLimit: BODY_LIMITS.document }, async (req, { user, params, json }) => {
+  const id = parseWith(uuidParam, params.id);
+  const { body } = await json(answerSchema);
   return Response.json(await answerQuestion(user, id, body), { status: 201 });
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

@@ -1,9 +1,9 @@
-import { apiRoute, parseWith, uuidParam } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
-import { resolveQuestion } from "@/lib/questions";
+import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
+import { resolveQuestion } from "@/lib/questions/mutations";
 
-export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  await resolveQuestion(user, parseWith(uuidParam, (await ctx.params).id));
+export const POST = authedRoute<{ id: string }>(async (req, { user, params }) => {
+  await resolveQuestion(user, parseWith(uuidParam, params.id));
   return Response.json({ resolved: true });
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

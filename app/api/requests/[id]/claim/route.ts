@@ -1,9 +1,9 @@
-import { apiRoute, parseWith, uuidParam } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
-import { claimRequest } from "@/lib/requests";
+import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
+import { claimRequest } from "@/lib/requests/mutations";
 
-export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  await claimRequest(user, parseWith(uuidParam, (await ctx.params).id));
+export const POST = authedRoute<{ id: string }>("request:claim", async (req, { user, params }) => {
+  await claimRequest(user, parseWith(uuidParam, params.id));
   return Response.json({ claimed: true });
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

@@ -1,7 +1,6 @@
 import { z } from "zod";
 import { AppError } from "@/lib/api/errors";
-import { apiRoute, parseWith, uuidParam } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
 import { getStillForRead } from "@/lib/stills/queries";
 import { STILL_VARIANTS } from "@/lib/stills/schemas";
 import { serveStillFile } from "@/lib/stills/serve";
@@ -11,12 +10,12 @@ export const runtime = "nodejs";
 
 const variantParam = z.enum(STILL_VARIANTS);
 
-export const GET = apiRoute<{ id: string; variant: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const params = await ctx.params;
+export const GET = authedRoute<{ id: string; variant: string }>(async (req, { user, params }) => {
   const id = parseWith(uuidParam, params.id);
   const variant = variantParam.safeParse(params.variant);
   if (!variant.success) throw new AppError("not_found", "Variants are original, preview and thumb.");
   const still = await getStillForRead(user, id);
   return serveStillFile(req, still, variant.data);
 });
+
+export const { HEAD, OPTIONS, POST, PUT, PATCH, DELETE } = otherMethods({ GET });

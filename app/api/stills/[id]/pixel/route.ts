@@ -1,5 +1,4 @@
-import { apiRoute, parseWith, searchParamsOf, uuidParam } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, searchParamsOf, uuidParam } from "@/lib/api/handler";
 import { readPixel } from "@/lib/stills/pixels";
 import { getStillForRead } from "@/lib/stills/queries";
 import { pixelQuerySchema, type PixelResponse } from "@/lib/stills/schemas";
@@ -7,10 +6,11 @@ import { pixelQuerySchema, type PixelResponse } from "@/lib/stills/schemas";
 export const dynamic = "force-dynamic";
 export const runtime = "nodejs";
 
-export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const id = parseWith(uuidParam, (await ctx.params).id);
+export const GET = authedRoute<{ id: string }>(async (req, { user, params }) => {
+  const id = parseWith(uuidParam, params.id);
   const { x, y } = parseWith(pixelQuerySchema, searchParamsOf(req));
   const still = await getStillForRead(user, id);
   return Response.json((await readPixel(still, x, y)) satisfies PixelResponse);
 });
+
+export const { HEAD, OPTIONS, POST, PUT, PATCH, DELETE } = otherMethods({ GET });

@@ -1,10 +1,10 @@
-import { apiRoute, parseWith, uuidParam } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods, parseWith, uuidParam } from "@/lib/api/handler";
 import { deletePair } from "@/lib/stills/mutations";
 
-export const DELETE = apiRoute<{ id: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const id = parseWith(uuidParam, (await ctx.params).id);
+export const DELETE = authedRoute<{ id: string }>("still:upload", async (req, { user, params }) => {
+  const id = parseWith(uuidParam, params.id);
   await deletePair(user, id);
   return new Response(null, { status: 204 });
 });
+
+export const { GET, HEAD, OPTIONS, POST, PUT, PATCH } = otherMethods({ DELETE });

@@ -1,15 +1,15 @@
 import { z } from "zod";
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { setHouseMethod } from "@/lib/techniques/mutations";
 import { slugSchema } from "@/lib/techniques/schemas";
 
 const bodySchema = z.object({ technique: slugSchema.nullable() });
 
 /** Sets or clears the department's approved method for a problem tag. */
-export const PUT = apiRoute<{ slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const { technique } = await parseJson(req, bodySchema);
-  await setHouseMethod(user, (await ctx.params).slug, technique);
-  return Response.json({ tag: (await ctx.params).slug, technique });
+export const PUT = authedRoute<{ slug: string }>("technique:set-house-method", async (req, { user, params, json }) => {
+  const { technique } = await json(bodySchema);
+  await setHouseMethod(user, params.slug, technique);
+  return Response.json({ tag: params.slug, technique });
 });
+
+export const { GET, HEAD, OPTIONS, POST, PATCH, DELETE } = otherMethods({ PUT });

@@ -1,11 +1,11 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { mergeTags } from "@/lib/tags/mutations";
 import { tagMergeSchema } from "@/lib/tags/schemas";
 
-export const POST = apiRoute<{ slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const { into } = await parseJson(req, tagMergeSchema);
-  const tag = await mergeTags(user, (await ctx.params).slug, into);
+export const POST = authedRoute<{ slug: string }>("tag:manage", async (req, { user, params, json }) => {
+  const { into } = await json(tagMergeSchema);
+  const tag = await mergeTags(user, params.slug, into);
   return Response.json({ slug: tag.slug, name: tag.name, kind: tag.kind, aliases: tag.aliases });
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

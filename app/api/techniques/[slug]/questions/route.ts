@@ -1,15 +1,16 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
-import { askQuestion, listQuestions } from "@/lib/questions";
-import { questionSchema } from "@/lib/techniques/schemas";
+import { BODY_LIMITS } from "@/lib/api/body-limits";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
+import { askQuestion } from "@/lib/questions/mutations";
+import { listQuestions } from "@/lib/questions/queries";
+import { questionSchema } from "@/lib/questions/schemas";
 
-export const GET = apiRoute<{ slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  return Response.json({ items: await listQuestions(user, (await ctx.params).slug) });
+export const GET = authedRoute<{ slug: string }>(async (req, { user, params }) => {
+  return Response.json({ items: await listQuestions(user, params.slug) });
 });
 
-export const POST = apiRoute<{ slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const { body } = await parseJson(req, questionSchema);
-  return Response.json(await askQuestion(user, (await ctx.params).slug, body), { status: 201 });
+export const POST = authedRoute<{ slug: string }>({ permission: "question:ask", bodyLimit: BODY_LIMITS.document }, async (req, { user, params, json }) => {
+  const { body } = await json(questionSchema);
+  return Response.json(await askQuestion(user, params.slug, body), { status: 201 });
 });
+
+export const { HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ GET, POST });

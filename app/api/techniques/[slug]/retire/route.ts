@@ -1,10 +1,10 @@
-import { apiRoute, parseJson } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { retireTechnique } from "@/lib/techniques/mutations";
 import { retireSchema } from "@/lib/techniques/schemas";
 
-export const POST = apiRoute<{ slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  const input = await parseJson(req, retireSchema);
-  return Response.json(await retireTechnique(user, (await ctx.params).slug, input));
+export const POST = authedRoute<{ slug: string }>("technique:retire", async (req, { user, params, json }) => {
+  const input = await json(retireSchema);
+  return Response.json(await retireTechnique(user, params.slug, input));
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

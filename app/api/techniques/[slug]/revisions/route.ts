@@ -1,8 +1,8 @@
-import { apiRoute } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { listRevisions } from "@/lib/techniques/queries";
 
-export const GET = apiRoute<{ slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  return Response.json(await listRevisions(user, (await ctx.params).slug));
+export const GET = authedRoute<{ slug: string }>(async (req, { user, params }) => {
+  return Response.json(await listRevisions(user, params.slug));
 });
+
+export const { HEAD, OPTIONS, POST, PUT, PATCH, DELETE } = otherMethods({ GET });

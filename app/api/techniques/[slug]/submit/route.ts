@@ -1,8 +1,8 @@
-import { apiRoute } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth/session";
+import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { submitTechnique } from "@/lib/techniques/mutations";
 
-export const POST = apiRoute<{ slug: string }>(async (req, ctx) => {
-  const user = await requireUser(req);
-  return Response.json(await submitTechnique(user, (await ctx.params).slug));
+export const POST = authedRoute<{ slug: string }>("technique:submit", async (req, { user, params }) => {
+  return Response.json(await submitTechnique(user, params.slug));
 });
+
+export const { GET, HEAD, OPTIONS, PUT, PATCH, DELETE } = otherMethods({ POST });

@@ -1,5 +1,5 @@
 import type { BlockNode, TechniqueDocument } from "@/lib/techniques/document";
-import { b, caution, codeBlock, doc, fails, h2, h3, i, link, ol, p, table, ul, works } from "@/db/seed-data/doc";
+import { b, caution, codeBlock, doc, fails, h2, h3, i, link, ol, p, table, ul, works } from "@/scripts/seed/data/doc";
 
 /*
  * Demo techniques for Kestrel Yard's paint and prep department. Invented write-ups in our own
@@ -8,10 +8,10 @@ import { b, caution, codeBlock, doc, fails, h2, h3, i, link, ol, p, table, ul, w
  */
 
 export type DemoLifecycle = "approved" | "in-review-edit" | "draft" | "in-review" | "retired-superseded";
-export type DemoUseOutcome = "clean" | "touch-up" | "failed";
-export type DemoUse = { shot: string; outcome: DemoUseOutcome; note: string; by: string };
+type DemoUseOutcome = "clean" | "touch-up" | "failed";
+type DemoUse = { shot: string; outcome: DemoUseOutcome; note: string; by: string };
 /** A revision made after approval that waits for review (lifecycle "in-review-edit"). */
-export type DemoEdit = { summary?: string; bodyAppend: BlockNode[]; changeNote: string };
+type DemoEdit = { summary?: string; bodyAppend: BlockNode[]; changeNote: string };
 
 export type DemoTechnique = {
   key: string;

@@ -4,8 +4,8 @@
  * 1001, the usual head-handle convention (common practice, no published source).
  */
 
-export type DemoShotState = "waiting" | "in_prep" | "cleaned" | "on_hold";
-export type DemoShot = {
+type DemoShotState = "waiting" | "in_prep" | "cleaned" | "on_hold";
+type DemoShot = {
   code: string;
   sequence: string;
   description: string;
@@ -13,7 +13,7 @@ export type DemoShot = {
   frameEnd: number;
   state: DemoShotState;
 };
-export type DemoShow = { code: string; name: string; kind: "feature" | "series"; shots: DemoShot[] };
+type DemoShow = { code: string; name: string; kind: "feature" | "series"; shots: DemoShot[] };
 
 export const DEMO_SHOWS: readonly DemoShow[] = [
   {

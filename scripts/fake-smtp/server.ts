@@ -1,17 +1,10 @@
-import "server-only";
 import crypto from "node:crypto";
 import fs from "node:fs/promises";
 import path from "node:path";
 import type { AddressInfo } from "node:net";
 import { simpleParser, type AddressObject } from "mailparser";
 import { SMTPServer } from "smtp-server";
-import { env } from "@/lib/env";
 import type { InboxMessage } from "@/lib/mail/schemas";
-
-/** Where the demo's fake server keeps what it receives, and where the admin mail view reads it. */
-export function inboxDir(): string {
-  return path.resolve(env.PLATEROOM_DATA_DIR, "mail-inbox");
-}
 
 export type FakeSmtp = {
   port: number;
@@ -153,38 +146,4 @@ export async function startFakeSmtp(opts: {
     },
     stop: () => new Promise<void>((resolve) => server.close(() => resolve())),
   };
-}
-
-/** What a fake server stored in `dir`, newest first; a missing folder is an empty inbox. */
-export async function readInbox(dir: string = inboxDir(), opts: { limit?: number } = {}): Promise<InboxMessage[]> {
-  let names: string[];
-  try {
-    names = await fs.readdir(dir);
-  } catch {
-    return [];
-  }
-  const files = names
-    .filter((n) => n.endsWith(".json"))
-    .sort()
-    .reverse()
-    .slice(0, opts.limit ?? 200);
-  const out: InboxMessage[] = [];
-  for (const file of files) {
-    try {
-      out.push(JSON.parse(await fs.readFile(path.join(dir, file), "utf8")) as InboxMessage);
-    } catch {
-      // A message still being written, or a stray file: skip it rather than fail the whole view.
-    }
-  }
-  return out;
-}
-
-/** The raw message exactly as received, for "download .eml". Ids are checked so no other file can be read. */
-export async function readInboxRaw(id: string, dir: string = inboxDir()): Promise<Buffer | null> {
-  if (!/^[0-9]{14}-[0-9]{6}-[0-9a-f]{8}$/.test(id)) return null;
-  try {
-    return await fs.readFile(path.join(dir, `${id}.eml`));
-  } catch {
-    return null;
-  }
 }

@@ -4,8 +4,8 @@
  * lowercase and hyphenated.
  */
 
-export type DemoTagKind = "problem" | "plate";
-export type DemoTag = { kind: DemoTagKind; name: string; slug: string; description: string; aliases: string[] };
+type DemoTagKind = "problem" | "plate";
+type DemoTag = { kind: DemoTagKind; name: string; slug: string; description: string; aliases: string[] };
 
 export const DEMO_TAGS: readonly DemoTag[] = [
   // ---- problem tags ----

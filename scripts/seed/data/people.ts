@@ -3,8 +3,8 @@
  * the README lists (one per role); the rest make the department look lived in. All invented.
  */
 
-export type DemoRole = "artist" | "senior" | "lead" | "admin";
-export type DemoPerson = { email: string; name: string; role: DemoRole };
+type DemoRole = "artist" | "senior" | "lead" | "admin";
+type DemoPerson = { email: string; name: string; role: DemoRole };
 
 /** Shared by every demo account; printed by `npm run demo`. Never a production password. */
 export const DEMO_PASSWORD = "plateroom-demo";

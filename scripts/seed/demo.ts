@@ -2,14 +2,14 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { shots, shows, tags, users } from "@/db/schema";
-import { DEMO_PASSWORD, DEMO_PEOPLE } from "@/db/seed-data/people";
-import { DEMO_SHOWS } from "@/db/seed-data/shows";
-import { DEMO_TAGS } from "@/db/seed-data/tags";
+import { DEMO_PASSWORD, DEMO_PEOPLE } from "@/scripts/seed/data/people";
+import { DEMO_SHOWS } from "@/scripts/seed/data/shows";
+import { DEMO_TAGS } from "@/scripts/seed/data/tags";
 import { hashPassword } from "@/lib/auth/password";
-import { seedTechniques } from "@/db/seed-techniques";
+import { seedTechniques } from "@/scripts/seed/techniques";
 
 /** Default shot-code pattern: SHOW_SEQ_SHOT, e.g. SLM_040_0120 (common practice). */
-export function defaultShotPattern(code: string): string {
+function defaultShotPattern(code: string): string {
   return `^${code}_\\d{3}_\\d{4}$`;
 }
 

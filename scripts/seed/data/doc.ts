@@ -26,11 +26,11 @@ import type {
  */
 
 export type Inline = string | InlineNode;
-export type InlineInput = Inline | Inline[];
+type InlineInput = Inline | Inline[];
 /** A list item: inline content for its paragraph, or a ready-made listItem node. */
-export type ItemInput = InlineInput | ListItemNode;
+type ItemInput = InlineInput | ListItemNode;
 /** A table cell: inline content for one paragraph, or blocks. */
-export type CellInput = InlineInput | BlockNode[];
+type CellInput = InlineInput | BlockNode[];
 
 function textNode(text: string, marks: DocumentMark[]): TextNode {
   return marks.length > 0 ? { type: "text", text, marks } : { type: "text", text };
