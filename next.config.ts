@@ -23,6 +23,8 @@ const nextConfig: NextConfig = {
   typedRoutes: false,
   experimental: {
     serverActions: { bodySizeLimit: "2mb" },
+    // forbidden() and forbidden.tsx: pages refused for a role answer 403 (app/(app)/forbidden.tsx).
+    authInterrupts: true,
   },
 };
 

@@ -1,15 +1,11 @@
-import Link from "next/link";
 import { Wordmark } from "@/components/brand/logo-mark";
+import { NotFoundNotice } from "@/components/ui/not-found-notice";
 
 export default function NotFound() {
   return (
-    <main className="flex min-h-screen flex-col items-center justify-center gap-4 p-6 text-center">
+    <main className="flex min-h-screen flex-col items-center justify-center p-6">
       <Wordmark />
-      <h1 className="text-2xl font-semibold">Nothing here</h1>
-      <p className="text-muted">This address shows nothing you can see. It may have moved, or never existed.</p>
-      <Link href="/" className="text-accent underline underline-offset-2">
-        Back to Plateroom
-      </Link>
+      <NotFoundNotice />
     </main>
   );
 }

@@ -1,5 +1,16 @@
 import "server-only";
+import net from "node:net";
 import { z } from "zod";
+
+/** "10.0.0.0/8", "192.0.2.7", "::1", "fd00::/8": an address or a CIDR range. */
+function isAddressOrRange(entry: string): boolean {
+  const [address, bits, extra] = entry.split("/");
+  const family = net.isIP(address ?? "");
+  if (!family || extra !== undefined) return false;
+  if (bits === undefined) return true;
+  const n = Number(bits);
+  return /^\d+$/.test(bits) && n >= 0 && n <= (family === 4 ? 32 : 128);
+}
 
 /**
  * The only reader of process.env. Every variable has a working default for the demo;
@@ -20,6 +31,16 @@ const envSchema = z.object({
   PLATEROOM_DIGEST_HOUR: z.coerce.number().int().min(0).max(23).default(7),
   /** Where this instance reaches itself to render a page for the page cache (lib/page-cache). */
   PLATEROOM_INTERNAL_URL: z.string().url().optional(),
+  /**
+   * Reverse proxies in front of the app, as addresses or CIDR ranges, comma-separated. Only a
+   * request arriving from one of them may name its client in X-Forwarded-For; otherwise the
+   * client is the connection's own address (lib/auth/client-address.ts).
+   */
+  PLATEROOM_TRUSTED_PROXIES: z
+    .string()
+    .default("")
+    .transform((v) => v.split(",").map((s) => s.trim()).filter(Boolean))
+    .refine((list) => list.every(isAddressOrRange), "PLATEROOM_TRUSTED_PROXIES: list IP addresses or CIDR ranges, comma-separated"),
   /** Set by the demo and tests to start the in-process mail sender loop. */
   PLATEROOM_MAIL_SENDER: z.enum(["on", "off"]).default("on"),
 });

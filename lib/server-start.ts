@@ -4,7 +4,8 @@ import path from "node:path";
 import { runMigrations } from "@/db/migrate";
 import { env } from "@/lib/env";
 import { startMailSender } from "@/lib/mail/sender";
-import { rebuildSearchFromDb, syncChangedSince } from "@/lib/techniques/search-sync";
+import { followSearchChanges } from "@/lib/techniques/search-follow";
+import { rebuildSearchFromDb } from "@/lib/techniques/search-sync";
 
 /** Start-up work of a server process: schema up to date, search index built, mail sender running. */
 export async function startServerServices(): Promise<void> {
@@ -17,18 +18,8 @@ export async function startServerServices(): Promise<void> {
   await runMigrations();
   const startedAt = new Date();
   const count = await rebuildSearchFromDb();
-  if (env.DATABASE_URL) keepSearchInStep(startedAt);
+  // Other instances write to the same server: their changes reach this index within a second.
+  if (env.DATABASE_URL) followSearchChanges(env.DATABASE_URL, startedAt);
   console.log(`[plateroom] search index built: ${count} techniques`);
   if (env.PLATEROOM_MAIL_SENDER === "on") startMailSender();
-}
-
-/** Other instances write to the same server: pick up their technique changes every 30 s. */
-function keepSearchInStep(from: Date): void {
-  let mark = from;
-  const timer = setInterval(() => {
-    syncChangedSince(mark)
-      .then((next) => (mark = next))
-      .catch((error) => console.error("[search] catch-up failed:", error));
-  }, 30_000);
-  timer.unref();
 }

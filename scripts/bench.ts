@@ -1,8 +1,9 @@
 /*
- * `npm run bench`: the still lab, search, load and oversized-body benchmarks in turn, each in its own process
- * (so one's heap, worker threads and server do not weigh on the next), then one summary from
- * bench/results.json. `npm run bench -- --quick` passes --quick to lab and search and runs the
- * load targets for 10 s with 20 connections; LOAD_DURATION / LOAD_CONNECTIONS override.
+ * `npm run bench`: the still lab, search, load, oversized-body, password-reset timing and soak
+ * benchmarks in turn, each in its own process (so one's heap, worker threads and server do not
+ * weigh on the next), then one summary from bench/results.json. `npm run bench -- --quick` passes
+ * --quick to lab and search, runs the load targets for 10 s with 20 connections, 40 reset pairs
+ * and a 60 s soak; LOAD_DURATION / LOAD_CONNECTIONS, RESET_PAIRS, SOAK_DURATION / SOAK_CONNECTIONS override.
  */
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
@@ -20,6 +21,8 @@ const steps: { name: string; script: string; args: string[]; env?: Record<string
   { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
   { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
   { name: "bodies", script: "bench/bodies.ts", args: [] },
+  { name: "reset-timing", script: "bench/reset-timing.ts", args: [], env: quick ? { RESET_PAIRS: process.env.RESET_PAIRS ?? "40" } : {} },
+  { name: "soak", script: "bench/soak.ts", args: [], env: quick ? { SOAK_DURATION: process.env.SOAK_DURATION ?? "60", SOAK_CONNECTIONS: process.env.SOAK_CONNECTIONS ?? "20" } : {} },
 ];
 
 // A child inherits the -C react-server of `npm run bench`'s tsx only through NODE_OPTIONS, which
@@ -80,6 +83,19 @@ const bodies = results.bodies;
 if (bodies) {
   console.log("Oversized bodies (server memory, MB)");
   console.table(["streamed", "declared"].map((k) => ({ round: k, ...(get(bodies, k) as Json) })));
+}
+
+const reset = results.resetTiming;
+if (reset) {
+  console.log(`Password-reset timing (${fmt(get(reset, "pairs"), 0)} known and unknown addresses each)`);
+  console.table({ known: get(reset, "knownMs"), unknown: get(reset, "unknownMs") });
+  console.log(`median difference ${fmt(get(reset, "medianDifferenceMs"), 2)} ms, permutation test p = ${fmt(get(reset, "permutationTestP"), 2)}`);
+}
+
+const soak = results.soak;
+if (soak) {
+  console.log(`Soak (${fmt(get(soak, "settings", "connections"), 0)} connections × ${fmt(get(soak, "settings", "durationSeconds"), 0)} s): memory MB`, get(soak, "memoryMB"));
+  console.log("Memory slope, MB per minute:", get(soak, "slopeMBPerMinute"));
 }
 
 process.exitCode = outcomes.every((o) => o.status === 0) ? 0 : 1;

@@ -37,7 +37,8 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
           </div>
         </div>
       </header>
-      <main id="main" className="mx-auto max-w-7xl px-4 py-6">
+      {/* Focusable, so the skip link and the quick finder can move focus to the page itself. */}
+      <main id="main" tabIndex={-1} className="mx-auto max-w-7xl px-4 py-6 focus:outline-none">
         {children}
       </main>
     </div>

@@ -12,7 +12,15 @@ declare module "autocannon" {
     statusCodeStats?: Record<string, { count: number }>;
     duration: number;
   };
-  export type Options = { url: string; connections?: number; duration?: number; headers?: Record<string, string>; timeout?: number; method?: string };
+  export type RequestSpec = {
+    method?: string;
+    path?: string;
+    headers?: Record<string, string>;
+    body?: string;
+    /** May change the request before it is sent (path, headers, body). */
+    setupRequest?: (req: { path: string; headers?: Record<string, string> }) => { path: string; headers?: Record<string, string> };
+  };
+  export type Options = { url: string; connections?: number; duration?: number; headers?: Record<string, string>; timeout?: number; method?: string; requests?: RequestSpec[] };
   type Instance = EventEmitter & PromiseLike<Result>;
   export default function autocannon(options: Options): Instance;
 }

@@ -13,6 +13,11 @@ export function ForgotPasswordForm() {
       <Field id="email" label="E-mail" error={state.fieldErrors?.email}>
         <TextInput id="email" name="email" type="email" autoComplete="username" required />
       </Field>
+      {state.message ? (
+        <p role="alert" className="rounded border border-bad/50 bg-bad/10 px-3 py-2 text-sm text-bad" data-testid="reset-error">
+          {state.message}
+        </p>
+      ) : null}
       <Button type="submit" variant="primary" className="w-full" disabled={pending}>
         {pending ? "Sending…" : "Mail me a link"}
       </Button>

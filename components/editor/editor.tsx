@@ -1,5 +1,6 @@
 "use client";
 
+import { NodeSelection } from "@tiptap/pm/state";
 import type { EditorView } from "@tiptap/pm/view";
 import { EditorContent, useEditor, type Editor } from "@tiptap/react";
 import { useEffect, useId, useRef, useState } from "react";
@@ -13,7 +14,8 @@ import { EditorToolbar } from "@/components/editor/toolbar";
 import { useDraftRecovery } from "@/components/editor/use-draft-recovery";
 import { techniqueDocumentSchema, type TechniqueDocument } from "@/lib/techniques/document";
 
-export type UploadImage = (file: File) => Promise<{ stillId: string; alt: string }>;
+/** Stores an image as a still; the description was asked for in the still dialog. */
+export type UploadImage = (file: File, alt: string) => Promise<{ stillId: string }>;
 
 type TechniqueEditorProps = {
   value: TechniqueDocument;
@@ -22,15 +24,18 @@ type TechniqueEditorProps = {
   draftKey?: string;
   /** Uploads a dropped, pasted or chosen image as a still; without it images cannot be added. */
   onUploadImage?: UploadImage;
+  /** Said in the still dialog before uploading, e.g. that the first still saves the draft. */
+  stillNote?: string;
   /** id of the visible label of the body field */
   labelledBy?: string;
   placeholder?: string;
 };
 
 const NO_TEXT: StillDialogValue = { alt: "", caption: "" };
+const NO_STILLS = "Stills can be added to a technique's write-up only.";
 
 /** The rich-text editor for technique bodies (Tiptap), with its toolbar and dialogs. */
-export function TechniqueEditor({ value, onChange, draftKey, onUploadImage, labelledBy, placeholder }: TechniqueEditorProps) {
+export function TechniqueEditor({ value, onChange, draftKey, onUploadImage, stillNote, labelledBy, placeholder }: TechniqueEditorProps) {
   const contentId = useId();
   const emitted = useRef<TechniqueDocument>(value);
   const callbacks = useRef({ onChange, onUploadImage });
@@ -38,8 +43,10 @@ export function TechniqueEditor({ value, onChange, draftKey, onUploadImage, labe
     callbacks.current = { onChange, onUploadImage };
   });
   const [dialog, setDialog] = useState<"link" | "still" | null>(null);
+  // Images dropped or pasted into the body wait here, one still dialog each, for their description.
+  const [queue, setQueue] = useState<{ files: File[]; total: number }>({ files: [], total: 0 });
+  const queued = queue.files;
   const [problem, setProblem] = useState<string | null>(null);
-  const [uploads, setUploads] = useState(0);
   const [loaded] = useState(value);
   const draft = useDraftRecovery({
     draftKey,
@@ -50,33 +57,39 @@ export function TechniqueEditor({ value, onChange, draftKey, onUploadImage, labe
   });
 
   const editorRef = useRef<Editor | null>(null);
-  async function upload(files: File[], text?: StillDialogValue) {
+  async function upload(file: File, text: StillDialogValue) {
     const uploadImage = callbacks.current.onUploadImage;
-    if (!uploadImage) return setProblem("Images cannot be added here.");
+    if (!uploadImage) throw new Error(NO_STILLS);
     setProblem(null);
-    for (const file of files) {
-      setUploads((n) => n + 1);
-      try {
-        const still = await uploadImage(file);
-        editorRef.current
-          ?.chain()
-          .focus()
-          .insertStill({ stillId: still.stillId, alt: text?.alt || still.alt, caption: text?.caption ?? "" })
-          .run();
-      } catch (cause) {
-        const message = cause instanceof Error ? cause.message : "unknown error";
-        setProblem(`Could not upload ${file.name}: ${message}`);
-        if (text) throw cause;
-      } finally {
-        setUploads((n) => n - 1);
-      }
+    const still = await uploadImage(file, text.alt);
+    const editor = editorRef.current;
+    if (!editor) return;
+    editor.chain().focus().insertStill({ stillId: still.stillId, alt: text.alt, caption: text.caption }).run();
+    // Leave the cursor after the still, not on it: typing on with the still selected would replace it.
+    const { selection, doc } = editor.state;
+    if (selection instanceof NodeSelection && selection.node.type.name === "still") {
+      const after = selection.to;
+      if (doc.resolve(after).nodeAfter?.isTextblock) editor.commands.setTextSelection(after + 1);
+      else editor.chain().insertContentAt(after, { type: "paragraph" }).setTextSelection(after + 1).run();
     }
   }
 
-  const uploadRef = useRef(upload);
+  /** Dropped or pasted images: ask for each one's description before uploading it. */
+  function ask(files: File[]) {
+    if (!callbacks.current.onUploadImage) return setProblem(NO_STILLS);
+    setProblem(null);
+    setQueue({ files, total: files.length });
+    setDialog("still");
+  }
+  const askRef = useRef(ask);
   useEffect(() => {
-    uploadRef.current = upload;
+    askRef.current = ask;
   });
+  function nextQueued() {
+    const rest = queued.slice(1);
+    setQueue({ files: rest, total: rest.length ? queue.total : 0 });
+    if (rest.length === 0) setDialog(null);
+  }
 
   // Built once: useEditor calls setOptions whenever these differ, and every handler below reads refs.
   const [options] = useState(() => ({
@@ -97,14 +110,14 @@ export function TechniqueEditor({ value, onChange, draftKey, onUploadImage, labe
         event.preventDefault();
         const at = view.posAtCoords({ left: event.clientX, top: event.clientY });
         if (at) editorRef.current?.commands.setTextSelection(at.pos);
-        void uploadRef.current(files);
+        askRef.current(files);
         return true;
       },
       handlePaste: (_view: EditorView, event: ClipboardEvent) => {
         const files = imageFilesFrom(event.clipboardData);
         if (files.length === 0) return false;
         event.preventDefault();
-        void uploadRef.current(files);
+        askRef.current(files);
         return true;
       },
       handleKeyDown: (_view: EditorView, event: KeyboardEvent) => {
@@ -155,7 +168,7 @@ export function TechniqueEditor({ value, onChange, draftKey, onUploadImage, labe
         <EditorContent editor={editor} />
       </div>
       <p aria-live="polite" className="min-h-5 text-sm text-muted">
-        {uploads > 0 ? "Uploading still…" : problem && <span className="text-bad">{problem}</span>}
+        {problem && <span className="text-bad">{problem}</span>}
       </p>
       {editor && (
         <>
@@ -178,18 +191,27 @@ export function TechniqueEditor({ value, onChange, draftKey, onUploadImage, labe
             onClose={() => setDialog(null)}
           />
           <StillDialog
+            // A new key per queued file: each dropped image gets a fresh form.
+            key={queued[0] ? `${queued.length}:${queued[0].name}` : "chosen"}
             open={dialog === "still"}
-            mode={editor.isActive("still") ? "edit" : "insert"}
-            initial={stillText}
+            mode={queued.length === 0 && editor.isActive("still") ? "edit" : "insert"}
+            file={queued[0] ?? null}
+            position={queue.total > 1 ? `Still ${queue.total - queued.length + 1} of ${queue.total}` : undefined}
+            note={stillNote}
+            initial={queued.length ? NO_TEXT : stillText}
             onInsert={async (file, text) => {
-              await upload([file], text);
-              setDialog(null);
+              await upload(file, text);
+              if (queued.length) nextQueued();
+              else setDialog(null);
             }}
             onSave={(text) => {
               editor.chain().focus().updateAttributes("still", text).run();
               setDialog(null);
             }}
-            onClose={() => setDialog(null)}
+            onClose={() => {
+              setQueue({ files: [], total: 0 });
+              setDialog(null);
+            }}
           />
         </>
       )}

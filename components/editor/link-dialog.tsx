@@ -1,5 +1,6 @@
-import { useEffect, useId, useRef, useState, type FormEvent } from "react";
+import { useId, useState, type FormEvent } from "react";
 
+import { Modal } from "@/components/ui/modal";
 import { safeHref } from "@/lib/techniques/document";
 
 type LinkDialogProps = {
@@ -13,24 +14,20 @@ type LinkDialogProps = {
 
 /** Asks for a link address and checks it with the same rule the server applies. */
 export function LinkDialog({ open, currentHref, onApply, onRemove, onClose }: LinkDialogProps) {
-  const ref = useRef<HTMLDialogElement>(null);
-  const [href, setHref] = useState("");
+  const titleId = useId();
+  return (
+    <Modal open={open} onClose={onClose} labelledBy={titleId}>
+      {/* Mounted while open only, so every opening starts from the link under the cursor. */}
+      {open ? <LinkForm titleId={titleId} currentHref={currentHref} onApply={onApply} onRemove={onRemove} onClose={onClose} /> : null}
+    </Modal>
+  );
+}
+
+function LinkForm({ titleId, currentHref, onApply, onRemove, onClose }: Omit<LinkDialogProps, "open"> & { titleId: string }) {
+  const [href, setHref] = useState(currentHref ?? "");
   const [error, setError] = useState<string | null>(null);
   const inputId = useId();
   const errorId = useId();
-  const titleId = useId();
-
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) {
-      setHref(currentHref ?? "");
-      setError(null);
-      dialog.showModal();
-    } else if (!open && dialog.open) {
-      dialog.close();
-    }
-  }, [open, currentHref]);
 
   function submit(event: FormEvent) {
     event.preventDefault();
@@ -43,50 +40,44 @@ export function LinkDialog({ open, currentHref, onApply, onRemove, onClose }: Li
   }
 
   return (
-    <dialog
-      ref={ref}
-      aria-labelledby={titleId}
-      onClose={onClose}
-      className="m-auto w-full max-w-md rounded border border-line bg-surface p-4 text-ink backdrop:bg-black/60"
-    >
-      <form onSubmit={submit} className="flex flex-col gap-3">
-        <h2 id={titleId} className="text-base font-semibold">
-          {currentHref ? "Edit link" : "Add link"}
-        </h2>
-        <label htmlFor={inputId} className="text-sm text-muted">
-          Address
-        </label>
-        <input
-          id={inputId}
-          value={href}
-          onChange={(event) => setHref(event.target.value)}
-          inputMode="url"
-          autoComplete="off"
-          spellCheck={false}
-          placeholder="https://… or /techniques/…"
-          aria-invalid={error !== null}
-          aria-describedby={error ? errorId : undefined}
-          className="rounded border border-line bg-surface-2 px-2 py-1.5 focus-visible:outline-2 focus-visible:outline-accent"
-        />
-        {error && (
-          <p id={errorId} className="text-sm text-bad">
-            {error}
-          </p>
+    <form onSubmit={submit} className="flex flex-col gap-3">
+      <h2 id={titleId} className="text-base font-semibold">
+        {currentHref ? "Edit link" : "Add link"}
+      </h2>
+      <label htmlFor={inputId} className="text-sm text-muted">
+        Address
+      </label>
+      <input
+        id={inputId}
+        value={href}
+        onChange={(event) => setHref(event.target.value)}
+        inputMode="url"
+        autoComplete="off"
+        spellCheck={false}
+        autoFocus
+        placeholder="https://… or /techniques/…"
+        aria-invalid={error !== null}
+        aria-describedby={error ? errorId : undefined}
+        className="rounded border border-line bg-surface-2 px-2 py-1.5 focus-visible:outline-2 focus-visible:outline-accent"
+      />
+      {error && (
+        <p id={errorId} className="text-sm text-bad">
+          {error}
+        </p>
+      )}
+      <div className="flex justify-end gap-2">
+        {currentHref && (
+          <button type="button" onClick={onRemove} className="mr-auto rounded px-3 py-1.5 text-sm text-bad hover:bg-surface-2">
+            Remove link
+          </button>
         )}
-        <div className="flex justify-end gap-2">
-          {currentHref && (
-            <button type="button" onClick={onRemove} className="mr-auto rounded px-3 py-1.5 text-sm text-bad hover:bg-surface-2">
-              Remove link
-            </button>
-          )}
-          <button type="button" onClick={onClose} className="rounded border border-line px-3 py-1.5 text-sm hover:bg-surface-2">
-            Cancel
-          </button>
-          <button type="submit" className="rounded bg-accent px-3 py-1.5 text-sm font-medium text-accent-ink hover:brightness-110">
-            Apply
-          </button>
-        </div>
-      </form>
-    </dialog>
+        <button type="button" onClick={onClose} className="rounded border border-line px-3 py-1.5 text-sm hover:bg-surface-2">
+          Cancel
+        </button>
+        <button type="submit" className="rounded bg-accent px-3 py-1.5 text-sm font-medium text-accent-ink hover:brightness-110">
+          Apply
+        </button>
+      </div>
+    </form>
   );
 }

@@ -85,7 +85,8 @@ export function EditorToolbar({ editor, controlsId, onOpenLink, onOpenStill, can
   const groups: Item[][] = [
     HEADING_LEVELS.map((level, i) => ({
       key: `h${level}`,
-      label: `Heading ${level}`,
+      // The accessible name holds the visible label (WCAG 2.1 SC 2.5.3, Label in Name).
+      label: `H${level} heading`,
       text: `H${level}`,
       shortcut: `Mod-Alt-${level}`,
       isActive: s.headings[i],
@@ -99,7 +100,7 @@ export function EditorToolbar({ editor, controlsId, onOpenLink, onOpenStill, can
     ],
     [
       { key: "ul", label: "Bulleted list", text: "• List", shortcut: "Mod-Shift-8", isActive: s.bulletList, run: () => chain().toggleBulletList().run() },
-      { key: "ol", label: "Numbered list", text: "1. List", shortcut: "Mod-Shift-7", isActive: s.orderedList, run: () => chain().toggleOrderedList().run() },
+      { key: "ol", label: "1. List (numbered)", text: "1. List", shortcut: "Mod-Shift-7", isActive: s.orderedList, run: () => chain().toggleOrderedList().run() },
       { key: "quote", label: "Block quote", text: "❝ Quote", shortcut: "Mod-Shift-b", isActive: s.blockquote, run: () => chain().toggleBlockquote().run() },
       { key: "pre", label: "Code block", text: "{ } Code", shortcut: "Mod-Alt-c", isActive: s.codeBlock, run: () => chain().toggleCodeBlock().run() },
       { key: "hr", label: "Divider line", text: "―", run: () => chain().setHorizontalRule().run() },
@@ -115,9 +116,9 @@ export function EditorToolbar({ editor, controlsId, onOpenLink, onOpenStill, can
     [
       { key: "table", label: "Insert table", text: "Table", isDisabled: s.inTable, run: () => chain().insertTable({ rows: 3, cols: 3, withHeaderRow: true }).run() },
       { key: "row+", label: "Add row below", text: "+Row", isDisabled: !s.inTable, run: () => chain().addRowAfter().run() },
-      { key: "col+", label: "Add column to the right", text: "+Col", isDisabled: !s.inTable, run: () => chain().addColumnAfter().run() },
+      { key: "col+", label: "Add column to the right", text: "+Column", isDisabled: !s.inTable, run: () => chain().addColumnAfter().run() },
       { key: "row-", label: "Delete row", text: "−Row", isDisabled: !s.inTable, run: () => chain().deleteRow().run() },
-      { key: "col-", label: "Delete column", text: "−Col", isDisabled: !s.inTable, run: () => chain().deleteColumn().run() },
+      { key: "col-", label: "Delete column", text: "−Column", isDisabled: !s.inTable, run: () => chain().deleteColumn().run() },
       { key: "thead", label: "Header row on or off", text: "Header", isDisabled: !s.inTable, run: () => chain().toggleHeaderRow().run() },
       { key: "table-", label: "Delete table", text: "✕ Table", isDisabled: !s.inTable, run: () => chain().deleteTable().run() },
     ],

@@ -47,7 +47,7 @@ export function TechniqueLabWithApply({ technique, stills }: { technique: ApplyT
           changeNote: `Colour matrix (step ${mi >= 0 ? mi + 1 : 1}) set from the still lab.`,
         },
       });
-      setStatus(`Saved into the recipe as revision ${saved.revision}${technique.approved ? "; a lead reviews it before readers see it" : ""}.`);
+      setStatus(`Saved into the recipe as revision ${saved.revision}${technique.approved ? ", a draft: submit it for review (top of the page) so readers see it" : ""}.`);
       router.refresh();
     } catch (error) {
       setStatus(`Not saved: ${errorText(error)}`);

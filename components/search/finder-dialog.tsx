@@ -22,6 +22,8 @@ export function FinderDialog({ open, onClose, userId }: { open: boolean; onClose
   const [active, setActive] = useState(-1);
   const [recent, setRecent] = useState<string[]>([]);
   const debounced = useDebouncedValue(q.trim(), 120);
+  // After choosing a result, focus goes to the page's main content, not back to the Find button.
+  const focusMainOnClose = useRef(false);
 
   useEffect(() => {
     const d = dialogRef.current;
@@ -33,7 +35,11 @@ export function FinderDialog({ open, onClose, userId }: { open: boolean; onClose
       d.showModal();
       inputRef.current?.focus();
     }
-    if (!open && d.open) d.close();
+    if (!open && d.open) {
+      d.close();
+      if (focusMainOnClose.current) document.getElementById("main")?.focus({ preventScroll: true });
+      focusMainOnClose.current = false;
+    }
   }, [open, userId]);
 
   const suggest = useQuery({
@@ -61,6 +67,7 @@ export function FinderDialog({ open, onClose, userId }: { open: boolean; onClose
       return;
     }
     pushRecent(userId, typed);
+    focusMainOnClose.current = true;
     router.push(option.kind === "technique" ? `/techniques/${option.item.slug}` : searchHref({ q: option.text }));
     onClose();
   }

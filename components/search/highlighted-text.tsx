@@ -6,7 +6,7 @@ export function HighlightedText({ text, ranges, className }: { text: string; ran
     <span className={className}>
       {highlight(text, ranges).map((seg, i) =>
         seg.isMatch ? (
-          <mark key={i} className="rounded-sm bg-accent/25 px-px text-inherit">
+          <mark key={i} className="rounded-sm bg-accent/25 px-px text-ink">
             {seg.text}
           </mark>
         ) : (

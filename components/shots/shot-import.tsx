@@ -105,7 +105,7 @@ export function ShotImport({ showCode, onImported }: { showCode: string; onImpor
             </p>
           ))}
           <p className="text-sm text-muted">
-            {read.rows.length} rows read{read.errors.length ? `, ${read.errors.length} unreadable` : ""}.
+            {countOf(read.rows.length, "row")} read{read.errors.length ? `, ${read.errors.length} unreadable` : ""}.
           </p>
           <Button variant="primary" disabled={busy || !mapping || read.fileErrors.length > 0} onClick={() => send(true)}>
             {busy ? "Checking…" : "Preview import"}
@@ -121,7 +121,7 @@ export function ShotImport({ showCode, onImported }: { showCode: string; onImpor
               Back to mapping
             </Button>
             <Button variant="primary" disabled={busy || plan.created + plan.updated === 0} onClick={() => send(false)}>
-              {busy ? "Importing…" : `Import ${plan.created} new and ${plan.updated} changed shots`}
+              {busy ? "Importing…" : `Import ${plan.created} new and ${plan.updated} changed ${plan.created + plan.updated === 1 ? "shot" : "shots"}`}
             </Button>
           </div>
         </>
@@ -131,7 +131,7 @@ export function ShotImport({ showCode, onImported }: { showCode: string; onImpor
         <div role="status" className="space-y-2 text-sm">
           <p>
             Imported: {result.created} new, {result.updated} changed, {result.unchanged} unchanged.
-            {result.errors.length ? ` ${result.errors.length} rows were not imported:` : ""}
+            {result.errors.length ? ` ${countOf(result.errors.length, "row")} ${result.errors.length === 1 ? "was" : "were"} not imported:` : ""}
           </p>
           {result.errors.length ? <ImportPreview plan={result} errorsOnly /> : null}
           <Button onClick={() => load("")}>Import another list</Button>
@@ -145,4 +145,9 @@ export function ShotImport({ showCode, onImported }: { showCode: string; onImpor
       ) : null}
     </section>
   );
+}
+
+/** "1 row", "2 rows". */
+function countOf(n: number, noun: string): string {
+  return `${n} ${n === 1 ? noun : `${noun}s`}`;
 }

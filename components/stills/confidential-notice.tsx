@@ -6,7 +6,8 @@ export function ConfidentialNotice({ className }: { className?: string }) {
     <p role="note" className={cn("rounded border border-line bg-surface-2 px-3 py-2 text-xs text-muted", className)}>
       <strong className="font-semibold text-ink">Stills may be confidential.</strong> Frames from shows that are not yet released
       fall under the studio&apos;s content-security policy. Upload only what the policy allows; Plateroom keeps files in private
-      storage, shows them only to signed-in people allowed to see them, and never shares them outside Plateroom.
+      storage, removes camera, location and author metadata before storing them (pixels and colour profile stay as they are), shows
+      them only to signed-in people allowed to see them, and never shares them outside Plateroom.
     </p>
   );
 }

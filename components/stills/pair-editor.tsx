@@ -33,7 +33,7 @@ export function PairEditor({ technique, stills, onSaved }: PairEditorProps) {
     setMessage(null);
     try {
       const pair = await apiFetch<StillPairResponse>("/api/stills/pairs", { method: "POST", json: { technique, before, after, caption: caption.trim() || undefined } });
-      setMessage({ ok: true, text: "Pair saved." });
+      setMessage({ ok: true, text: `Pair saved in revision ${pair.revision}.` });
       onSaved?.(pair);
     } catch (e) {
       setMessage({ ok: false, text: e instanceof ApiError ? e.message : "Could not save the pair." });

@@ -92,7 +92,7 @@ export function StillUploader({ technique, owner, role = "reference", maxBytes =
         })}
       >
         <input {...getInputProps({ "aria-label": "Choose still files" })} />
-        <p>{isDragActive ? "Drop the stills to add them." : "Drop PNG, JPEG, TIFF or WebP stills here (8 or 16 bits per channel), or"}</p>
+        <p>{isDragActive ? "Drop the stills to add them." : "Drop PNG, JPEG, TIFF or WebP stills here (8 or 16 bits per channel, up to 8192 × 8192 pixels), or"}</p>
         <Button variant="secondary" onClick={open}>
           Choose files…
         </Button>

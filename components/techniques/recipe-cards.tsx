@@ -5,7 +5,7 @@ import { CopyJsonButton } from "@/components/techniques/copy-json-button";
 const fmt = (v: number) => (Number.isInteger(v) ? String(v) : v.toFixed(4).replace(/0+$/, ""));
 const ch = (c: string) => c.toUpperCase();
 
-function describe(step: RecipeStep): Array<[string, string]> {
+function describe(step: RecipeStep, stillAlt: (id: string) => string): Array<[string, string]> {
   switch (step.op) {
     case "matrix":
       return [
@@ -31,12 +31,14 @@ function describe(step: RecipeStep): Array<[string, string]> {
     case "flatten":
       return [["sigma", `${fmt(step.sigma)} px`], ["target colour", `[${step.color.map(fmt).join(", ")}]`], ["screen sampled", step.weight]];
     case "grain":
-      return [["denoised plate", step.denoised]];
+      return [["denoised plate", stillAlt(step.denoised)]];
   }
 }
 
 /** A recipe as readable cards, with the exact JSON one click away. */
-export function RecipeCards({ recipe }: { recipe: RecipeStep[] }) {
+export function RecipeCards({ recipe, stills = [] }: { recipe: RecipeStep[]; stills?: { id: string; alt: string }[] }) {
+  // A still is named by its description, never by its id.
+  const stillAlt = (id: string) => stills.find((s) => s.id === id)?.alt ?? "a still of this technique";
   if (!recipe.length) return <p className="text-sm text-muted">This technique has no runnable parameters yet.</p>;
   return (
     <div className="space-y-3">
@@ -48,7 +50,7 @@ export function RecipeCards({ recipe }: { recipe: RecipeStep[] }) {
               {RECIPE_PARAMETER_LABELS[step.op] ?? step.op}
             </p>
             <dl className="space-y-0.5">
-              {describe(step).map(([k, v]) => (
+              {describe(step, stillAlt).map(([k, v]) => (
                 <div key={k} className="flex gap-2">
                   <dt className="text-muted">{k}</dt>
                   <dd className="font-mono text-xs leading-5 break-all">{v}</dd>

@@ -13,7 +13,13 @@ export async function TechniqueEvidence({ user, technique }: { user: SessionUser
       <CardTitle>
         <span id="evidence-title">Before and after</span>
       </CardTitle>
-      <EvidencePanel slug={technique.slug} pairs={pairs} stills={stills} canUpload={can(user, "still:upload") && technique.status !== "retired"} />
+      <EvidencePanel
+        slug={technique.slug}
+        pairs={pairs}
+        stills={stills}
+        canUpload={can(user, "still:upload") && technique.status !== "retired"}
+        isApproved={technique.approvedRevision !== null}
+      />
     </Card>
   );
 }

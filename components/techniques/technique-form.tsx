@@ -2,11 +2,12 @@
 
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useId, useMemo, useState } from "react";
+import { useId, useMemo, useRef, useState } from "react";
 import { DraftBanner } from "@/components/editor/draft-banner";
 import { TechniqueEditor } from "@/components/editor/editor";
 import { techniqueDraftSchema, useDraftRecovery, type TechniqueDraft } from "@/components/editor/use-draft-recovery";
 import { TagPicker } from "@/components/techniques/tag-picker";
+import { RecipeStillsProvider, type RecipeStill } from "@/components/lab/recipe/denoised-still-picker";
 import { RecipeField } from "@/components/techniques/recipe-field";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, TextArea, TextInput } from "@/components/ui/field";
@@ -27,14 +28,20 @@ type Props = {
   tags: TagRef[];
   requestId?: string;
   isEditOfApproved?: boolean;
+  /** The technique's stills, for recipe steps that name one (the grain step's denoised plate). */
+  stills?: RecipeStill[];
 };
 
 type Conflict = { message: string; latest?: { number: number; author: string | null; savedAt: string } };
 
+const FIRST_STILL_NOTE = "Adding a still saves this new technique as a draft first (only writers and leads see drafts).";
+/** Change note of the save that follows a draft saved for its first still. */
+const CONTINUED_NOTE = "Continued the first draft.";
+
 /** The write/edit form: fields, rich-text body, recipe, change note; 409s are shown, never overwritten. */
-export function TechniqueForm({ mode, slug, baseRevision, initial, tags, requestId, isEditOfApproved }: Props) {
+export function TechniqueForm({ mode, slug, baseRevision, initial, tags, requestId, isEditOfApproved, stills = [] }: Props) {
   const router = useRouter();
-  const ids = { title: useId(), summary: useId(), aliases: useId(), body: useId(), note: useId() };
+  const ids = { title: useId(), summary: useId(), aliases: useId(), body: useId(), note: useId(), saveNote: useId() };
   const [value, setValue] = useState<TechniqueFormValue>(initial);
   const [aliasText, setAliasText] = useState(initial.aliases.join(", "));
   const [changeNote, setChangeNote] = useState("");
@@ -43,7 +50,11 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
   const [message, setMessage] = useState<string | null>(null);
   const [conflict, setConflict] = useState<Conflict | null>(null);
   const [saving, setSaving] = useState(false);
-  const draftKey = mode === "create" ? "technique:new" : `technique:${slug}`;
+  // A new technique saved as a draft when its first still was added: from then on saves update it.
+  const [savedSlug, setSavedSlug] = useState(slug);
+  const firstSave = useRef<Promise<string> | null>(null);
+  const isUnsaved = mode === "create" && !savedSlug;
+  const draftKey = savedSlug ? `technique:${savedSlug}` : "technique:new";
   const draftValue = useMemo<TechniqueDraft>(() => ({ title: value.title, summary: value.summary, aliases: value.aliases, tags: value.tags, body: value.body }), [value]);
   const loaded = useMemo<TechniqueDraft>(() => ({ title: initial.title, summary: initial.summary, aliases: initial.aliases, tags: initial.tags, body: initial.body }), [initial]);
   const draft = useDraftRecovery<TechniqueDraft>({
@@ -61,18 +72,52 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
     setValue((v) => ({ ...v, [key]: next }));
   }
 
-  async function save(event: React.FormEvent) {
+  function payload() {
+    return { ...value, aliases: aliasText.split(",").map((a) => a.trim()).filter(Boolean) };
+  }
+
+  /** Saves a new technique as a draft so a still can be stored with it; once only, however many stills arrive. */
+  function saveFirstDraft(): Promise<string> {
+    if (savedSlug) return Promise.resolve(savedSlug);
+    firstSave.current ??= (async () => {
+      setErrors({});
+      try {
+        const result = await apiFetch<{ slug: string; revision: number }>("/api/techniques", { method: "POST", json: { ...payload(), requestId } });
+        draft.clear();
+        setSavedSlug(result.slug);
+        setBase(result.revision);
+        // The address now names the saved draft, so a reload opens it rather than an empty form.
+        window.history.replaceState(null, "", `/techniques/${result.slug}/edit`);
+        setMessage("Saved as a draft so the still could be stored. Save draft again when you have written more.");
+        return result.slug;
+      } catch (error) {
+        firstSave.current = null;
+        if (error instanceof ApiError) {
+          setErrors(error.fields ?? {});
+          throw new Error(`The draft could not be saved for the still: ${error.message} Fill in the fields marked on the form, then add the still again.`);
+        }
+        throw error;
+      }
+    })();
+    return firstSave.current;
+  }
+
+  async function save(event: React.FormEvent<HTMLFormElement>) {
     event.preventDefault();
+    const alsoSubmit = (event.nativeEvent as SubmitEvent).submitter?.getAttribute("value") === "submit";
     setSaving(true);
     setErrors({});
     setMessage(null);
-    const payload = { ...value, aliases: aliasText.split(",").map((a) => a.trim()).filter(Boolean) };
     try {
-      const result =
-        mode === "create"
-          ? await apiFetch<{ slug: string; revision: number }>("/api/techniques", { method: "POST", json: { ...payload, requestId } })
-          : await apiFetch<{ slug: string; revision: number }>(`/api/techniques/${slug}`, { method: "PUT", json: { ...payload, baseRevision: base, changeNote } });
+      const result = isUnsaved
+        ? await apiFetch<{ slug: string; revision: number }>("/api/techniques", { method: "POST", json: { ...payload(), requestId } })
+        : await apiFetch<{ slug: string; revision: number }>(`/api/techniques/${savedSlug}`, {
+            method: "PUT",
+            json: { ...payload(), baseRevision: base, changeNote: mode === "create" ? CONTINUED_NOTE : changeNote },
+          });
       draft.clear();
+      // Saved either way; a refused submit leaves the page's own "Submit for review" button to try again.
+      if (alsoSubmit) await apiFetch(`/api/techniques/${result.slug}/submit`, { method: "POST" }).catch(() => undefined);
       router.push(`/techniques/${result.slug}`);
       router.refresh();
     } catch (error) {
@@ -93,7 +138,7 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
       {draft.recoverable ? <DraftBanner savedAt={draft.savedAt} onRestore={() => draft.restore()} onDiscard={draft.discard} subject="this technique" /> : null}
       {isEditOfApproved ? (
         <p className="rounded border border-accent/50 bg-accent/10 px-3 py-2 text-sm" role="note">
-          This technique is approved. Saving makes a new revision that goes to a lead for review; readers keep seeing the approved text until then.
+          This technique is approved. Saving makes a new revision; readers keep seeing the approved text until a lead approves the new one.
         </p>
       ) : null}
       {conflict ? (
@@ -106,8 +151,8 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
               : conflict.message}
           </p>
           <div className="flex flex-wrap gap-2">
-            {conflict.latest && slug ? (
-              <Link className="underline" href={`/techniques/${slug}/history?from=${base}&to=${conflict.latest.number}`} target="_blank">
+            {conflict.latest && savedSlug ? (
+              <Link className="underline" href={`/techniques/${savedSlug}/history?from=${base}&to=${conflict.latest.number}`} target="_blank">
                 Compare their revision {conflict.latest.number} with your base ({base})
               </Link>
             ) : null}
@@ -143,10 +188,19 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
         <p id={ids.body} className="mb-1 text-sm font-medium">
           Write-up
         </p>
-        <TechniqueEditor value={value.body} onChange={(doc: TechniqueDocument) => update("body", doc)} labelledBy={ids.body} onUploadImage={slug ? (file) => uploadStillForEditor(file, slug) : undefined} />
+        <TechniqueEditor
+          value={value.body}
+          onChange={(doc: TechniqueDocument) => update("body", doc)}
+          labelledBy={ids.body}
+          onUploadImage={async (file, alt) => uploadStillForEditor(file, alt, await saveFirstDraft())}
+          stillNote={isUnsaved ? FIRST_STILL_NOTE : undefined}
+        />
+        {isUnsaved ? <p className="mt-1 text-xs text-muted">{FIRST_STILL_NOTE}</p> : null}
         {errors.body || Object.keys(errors).find((k) => k.startsWith("body")) ? <p className="mt-1 text-xs text-bad">{errors.body ?? "The write-up contains something that cannot be stored."}</p> : null}
       </div>
-      <RecipeField value={value.recipe} onChange={(recipe) => update("recipe", recipe)} errors={errors} />
+      <RecipeStillsProvider stills={stills}>
+        <RecipeField value={value.recipe} onChange={(recipe) => update("recipe", recipe)} errors={errors} />
+      </RecipeStillsProvider>
       {mode === "edit" ? (
         <Field id={ids.note} label="What changed, and why" error={errors.changeNote}>
           <TextArea id={ids.note} value={changeNote} onChange={(e) => setChangeNote(e.target.value)} aria-describedby={describedBy(ids.note, errors.changeNote)} required />
@@ -157,11 +211,18 @@ export function TechniqueForm({ mode, slug, baseRevision, initial, tags, request
           {message}
         </p>
       ) : null}
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={saving}>
-          {saving ? "Saving…" : mode === "create" ? "Save draft" : "Save revision"}
+      <p id={ids.saveNote} className="text-sm text-muted">
+        Every saved revision is a draft that only writers and leads see. <strong className="font-medium text-ink">Save and submit for review</strong> also asks
+        the leads to review it; a draft can be submitted later from its page.
+      </p>
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" name="then" value="submit" variant="primary" disabled={saving} aria-describedby={ids.saveNote}>
+          {saving ? "Saving…" : "Save and submit for review"}
         </Button>
-        <Link href={slug ? `/techniques/${slug}` : "/techniques"} className="rounded px-3 py-1.5 text-sm text-muted hover:text-ink">
+        <Button type="submit" name="then" value="keep" disabled={saving} aria-describedby={ids.saveNote}>
+          Save draft
+        </Button>
+        <Link href={savedSlug ? `/techniques/${savedSlug}` : "/techniques"} className="rounded px-3 py-1.5 text-sm text-muted hover:text-ink">
           Cancel
         </Link>
       </div>

@@ -4,19 +4,24 @@ import { RecipeCards } from "@/components/techniques/recipe-cards";
 import { Card, CardTitle } from "@/components/ui/card";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { listStillsForTechnique } from "@/lib/stills/queries";
+import { listPairsForTechnique, listStillsForTechnique } from "@/lib/stills/queries";
+import type { StillResponse } from "@/lib/stills/schemas";
 import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
 /** The recipe as readable cards, and the lab where anyone can run it on the page's stills or their own. */
 export async function TechniqueLabSection({ user, technique }: { user: SessionUser; technique: TechniqueResponse }) {
-  const stills = (await listStillsForTechnique(user, technique.id)).filter((s) => s.role !== "after");
+  const [all, pairs] = await Promise.all([listStillsForTechnique(user, technique.id), listPairsForTechnique(user, technique.id)]);
+  // The lab opens on the first one: the before still of the first pair, then other before stills, then the rest.
+  const pairBefore = pairs.map((p) => p.before.id);
+  const rank = (s: StillResponse) => (pairBefore.includes(s.id) ? pairBefore.indexOf(s.id) : s.role === "before" ? pairBefore.length : pairBefore.length + 1);
+  const stills = all.filter((s) => s.role !== "after").sort((a, b) => rank(a) - rank(b));
   const labStills = stills.map((s) => ({ id: s.id, alt: s.alt, width: s.width, height: s.height, bitDepth: s.bitDepth }));
   return (
     <Card aria-labelledby="parameters-title">
       <CardTitle>
         <span id="parameters-title">Parameters</span>
       </CardTitle>
-      <RecipeCards recipe={technique.recipe} />
+      <RecipeCards recipe={technique.recipe} stills={all} />
       {technique.recipe.length ? (
         <div className="mt-6 border-t border-line pt-4">
           <h3 className="mb-2 font-semibold">Try it</h3>

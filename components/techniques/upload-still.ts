@@ -1,8 +1,7 @@
 import type { UploadImage } from "@/components/editor/editor";
 
-/** Uploads an image dropped into the editor as a reference still of the technique. */
-export async function uploadStillForEditor(file: File, slug: string): ReturnType<UploadImage> {
-  const alt = file.name.replace(/\.[a-z0-9]+$/i, "").replace(/[-_]+/g, " ").trim() || "Still";
+/** Uploads an image added to the write-up as a reference still of the technique, with the description its author gave. */
+export async function uploadStillForEditor(file: File, alt: string, slug: string): ReturnType<UploadImage> {
   const form = new FormData();
   form.set("file", file);
   form.set("alt", alt);
@@ -12,5 +11,5 @@ export async function uploadStillForEditor(file: File, slug: string): ReturnType
   const res = await fetch("/api/stills", { method: "POST", body: form, credentials: "same-origin" });
   const body = (await res.json().catch(() => null)) as { id?: string; error?: { message?: string } } | null;
   if (!res.ok || !body?.id) throw new Error(body?.error?.message ?? `Upload failed (${res.status}).`);
-  return { stillId: body.id, alt };
+  return { stillId: body.id };
 }

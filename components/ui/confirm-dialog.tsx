@@ -1,9 +1,13 @@
 "use client";
 
-import { useEffect, useRef, type ReactNode } from "react";
+import { useId, type ReactNode } from "react";
 import { Button } from "@/components/ui/button";
+import { Modal } from "@/components/ui/modal";
 
-/** A modal built on <dialog>: focus is trapped, Escape closes, nothing happens until confirmed. */
+/**
+ * A modal that asks before acting: nothing happens until confirmed. Its fields sit in its own
+ * form (Enter confirms), rendered outside any form of the page that opened it.
+ */
 export function ConfirmDialog({
   open,
   title,
@@ -23,23 +27,26 @@ export function ConfirmDialog({
   onConfirm(): void;
   onClose(): void;
 }) {
-  const ref = useRef<HTMLDialogElement>(null);
-  useEffect(() => {
-    const d = ref.current;
-    if (!d) return;
-    if (open && !d.open) d.showModal();
-    if (!open && d.open) d.close();
-  }, [open]);
+  const titleId = useId();
   return (
-    <dialog ref={ref} onClose={onClose} className="m-auto w-full max-w-lg rounded-lg border border-line bg-surface p-5 text-ink backdrop:bg-black/60">
-      <h2 className="mb-3 text-lg font-semibold">{title}</h2>
-      <div className="space-y-3 text-sm">{children}</div>
-      <div className="mt-5 flex justify-end gap-2">
-        <Button onClick={onClose}>Cancel</Button>
-        <Button variant={danger ? "danger" : "primary"} onClick={onConfirm} disabled={busy}>
-          {busy ? "Working…" : confirmLabel}
-        </Button>
-      </div>
-    </dialog>
+    <Modal open={open} onClose={onClose} labelledBy={titleId} className="max-w-lg p-5">
+      <form
+        onSubmit={(event) => {
+          event.preventDefault();
+          if (!busy) onConfirm();
+        }}
+      >
+        <h2 id={titleId} className="mb-3 text-lg font-semibold">
+          {title}
+        </h2>
+        <div className="space-y-3 text-sm">{children}</div>
+        <div className="mt-5 flex justify-end gap-2">
+          <Button onClick={onClose}>Cancel</Button>
+          <Button type="submit" variant={danger ? "danger" : "primary"} disabled={busy}>
+            {busy ? "Working…" : confirmLabel}
+          </Button>
+        </div>
+      </form>
+    </Modal>
   );
 }

@@ -55,6 +55,21 @@ export const signInFailures = pgTable(
   (t) => [index("sign_in_failures_email_at").on(t.email, t.at), index("sign_in_failures_address_at").on(t.address, t.at)],
 );
 
+/**
+ * "Forgot password" requests, for their limits per e-mail typed and per client address
+ * (lib/people/password-reset.ts); kept in the database so the limits hold across instances.
+ */
+export const passwordResetRequests = pgTable(
+  "password_reset_requests",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    email: text("email").notNull(),
+    address: text("address").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("password_reset_requests_email_at").on(t.email, t.at), index("password_reset_requests_address_at").on(t.address, t.at)],
+);
+
 export const auditLog = pgTable(
   "audit_log",
   {

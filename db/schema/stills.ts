@@ -1,6 +1,6 @@
 import { bigint, index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./people";
-import { techniques } from "./techniques";
+import { revisions, techniques } from "./techniques";
 
 /** What a still belongs to decides who may see it (lib/auth/permissions.ts). */
 export const stillOwnerEnum = pgEnum("still_owner", ["technique", "use", "trial"]);
@@ -32,13 +32,25 @@ export const stills = pgTable(
 );
 export type Still = typeof stills.$inferSelect;
 
-/** A before/after pair shown in the compare view of a technique page. */
-export const stillPairs = pgTable("still_pairs", {
-  id: uuid("id").primaryKey().defaultRandom(),
-  techniqueId: uuid("technique_id").notNull().references(() => techniques.id, { onDelete: "cascade" }),
-  beforeStillId: uuid("before_still_id").notNull().references(() => stills.id, { onDelete: "cascade" }),
-  afterStillId: uuid("after_still_id").notNull().references(() => stills.id, { onDelete: "cascade" }),
-  caption: text("caption").notNull().default(""),
-  position: integer("position").notNull().default(0),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-});
+/**
+ * A before/after pair shown in the compare view of a technique page. Pairs belong to the revision
+ * they were made in, like the text: a new revision starts with copies of its base's pairs, so a
+ * changed pair goes through review and shows in the revision diff.
+ */
+export const stillPairs = pgTable(
+  "still_pairs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    techniqueId: uuid("technique_id").notNull().references(() => techniques.id, { onDelete: "cascade" }),
+    revisionId: uuid("revision_id")
+      .notNull()
+      .references(() => revisions.id, { onDelete: "cascade" }),
+    beforeStillId: uuid("before_still_id").notNull().references(() => stills.id, { onDelete: "cascade" }),
+    afterStillId: uuid("after_still_id").notNull().references(() => stills.id, { onDelete: "cascade" }),
+    caption: text("caption").notNull().default(""),
+    position: integer("position").notNull().default(0),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("still_pairs_revision").on(t.revisionId)],
+);
+export type StillPair = typeof stillPairs.$inferSelect;

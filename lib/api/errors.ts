@@ -45,17 +45,20 @@ export class AppError extends Error {
   readonly code: ErrorCode;
   readonly fields?: Record<string, string>;
   readonly details?: Record<string, unknown>;
+  /** For rate_limited: seconds until a retry may succeed (the Retry-After header). */
+  readonly retryAfterSeconds?: number;
 
   constructor(
     code: ErrorCode,
     message?: string,
-    options?: { fields?: Record<string, string>; cause?: unknown; details?: Record<string, unknown> },
+    options?: { fields?: Record<string, string>; cause?: unknown; details?: Record<string, unknown>; retryAfterSeconds?: number },
   ) {
     super(message ?? DEFAULT_MESSAGES[code], { cause: options?.cause });
     this.name = "AppError";
     this.code = code;
     this.fields = options?.fields;
     this.details = options?.details;
+    this.retryAfterSeconds = options?.retryAfterSeconds;
   }
 
   get status(): number {

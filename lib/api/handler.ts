@@ -227,7 +227,7 @@ function errorResponse(error: unknown): Response {
   if (error instanceof AppError) {
     if (error.cause) console.error(`[api] ${error.code}:`, error.cause);
     const headers: Record<string, string> = {};
-    if (error.code === "rate_limited") headers["Retry-After"] = "60";
+    if (error.code === "rate_limited") headers["Retry-After"] = String(error.retryAfterSeconds ?? 60);
     // The rest of an oversized body is not worth reading (RFC 9110 §15.5.14: the server may close the connection).
     if (error.code === "too_large") headers.Connection = "close";
     return json(error.toBody(), error.status, headers);

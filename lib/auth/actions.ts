@@ -3,10 +3,12 @@
 import { AuthError } from "next-auth";
 import { headers } from "next/headers";
 import { redirect } from "next/navigation";
-import { auth, clientAddress, signIn, signOut } from "@/lib/auth";
+import { auth, signIn, signOut } from "@/lib/auth";
+import { clientAddress } from "@/lib/auth/client-address";
 import { credentialsSchema, emailSchema } from "@/lib/auth/schemas";
-import { isSignInLimited } from "@/lib/people/sign-in";
-import { requestPasswordReset, setPasswordWithToken } from "@/lib/people/mutations";
+import { signInWait, signInWaitMessage, waitInWords } from "@/lib/people/sign-in";
+import { setPasswordWithToken } from "@/lib/people/mutations";
+import { afterAnswer, requestPasswordReset, resetAnswerMessage } from "@/lib/people/password-reset";
 import { setPasswordSchema } from "@/lib/people/schemas";
 import { zodFields, isAppError } from "@/lib/api/errors";
 import { endAllSessions } from "@/lib/people/sign-in";
@@ -18,9 +20,8 @@ export type FormState = { message?: string; fieldErrors?: Record<string, string>
 export async function signInAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = credentialsSchema.safeParse({ email: form.get("email"), password: form.get("password") });
   if (!parsed.success) return { message: GENERIC_SIGN_IN_FAILURE };
-  if (await isSignInLimited(parsed.data.email, clientAddress(await headers()))) {
-    return { message: "Too many attempts. Please wait 15 minutes and try again." };
-  }
+  const wait = await signInWait(parsed.data.email, clientAddress(await headers()));
+  if (wait) return { message: signInWaitMessage(wait) };
   const next = String(form.get("next") ?? "/");
   // Only same-site paths: an open redirect after sign-in would help phishing.
   const redirectTo = next.startsWith("/") && !next.startsWith("//") ? next : "/";
@@ -54,6 +55,6 @@ export async function setPasswordAction(_prev: FormState, form: FormData): Promi
 export async function forgotPasswordAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = emailSchema.safeParse(form.get("email"));
   if (!parsed.success) return { fieldErrors: { email: "Enter a valid e-mail address." } };
-  await requestPasswordReset(parsed.data);
-  return { ok: true, message: "If that address has an account, a link to set a new password is on its way." };
+  const answer = await requestPasswordReset(parsed.data, clientAddress(await headers()), afterAnswer);
+  return { ok: answer.ok, message: resetAnswerMessage(answer, waitInWords) };
 }

@@ -2,6 +2,7 @@ import "server-only";
 import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import { cache } from "react";
+import { clientAddress } from "@/lib/auth/client-address";
 import { authConfig } from "@/lib/auth/config";
 import { authSecret } from "@/lib/auth/secret";
 import { credentialsSchema } from "@/lib/auth/schemas";
@@ -30,8 +31,9 @@ const nextAuth = NextAuth(() => ({
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) throw new InvalidCredentials();
         const address = clientAddress(request.headers);
-        const user = await checkCredentials(parsed.data.email, parsed.data.password, address);
-        if (!user) throw new InvalidCredentials();
+        const result = await checkCredentials(parsed.data.email, parsed.data.password, address);
+        if (!result.ok) throw new InvalidCredentials();
+        const { user } = result;
         return { id: user.id, email: user.email, name: user.name, role: user.role, sessionVersion: user.sessionVersion };
       },
     }),
@@ -47,7 +49,3 @@ const nextAuth = NextAuth(() => ({
 
 export const { handlers, signIn, signOut } = nextAuth;
 export const auth = cache(nextAuth.auth);
-
-export function clientAddress(headers: Headers): string {
-  return headers.get("x-forwarded-for")?.split(",")[0]?.trim() || headers.get("x-real-ip") || "local";
-}

@@ -78,7 +78,7 @@ export const ROLE_PERMISSIONS: Record<Role, ReadonlySet<Permission>> = {
 type Resource = {
   /** Who owns it: the author of a use log or question, the uploader of a still. */
   ownerId?: string | null;
-  /** For stills: private trials are visible to their owner and leads only. */
+  /** For stills: a private trial is visible to its uploader only, until shared (e.g. on a use log). */
   stillOwner?: "technique" | "use" | "trial";
   /** For answering a question: the technique's author may answer as well as leads. */
   techniqueAuthorId?: string | null;
@@ -89,7 +89,8 @@ const OWNERSHIP_RULES: Partial<Record<Permission, (user: SessionUser, resource: 
   "use:edit": (user, r) => r.ownerId === user.id || user.role === "lead",
   "question:resolve": (user, r) => r.ownerId === user.id || r.techniqueAuthorId === user.id || user.role === "lead",
   "question:answer": (user, r) => r.techniqueAuthorId === user.id || user.role === "lead",
-  "still:read": (user, r) => r.stillOwner !== "trial" || r.ownerId === user.id || user.role === "lead",
+  // Not leads, not admins: a trial is someone's own experiment until they attach it somewhere.
+  "still:read": (user, r) => r.stillOwner !== "trial" || r.ownerId === user.id,
 };
 
 /** Deny by default: a missing user, an unknown role or a missing permission is a no. */

@@ -10,6 +10,7 @@ import {
 import { codeLut, quantise, quantise8Consuming, quantiser } from "@/lib/lab/srgb";
 import { releaseSimdRgb, takeSimdRgb } from "@/lib/lab/simd";
 import { blurExact, exactBlurWith, releaseExactBlurMemory } from "@/lib/lab/gaussian";
+import { megapixels, STILL_PIXEL_LIMIT } from "@/lib/stills/limits";
 import {
   approxReduction,
   bilinearUp,
@@ -117,9 +118,13 @@ function readChunk(src: PixelSource, start: number, count: number, out: Float32A
 export async function decodeStill(bytes: Uint8Array, width?: number): Promise<StillCodes & { sourceWidth: number; sourceHeight: number }> {
   const meta = await sharp(bytes, { ignoreIcc: true }).metadata();
   if (!meta.width || !meta.height) throw new LabInputError("not a decodable still");
+  // Stills stored before the one limit existed may exceed it: a clear 400, never a 500.
+  if (meta.width * meta.height > STILL_PIXEL_LIMIT) {
+    throw new LabInputError(`the still is ${meta.width} × ${meta.height} pixels; the lab opens at most ${megapixels(STILL_PIXEL_LIMIT)}`);
+  }
   const is16 = meta.depth === "ushort";
   const grey = (meta.channels ?? 3) <= 2;
-  let pipe = sharp(bytes, { ignoreIcc: true, limitInputPixels: 8192 * 8192 });
+  let pipe = sharp(bytes, { ignoreIcc: true, limitInputPixels: STILL_PIXEL_LIMIT });
   if (width && width < meta.width) pipe = pipe.resize({ width });
   let data: Buffer;
   let info: OutputInfo;

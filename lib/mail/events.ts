@@ -1,15 +1,19 @@
 import "server-only";
-import { and, eq, inArray, or, type SQL } from "drizzle-orm";
+import { and, eq, inArray, isNull, or, type SQL } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { digestItems, shots, shows, subscriptions, tags, techniques, users, uses } from "@/db/schema";
 import { baseUrl } from "@/lib/env";
 import { enqueueMail, type Tx } from "@/lib/mail/outbox";
-import { newUnderTagMail, personalMail, revisionApprovedMail, techniqueRetiredMail, type MailContent } from "@/lib/mail/templates";
+import { departmentMethodMail, newUnderTagMail, personalMail, revisionApprovedMail, techniqueRetiredMail, type MailContent } from "@/lib/mail/templates";
 import type { UnsubscribeTarget } from "@/lib/mail/unsubscribe";
 
 export type EventTechnique = { slug: string; title: string; tagSlugs: string[]; summary?: string };
 
-export type TechniqueEvent =
+/** People who hear of the event in a message of their own (the revision's author) and so not as followers. */
+type Skips = { skipUserIds?: string[] };
+
+export type TechniqueEvent = Skips &
+  (
   | {
       kind: "revision-approved";
       actorId: string;
@@ -26,15 +30,21 @@ export type TechniqueEvent =
       note: string | null;
     }
   /** A technique's first approval: people following its tags hear of it. */
-  | { kind: "new-approved-under-tag"; actorId: string; technique: EventTechnique };
+  | { kind: "new-approved-under-tag"; actorId: string; technique: EventTechnique }
+  );
 
+export type PersonEventKind = "question-answered" | "request-resolved" | "question-asked" | "revision-reviewed" | "review-waiting";
+
+/** Something that concerns one person directly; `title`, `summary` and `link` are its digest line. */
 export type PersonEvent = {
-  kind: "question-answered" | "request-resolved";
+  kind: PersonEventKind;
   actorId: string;
   toUserId: string;
   title: string;
   link: string;
   summary: string;
+  /** The message for immediate mail, written to the person's name; the answered/resolved kinds have a default. */
+  mail?: (name: string) => MailContent;
 };
 
 type SubKind = "technique" | "tag" | "show";
@@ -87,8 +97,9 @@ async function resolveSubscribers(tx: Tx, event: TechniqueEvent): Promise<Recipi
     .innerJoin(users, eq(subscriptions.userId, users.id))
     .where(or(...targets));
   const byPerson = new Map<string, Recipient>();
+  const skipped = new Set([event.actorId, ...(event.skipUserIds ?? [])]);
   for (const row of rows) {
-    if (row.userId === event.actorId || row.disabledAt) continue;
+    if (skipped.has(row.userId) || row.disabledAt) continue;
     const person = byPerson.get(row.userId) ?? { id: row.userId, email: row.email, name: row.name, matches: [] };
     person.matches.push({ kind: row.kind, key: row.key, mode: row.mode });
     byPerson.set(row.userId, person);
@@ -179,7 +190,11 @@ export async function notifyTechniqueEvent(tx: Pick<Database, "insert" | "select
   }
 }
 
-/** Mail to one person about something that concerns them directly (their question, their request). */
+/**
+ * Mail to one person about something that concerns them directly (their question, their request,
+ * their revision, a review waiting for them): immediate or a digest line, by their mail setting.
+ * Nobody hears of their own action.
+ */
 export async function notifyPerson(tx: Pick<Database, "insert" | "select">, event: PersonEvent): Promise<void> {
   if (event.toUserId === event.actorId) return;
   const [person] = await tx
@@ -192,6 +207,67 @@ export async function notifyPerson(tx: Pick<Database, "insert" | "select">, even
     await tx.insert(digestItems).values({ userId: person.id, kind: event.kind, title: event.title, summary: event.summary, link: event.link });
     return;
   }
-  const content = personalMail({ name: person.name, kind: event.kind, title: event.title, link: event.link, summary: event.summary });
+  const content = event.mail
+    ? event.mail(person.name)
+    : personalMail({ name: person.name, kind: event.kind === "request-resolved" ? "request-resolved" : "question-answered", title: event.title, link: event.link, summary: event.summary });
   await enqueueMail(tx, { to: person, kind: event.kind, content });
+}
+
+/** The same event to several people (each once, never the actor). */
+export async function notifyPeople(tx: Pick<Database, "insert" | "select">, toUserIds: (string | null | undefined)[], event: Omit<PersonEvent, "toUserId">): Promise<void> {
+  for (const id of new Set(toUserIds.filter((x): x is string => Boolean(x)))) await notifyPerson(tx, { ...event, toUserId: id });
+}
+
+/** Every lead who may review (enabled, not the actor) hears of a submitted revision. */
+export async function notifyLeads(tx: Pick<Database, "insert" | "select">, event: Omit<PersonEvent, "toUserId">): Promise<void> {
+  const leads = await tx
+    .select({ id: users.id })
+    .from(users)
+    .where(and(eq(users.role, "lead"), isNull(users.disabledAt)));
+  await notifyPeople(
+    tx,
+    leads.map((l) => l.id),
+    event,
+  );
+}
+
+export type DepartmentMethodEvent = {
+  actorId: string;
+  actorName: string;
+  tag: { slug: string; name: string };
+  technique: { slug: string; title: string };
+  replaced: { slug: string; title: string } | null;
+};
+
+/** Followers of a problem hear that its department method changed (immediate or digest, as they chose). */
+export async function notifyDepartmentMethod(tx: Pick<Database, "insert" | "select">, event: DepartmentMethodEvent): Promise<void> {
+  const rows = await tx
+    .select({ id: users.id, email: users.email, name: users.name, disabledAt: users.disabledAt, mode: subscriptions.mode })
+    .from(subscriptions)
+    .innerJoin(users, eq(subscriptions.userId, users.id))
+    .where(and(eq(subscriptions.kind, "tag"), eq(subscriptions.key, event.tag.slug)));
+  const technique = { ...event.technique, url: techniqueUrl(event.technique.slug) };
+  const replaced = event.replaced ? { ...event.replaced, url: techniqueUrl(event.replaced.slug) } : null;
+  for (const person of rows) {
+    if (person.id === event.actorId || person.disabledAt) continue;
+    if (person.mode === "daily") {
+      await tx.insert(digestItems).values({
+        userId: person.id,
+        kind: "department-method",
+        title: `${event.tag.name}: ${technique.title} is the department method`,
+        summary: replaced ? `In place of ${replaced.title}.` : "",
+        link: technique.url,
+      });
+      continue;
+    }
+    const content = departmentMethodMail({
+      name: person.name,
+      problem: event.tag.name,
+      technique,
+      replaced,
+      lead: event.actorName,
+      reason: `You get this because you follow the problem "${event.tag.name}".`,
+    });
+    await enqueueMail(tx, { to: person, kind: "department-method", content, unsubscribe: { userId: person.id, kind: "tag", key: event.tag.slug } });
+  }
 }

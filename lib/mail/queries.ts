@@ -6,6 +6,16 @@ import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { OUTBOX_STATES, type ListOutboxInput, type OutboxItemResponse, type OutboxListResponse, type OutboxState } from "@/lib/mail/schemas";
 
+/**
+ * A reset link lets whoever holds it set that person's password: admins see that a reset mail
+ * went out, never its token (README, roles: what the admin may not read).
+ */
+function hideResetToken(row: OutboxMessage, text: string): string;
+function hideResetToken(row: OutboxMessage, text: string | null): string | null;
+function hideResetToken(row: OutboxMessage, text: string | null): string | null {
+  return row.kind === "reset" && text ? text.replace(/token=[^\s"'<&]+/g, "token=(hidden)") : text;
+}
+
 export function toOutboxItem(row: OutboxMessage): OutboxItemResponse {
   return {
     id: row.id,
@@ -21,8 +31,8 @@ export function toOutboxItem(row: OutboxMessage): OutboxItemResponse {
     sentAt: row.sentAt?.toISOString() ?? null,
     messageId: row.messageId,
     headers: row.headers,
-    text: row.text,
-    html: row.html,
+    text: hideResetToken(row, row.text),
+    html: hideResetToken(row, row.html),
   };
 }
 

@@ -278,6 +278,110 @@ export function personalMail(m: { name: string; kind: "question-answered" | "req
   };
 }
 
+/** To the author of a revision a lead approved or sent back. */
+export function revisionReviewedMail(m: {
+  name: string;
+  technique: TechniqueRef;
+  revisionNumber: number;
+  decision: "approve" | "return";
+  reviewer: string;
+  note: string | null;
+  link: string;
+}): MailContent {
+  const approved = m.decision === "approve";
+  const blocks: MailBlock[] = [
+    {
+      type: "paragraph",
+      text: approved
+        ? `${m.reviewer} approved your revision ${m.revisionNumber} of "${m.technique.title}". Everyone now sees it.`
+        : `${m.reviewer} sent your revision ${m.revisionNumber} of "${m.technique.title}" back to you. Change what the note asks, then submit it again.`,
+    },
+  ];
+  if (m.note?.trim()) blocks.push({ type: "quote", label: approved ? `Note from ${m.reviewer}` : `What ${m.reviewer} asks you to change`, text: m.note.trim() });
+  blocks.push({ type: "button", label: approved ? "Open the technique" : "Edit the technique", href: m.link });
+  return {
+    subject: approved ? `Approved: ${m.technique.title} (revision ${m.revisionNumber})` : `Sent back: ${m.technique.title} (revision ${m.revisionNumber})`,
+    greeting: `Hello ${m.name},`,
+    heading: approved ? "Your revision was approved" : "Your revision was sent back",
+    blocks,
+    reason: "You get this because you wrote the revision.",
+  };
+}
+
+/** To the authors of a technique when someone asks a question on it. */
+export function questionAskedMail(m: { name: string; technique: TechniqueRef; asker: string; question: string; link: string }): MailContent {
+  return {
+    subject: `Question on ${m.technique.title}`,
+    greeting: `Hello ${m.name},`,
+    heading: `${m.asker} asked a question`,
+    blocks: [
+      { type: "paragraph", text: `${m.asker} asked a question on "${m.technique.title}".` },
+      { type: "quote", label: "Question", text: m.question.trim() || "(no text)" },
+      { type: "button", label: "Answer it", href: m.link },
+    ],
+    reason: "You get this because you wrote this technique.",
+  };
+}
+
+/** To every lead when a revision is submitted for review. */
+export function reviewWaitingMail(m: {
+  name: string;
+  technique: TechniqueRef;
+  revisionNumber: number;
+  author: string;
+  isEdit: boolean;
+  changeNote: string;
+  link: string;
+}): MailContent {
+  const blocks: MailBlock[] = [
+    {
+      type: "paragraph",
+      text: m.isEdit
+        ? `${m.author} submitted revision ${m.revisionNumber} of the approved technique "${m.technique.title}". Readers keep the approved text until a lead approves it.`
+        : `${m.author} submitted the new technique "${m.technique.title}" for review.`,
+    },
+  ];
+  if (m.isEdit && m.changeNote.trim()) blocks.push({ type: "quote", label: "Change note", text: m.changeNote.trim() });
+  blocks.push({ type: "button", label: m.isEdit ? "Review the changes" : "Review it", href: m.link });
+  return {
+    subject: `To review: ${m.technique.title} (revision ${m.revisionNumber})`,
+    greeting: `Hello ${m.name},`,
+    heading: "A revision is waiting for review",
+    blocks,
+    reason: "You get this because you are a lead. Choose daily mail on your settings page to get these once a day.",
+  };
+}
+
+/** To followers of a problem when a lead changes its department method. */
+export function departmentMethodMail(m: {
+  name: string;
+  problem: string;
+  technique: TechniqueRef & { url: string };
+  replaced: (TechniqueRef & { url: string }) | null;
+  lead: string;
+  reason: string;
+  unsubscribeUrl?: string;
+}): MailContent {
+  const blocks: MailBlock[] = [
+    {
+      type: "paragraph",
+      text: m.replaced
+        ? `${m.lead} made "${m.technique.title}" the department method for ${m.problem}, in place of "${m.replaced.title}".`
+        : `${m.lead} made "${m.technique.title}" the department method for ${m.problem}.`,
+    },
+    { type: "button", label: `Open ${m.technique.title}`, href: m.technique.url },
+  ];
+  if (m.replaced) blocks.push({ type: "link", label: `The former method, ${m.replaced.title}`, href: m.replaced.url });
+  return {
+    subject: `Department method for ${m.problem}: ${m.technique.title}`,
+    greeting: `Hello ${m.name},`,
+    heading: `New department method for ${m.problem}`,
+    blocks,
+    reason: m.reason,
+    unsubscribeUrl: m.unsubscribeUrl,
+  };
+}
+
 type DigestEntry = { kind: string; title: string; summary: string; link: string; createdAt: Date };
 
 const DIGEST_SECTION_TITLES: Record<string, string> = {
@@ -286,6 +390,10 @@ const DIGEST_SECTION_TITLES: Record<string, string> = {
   "new-approved-under-tag": "New techniques under your tags",
   "question-answered": "Answers to your questions",
   "request-resolved": "Resolved requests",
+  "review-waiting": "Waiting for your review",
+  "revision-reviewed": "Your revisions, reviewed",
+  "question-asked": "Questions on your techniques",
+  "department-method": "Department methods",
 };
 
 export function digestMail(m: { name: string; day: string; entries: DigestEntry[]; settingsUrl: string; unsubscribeUrl?: string }): MailContent {
@@ -308,7 +416,7 @@ export function digestMail(m: { name: string; day: string; entries: DigestEntry[
     greeting: `Hello ${m.name},`,
     heading: "Your daily digest",
     blocks,
-    reason: "You get this digest because you chose daily mail for what you follow.",
+    reason: "You get this digest because you chose daily mail on your settings page.",
     unsubscribeUrl: m.unsubscribeUrl,
   };
 }

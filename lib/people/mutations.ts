@@ -14,7 +14,6 @@ import type { InvitePersonInput, InviteResponse, PersonResponse, UpdatePersonInp
 import { enqueueAccountMail } from "@/lib/mail/account-mail";
 
 const INVITE_VALID_MS = 7 * 24 * 60 * 60 * 1000;
-const RESET_VALID_MS = 60 * 60 * 1000;
 
 /** Creates the account without a password and mails a single-use set-password link. */
 export async function invitePerson(actor: SessionUser, input: InvitePersonInput): Promise<InviteResponse> {
@@ -75,17 +74,6 @@ export async function updatePerson(actor: SessionUser, id: string, input: Update
       detail: { from: { role: person.role, disabled: !!person.disabledAt }, to: { role: updated.role, disabled: !!updated.disabledAt } },
     });
     return toPersonResponse(updated);
-  });
-}
-
-/** Starts "forgot password": always answers the same, whether or not the address exists. */
-export async function requestPasswordReset(email: string): Promise<void> {
-  await getDb().transaction(async (tx) => {
-    const [person] = await tx.select().from(users).where(eq(users.email, email.toLowerCase())).limit(1);
-    if (!person || person.disabledAt) return;
-    const { token, hash } = newSecretToken("rst");
-    await tx.insert(oneTimeTokens).values({ userId: person.id, purpose: "reset", tokenHash: hash, expiresAt: new Date(Date.now() + RESET_VALID_MS) });
-    await enqueueAccountMail(tx, { kind: "reset", to: person, link: `${baseUrl()}/set-password?token=${encodeURIComponent(token)}` });
   });
 }
 

@@ -1,13 +1,15 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { answers, questions, revisions, techniques } from "@/db/schema";
+import { answers, questions, revisions, techniques, type Technique } from "@/db/schema";
+import type { Tx } from "@/lib/mail/outbox";
 import { AppError } from "@/lib/api/errors";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit/log";
 import { baseUrl } from "@/lib/env";
-import { notifyPerson } from "@/lib/mail/events";
+import { notifyPeople, notifyPerson } from "@/lib/mail/events";
+import { questionAskedMail } from "@/lib/mail/templates";
 import type { TechniqueDocument } from "@/lib/techniques/document";
 import { documentToPlainText } from "@/lib/techniques/plain-text";
 import { requireVisibleTechnique } from "@/lib/techniques/queries";
@@ -18,7 +20,24 @@ export async function askQuestion(user: SessionUser, slug: string, body: Techniq
   return getDb().transaction(async (tx) => {
     const [q] = await tx.insert(questions).values({ techniqueId: technique.id, authorId: user.id, body, bodyText: documentToPlainText(body) }).returning({ id: questions.id });
     await writeAudit(tx, { actorId: user.id, action: "question.ask", targetType: "technique", targetId: technique.id, detail: { question: q!.id } });
+    await tellAuthorsOfQuestion(tx, user, technique, q!.id, documentToPlainText(body));
     return { id: q!.id };
+  });
+}
+
+/** The technique's creator and the author of the revision readers see hear of a new question (not the asker). */
+async function tellAuthorsOfQuestion(tx: Tx, asker: SessionUser, technique: Technique, questionId: string, text: string) {
+  const revisionId = technique.approvedRevisionId ?? technique.latestRevisionId;
+  const [r] = revisionId ? await tx.select({ title: revisions.title, authorId: revisions.authorId }).from(revisions).where(eq(revisions.id, revisionId)) : [];
+  const ref = { slug: technique.slug, title: r?.title ?? technique.slug };
+  const link = `${baseUrl()}/techniques/${technique.slug}#question-${questionId}`;
+  await notifyPeople(tx, [technique.createdById, r?.authorId], {
+    kind: "question-asked",
+    actorId: asker.id,
+    title: `${asker.name} asked about ${ref.title}`,
+    summary: text.slice(0, 300),
+    link,
+    mail: (name) => questionAskedMail({ name, technique: ref, asker: asker.name, question: text.slice(0, 1000), link }),
   });
 }
 

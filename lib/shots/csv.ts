@@ -1,6 +1,6 @@
 import Papa from "papaparse";
 import { sequenceFromCode, shotRowSchema, SHOT_FIELD_LABELS, SHOT_FIELDS, type ColumnMapping, type ImportPlan, type ImportRowError, type PlannedShot, type ShotChange, type ShotField, type ShotState } from "@/lib/shots/schemas";
-import { compileShotPattern } from "@/lib/shows/schemas";
+import { compileShotPattern, DEFAULT_SHOT_PATTERN } from "@/lib/shows/schemas";
 
 /*
  * Shot lists as CSV: reading (with the lead's column mapping), planning an import against the
@@ -208,7 +208,7 @@ export function planImport(rows: readonly ImportRow[], existingByCode: ReadonlyM
     }
     const r = parsed.data;
     if (!pattern.test(r.code)) {
-      plan.errors.push({ ...at, code: r.code, message: `${r.code} does not match the shot pattern of ${show.code} (${show.shotPattern}).` });
+      plan.errors.push({ ...at, code: r.code, message: notAShotCode(r.code, show, existingByCode) });
       continue;
     }
     const existing = existingByCode.get(r.code);
@@ -259,6 +259,21 @@ export function planImport(rows: readonly ImportRow[], existingByCode: ReadonlyM
     else plan.unchanged.push({ row, code: r.code });
   }
   return plan;
+}
+
+/**
+ * Why a code is not one of the show's shot codes, in words (never the pattern itself): the usual
+ * SHOW_SEQ_SHOT form is spelled out; otherwise a code the show already has is the example.
+ */
+function notAShotCode(code: string, show: PlanShow, existingByCode: ReadonlyMap<string, ExistingShot>): string {
+  const spelled = (p: string) => p.replaceAll("{CODE}", show.code);
+  if (spelled(show.shotPattern) === spelled(DEFAULT_SHOT_PATTERN)) {
+    return `${code} is not a shot code of ${show.code}: they look like ${show.code}_040_0120 (the show, a 3-digit sequence, a 4-digit shot, joined by underscores).`;
+  }
+  const example = [...existingByCode.values()].find((s) => s.showCode === show.code)?.code;
+  return example
+    ? `${code} is not written like the shot codes of ${show.code}, such as ${example}.`
+    : `${code} is not written like the shot codes set for ${show.code}; a lead can see the rule on the show page.`;
 }
 
 /** Mapped CSV records as rows to plan. */

@@ -117,7 +117,8 @@ async function techniquesUsedOnShots(codes: readonly string[]): Promise<string[]
 
 /** The stored shots (of any show) whose codes appear in the rows, keyed by code. */
 async function loadExisting(db: Tx | Database, rows: readonly ImportRow[]): Promise<Map<string, ExistingShot>> {
-  const codes = [...new Set(rows.map((r) => (typeof r.values.code === "string" ? r.values.code.trim() : "")).filter(Boolean))];
+  // A code holding U+0000 cannot be stored (nor sent as a parameter): planImport refuses its row.
+  const codes = [...new Set(rows.map((r) => (typeof r.values.code === "string" ? r.values.code.trim() : "")).filter((c) => c && !c.includes("\u0000")))];
   const out = new Map<string, ExistingShot>();
   for (let i = 0; i < codes.length; i += LOOKUP_CHUNK) {
     const found = await db

@@ -37,10 +37,15 @@ export const shotCodeSchema = z
   .string()
   .trim()
   .min(1, "Enter a shot code.")
-  .max(SHOT_CODE_MAX, `Shot codes are at most ${SHOT_CODE_MAX} characters.`);
+  .max(SHOT_CODE_MAX, `Shot codes are at most ${SHOT_CODE_MAX} characters.`)
+  .refine((v) => !v.includes("\u0000"), "Shot codes may not contain NUL (U+0000) characters.");
 
 /** An empty cell means "not given": imports never erase a value with a blank. */
 const blankToUndefined = (v: unknown) => (v === null || (typeof v === "string" && v.trim() === "") ? undefined : v);
+
+/** PostgreSQL text cannot hold U+0000: refused here, so the dry run reports what the import would refuse. */
+const noNul = (v: string | undefined) => v === undefined || !v.includes("\u0000");
+const NUL_MESSAGE = "No NUL (U+0000) characters allowed.";
 
 const frameSchema = z.preprocess(
   (v) => {
@@ -70,8 +75,11 @@ const shotStateInputSchema = z.preprocess(
  */
 export const shotRowSchema = z.object({
   code: z.preprocess((v) => (typeof v === "string" ? v.trim() : v), shotCodeSchema),
-  sequence: z.preprocess(blankToUndefined, z.string().trim().max(SHOT_CODE_MAX).optional()),
-  description: z.preprocess(blankToUndefined, z.string().trim().max(2000, "Description is too long.").optional()),
+  sequence: z.preprocess(blankToUndefined, z.string().trim().max(SHOT_CODE_MAX).optional().refine(noNul, NUL_MESSAGE)),
+  description: z.preprocess(
+    blankToUndefined,
+    z.string().trim().max(2000, "Description is too long.").optional().refine(noNul, NUL_MESSAGE),
+  ),
   frameStart: frameSchema,
   frameEnd: frameSchema,
   state: shotStateInputSchema,

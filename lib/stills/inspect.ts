@@ -1,11 +1,18 @@
 import "server-only";
+import crypto from "node:crypto";
 import fs from "node:fs/promises";
 import sharp, { type Metadata } from "sharp";
 import { AppError } from "@/lib/api/errors";
+import { decodeStill } from "@/lib/lab/engine";
+import { megapixels, STILL_PIXEL_LIMIT } from "@/lib/stills/limits";
 import type { StillFormat } from "@/lib/stills/schemas";
+import { StripError, stripMetadata } from "@/lib/stills/strip-metadata";
 
-/** Decompression-bomb guard: a small file may declare a huge image (OWASP File Upload Cheat Sheet). */
-export const PIXEL_LIMIT = 100_000_000;
+/** Decompression-bomb guard, the same limit the lab opens up to (lib/stills/limits.ts). */
+export const PIXEL_LIMIT = STILL_PIXEL_LIMIT;
+
+/** Width of the trial decode through the lab at upload: small, so it costs little beyond the full decode. */
+const LAB_TRIAL_WIDTH = 64;
 
 export type StillFacts = {
   format: StillFormat;
@@ -65,11 +72,17 @@ async function sizeOf(file: string | Buffer): Promise<number> {
   return Buffer.isBuffer(file) ? file.length : (await fs.stat(file)).size;
 }
 
+function tooManyPixels(width?: number, height?: number, cause?: unknown): AppError {
+  const size = width && height ? `${width} × ${height} pixels (${megapixels(width * height)})` : `more than ${megapixels(PIXEL_LIMIT)}`;
+  return new AppError("too_large", `The image is ${size}; Plateroom and its still lab accept at most ${megapixels(PIXEL_LIMIT)} (8192 × 8192).`, {
+    cause,
+    fields: { file: "Too many pixels." },
+  });
+}
+
 function decodeFailure(error: unknown): AppError {
   const message = error instanceof Error ? error.message : String(error);
-  if (/pixel limit/i.test(message)) {
-    return new AppError("too_large", `The image has more than ${PIXEL_LIMIT / 1_000_000} megapixels, the most Plateroom accepts.`, { cause: error });
-  }
+  if (/pixel limit/i.test(message)) return tooManyPixels(undefined, undefined, error);
   if (/unsupported image format/i.test(message)) {
     return new AppError("unsupported_type", `This is not a ${ALLOWED_LIST} image.`, { cause: error });
   }
@@ -93,7 +106,8 @@ export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
 
   let meta: Metadata;
   try {
-    meta = await sharp(file, { limitInputPixels: PIXEL_LIMIT }).metadata();
+    // The header's size is checked below with a message that names it; this guard is for the decode.
+    meta = await sharp(file, { limitInputPixels: false }).metadata();
   } catch (error) {
     throw decodeFailure(error);
   }
@@ -102,7 +116,7 @@ export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
   }
   const { width, height } = meta;
   if (!width || !height) throw new AppError("validation_failed", "The image has no size.", { fields: { file: "The image has no size." } });
-  if (width * height > PIXEL_LIMIT) throw decodeFailure(new Error("pixel limit"));
+  if (width * height > PIXEL_LIMIT) throw tooManyPixels(width, height);
   if ((meta.pages ?? 1) > 1) {
     throw new AppError("unsupported_type", "Animated and multi-page images are not accepted; export a single frame.");
   }
@@ -125,5 +139,38 @@ export async function inspectStill(file: string | Buffer): Promise<StillFacts> {
   } catch (error) {
     throw decodeFailure(error);
   }
+  // A still is accepted only if the lab opens it: its own decode, at a small width.
+  try {
+    await decodeStill(Buffer.isBuffer(file) ? file : await fs.readFile(file), LAB_TRIAL_WIDTH);
+  } catch (error) {
+    throw new AppError("unsupported_type", "The still lab cannot open this image; export it as 8- or 16-bit RGB or grey.", { cause: error });
+  }
   return { format: sniffed, width, height, bitDepth, channels: channels as StillFacts["channels"], space: meta.space ?? "srgb" };
+}
+
+export type PreparedOriginal = { facts: StillFacts; path: string; sha256: string; size: number };
+
+/**
+ * The original as it will be stored: identifying metadata removed (lib/stills/strip-metadata.ts),
+ * then checked like any upload. Writes the cleaned bytes to `target` (a fresh incoming path,
+ * created here); the caller owns it. A file whose structure cannot be taken apart is refused
+ * with the message its decode gives, or 415 if it decodes.
+ */
+export async function prepareOriginal(file: string, target: string): Promise<PreparedOriginal> {
+  const sniffed = sniffFormat(await readHead(file));
+  if (!sniffed) {
+    await inspectStill(file);
+    throw new AppError("unsupported_type", `This is not a ${ALLOWED_LIST} image.`);
+  }
+  let cleaned: Buffer;
+  try {
+    cleaned = stripMetadata(await fs.readFile(file), sniffed);
+  } catch (error) {
+    if (!(error instanceof StripError)) throw error;
+    await inspectStill(file);
+    throw new AppError("unsupported_type", "Plateroom cannot take this file's metadata apart from its pixels; export it again as a plain file.", { cause: error });
+  }
+  const facts = await inspectStill(cleaned);
+  await fs.writeFile(target, cleaned, { flag: "wx", mode: 0o600 });
+  return { facts, path: target, sha256: crypto.createHash("sha256").update(cleaned).digest("hex"), size: cleaned.length };
 }

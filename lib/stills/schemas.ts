@@ -83,6 +83,8 @@ export type StillResponse = StillCreatedResponse & {
 export type StillPairResponse = {
   id: string;
   techniqueId: string;
+  /** Number of the revision the pair belongs to. */
+  revision: number;
   caption: string;
   position: number;
   before: StillResponse;

@@ -10,7 +10,7 @@ import type { StillVariant } from "@/lib/stills/schemas";
 /**
  * Content-addressed file store under PLATEROOM_UPLOADS_DIR (outside the web root; OWASP
  * File Upload Cheat Sheet, "rename on store"):
- *   originals/ab/<sha256>.bin   the uploaded bytes, exactly
+ *   originals/ab/<sha256>.bin   the uploaded bytes less identifying metadata (strip-metadata.ts)
  *   previews/ab/<sha256>.webp   longest side ≤ 2048, metadata stripped
  *   thumbs/ab/<sha256>.webp     longest side ≤ 400, metadata stripped
  *   tmp/                        uploads being received (same filesystem, so rename is atomic)

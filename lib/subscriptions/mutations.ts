@@ -93,6 +93,18 @@ export async function setMailMode(actor: SessionUser, mode: MailMode): Promise<{
 }
 
 /**
+ * Authors follow their own technique from its first save, in the mail mode they chose; following
+ * it already (or having chosen otherwise since) is left as it is. Call in the creating transaction.
+ */
+export async function followOwnTechnique(tx: Pick<Database, "insert" | "select">, userId: string, slug: string): Promise<void> {
+  const [me] = await tx.select({ mailMode: users.mailMode }).from(users).where(eq(users.id, userId)).limit(1);
+  await tx
+    .insert(subscriptions)
+    .values({ userId, kind: "technique", key: slug, mode: me?.mailMode ?? "immediate" })
+    .onConflictDoNothing();
+}
+
+/**
  * Call in the transaction that renames a technique's slug: subscriptions are keyed by slug, so
  * without this the followers of the old slug would stop hearing about it.
  */

@@ -34,7 +34,40 @@ export type RevisionSnapshot = {
 
 type RevisionField = "title" | "summary" | "aliases" | "tags" | "bodyText" | "recipe";
 
-export type FieldDiff = { field: RevisionField; label: string; segments: DiffSegment[] };
+/** A still as a diff shows it: a thumbnail with its description. */
+export type DiffStill = { id: string; alt: string };
+
+export type FieldDiff = {
+  field: RevisionField;
+  label: string;
+  segments: DiffSegment[];
+  /** Body only: each still in the text is one private-use character, a key here (shown as a thumbnail). */
+  stills?: Record<string, DiffStill>;
+};
+
+/** A before/after pair added, removed or re-captioned between two revisions. */
+export type PairChange = { change: "added" | "removed" | "captioned"; before: DiffStill; after: DiffStill; caption: string; previousCaption?: string };
+
+/** First character of the Unicode private use area: still tokens in a diffed body are made from here on. */
+export const STILL_TOKEN_BASE = 0xe000;
+export const STILL_TOKEN = /[\uE000-\uF8FF]/u;
+
+type PairLike = { before: DiffStill; after: DiffStill; caption: string };
+
+/** Pair changes from a to b; a pair is the same pair when it shows the same two stills. */
+export function diffPairs(a: readonly PairLike[], b: readonly PairLike[]): PairChange[] {
+  const key = (p: PairLike) => `${p.before.id}>${p.after.id}`;
+  const older = new Map(a.map((p) => [key(p), p]));
+  const newer = new Map(b.map((p) => [key(p), p]));
+  const changes: PairChange[] = [];
+  for (const p of b) {
+    const was = older.get(key(p));
+    if (!was) changes.push({ change: "added", before: p.before, after: p.after, caption: p.caption });
+    else if (was.caption !== p.caption) changes.push({ change: "captioned", before: p.before, after: p.after, caption: p.caption, previousCaption: was.caption });
+  }
+  for (const p of a) if (!newer.has(key(p))) changes.push({ change: "removed", before: p.before, after: p.after, caption: p.caption });
+  return changes;
+}
 
 const FIELD_LABELS: Record<RevisionField, string> = {
   title: "Title",

@@ -1,19 +1,20 @@
 import "server-only";
 import { and, eq, inArray, ne, sql } from "drizzle-orm";
 import { getDb, type Database } from "@/db/client";
-import { houseMethods, revisions, tags, techniqueRequests, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
+import { houseMethods, revisions, stillPairs, tags, techniqueRequests, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit/log";
-import { notifyPerson, notifyTechniqueEvent } from "@/lib/mail/events";
+import { notifyDepartmentMethod, notifyLeads, notifyPerson, notifyTechniqueEvent, techniqueUrl } from "@/lib/mail/events";
+import { revisionReviewedMail, reviewWaitingMail } from "@/lib/mail/templates";
 import { baseUrl } from "@/lib/env";
 import { emptyDocument, type TechniqueDocument } from "@/lib/techniques/document";
 import { documentToPlainText } from "@/lib/techniques/plain-text";
 import { findTechniqueBySlug } from "@/lib/techniques/queries";
 import { slugify } from "@/lib/techniques/slug";
 import { reindexTechnique } from "@/lib/techniques/search-sync";
-import { renameTechniqueSubscriptions } from "@/lib/subscriptions/mutations";
+import { followOwnTechnique, renameTechniqueSubscriptions } from "@/lib/subscriptions/mutations";
 import type { CreateTechniqueInput, RetireInput, ReviewInput, UpdateTechniqueInput } from "@/lib/techniques/schemas";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
@@ -85,6 +86,60 @@ async function latestRevision(tx: Tx, t: Technique): Promise<Revision> {
   return r;
 }
 
+/** A new revision starts with copies of its base revision's before/after pairs. */
+async function copyPairs(tx: Tx, fromRevisionId: string, toRevisionId: string): Promise<void> {
+  const pairs = await tx.select().from(stillPairs).where(eq(stillPairs.revisionId, fromRevisionId));
+  if (!pairs.length) return;
+  await tx.insert(stillPairs).values(
+    pairs.map((p) => ({
+      techniqueId: p.techniqueId,
+      revisionId: toRevisionId,
+      beforeStillId: p.beforeStillId,
+      afterStillId: p.afterStillId,
+      caption: p.caption,
+      position: p.position,
+      createdAt: p.createdAt,
+    })),
+  );
+}
+
+/**
+ * Runs a change to the revision people are working on (its before/after pairs) in one transaction.
+ * A draft or sent-back newest revision is changed in place; when the newest is approved or waiting
+ * for review, a new draft revision (a copy, with `changeNote`) takes the change, so it goes
+ * through review like any other edit and readers keep what was approved.
+ */
+export async function changeWorkingRevision<T>(
+  actor: SessionUser,
+  slug: string,
+  changeNote: string,
+  work: (tx: Tx, revision: Revision, technique: Technique) => Promise<T>,
+): Promise<T> {
+  assertCan(actor, "technique:write");
+  const result = await getDb().transaction(async (tx) => {
+    const t = await lockTechnique(tx, slug);
+    if (t.status === "retired") throw new AppError("conflict", "This technique is retired; it can no longer be changed.");
+    let revision = await latestRevision(tx, t);
+    if (revision.state === "approved" || revision.state === "in_review") {
+      const { id: _id, number, state: _state, createdAt: _at, reviewedById: _by, reviewedAt: _rat, reviewNote: _note, ...content } = revision;
+      const [next] = await tx
+        .insert(revisions)
+        .values({ ...content, number: number + 1, changeNote, authorId: actor.id, state: "draft" })
+        .returning();
+      await copyPairs(tx, revision.id, next!.id);
+      await tx
+        .update(techniques)
+        .set({ latestRevisionId: next!.id, updatedAt: new Date(), status: t.approvedRevisionId ? t.status : "draft" })
+        .where(eq(techniques.id, t.id));
+      await writeAudit(tx, { actorId: actor.id, action: "technique.edit", targetType: "technique", targetId: t.id, detail: { revision: next!.number, changeNote } });
+      revision = next!;
+    }
+    return { id: t.id, value: await work(tx, revision, t) };
+  });
+  await reindexTechnique(result.id);
+  return result.value;
+}
+
 /** Seniors and leads write a new technique; it starts as a draft. */
 export async function createTechnique(actor: SessionUser, input: CreateTechniqueInput): Promise<{ slug: string; revision: number }> {
   assertCan(actor, "technique:write");
@@ -104,6 +159,7 @@ export async function createTechnique(actor: SessionUser, input: CreateTechnique
         .set({ status: "claimed", claimedById: actor.id, resolvedByTechniqueId: t.id })
         .where(and(eq(techniqueRequests.id, input.requestId), ne(techniqueRequests.status, "resolved")));
     }
+    await followOwnTechnique(tx, actor.id, slug);
     await writeAudit(tx, { actorId: actor.id, action: "technique.create", targetType: "technique", targetId: t.id, detail: { slug, title: input.title } });
     return { id: t.id, slug, revision: 1 };
   });
@@ -114,9 +170,15 @@ export async function createTechnique(actor: SessionUser, input: CreateTechnique
 /**
  * Saves a new revision. `baseRevision` must be the newest: otherwise someone saved in
  * between and the answer is 409 naming who and when, so nothing is silently overwritten.
- * Editing an approved technique sends the new revision to review; readers keep the approved one.
+ * One rule for new and approved techniques alike: a saved revision is a draft until someone
+ * submits it for review (submitTechnique); readers of an approved technique keep the approved one.
  */
-export async function updateTechnique(actor: SessionUser, slug: string, input: UpdateTechniqueInput): Promise<{ slug: string; revision: number }> {
+export async function updateTechnique(
+  actor: SessionUser,
+  slug: string,
+  input: UpdateTechniqueInput,
+  options: { pairsFromRevisionId?: string } = {},
+): Promise<{ slug: string; revision: number }> {
   assertCan(actor, "technique:write");
   const result = await getDb().transaction(async (tx) => {
     const t = await lockTechnique(tx, slug);
@@ -141,9 +203,10 @@ export async function updateTechnique(actor: SessionUser, slug: string, input: U
         tagIds,
         changeNote: input.changeNote,
         authorId: actor.id,
-        state: isEditOfApproved ? "in_review" : "draft",
+        state: "draft",
       })
       .returning();
+    await copyPairs(tx, options.pairsFromRevisionId ?? latest.id, r!.id);
     const newSlug = isEditOfApproved ? t.slug : await renameSlug(tx, t, input.title);
     await tx
       .update(techniques)
@@ -173,6 +236,17 @@ export async function submitTechnique(actor: SessionUser, slug: string): Promise
     await tx.update(revisions).set({ state: "in_review" }).where(eq(revisions.id, latest.id));
     if (t.approvedRevisionId === null) await tx.update(techniques).set({ status: "in_review", updatedAt: new Date() }).where(eq(techniques.id, t.id));
     await writeAudit(tx, { actorId: actor.id, action: "technique.submit", targetType: "technique", targetId: t.id, detail: { revision: latest.number } });
+    const isEdit = t.approvedRevisionId !== null;
+    const technique = { slug: t.slug, title: latest.title };
+    const link = reviewUrl(t.slug);
+    await notifyLeads(tx, {
+      kind: "review-waiting",
+      actorId: actor.id,
+      title: `${latest.title}: revision ${latest.number} waits for review`,
+      summary: isEdit ? latest.changeNote : `New technique by ${actor.name}.`,
+      link,
+      mail: (name) => reviewWaitingMail({ name, technique, revisionNumber: latest.number, author: actor.name, isEdit, changeNote: latest.changeNote, link }),
+    });
     return { id: t.id, slug: t.slug, revision: latest.number };
   });
   await reindexTechnique(result.id);
@@ -192,6 +266,7 @@ export async function reviewTechnique(actor: SessionUser, slug: string, input: R
       await tx.update(revisions).set({ state: "returned", reviewedById: actor.id, reviewedAt: now, reviewNote: input.note ?? "" }).where(eq(revisions.id, latest.id));
       if (t.approvedRevisionId === null) await tx.update(techniques).set({ status: "draft", updatedAt: now }).where(eq(techniques.id, t.id));
       await writeAudit(tx, { actorId: actor.id, action: "technique.return", targetType: "technique", targetId: t.id, detail: { revision: latest.number, note: input.note } });
+      await tellAuthorOfReview(tx, actor, latest, t.slug, "return", input.note ?? null);
       return { id: t.id, slug: t.slug, revision: latest.number, state: "returned" as const };
     }
     const [previous] = t.approvedRevisionId ? await tx.select({ number: revisions.number }).from(revisions).where(eq(revisions.id, t.approvedRevisionId)) : [];
@@ -203,9 +278,13 @@ export async function reviewTechnique(actor: SessionUser, slug: string, input: R
       .where(eq(techniques.id, t.id));
     const tagSlugs = await tagSlugsOf(tx, latest.tagIds);
     const technique = { slug: slugNow, title: latest.title, tagSlugs };
+    await tellAuthorOfReview(tx, actor, latest, slugNow, "approve", input.note ?? null);
+    // The revision's author heard in their own message above, not again as a follower.
+    const skipUserIds = latest.authorId ? [latest.authorId] : [];
     if (previous) {
       await notifyTechniqueEvent(tx, {
         kind: "revision-approved",
+        skipUserIds,
         actorId: actor.id,
         technique,
         revisionNumber: latest.number,
@@ -213,7 +292,7 @@ export async function reviewTechnique(actor: SessionUser, slug: string, input: R
         changeNote: latest.changeNote,
       });
     } else {
-      await notifyTechniqueEvent(tx, { kind: "new-approved-under-tag", actorId: actor.id, technique });
+      await notifyTechniqueEvent(tx, { kind: "new-approved-under-tag", skipUserIds, actorId: actor.id, technique });
       await resolveRequestsFor(tx, actor, t.id, technique);
     }
     await writeAudit(tx, { actorId: actor.id, action: "technique.approve", targetType: "technique", targetId: t.id, detail: { revision: latest.number } });
@@ -221,6 +300,27 @@ export async function reviewTechnique(actor: SessionUser, slug: string, input: R
   });
   await reindexTechnique(result.id);
   return { slug: result.slug, revision: result.revision, state: result.state };
+}
+
+/** Where a lead reviews a waiting revision: its changes against the approved one, and the decision. */
+export function reviewUrl(slug: string): string {
+  return `${techniqueUrl(slug)}/review`;
+}
+
+/** The author of a reviewed revision hears the decision, with the lead's note (never about their own review). */
+async function tellAuthorOfReview(tx: Tx, actor: SessionUser, revision: Revision, slug: string, decision: "approve" | "return", note: string | null) {
+  if (!revision.authorId) return;
+  const technique = { slug, title: revision.title };
+  const link = decision === "approve" ? techniqueUrl(slug) : `${techniqueUrl(slug)}/edit`;
+  await notifyPerson(tx, {
+    kind: "revision-reviewed",
+    actorId: actor.id,
+    toUserId: revision.authorId,
+    title: `${revision.title}: revision ${revision.number} ${decision === "approve" ? "approved" : "sent back"} by ${actor.name}`,
+    summary: note ?? "",
+    link,
+    mail: (name) => revisionReviewedMail({ name, technique, revisionNumber: revision.number, decision, reviewer: actor.name, note, link }),
+  });
 }
 
 async function resolveRequestsFor(tx: Tx, actor: SessionUser, techniqueId: string, technique: { slug: string; title: string }) {
@@ -283,32 +383,63 @@ export async function retireTechnique(actor: SessionUser, slug: string, input: R
   return { slug: result.slug, status: "retired" };
 }
 
-/** Marks (or clears) the department's approved method for a problem tag. */
-export async function setHouseMethod(actor: SessionUser, tagSlug: string, techniqueSlug: string | null): Promise<void> {
+/** Title of a technique as readers know it (approved revision), else its newest. */
+async function titleOf(tx: Tx, t: Pick<Technique, "approvedRevisionId" | "latestRevisionId" | "slug">): Promise<string> {
+  const id = t.approvedRevisionId ?? t.latestRevisionId;
+  const [r] = id ? await tx.select({ title: revisions.title }).from(revisions).where(eq(revisions.id, id)) : [];
+  return r?.title ?? t.slug;
+}
+
+/**
+ * Marks (or clears) the department's approved method for a problem tag. `replaces` is the method
+ * the lead saw and agreed to replace (slug, or null for none): when given and no longer true,
+ * the answer is 409 rather than a silent swap. Both methods go into the audit log, and people
+ * following the problem hear of a new method.
+ */
+export async function setHouseMethod(actor: SessionUser, tagSlug: string, techniqueSlug: string | null, options: { replaces?: string | null } = {}): Promise<void> {
   assertCan(actor, "technique:set-house-method");
   const changed = await getDb().transaction(async (tx) => {
     const [tag] = await tx.select().from(tags).where(eq(tags.slug, tagSlug)).limit(1);
     if (!tag) throw new AppError("not_found", "No such tag.");
     if (tag.kind !== "problem") throw new AppError("validation_failed", "Approved methods are chosen for problem tags.", { fields: { tag: "Choose a problem tag." } });
-    const [before] = await tx.select().from(houseMethods).where(eq(houseMethods.tagId, tag.id));
+    const [before] = await tx.select().from(houseMethods).where(eq(houseMethods.tagId, tag.id)).for("update");
+    const [current] = before ? await tx.select().from(techniques).where(eq(techniques.id, before.techniqueId)) : [];
+    const replaced = current ? { slug: current.slug, title: await titleOf(tx, current) } : null;
+    if (options.replaces !== undefined && (options.replaces ?? null) !== (replaced?.slug ?? null)) {
+      throw new AppError(
+        "conflict",
+        replaced
+          ? `The department method for ${tag.name} changed meanwhile: it is now "${replaced.title}". Look again before replacing it.`
+          : `${tag.name} has no department method any more. Look again before choosing one.`,
+      );
+    }
     if (techniqueSlug === null) {
       await tx.delete(houseMethods).where(eq(houseMethods.tagId, tag.id));
-      await writeAudit(tx, { actorId: actor.id, action: "tag.house-method.clear", targetType: "tag", targetId: tag.id });
+      await writeAudit(tx, { actorId: actor.id, action: "tag.house-method.clear", targetType: "tag", targetId: tag.id, detail: { tag: tag.name, replaced } });
       return [before?.techniqueId].filter((x): x is string => Boolean(x));
     }
     const found = await findTechniqueBySlug(techniqueSlug, tx);
     if (!found || found.technique.status !== "approved" || !found.technique.approvedRevisionId) {
       throw new AppError("validation_failed", "Only an approved technique can be the department's method.", { fields: { technique: "Choose an approved technique." } });
     }
-    const [r] = await tx.select({ tagIds: revisions.tagIds }).from(revisions).where(eq(revisions.id, found.technique.approvedRevisionId));
+    const [r] = await tx.select({ tagIds: revisions.tagIds, title: revisions.title }).from(revisions).where(eq(revisions.id, found.technique.approvedRevisionId));
     if (!r?.tagIds.includes(tag.id)) {
       throw new AppError("validation_failed", `The technique is not tagged "${tag.name}".`, { fields: { technique: "Tag the technique with this problem first." } });
     }
+    if (before?.techniqueId === found.technique.id) return [];
     await tx
       .insert(houseMethods)
       .values({ tagId: tag.id, techniqueId: found.technique.id, setById: actor.id })
       .onConflictDoUpdate({ target: houseMethods.tagId, set: { techniqueId: found.technique.id, setById: actor.id, setAt: new Date() } });
-    await writeAudit(tx, { actorId: actor.id, action: "tag.house-method.set", targetType: "tag", targetId: tag.id, detail: { technique: found.technique.slug } });
+    const technique = { slug: found.technique.slug, title: r.title };
+    await writeAudit(tx, {
+      actorId: actor.id,
+      action: "tag.house-method.set",
+      targetType: "tag",
+      targetId: tag.id,
+      detail: { tag: tag.name, technique: technique.slug, title: technique.title, replaced },
+    });
+    await notifyDepartmentMethod(tx, { actorId: actor.id, actorName: actor.name, tag: { slug: tag.slug, name: tag.name }, technique, replaced });
     return [before?.techniqueId, found.technique.id].filter((x): x is string => Boolean(x));
   });
   for (const id of new Set(changed)) await reindexTechnique(id);
@@ -324,7 +455,10 @@ export async function restoreRevision(actor: SessionUser, slug: string, number: 
     .where(and(eq(techniques.id, (await findTechniqueBySlug(slug))?.technique.id ?? sql`null`), eq(revisions.number, number)));
   if (!old) throw new AppError("not_found", `No revision ${number} of this technique.`);
   const tagRows = old.r.tagIds.length ? await getDb().select({ slug: tags.slug }).from(tags).where(inArray(tags.id, old.r.tagIds)) : [];
-  return updateTechnique(actor, slug, {
+  return updateTechnique(
+    actor,
+    slug,
+    {
     title: old.r.title,
     summary: old.r.summary,
     aliases: old.r.aliases,
@@ -333,5 +467,8 @@ export async function restoreRevision(actor: SessionUser, slug: string, number: 
     recipe: old.r.recipe as UpdateTechniqueInput["recipe"],
     baseRevision,
     changeNote: `Restored revision ${number}.`,
-  });
+    },
+    // Restoring brings back that revision's before/after pairs with its text.
+    { pairsFromRevisionId: old.r.id },
+  );
 }

@@ -35,11 +35,19 @@ function joinBlocks(parts: string[]): string {
   return parts.filter((p) => p !== "").join("\n\n");
 }
 
-function blocksText(children: unknown[], depth: number): string {
-  return joinBlocks(children.map((c) => blockText(c, depth)));
+/** How a still reads in plain text; the revision diff swaps in a token it shows as a thumbnail. */
+export type StillText = (still: { stillId: string; alt: string; caption: string }) => string;
+
+const stillAsWords: StillText = ({ alt, caption }) => {
+  const words = [caption, alt].filter((t) => t.trim() !== "");
+  return `[still${words.length ? `: ${[...new Set(words)].join(" — ")}` : ""}]`;
+};
+
+function blocksText(children: unknown[], depth: number, still: StillText): string {
+  return joinBlocks(children.map((c) => blockText(c, depth, still)));
 }
 
-function listText(node: Json, depth: number, ordered: boolean): string {
+function listText(node: Json, depth: number, ordered: boolean, still: StillText): string {
   const start = typeof attrsOf(node).start === "number" ? (attrsOf(node).start as number) : 1;
   return childrenOf(node)
     .filter((item): item is Json => isRecord(item) && item.type === "listItem")
@@ -47,7 +55,7 @@ function listText(node: Json, depth: number, ordered: boolean): string {
       const marker = ordered ? `${start + i}. ` : "- ";
       // Nested blocks of one item stay on following lines, indented under the marker.
       const body = childrenOf(item)
-        .map((c) => blockText(c, depth + 2))
+        .map((c) => blockText(c, depth + 2, still))
         .filter((t) => t !== "")
         .join("\n");
       return marker + body.replace(/\n/g, `\n${" ".repeat(marker.length)}`);
@@ -55,7 +63,7 @@ function listText(node: Json, depth: number, ordered: boolean): string {
     .join("\n");
 }
 
-function tableText(node: Json, depth: number): string {
+function tableText(node: Json, depth: number, still: StillText): string {
   return childrenOf(node)
     .filter((row): row is Json => isRecord(row) && row.type === "tableRow")
     .map((row) =>
@@ -63,7 +71,7 @@ function tableText(node: Json, depth: number): string {
         .filter((cell): cell is Json => isRecord(cell) && (cell.type === "tableCell" || cell.type === "tableHeader"))
         .map((cell) =>
           childrenOf(cell)
-            .map((c) => blockText(c, depth + 3))
+            .map((c) => blockText(c, depth + 3, still))
             .filter((t) => t !== "")
             .join(" ")
             .replace(/\s*\n\s*/g, " "),
@@ -73,7 +81,7 @@ function tableText(node: Json, depth: number): string {
     .join("\n");
 }
 
-function blockText(node: unknown, depth: number): string {
+function blockText(node: unknown, depth: number, still: StillText): string {
   if (depth > DOCUMENT_LIMITS.maxDepth || !isRecord(node)) return "";
   switch (node.type) {
     case "paragraph":
@@ -82,25 +90,25 @@ function blockText(node: unknown, depth: number): string {
     case "codeBlock":
       return inlineText(node);
     case "blockquote":
-      return blocksText(childrenOf(node), depth + 1);
+      return blocksText(childrenOf(node), depth + 1, still);
     case "callout": {
       const kind = attrsOf(node).kind;
       const label = typeof kind === "string" && kind in CALLOUT_LABELS ? CALLOUT_LABELS[kind as CalloutKind] : "";
-      const body = blocksText(childrenOf(node), depth + 1);
+      const body = blocksText(childrenOf(node), depth + 1, still);
       return label === "" ? body : `${label}:\n${body}`;
     }
     case "bulletList":
-      return listText(node, depth, false);
+      return listText(node, depth, false, still);
     case "orderedList":
-      return listText(node, depth, true);
+      return listText(node, depth, true, still);
     case "table":
-      return tableText(node, depth);
+      return tableText(node, depth, still);
     case "horizontalRule":
       return "---";
     case "still": {
-      const { alt, caption } = attrsOf(node);
-      const words = [caption, alt].filter((t): t is string => typeof t === "string" && t.trim() !== "");
-      return `[still${words.length ? `: ${[...new Set(words)].join(" — ")}` : ""}]`;
+      const { stillId, alt, caption } = attrsOf(node);
+      const text = (v: unknown) => (typeof v === "string" ? v : "");
+      return still({ stillId: text(stillId), alt: text(alt), caption: text(caption) });
     }
     default:
       return "";
@@ -108,7 +116,7 @@ function blockText(node: unknown, depth: number): string {
 }
 
 /** Plain text of a technique body (any input: unknown parts are skipped). */
-export function documentToPlainText(doc: unknown): string {
+export function documentToPlainText(doc: unknown, options: { still?: StillText } = {}): string {
   if (!isRecord(doc) || doc.type !== "doc") return "";
-  return blocksText(childrenOf(doc), 1);
+  return blocksText(childrenOf(doc), 1, options.still ?? stillAsWords);
 }

@@ -1,7 +1,8 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
+import { cache } from "react";
 import { getDb, type Database } from "@/db/client";
-import { houseMethods, revisions, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
+import { houseMethods, revisions, tags, techniqueSlugHistory, techniques, users, type Revision, type Technique } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
@@ -20,6 +21,26 @@ import type {
 function readsWorkingCopy(user: SessionUser): boolean {
   return can(user, "technique:read-working");
 }
+
+/*
+ * Reads below wrapped in React `cache` are asked for by several sections of one technique page
+ * (header, evidence, lab, shots); the memo lives for one server render only, so each page
+ * reads each row once and nothing outlives the request. Outside a render they read every time.
+ */
+
+/** A technique row by id, once per render. */
+export const techniqueRowById = cache(async (id: string): Promise<Technique | null> => {
+  const [row] = await getDb().select().from(techniques).where(eq(techniques.id, id)).limit(1);
+  return row ?? null;
+});
+
+/** A revision row by id, once per render. */
+export const revisionRowById = cache(async (id: string): Promise<Revision | null> => {
+  const [row] = await getDb().select().from(revisions).where(eq(revisions.id, id)).limit(1);
+  return row ?? null;
+});
+
+const techniqueBySlugOnce = cache((slug: string) => findTechniqueBySlug(slug));
 
 async function people(ids: (string | null | undefined)[]): Promise<Map<string, { id: string; name: string }>> {
   const unique = [...new Set(ids.filter((v): v is string => Boolean(v)))];
@@ -65,10 +86,10 @@ export function isTechniqueVisible(user: SessionUser, t: Pick<Technique, "approv
 /** Resolves a slug to a technique this person may see; 404 otherwise (no hint that drafts exist). */
 export async function requireVisibleTechnique(user: SessionUser, slug: string): Promise<{ technique: Technique; revision: Revision; renamedFrom: string | null }> {
   assertCan(user, "technique:read");
-  const found = await findTechniqueBySlug(slug);
+  const found = await techniqueBySlugOnce(slug);
   const revisionId = found ? visibleRevisionId(user, found.technique) : null;
   if (!found || !revisionId) throw new AppError("not_found", "No technique at this address.");
-  const [revision] = await getDb().select().from(revisions).where(eq(revisions.id, revisionId)).limit(1);
+  const revision = await revisionRowById(revisionId);
   if (!revision) throw new AppError("not_found", "No technique at this address.");
   return { technique: found.technique, revision, renamedFrom: found.renamedFrom };
 }
@@ -92,7 +113,7 @@ export async function getTechnique(user: SessionUser, slug: string): Promise<Tec
   const [tagMap, numbers, approved, superseding, house] = await Promise.all([
     loadTagMap(),
     db.select({ id: revisions.id, number: revisions.number }).from(revisions).where(eq(revisions.techniqueId, t.id)),
-    t.approvedRevisionId ? db.select().from(revisions).where(eq(revisions.id, t.approvedRevisionId)).limit(1) : Promise.resolve([]),
+    t.approvedRevisionId ? revisionRowById(t.approvedRevisionId).then((r) => (r ? [r] : [])) : Promise.resolve([]),
     t.supersededById
       ? db.select({ slug: techniques.slug, approvedRevisionId: techniques.approvedRevisionId }).from(techniques).where(eq(techniques.id, t.supersededById)).limit(1)
       : Promise.resolve([]),
@@ -212,6 +233,37 @@ export async function listReviewQueue(user: SessionUser): Promise<ReviewQueueIte
   }));
 }
 
+export type ReviewItem = {
+  slug: string;
+  title: string;
+  /** The newest revision: waiting for review when `isWaiting`. */
+  pending: RevisionSummary;
+  isWaiting: boolean;
+  approvedRevision: number | null;
+  /** What the review compares with: the approved revision, else the last one sent back, else 0 (nothing). */
+  compareWith: number;
+};
+
+/** What a lead needs to review a technique's waiting revision (leads only). */
+export async function getReviewItem(user: SessionUser, slug: string): Promise<ReviewItem> {
+  assertCan(user, "technique:review");
+  const { technique: t, renamedFrom: _renamed } = await requireVisibleTechnique(user, slug);
+  const db = getDb();
+  const rows = await db.select().from(revisions).where(eq(revisions.techniqueId, t.id)).orderBy(desc(revisions.number));
+  const latest = rows.find((r) => r.id === t.latestRevisionId) ?? rows[0]!;
+  const approved = rows.find((r) => r.id === t.approvedRevisionId) ?? null;
+  const sentBack = rows.find((r) => r.number < latest.number && r.state === "returned");
+  const names = await people([latest.authorId, latest.reviewedById]);
+  return {
+    slug: t.slug,
+    title: latest.title,
+    pending: toRevisionSummary(latest, names),
+    isWaiting: latest.state === "in_review",
+    approvedRevision: approved?.number ?? null,
+    compareWith: approved?.number ?? sentBack?.number ?? 0,
+  };
+}
+
 export async function countReviewQueue(user: SessionUser): Promise<number> {
   if (!can(user, "technique:review")) return 0;
   const [row] = await getDb()
@@ -258,4 +310,17 @@ export async function getRevisionsByNumber(user: SessionUser, slug: string, numb
     if (!r) throw new AppError("not_found", `No revision ${n} of this technique.`);
     return r;
   });
+}
+
+/** The current department method of each of these problem tags (by tag slug), as readers know it. */
+export async function listDepartmentMethods(tagSlugs: string[]): Promise<Record<string, { slug: string; title: string }>> {
+  if (!tagSlugs.length) return {};
+  const rows = await getDb()
+    .select({ tag: tags.slug, slug: techniques.slug, title: revisions.title })
+    .from(houseMethods)
+    .innerJoin(tags, eq(tags.id, houseMethods.tagId))
+    .innerJoin(techniques, eq(techniques.id, houseMethods.techniqueId))
+    .innerJoin(revisions, eq(revisions.id, techniques.approvedRevisionId))
+    .where(inArray(tags.slug, tagSlugs));
+  return Object.fromEntries(rows.map((r) => [r.tag, { slug: r.slug, title: r.title }]));
 }

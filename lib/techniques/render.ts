@@ -86,8 +86,22 @@ function sameMark(a: OpenMark, b: OpenMark): boolean {
   return a.type === b.type && a.href === b.href;
 }
 
+/** A heading of the rendered body, for the page's in-page contents; `id` is the element's id. */
+export type OutlineHeading = { level: number; text: string; id: string };
+
+/** An id from a heading's words: lower-case letters and digits joined by hyphens ("s-" keeps it apart from the app's ids). */
+function headingId(text: string, used: Set<string>): string {
+  const base = `s-${text.normalize("NFKD").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 60) || "section"}`;
+  let id = base;
+  for (let n = 2; used.has(id); n += 1) id = `${base}-${n}`;
+  used.add(id);
+  return id;
+}
+
 class Renderer {
   private nodes = 0;
+  private usedIds = new Set<string>();
+  readonly outline: OutlineHeading[] = [];
 
   /** false once the node budget is spent; everything after that is dropped. */
   private take(): boolean {
@@ -173,7 +187,13 @@ class Renderer {
         return `<p>${this.inline(childrenOf(node))}</p>`;
       case "heading": {
         const level = oneOf(HEADING_LEVELS, attrs.level) ?? HEADING_LEVELS[0];
-        return `<h${level}>${this.inline(childrenOf(node))}</h${level}>`;
+        const text = childrenOf(node)
+          .map((c) => (isRecord(c) && c.type === "text" && typeof c.text === "string" ? c.text : ""))
+          .join("")
+          .trim();
+        const id = headingId(text, this.usedIds);
+        if (text) this.outline.push({ level, text, id });
+        return `<h${level} id="${id}">${this.inline(childrenOf(node))}</h${level}>`;
       }
       case "blockquote":
         return `<blockquote>${inner()}</blockquote>`;
@@ -229,6 +249,13 @@ class Renderer {
  * what survives the allow-list, possibly ""). Safe to pass to dangerouslySetInnerHTML.
  */
 export function renderDocumentToHtml(doc: unknown): string {
-  if (!isRecord(doc) || doc.type !== "doc") return "";
-  return new Renderer().blocks(childrenOf(doc), 1);
+  return renderDocument(doc).html;
+}
+
+/** The HTML and its headings (with the ids the HTML gives them), for in-page contents. */
+export function renderDocument(doc: unknown): { html: string; outline: OutlineHeading[] } {
+  if (!isRecord(doc) || doc.type !== "doc") return { html: "", outline: [] };
+  const renderer = new Renderer();
+  const html = renderer.blocks(childrenOf(doc), 1);
+  return { html, outline: renderer.outline };
 }

@@ -1,12 +1,13 @@
 import "server-only";
-import { eq } from "drizzle-orm";
-import { getDb } from "@/db/client";
-import { uses } from "@/db/schema";
+import { eq, inArray } from "drizzle-orm";
+import { getDb, type Database } from "@/db/client";
+import { stills, uses } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit/log";
 import { findShotByCode } from "@/lib/shots/queries";
+import { copyTrialForUse } from "@/lib/stills/mutations";
 import { requireVisibleTechnique } from "@/lib/techniques/queries";
 import { reindexTechnique } from "@/lib/techniques/search-sync";
 import { findStills, getUse } from "@/lib/uses/queries";
@@ -23,13 +24,18 @@ export async function reindexAll(techniqueIds: Iterable<string>): Promise<void> 
   for (const id of new Set(techniqueIds)) await reindexTechnique(id);
 }
 
-/** Stills must exist and be visible to the actor (a private trial is its owner's and leads'). */
-async function checkStills(actor: SessionUser, refs: { beforeStill?: string | null; afterStill?: string | null }): Promise<void> {
-  const ids = [refs.beforeStill, refs.afterStill].filter((x): x is string => typeof x === "string");
+type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+/** Stills must exist and be visible to the actor (a private trial is its uploader's alone). */
+type StillRefs = { beforeStill?: string | null; afterStill?: string | null };
+const STILL_KEYS = ["beforeStill", "afterStill"] as const;
+
+async function checkStills(actor: SessionUser, refs: StillRefs): Promise<void> {
+  const ids = STILL_KEYS.map((k) => refs[k]).filter((x): x is string => typeof x === "string");
   if (!ids.length) return;
   const found = await findStills(ids);
   const fields: Record<string, string> = {};
-  for (const key of ["beforeStill", "afterStill"] as const) {
+  for (const key of STILL_KEYS) {
     const id = refs[key];
     if (typeof id !== "string") continue;
     const still = found.get(id);
@@ -37,6 +43,27 @@ async function checkStills(actor: SessionUser, refs: { beforeStill?: string | nu
   }
   const first = Object.values(fields)[0];
   if (first) throw new AppError("validation_failed", first, { fields });
+}
+
+/**
+ * The still ids a use log stores: the actor's own private trials are replaced by shared copies
+ * (lib/stills/mutations.ts copyTrialForUse), so the log's readers never meet a still they may
+ * not see. Call after checkStills, inside the transaction that writes the use.
+ */
+async function shareTrials(tx: Tx, actor: SessionUser, refs: StillRefs): Promise<StillRefs> {
+  const out: StillRefs = { ...refs };
+  const ids = STILL_KEYS.map((k) => refs[k]).filter((x): x is string => typeof x === "string");
+  if (!ids.length) return out;
+  const rows = await tx.select().from(stills).where(inArray(stills.id, ids));
+  const copies = new Map<string, string>();
+  for (const key of STILL_KEYS) {
+    const row = rows.find((r) => r.id === refs[key]);
+    if (row?.owner !== "trial") continue;
+    const copy = copies.get(row.id) ?? (await copyTrialForUse(tx, actor, row)).id;
+    copies.set(row.id, copy);
+    out[key] = copy;
+  }
+  return out;
 }
 
 async function requireShotByCode(code: string) {
@@ -59,20 +86,24 @@ export async function logUse(actor: SessionUser, techniqueSlug: string, input: L
   }
   const shot = await requireShotByCode(input.shot);
   await checkStills(actor, input);
-  const [created] = await getDb()
-    .insert(uses)
-    .values({
-      techniqueId: technique.id,
-      revisionId: technique.approvedRevisionId ?? technique.latestRevisionId,
-      shotId: shot.id,
-      userId: actor.id,
-      outcome: input.outcome,
-      note: input.note,
-      beforeStillId: input.beforeStill ?? null,
-      afterStillId: input.afterStill ?? null,
-    })
-    .returning({ id: uses.id });
-  if (!created) throw new AppError("internal");
+  const created = await getDb().transaction(async (tx) => {
+    const refs = await shareTrials(tx, actor, input);
+    const [row] = await tx
+      .insert(uses)
+      .values({
+        techniqueId: technique.id,
+        revisionId: technique.approvedRevisionId ?? technique.latestRevisionId,
+        shotId: shot.id,
+        userId: actor.id,
+        outcome: input.outcome,
+        note: input.note,
+        beforeStillId: refs.beforeStill ?? null,
+        afterStillId: refs.afterStill ?? null,
+      })
+      .returning({ id: uses.id });
+    if (!row) throw new AppError("internal");
+    return row;
+  });
   await reindexAll([technique.id]);
   return getUse(actor, created.id);
 }
@@ -91,14 +122,15 @@ export async function updateUse(actor: SessionUser, id: string, input: UpdateUse
   const shot = input.shot !== undefined ? await requireShotByCode(input.shot) : null;
   await checkStills(actor, input);
   await getDb().transaction(async (tx) => {
+    const refs = await shareTrials(tx, actor, input);
     await tx
       .update(uses)
       .set({
         ...(shot ? { shotId: shot.id } : {}),
         ...(input.outcome !== undefined ? { outcome: input.outcome } : {}),
         ...(input.note !== undefined ? { note: input.note } : {}),
-        ...(input.beforeStill !== undefined ? { beforeStillId: input.beforeStill } : {}),
-        ...(input.afterStill !== undefined ? { afterStillId: input.afterStill } : {}),
+        ...(refs.beforeStill !== undefined ? { beforeStillId: refs.beforeStill } : {}),
+        ...(refs.afterStill !== undefined ? { afterStillId: refs.afterStill } : {}),
         updatedAt: new Date(),
       })
       .where(eq(uses.id, use.id));

@@ -5,7 +5,7 @@ import { revisions, shots, shows, stills, techniques, users, uses, type Techniqu
 import { AppError } from "@/lib/api/errors";
 import { assertCan, can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { isTechniqueVisible, requireVisibleTechnique, visibleRevisionId } from "@/lib/techniques/queries";
+import { isTechniqueVisible, requireVisibleTechnique, techniqueRowById, visibleRevisionId } from "@/lib/techniques/queries";
 import type { FollowUp, FollowUpShot, ListUsesQuery, OutcomeCounts, TechniqueRef, TechniqueUsesResponse, UseResponse } from "@/lib/uses/schemas";
 import { escapeLike, isUuid } from "@/lib/utils";
 
@@ -79,7 +79,7 @@ async function listUsesForTechnique(
 ): Promise<{ items: UseResponse[]; total: number }> {
   assertCan(actor, "technique:read");
   const db = getDb();
-  const [t] = await db.select().from(techniques).where(eq(techniques.id, techniqueId)).limit(1);
+  const t = await techniqueRowById(techniqueId);
   if (!t || !isTechniqueVisible(actor, t)) throw new AppError("not_found", "No such technique.");
   const ref = (await techniqueRefs(actor, [t])).get(t.id)!;
 

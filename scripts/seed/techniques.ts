@@ -104,6 +104,8 @@ export async function seedTechniques(log: (line: string) => void): Promise<void>
         baseRevision: latest.latestRevision,
         changeNote: t.edit.changeNote,
       });
+      // A saved revision is a draft until submitted (lib/techniques/mutations.ts updateTechnique).
+      await submitTechnique(author, slug);
     }
     log(`technique: ${t.title} (${t.lifecycle})`);
   }

@@ -126,10 +126,10 @@ async function waitFor(url: string, child: ChildProcess, log: () => string, time
   throw new Error(`The app did not become healthy at ${url}:\n${log()}`);
 }
 
-export type RunningApp = { baseUrl: string; dataDir: string; uploadsDir: string; inboxDir: string; smtpPort: number; stop(): Promise<void> };
+export type RunningApp = { baseUrl: string; dataDir: string; uploadsDir: string; inboxDir: string; smtpPort: number; pid: number; stop(): Promise<void> };
 
-/** Starts a fresh copy of the seeded app; each test file gets its own. */
-export async function startApp(): Promise<RunningApp> {
+/** Starts a fresh copy of the seeded app; each test file gets its own. `env` adds or overrides variables. */
+export async function startApp(options: { env?: Record<string, string> } = {}): Promise<RunningApp> {
   ensureBuild();
   const { work, dataDir, uploadsDir } = copySeededData();
   const inboxDir = path.join(dataDir, "mail-inbox");
@@ -143,6 +143,7 @@ export async function startApp(): Promise<RunningApp> {
     AUTH_SECRET: crypto.randomBytes(32).toString("base64url"),
     SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
     PLATEROOM_BASE_URL: `http://127.0.0.1:${port}`,
+    ...options.env,
   });
   let output = "";
   const smtp = spawn(bin("tsx"), ["-C", "react-server", "scripts/fake-smtp.ts", "--port", String(smtpPort), "--dir", inboxDir], { cwd: root, env });
@@ -159,6 +160,7 @@ export async function startApp(): Promise<RunningApp> {
     uploadsDir,
     inboxDir,
     smtpPort,
+    pid: app.pid ?? 0,
     async stop() {
       for (const child of [app, smtp]) if (child.exitCode === null) child.kill("SIGTERM");
       await new Promise((r) => setTimeout(r, 500));
@@ -219,7 +221,7 @@ export type ServerProcess = { baseUrl: string; child: ChildProcess; output(): st
  * Starts the built app on the given data and uploads folders (no mail sender), so a test can
  * kill it (even with SIGKILL) and start it again on the same folders. The caller ends it.
  */
-export async function startServerOn(dataDir: string, uploadsDir: string, options: { authSecret?: string } = {}): Promise<ServerProcess> {
+export async function startServerOn(dataDir: string, uploadsDir: string, options: { authSecret?: string; env?: Record<string, string> } = {}): Promise<ServerProcess> {
   ensureBuild();
   const port = await freePort();
   const env = baseEnv({
@@ -231,6 +233,7 @@ export async function startServerOn(dataDir: string, uploadsDir: string, options
     AUTH_SECRET: options.authSecret ?? crypto.randomBytes(32).toString("base64url"),
     PLATEROOM_MAIL_SENDER: "off",
     PLATEROOM_BASE_URL: `http://127.0.0.1:${port}`,
+    ...options.env,
   });
   let output = "";
   const child = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env });

@@ -49,7 +49,7 @@ describe.skipIf(!hasChromium())("subscriptions and mail in Chromium", () => {
     await senior.page.getByRole("toolbar", { name: "Formatting" }).waitFor();
     await senior.page.getByLabel("One-line summary").fill(NEW_SUMMARY);
     await senior.page.getByLabel("What changed, and why").fill(CHANGE_NOTE);
-    await senior.page.getByRole("button", { name: "Save revision" }).click();
+    await senior.page.getByRole("button", { name: "Save and submit for review" }).click();
     await senior.page.waitForURL(new RegExp(`/techniques/${SLUG}$`), { timeout: 30_000 });
     await senior.context.close();
 

@@ -100,7 +100,7 @@ describe.skipIf(!hasChromium())("shows and shots in Chromium", () => {
     const panel = importer.getByRole("tabpanel");
     const patternRow = panel.getByRole("row").filter({ hasText: BAD_PATTERN_CODE });
     expect(await isShown(patternRow)).toBe(true);
-    expect(await patternRow.textContent()).toMatch(/^3.*does not match the shot pattern of SLM/);
+    expect(await patternRow.textContent()).toMatch(/^3.*is not a shot code of SLM: they look like SLM_040_0120/);
     const duplicateRow = panel.getByRole("row").filter({ hasText: "appears more than once" });
     expect(await isShown(duplicateRow)).toBe(true);
     expect(await duplicateRow.textContent()).toMatch(/^5SLM_160_0020.*first on row 2/);

@@ -140,7 +140,7 @@ describe.skipIf(!hasChromium())("stills in Chromium", () => {
     await pairEditor.getByRole("group", { name: "Before" }).locator("label", { hasText: alts.before }).click();
     await pairEditor.getByRole("group", { name: "After" }).locator("label", { hasText: alts.after }).click();
     await pairEditor.getByRole("button", { name: "Save pair" }).click();
-    expect(await isShown(pairEditor.getByRole("status").filter({ hasText: "Pair saved." }), 30_000)).toBe(true);
+    expect(await isShown(pairEditor.getByRole("status").filter({ hasText: "Pair saved in revision 1." }), 30_000)).toBe(true);
 
     const slider = evidence.getByRole("slider", { name: "Divider between before and after" });
     expect(await isShown(slider, 30_000)).toBe(true);

@@ -100,10 +100,13 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
   it("a lead finds it in the review queue and approves it", async () => {
     const { context, page } = await signIn(running.browser, running.app.baseUrl, LEAD);
     await page.goto("/review");
-    const link = page.getByRole("link", { name: TITLE });
+    const link = page.getByRole("link", { name: TITLE, exact: true });
     expect(await isShown(link)).toBe(true);
     await link.click();
-    await page.waitForURL(new RegExp(`/techniques/${slug}$`));
+    // The queue opens the review: a new technique compares with nothing, so its text shows as added.
+    await page.waitForURL(new RegExp(`/techniques/${slug}/review$`));
+    expect(await isShown(page.getByRole("heading", { name: /compared with nothing/ }))).toBe(true);
+    expect(await isShown(page.locator("ins", { hasText: "Check the wire is thinner" }))).toBe(true);
     await approve(page, slug, 1);
     const res = await page.request.get(`/api/techniques/${slug}`);
     expect(((await res.json()) as { status: string; approvedRevision: number }).status).toBe("approved");
@@ -142,7 +145,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     await editorBody(senior.page);
     await senior.page.getByLabel("One-line summary").fill(NEW_SUMMARY);
     await senior.page.getByLabel("What changed, and why").fill("Grain matching belongs in the summary.");
-    await saveAndLand(senior.page, "Save revision", new RegExp(`/techniques/${slug}$`));
+    await saveAndLand(senior.page, "Save and submit for review", new RegExp(`/techniques/${slug}$`));
     // The senior sees the pending revision with a banner.
     expect(await isShown(senior.page.getByTestId("pending-banner"))).toBe(true);
     expect(await isShown(senior.page.getByText(NEW_SUMMARY, { exact: true }))).toBe(true);
@@ -178,7 +181,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     }
     await senior.page.getByLabel("One-line summary").fill("Senior's wording of the summary.");
     await senior.page.getByLabel("What changed, and why").fill("Senior tidies the summary.");
-    await saveAndLand(senior.page, "Save revision", new RegExp(`/techniques/${slug}$`));
+    await saveAndLand(senior.page, "Save draft", new RegExp(`/techniques/${slug}$`));
 
     const leadSummary = "Lead's wording, written at the same time.";
     const leadNote = "Lead tightens the summary.";
@@ -189,7 +192,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
     await lead.page.keyboard.press("Control+End");
     await lead.page.keyboard.press("Enter");
     await lead.page.keyboard.type("A line only the lead wrote.");
-    await lead.page.getByRole("button", { name: "Save revision" }).click();
+    await lead.page.getByRole("button", { name: "Save draft" }).click();
 
     const alert = lead.page.getByRole("alert").filter({ hasText: "Someone else saved first" });
     expect(await isShown(alert, 30_000)).toBe(true);
@@ -214,7 +217,7 @@ describe.skipIf(!hasChromium())("technique pages in Chromium", () => {
 
     // Re-applying on top of the senior's revision saves the lead's text as the next revision.
     await lead.page.getByRole("button", { name: "Re-apply my changes on top" }).click();
-    await saveAndLand(lead.page, "Save revision", new RegExp(`/techniques/${slug}$`));
+    await saveAndLand(lead.page, "Save draft", new RegExp(`/techniques/${slug}$`));
     const after = await lead.page.request.get(`/api/techniques/${slug}`);
     const saved = (await after.json()) as { summary: string; latestRevision: number; revision: { changeNote: string }; body: unknown };
     expect(saved).toMatchObject({ summary: leadSummary, latestRevision: 4, revision: { changeNote: leadNote } });

@@ -1,14 +1,13 @@
 import type { Metadata } from "next";
 import { MailView } from "@/components/mail/mail-view";
-import { Refused } from "@/components/ui/refused";
-import { can } from "@/lib/auth/permissions";
+import { requirePagePermission } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "Mail" };
 
 export default async function MailPage({ searchParams }: { searchParams: Promise<{ tab?: string | string[] }> }) {
   const user = await requireUser();
-  if (!can(user, "mail:read-outbox")) return <Refused what="The mail outbox" />;
+  requirePagePermission(user, "mail:read-outbox");
   const { tab } = await searchParams;
   return (
     <div className="space-y-4">

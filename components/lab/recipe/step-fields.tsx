@@ -4,7 +4,7 @@ import { MatrixGrid, Vec3Inputs } from "@/components/lab/recipe/matrix-grid";
 import { CHANNEL_OPTIONS, Choice, NumberInput } from "@/components/lab/recipe/number-input";
 import { RectFields } from "@/components/lab/recipe/rect-fields";
 import { fieldError } from "@/components/lab/recipe/defaults";
-import { TextInput, describedBy } from "@/components/ui/field";
+import { DenoisedStillPicker } from "@/components/lab/recipe/denoised-still-picker";
 import type { RecipeStep } from "@/lib/lab/recipe";
 
 type Props<S extends RecipeStep> = { id: string; step: S; onChange(next: RecipeStep): void; errors: Record<string, string> };
@@ -69,14 +69,7 @@ export function StepFields(props: Props<RecipeStep>) {
         </div>
       );
     case "grain":
-      return (
-        <div className="space-y-1 sm:max-w-md">
-          <label htmlFor={`${id}-denoised`} className="block text-xs text-muted">Denoised still (id)</label>
-          <TextInput id={`${id}-denoised`} value={step.denoised} className="font-mono" aria-describedby={describedBy(`${id}-denoised`, e("denoised"))}
-            onChange={(ev) => onChange({ ...step, denoised: ev.target.value.trim() })} />
-          {e("denoised") ? <p id={`${id}-denoised-error`} role="alert" className="text-xs text-bad">{e("denoised")}</p> : null}
-        </div>
-      );
+      return <DenoisedStillPicker id={id} value={step.denoised} onChange={(denoised) => onChange({ ...step, denoised })} error={e("denoised")} />;
   }
 }
 

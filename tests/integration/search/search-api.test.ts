@@ -106,7 +106,8 @@ describe("GET /api/search", () => {
     const seniorHit = (await search(senior, "q=anamorphic")).body.results.find((r) => r.slug === slug);
     expect(seniorHit?.summary).toContain("anamorphic");
 
-    // Editing an approved technique sends the new revision straight to review.
+    // A saved revision is a draft until submitted (issue 13: one rule for new and approved pages).
+    await submitTechnique(senior, slug);
     await reviewTechnique(lead, slug, { revision: edit.revision, decision: "approve" });
     const after = (await search(artist, "q=anamorphic")).body.results.find((r) => r.slug === slug);
     expect(after?.status).toBe("approved");

@@ -51,7 +51,7 @@ const FUZZED = [
   "POST /api/tags/[slug]/merge", "PUT /api/tags/[slug]/house-method", "POST /api/shows", "PATCH /api/shows/[code]",
   "POST /api/shows/[code]/shots", "POST /api/stills/pairs", "POST /api/lab/run", "POST /api/lab/analyse", "POST /api/lab/sample",
   "POST /api/lab/solve", "POST /api/people", "PATCH /api/people/[id]", "POST /api/tokens", "POST /api/subscriptions",
-  "DELETE /api/subscriptions", "PUT /api/subscriptions/mode",
+  "DELETE /api/subscriptions", "PUT /api/subscriptions/mode", "POST /api/password-resets",
 ] as const;
 
 function targets(): Target[] {
@@ -94,6 +94,7 @@ function targets(): Target[] {
     t("POST", "/api/subscriptions", () => p.artist, () => "/api/subscriptions", none, () => ({ target: { kind: "technique", key: w.approved }, mode: "daily" })),
     t("DELETE", "/api/subscriptions", () => p.artist, () => "/api/subscriptions", none, () => ({ target: { kind: "show", key: w.showCode } })),
     t("PUT", "/api/subscriptions/mode", () => p.artist, () => "/api/subscriptions/mode", none, () => ({ mode: "immediate" })),
+    t("POST", "/api/password-resets", () => p.artist, () => "/api/password-resets", none, () => ({ email: "someone@kestrel.test" })),
   ];
 }
 

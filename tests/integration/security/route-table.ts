@@ -44,10 +44,10 @@ export type RouteEntry = {
   method: HttpMethod;
   access: Access;
   /**
-   * Set for reads whose rows may be private trials: a trial still is its uploader's and the
-   * leads'; anyone else gets 404, so nobody learns it exists ("still:read").
+   * Set for reads whose rows may be private trials: a trial still is its uploader's alone;
+   * anyone else (leads and admins too) gets 404, so nobody learns it exists ("still:read").
    */
-  trialStills?: { access: "owner-or-lead"; deniedAs: 404 };
+  trialStills?: { access: "owner"; deniedAs: 404 };
   /** How a refusal after the role gate answers, when not 403 (hidden as "not found"). */
   deniedAs?: 403 | 404;
   note?: string;
@@ -56,7 +56,7 @@ export type RouteEntry = {
 const SENIOR = { minRole: "senior" } as const;
 const LEAD = { minRole: "lead" } as const;
 const ADMIN = { roles: ["admin"] } as const;
-const TRIAL = { access: "owner-or-lead", deniedAs: 404 } as const;
+const TRIAL = { access: "owner", deniedAs: 404 } as const;
 
 const unknownNote = "Any unknown /api path: 404 in the API error shape, never the HTML page.";
 
@@ -66,6 +66,7 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { path: "/api/auth/[...nextauth]", method: "GET", access: "public", note: "Auth.js: csrf, session, providers." },
   { path: "/api/auth/[...nextauth]", method: "POST", access: "public", note: "Auth.js sign-in/out; credentials sign-in is rate limited." },
   { path: "/api/health", method: "GET", access: "public" },
+  { path: "/api/password-resets", method: "POST", access: "public", note: "Same answer for every address; limited per e-mail and per client address." },
   { path: "/api/unsubscribe", method: "GET", access: "public", note: "Redirects to the confirmation page; changes nothing." },
   { path: "/api/unsubscribe", method: "POST", access: "public", note: "RFC 8058 one-click: the signed token in the URL is the only authority." },
 

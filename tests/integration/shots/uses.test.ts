@@ -1,7 +1,7 @@
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db/client";
-import { techniques } from "@/db/schema";
+import { stills, techniques } from "@/db/schema";
 import * as shotRoute from "@/app/api/shots/[code]/route";
 import * as shotSearchRoute from "@/app/api/shots/route";
 import * as techniqueUsesRoute from "@/app/api/techniques/[slug]/uses/route";
@@ -211,20 +211,37 @@ describe("shot page and follow-up", () => {
     expect(((await unknown.json()) as ErrorJson).error.message).toBe("No shot SLM_040_9999");
   });
 
-  it("gives each use's stills with their alt text, and hides someone else's private lab trial", async () => {
-    // Rule: shared/PRODUCT.md roles table and stills access (a lab trial is its owner's and leads').
+  it("attaching one's own private trial shares a copy that every reader of the log sees; the trial stays private", async () => {
+    // Rule: a private trial is its uploader's alone until shared (README roles table); a use log
+    // never shows its readers a still they may not open (no broken images).
     const before = await makeStill(ann.id, "use");
     const trial = await makeStill(ann.id, "trial");
     const created = await logUse(approved.slug, ann, { shot: "SLM_050_0010", outcome: "clean", beforeStill: before.id, afterStill: trial.id });
     expect(created.status).toBe(201);
     const id = ((await created.json()) as UseResponse).id;
-    const useOnShot = async (as: Person) => {
+    const usesOnShot = async (as: Person) => {
       const res = await shotRoute.GET(request("GET", "/api/shots/SLM_050_0010", { as }), ctx({ code: "SLM_050_0010" }));
       return ((await res.json()) as ShotDetailResponse).uses.find((u) => u.id === id)!;
     };
-    expect(await useOnShot(ann)).toMatchObject({ beforeStill: before.id, beforeStillAlt: before.alt, afterStill: trial.id, afterStillAlt: trial.alt });
-    expect(await useOnShot(lead)).toMatchObject({ afterStill: trial.id });
-    expect(await useOnShot(bob)).toMatchObject({ beforeStill: before.id, beforeStillAlt: before.alt, afterStill: null, afterStillAlt: null });
+    const shared = (await usesOnShot(ann)).afterStill;
+    expect(shared).not.toBeNull();
+    expect(shared).not.toBe(trial.id);
+    for (const reader of [ann, lead, bob]) {
+      expect(await usesOnShot(reader)).toMatchObject({ beforeStill: before.id, beforeStillAlt: before.alt, afterStill: shared, afterStillAlt: trial.alt });
+    }
+    const [copy] = await getDb().select().from(stills).where(eq(stills.id, shared!));
+    expect(copy).toMatchObject({ owner: "use", sha256: trial.sha256, uploaderId: ann.id });
+    const [original] = await getDb().select().from(stills).where(eq(stills.id, trial.id));
+    expect(original!.owner).toBe("trial");
+  });
+
+  it("refuses someone else's private trial on a use log, for leads too (404-like field error, no hint)", async () => {
+    const trial = await makeStill(ann.id, "trial");
+    for (const as of [bob, lead]) {
+      const res = await logUse(approved.slug, as, { shot: "SLM_050_0010", outcome: "clean", afterStill: trial.id });
+      expect(res.status).toBe(400);
+      expect(((await res.json()) as ErrorJson).error.fields).toEqual({ afterStill: `No still ${trial.id}.` });
+    }
   });
 
   it("suggests shot codes by prefix, any case, with _ matched literally", async () => {

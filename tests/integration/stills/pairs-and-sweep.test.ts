@@ -2,15 +2,16 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { count, eq } from "drizzle-orm";
+import { and, count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as upload } from "@/app/api/stills/route";
 import { GET as listPairs, POST as postPair } from "@/app/api/stills/pairs/route";
 import { DELETE as deletePairRoute } from "@/app/api/stills/pairs/[id]/route";
 import { getDb } from "@/db/client";
-import { stills } from "@/db/schema";
+import { revisions, stillPairs, stills } from "@/db/schema";
 import { env } from "@/lib/env";
-import { createStill } from "@/lib/stills/mutations";
+import { createStill, deletePair } from "@/lib/stills/mutations";
+import { restoreRevision, reviewTechnique, submitTechnique, updateTechnique } from "@/lib/techniques/mutations";
 import { sweepUploads } from "@/lib/stills/sweep";
 import { newIncomingPath, variantPath } from "@/lib/stills/storage";
 import { noisePng } from "./images";
@@ -19,6 +20,7 @@ import { createPerson, createTechnique, ctx, filesUnder, uploadRequest, type Tes
 let dir: string;
 let artist: TestPerson;
 let senior: TestPerson;
+let lead: TestPerson;
 let technique: { id: string; slug: string };
 
 async function uploadStill(person: TestPerson, fields: Record<string, string>): Promise<string> {
@@ -39,7 +41,7 @@ function pairRequest(person: TestPerson, body: unknown): Request {
 beforeAll(async () => {
   dir = fs.mkdtempSync(path.join(os.tmpdir(), "plateroom-pairs-"));
   env.PLATEROOM_UPLOADS_DIR = dir;
-  [artist, senior] = await Promise.all([createPerson("artist"), createPerson("senior")]);
+  [artist, senior, lead] = await Promise.all([createPerson("artist"), createPerson("senior"), createPerson("lead")]);
   technique = await createTechnique(senior.user, { approved: true });
 });
 
@@ -48,25 +50,68 @@ afterAll(() => {
 });
 
 describe("before/after pairs", () => {
-  it("a senior pairs two stills of the technique; everyone who sees the technique lists it; delete removes it", async () => {
+  it("a pair on an approved technique goes into a new draft revision: readers see it once a lead approves it; delete works the same way", async () => {
     // Both uploaded as "before", as the technique page's uploader does; pairing sets which is which.
     const before = await uploadStill(senior, { owner: "technique", technique: technique.slug, role: "before" });
     const after = await uploadStill(senior, { owner: "technique", technique: technique.slug, role: "before" });
     const res = await postPair(pairRequest(senior, { technique: technique.slug, before, after, caption: "Marker removal on SLM_040_0120" }), ctx({}));
     expect(res.status).toBe(201);
-    const pair = (await res.json()) as { id: string; before: { id: string; role: string }; after: { id: string; role: string }; position: number };
+    const pair = (await res.json()) as { id: string; revision: number; before: { id: string; role: string }; after: { id: string; role: string }; position: number };
     expect(pair.before).toMatchObject({ id: before, role: "before" });
     expect(pair.after).toMatchObject({ id: after, role: "after" });
+    // Revision 1 is approved: the pair belongs to a new draft revision 2.
+    expect(pair.revision).toBe(2);
 
-    const listed = await listPairs(new Request(`http://plateroom.test/api/stills/pairs?technique=${technique.slug}`, { headers: artist.auth }), ctx({}));
-    const items = ((await listed.json()) as { items: { id: string; caption: string }[] }).items;
-    expect(items.map((i) => i.id)).toEqual([pair.id]);
-    expect(items[0]?.caption).toBe("Marker removal on SLM_040_0120");
+    const list = async (person: TestPerson) =>
+      ((await (await listPairs(new Request(`http://plateroom.test/api/stills/pairs?technique=${technique.slug}`, { headers: person.auth }), ctx({}))).json()) as { items: { id: string; caption: string; revision: number }[] }).items;
+    expect(await list(artist)).toEqual([]);
+    expect((await list(senior)).map((i) => i.id)).toEqual([pair.id]);
 
+    // A second pair goes into the same draft revision, not a third one.
+    const third = await uploadStill(senior, { owner: "technique", technique: technique.slug });
+    const second = (await (await postPair(pairRequest(senior, { technique: technique.slug, before: after, after: third }), ctx({}))).json()) as { revision: number };
+    expect(second.revision).toBe(2);
+
+    await submitTechnique(senior.user, technique.slug);
+    await reviewTechnique(lead.user, technique.slug, { revision: 2, decision: "approve" });
+    const items = await list(artist);
+    expect(items.map((i) => i.id)[0]).toBe(pair.id);
+    expect(items[0]).toMatchObject({ caption: "Marker removal on SLM_040_0120", revision: 2 });
+
+    // Deleting from the approved revision 2 makes draft revision 3 without the pair; readers keep it until approval.
     const del = await deletePairRoute(new Request(`http://plateroom.test/api/stills/pairs/${pair.id}`, { method: "DELETE", headers: senior.auth }), ctx({ id: pair.id }));
     expect(del.status).toBe(204);
+    expect((await list(artist)).map((i) => i.id)).toContain(pair.id);
+    expect((await list(senior)).map((i) => i.caption)).not.toContain("Marker removal on SLM_040_0120");
+    expect((await list(senior)).every((i) => i.revision === 3)).toBe(true);
     const again = await deletePairRoute(new Request(`http://plateroom.test/api/stills/pairs/${pair.id}`, { method: "DELETE", headers: senior.auth }), ctx({ id: pair.id }));
-    expect(again.status).toBe(404);
+    expect(again.status).toBe(409);
+    const missing = crypto.randomUUID();
+    expect((await deletePairRoute(new Request(`http://plateroom.test/api/stills/pairs/${missing}`, { method: "DELETE", headers: senior.auth }), ctx({ id: missing }))).status).toBe(404);
+  });
+
+  it("a draft's pairs change in place, a saved revision starts with its base's pairs, and a restore brings back the restored revision's pairs", async () => {
+    const draft = await createTechnique(senior.user, { approved: false });
+    const a = await uploadStill(senior, { owner: "technique", technique: draft.slug });
+    const b = await uploadStill(senior, { owner: "technique", technique: draft.slug });
+    const made = (await (await postPair(pairRequest(senior, { technique: draft.slug, before: a, after: b }), ctx({}))).json()) as { revision: number };
+    expect(made.revision).toBe(1);
+    const content = { title: "Grain match after paint-out", summary: "Regrain a painted patch so it sits in the plate.", aliases: [], tags: [], recipe: [] };
+    await updateTechnique(senior.user, draft.slug, { ...content, baseRevision: 1, changeNote: "Wording." });
+    const pairsOf = async (n: number) =>
+      getDb()
+        .select({ before: stillPairs.beforeStillId, after: stillPairs.afterStillId })
+        .from(stillPairs)
+        .innerJoin(revisions, eq(revisions.id, stillPairs.revisionId))
+        .where(and(eq(stillPairs.techniqueId, draft.id), eq(revisions.number, n)));
+    expect(await pairsOf(2)).toEqual([{ before: a, after: b }]);
+    // Revision 2 is a draft: removing its pair changes it in place.
+    const [copy] = await getDb().select({ id: stillPairs.id }).from(stillPairs).innerJoin(revisions, eq(revisions.id, stillPairs.revisionId)).where(and(eq(stillPairs.techniqueId, draft.id), eq(revisions.number, 2)));
+    await deletePair(senior.user, copy!.id);
+    expect(await pairsOf(2)).toEqual([]);
+    expect(await pairsOf(1)).toEqual([{ before: a, after: b }]);
+    await restoreRevision(senior.user, draft.slug, 1, 2);
+    expect(await pairsOf(3)).toEqual([{ before: a, after: b }]);
   });
 
   it("an artist may not make or delete pairs (403)", async () => {

@@ -50,11 +50,13 @@ describe("ownership rules", () => {
     expect(can(user("artist", "a"), "use:edit")).toBe(false);
   });
 
-  it("private trial stills: the owner and leads only; technique stills: anyone who reads", () => {
+  it("private trial stills: their uploader only, leads and admins not; technique stills: anyone who reads", () => {
     expect(can(user("artist", "a"), "still:read", { stillOwner: "trial", ownerId: "a" })).toBe(true);
     expect(can(user("artist", "a"), "still:read", { stillOwner: "trial", ownerId: "b" })).toBe(false);
     expect(can(user("senior", "s"), "still:read", { stillOwner: "trial", ownerId: "b" })).toBe(false);
-    expect(can(user("lead", "l"), "still:read", { stillOwner: "trial", ownerId: "b" })).toBe(true);
+    expect(can(user("lead", "l"), "still:read", { stillOwner: "trial", ownerId: "b" })).toBe(false);
+    expect(can(user("admin", "d"), "still:read", { stillOwner: "trial", ownerId: "b" })).toBe(false);
+    expect(can(user("lead", "l"), "still:read", { stillOwner: "trial", ownerId: "l" })).toBe(true);
     expect(can(user("artist", "a"), "still:read", { stillOwner: "technique", ownerId: "b" })).toBe(true);
   });
 

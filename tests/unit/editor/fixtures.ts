@@ -17,7 +17,7 @@ const ELEMENTS = new Set([
   "P", "H2", "H3", "H4", "STRONG", "EM", "CODE", "A", "UL", "OL", "LI", "PRE", "BLOCKQUOTE", "HR", "BR",
   "DIV", "TABLE", "TBODY", "TR", "TD", "TH", "ASIDE", "FIGURE", "IMG", "FIGCAPTION",
 ]);
-const ATTRIBUTES = new Set(["href", "rel", "src", "alt", "loading", "class", "role", "start", "type", "colspan", "rowspan"]);
+const ATTRIBUTES = new Set(["href", "rel", "src", "alt", "loading", "class", "role", "start", "type", "colspan", "rowspan", "id"]);
 
 /**
  * No live markup: only our elements and attributes, no event handlers, no script-capable URL.
@@ -40,6 +40,11 @@ export function expectInert(html: string): Document {
     expect(["http:", "https:", "mailto:"]).toContain(url.protocol);
     if (!/^(https?|mailto):/i.test(href.trim())) expect(url.origin).toBe("https://plateroom.test");
     expect(a.getAttribute("rel")).toBe("noopener noreferrer nofollow");
+  }
+  // Headings carry an id for the in-page contents, always "s-" and plain letters, digits and hyphens.
+  for (const el of doc.querySelectorAll("[id]")) {
+    expect(/^H[2-4]$/.test(el.tagName), `id on ${el.tagName}`).toBe(true);
+    expect(el.id).toMatch(/^s-[a-z0-9-]+$/);
   }
   for (const img of doc.querySelectorAll("img")) {
     expect(img.getAttribute("src")).toMatch(/^\/api\/stills\/[0-9a-f-]{36}\/preview$/);

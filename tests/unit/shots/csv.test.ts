@@ -145,7 +145,9 @@ describe("planImport", () => {
     );
     expect(plan.create.map((s) => s.code)).toEqual(["SLM_040_0170"]);
     expect(plan.errors.map((e) => e.row)).toEqual([1, 2, 3, 4, 5, 6, 7]);
-    expect(plan.errors[0]?.message).toMatch(/does not match the shot pattern of SLM/);
+    // Said in words with an example, never as the pattern (issue 13).
+    expect(plan.errors[0]?.message).toBe("SLM_40_120 is not a shot code of SLM: they look like SLM_040_0120 (the show, a 3-digit sequence, a 4-digit shot, joined by underscores).");
+    expect(plan.errors.map((e) => e.message).join(" ")).not.toMatch(/\\d|\^|\$|\{\d/);
     expect(plan.errors[3]?.message).toMatch(/Frame start 1100 is after frame end 1001/);
     expect(plan.errors[4]?.message).toMatch(/whole numbers/);
     expect(plan.errors[5]?.message).toMatch(/State must be one of/);

@@ -72,13 +72,24 @@ describe("ShotImport", () => {
     await act(async () => button(/Preview import/).click());
     expect(posted[0]).toMatchObject({ dryRun: true, mapping: { code: "Shot Code", description: "Notes" } });
     const text = container.textContent ?? "";
-    expect(text).toContain("SLM_40_130 does not match the shot pattern of SLM");
+    expect(text).toContain("SLM_40_130 is not a shot code of SLM: they look like SLM_040_0120");
     expect(text).toContain("SLM_040_0120 appears more than once; first on row 1.");
 
     await act(async () => button(/Import 1 new and 0 changed/).click());
     expect(posted[1]).toMatchObject({ dryRun: false, mapping: posted[0]!.mapping });
     expect(onImported).toHaveBeenCalledOnce();
     expect(container.textContent).toContain("Imported: 1 new, 0 changed, 0 unchanged. 2 rows were not imported:");
+  });
+
+  it("counts one row as one row (issue 13)", async () => {
+    act(() => root.render(<ShotImport showCode="SLM" />));
+    act(() => type(container.querySelector("textarea")!, "Shot Code,Notes\r\nSLM_040_0120,markers\r\nSLM_7,typo\r\n"));
+    expect(container.textContent).toContain("2 rows read.");
+    await act(async () => button(/Preview import/).click());
+    expect(button(/^Import 1 new and 0 changed shot$/)).toBeDefined();
+    await act(async () => button(/Import 1 new/).click());
+    expect(container.textContent).toContain("Imported: 1 new, 0 changed, 0 unchanged. 1 row was not imported:");
+    expect(container.textContent).not.toMatch(/\\d\{|\^SLM/);
   });
 
   it("blocks the preview until a column is mapped to the shot code", () => {

@@ -184,14 +184,15 @@ describe("ShotUses", () => {
   it("deletes only after confirmation", async () => {
     render(<ShotUses uses={[use()]} />);
     act(() => button(/^Delete$/).click());
-    const dialog = container.querySelector("dialog")!;
+    // Dialogs render into <body> (components/ui/modal.tsx), outside any form of the page.
+    const dialog = document.querySelector("dialog")!;
     expect(dialog.open).toBe(true);
     expect(calls).toHaveLength(0);
     act(() => [...dialog.querySelectorAll("button")].find((b) => b.textContent === "Cancel")!.click());
     expect(calls).toHaveLength(0);
 
     act(() => button(/^Delete$/).click());
-    await act(async () => button(/Delete log/).click());
+    await act(async () => [...dialog.querySelectorAll("button")].find((b) => /Delete log/.test(b.textContent ?? ""))!.click());
     expect(calls).toEqual([{ url: "/api/uses/11111111-1111-4111-8111-111111111111", method: "DELETE", body: undefined }]);
     expect(refresh).toHaveBeenCalledOnce();
   });

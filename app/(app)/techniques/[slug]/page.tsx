@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { Card, CardTitle } from "@/components/ui/card";
 import { QuestionsSection } from "@/components/techniques/questions-section";
+import { CONTENTS_MIN_HEADINGS, PageContents } from "@/components/techniques/page-contents";
 import { RenderedBody } from "@/components/techniques/rendered-body";
 import { TechniqueActions } from "@/components/techniques/technique-actions";
 import { TechniqueBanners } from "@/components/techniques/technique-banners";
@@ -13,6 +14,7 @@ import { SubscribeButton } from "@/components/subscriptions/subscribe-button";
 import { loadOrNotFound } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 import { getTechnique } from "@/lib/techniques/queries";
+import { renderDocument } from "@/lib/techniques/render";
 
 type Props = { params: Promise<{ slug: string }> };
 
@@ -25,6 +27,7 @@ export default async function TechniquePage({ params }: Props) {
   const { slug } = await params;
   const t = await loadOrNotFound(() => getTechnique(user, slug));
   if (t.renamedFrom) redirect(`/techniques/${t.slug}`);
+  const body = renderDocument(t.body);
   return (
     <article className="space-y-6">
       <TechniqueHeader t={t} />
@@ -38,7 +41,7 @@ export default async function TechniquePage({ params }: Props) {
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-6">
           <Card>
-            <RenderedBody doc={t.body} />
+            <RenderedBody doc={t.body} html={body.html} />
           </Card>
           <TechniqueEvidence user={user} technique={t} />
           <TechniqueLabSection user={user} technique={t} />
@@ -64,6 +67,11 @@ export default async function TechniquePage({ params }: Props) {
             </dl>
             {t.revision.changeNote ? <p className="mt-2 text-sm text-muted">“{t.revision.changeNote}”</p> : null}
           </Card>
+          {body.outline.length >= CONTENTS_MIN_HEADINGS ? (
+            <Card className="lg:sticky lg:top-4">
+              <PageContents outline={body.outline} />
+            </Card>
+          ) : null}
         </aside>
       </div>
     </article>

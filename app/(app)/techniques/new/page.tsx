@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { TechniqueForm } from "@/components/techniques/technique-form";
-import { assertCan } from "@/lib/auth/permissions";
+import { requirePagePermission } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 import { emptyDocument } from "@/lib/techniques/document";
 import { listTags } from "@/lib/tags/queries";
@@ -9,7 +9,7 @@ export const metadata: Metadata = { title: "Write a technique" };
 
 export default async function NewTechniquePage({ searchParams }: { searchParams: Promise<{ request?: string; title?: string }> }) {
   const user = await requireUser();
-  assertCan(user, "technique:write");
+  requirePagePermission(user, "technique:write");
   const sp = await searchParams;
   const tags = (await listTags(user)).map(({ slug, name, kind }) => ({ slug, name, kind }));
   const requestId = typeof sp.request === "string" && /^[0-9a-f-]{36}$/.test(sp.request) ? sp.request : undefined;

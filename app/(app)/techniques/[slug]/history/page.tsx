@@ -21,10 +21,13 @@ export default async function HistoryPage({ params, searchParams }: { params: Pr
   const sp = await searchParams;
   const history = await loadOrNotFound(() => listRevisions(user, slug));
   const numbers = history.items.map((r) => r.number);
-  const to = Number(sp.to ?? numbers[0]);
-  const from = Number(sp.from ?? numbers[1] ?? numbers[0]);
-  const diff = numbers.includes(from) && numbers.includes(to) ? await loadOrNotFound(() => revisionDiff(user, slug, from, to)) : null;
   const latest = numbers[0] ?? 1;
+  // By default: the newest against what readers see (the approved revision), else against the one before it.
+  const approved = history.items.find((r) => r.state === "approved")?.number;
+  const to = Number(sp.to ?? latest);
+  const from = Number(sp.from ?? (approved !== undefined && approved !== to ? approved : (numbers.find((n) => n < to) ?? to)));
+  const canCompare = numbers.length > 1 && from !== to && numbers.includes(from) && numbers.includes(to);
+  const diff = canCompare ? await loadOrNotFound(() => revisionDiff(user, slug, Math.min(from, to), Math.max(from, to))) : null;
   return (
     <div className="space-y-6">
       <div>
@@ -33,31 +36,35 @@ export default async function HistoryPage({ params, searchParams }: { params: Pr
         </Link>
         <h1 className="text-2xl font-semibold">History</h1>
       </div>
-      <form className="flex flex-wrap items-end gap-2 text-sm" method="get">
-        <label className="space-y-1">
-          <span className="block text-muted">From</span>
-          <select name="from" defaultValue={from} className="rounded border border-line bg-surface-2 px-2 py-1">
-            {numbers.map((n) => (
-              <option key={n}>{n}</option>
-            ))}
-          </select>
-        </label>
-        <label className="space-y-1">
-          <span className="block text-muted">To</span>
-          <select name="to" defaultValue={to} className="rounded border border-line bg-surface-2 px-2 py-1">
-            {numbers.map((n) => (
-              <option key={n}>{n}</option>
-            ))}
-          </select>
-        </label>
-        <button className={buttonClasses("secondary")}>Compare</button>
-      </form>
+      {numbers.length < 2 ? <p className="text-sm text-muted">There is one revision so far: nothing to compare yet.</p> : null}
+      {numbers.length > 1 ? (
+        <form className="flex flex-wrap items-end gap-2 text-sm" method="get">
+          <label className="space-y-1">
+            <span className="block text-muted">From</span>
+            <select name="from" defaultValue={from} className="rounded border border-line bg-surface-2 px-2 py-1">
+              {numbers.map((n) => (
+                <option key={n}>{n}</option>
+              ))}
+            </select>
+          </label>
+          <label className="space-y-1">
+            <span className="block text-muted">To</span>
+            <select name="to" defaultValue={to} className="rounded border border-line bg-surface-2 px-2 py-1">
+              {numbers.map((n) => (
+                <option key={n}>{n}</option>
+              ))}
+            </select>
+          </label>
+          <button className={buttonClasses("secondary")}>Compare</button>
+        </form>
+      ) : null}
+      {numbers.length > 1 && from === to ? <p className="text-sm text-muted">Pick two different revisions to see what changed.</p> : null}
       {diff ? (
-        <section aria-label={`Changes from revision ${from} to ${to}`}>
+        <section aria-label={`Changes from revision ${diff.from} to ${diff.to}`}>
           <h2 className="mb-2 font-semibold">
-            Revision {from} → {to}
+            Revision {diff.from} → {diff.to}
           </h2>
-          <DiffView fields={diff.fields} />
+          <DiffView fields={diff.fields} pairs={diff.pairs} />
         </section>
       ) : null}
       <ol className="divide-y divide-line rounded-lg border border-line bg-surface">

@@ -1,0 +1,1 @@
+ALTER TABLE "still_pairs" ALTER COLUMN "revision_id" SET NOT NULL;

@@ -1,0 +1,146 @@
+import fs from "node:fs";
+import path from "node:path";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
+import { useAppAndBrowser } from "@/tests/e2e/running-app";
+
+/*
+ * Issue 13, item 9: every page, for every role, checked in Chromium with axe-core (Deque's engine
+ * of the WCAG 2.1 rules, an outside checker): no serious or critical violation. Also the quick
+ * finder hands focus to the page it opens.
+ */
+
+const AXE_SOURCE = fs.readFileSync(path.join(process.cwd(), "node_modules", "axe-core", "axe.min.js"), "utf8");
+
+const MARKER = "marker-channel-cleanup";
+const PENDING_EDIT = "boom-shadow-lift-by-gain-matching";
+const EVERYONE = [
+  "/",
+  "/techniques",
+  "/problems",
+  "/problems/tracking-markers",
+  "/search?q=marker",
+  "/search?q=zzzz+nothing+like+this",
+  "/shows",
+  "/shows/SLM",
+  "/shots/SLM_040_0120",
+  "/settings",
+  `/techniques/${MARKER}`,
+  `/techniques/${MARKER}/history`,
+  "/no/such/page",
+];
+const WRITERS = ["/techniques/new", `/techniques/${MARKER}/edit`, `/techniques/${PENDING_EDIT}`];
+const LEADS = ["/review", `/techniques/${PENDING_EDIT}/review`];
+const ADMINS = ["/people", "/mail", "/mail?tab=delivered", "/audit"];
+
+const ROLES: Record<string, string[]> = {
+  "artist@kestrel.test": [...EVERYONE, "/review"],
+  "senior@kestrel.test": [...EVERYONE, ...WRITERS],
+  "lead@kestrel.test": [...EVERYONE, ...WRITERS, ...LEADS],
+  "admin@kestrel.test": [...EVERYONE, ...ADMINS],
+};
+
+type Violation = { id: string; impact: string | null; help: string; nodes: { target: string[]; failureSummary?: string }[] };
+
+/** Runs axe-core on the page as it is; the serious and critical violations, in words a reader can act on. */
+async function seriousViolations(page: Page): Promise<string[]> {
+  // Evaluated through the debugging protocol, so the app's Content-Security-Policy stays as it is.
+  if (!(await page.evaluate(() => "axe" in window))) await page.evaluate(AXE_SOURCE);
+  const violations = await page.evaluate(async () => {
+    const result = await (window as unknown as { axe: { run(ctx: Document, options: object): Promise<{ violations: Violation[] }> } }).axe.run(document, {
+      resultTypes: ["violations"],
+    });
+    return result.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.map((n) => ({ target: n.target, failureSummary: n.failureSummary })) }));
+  });
+  return violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .flatMap((v) => v.nodes.map((n) => `${v.id} (${v.impact}): ${v.help} at ${n.target.join(" ")} — ${n.failureSummary ?? ""}`));
+}
+
+/** Waits for client rendering to settle: the editor's toolbar, the lab, lists that load after paint. */
+async function settle(page: Page): Promise<void> {
+  await page.waitForLoadState("networkidle", { timeout: 15_000 }).catch(() => undefined);
+  if (/\/edit$|\/new$/.test(new URL(page.url()).pathname)) await page.getByRole("toolbar", { name: "Formatting" }).waitFor();
+}
+
+describe.skipIf(!hasChromium())("accessibility of every page for every role (axe-core)", () => {
+  const running = useAppAndBrowser();
+
+  for (const [email, paths] of Object.entries(ROLES)) {
+    it(`${email.split("@")[0]}: no serious or critical violations, in both themes on the technique page`, async () => {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, email);
+      const found: string[] = [];
+      for (const url of paths) {
+        await page.goto(url);
+        await settle(page);
+        for (const v of await seriousViolations(page)) found.push(`${url}: ${v}`);
+      }
+      // The light theme has its own colours: check the densest page in it too.
+      await context.addCookies([{ name: "plateroom-theme", value: "light", url: running.app.baseUrl }]);
+      await page.goto(`/techniques/${MARKER}`);
+      await settle(page);
+      for (const v of await seriousViolations(page)) found.push(`/techniques/${MARKER} (light): ${v}`);
+      expect(found, found.join("\n")).toEqual([]);
+      await context.close();
+    });
+  }
+
+  it("signed out: the sign-in pages", async () => {
+    const context = await running.browser.newContext({ baseURL: running.app.baseUrl });
+    const page = await context.newPage();
+    const found: string[] = [];
+    for (const url of ["/login", "/forgot-password", "/set-password?token=nothing", "/unsubscribe?token=nothing"]) {
+      await page.goto(url);
+      await settle(page);
+      for (const v of await seriousViolations(page)) found.push(`${url}: ${v}`);
+    }
+    expect(found, found.join("\n")).toEqual([]);
+    await context.close();
+  });
+
+  it("open dialogs pass too: the quick finder with results, the still dialog, the approve dialog", async () => {
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "lead@kestrel.test");
+    const found: string[] = [];
+    await page.goto("/techniques");
+    await page.getByTestId("quick-finder-button").click();
+    await page.getByRole("combobox", { name: "Find a technique" }).fill("marker");
+    await page.getByRole("option").first().waitFor();
+    for (const v of await seriousViolations(page)) found.push(`finder: ${v}`);
+    await page.keyboard.press("Escape");
+
+    await page.goto(`/techniques/${MARKER}/edit`);
+    await settle(page);
+    await page.getByRole("toolbar", { name: "Formatting" }).getByRole("button", { name: "Add a still" }).click();
+    await page.getByRole("dialog", { name: "Add a still" }).waitFor();
+    for (const v of await seriousViolations(page)) found.push(`still dialog: ${v}`);
+    await page.keyboard.press("Escape");
+
+    await page.goto(`/techniques/${PENDING_EDIT}`);
+    await page.getByRole("button", { name: /^Approve revision/ }).click();
+    await page.getByRole("dialog").waitFor();
+    for (const v of await seriousViolations(page)) found.push(`approve dialog: ${v}`);
+    expect(found, found.join("\n")).toEqual([]);
+    await context.close();
+  });
+
+  it("the quick finder moves focus to the page it opens", async () => {
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
+    await page.goto("/problems");
+    await page.keyboard.press("Control+k");
+    const box = page.getByRole("combobox", { name: "Find a technique" });
+    await box.fill("marker channel");
+    await page.getByRole("option", { name: /Marker channel cleanup/ }).waitFor();
+    await page.keyboard.press("ArrowDown");
+    await page.keyboard.press("Enter");
+    await page.waitForURL(new RegExp(`/techniques/${MARKER}$`));
+    await page.getByRole("heading", { level: 1, name: "Marker channel cleanup" }).waitFor();
+    await expect.poll(() => page.evaluate(() => document.activeElement?.id ?? document.activeElement?.tagName)).toBe("main");
+    // The next Tab goes into the page content, not back into the header.
+    await page.keyboard.press("Tab");
+    expect(await page.evaluate(() => Boolean(document.activeElement?.closest("main")))).toBe(true);
+    expect(await isShown(page.getByRole("dialog", { name: "Find a technique" }), 500)).toBe(false);
+    await screenshot(page, "finder-focus-main");
+    await context.close();
+  });
+});
