@@ -23,8 +23,6 @@ const layerZones = [
   {
     target: "./components",
     from: "./app",
-    // Issue #15 moves app/api/lab/_lib into lib/lab; until then the lab components read its types.
-    except: ["./api/lab/_lib"],
     message: "components/ never import app/: data and types come through lib.",
   },
   {

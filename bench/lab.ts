@@ -1,8 +1,11 @@
 /*
- * Still lab benchmark (issue 5). Run: npx tsx bench/lab.ts   [--quick: 2K only]
- * Every op alone and the full demo recipe at 2048×1080 and 4096×2160, each beside a plain float
- * RGB copy of the same frame measured in the same run; proxy render; cached re-run; peak RSS of
- * the 4K recipe measured in a child process. Writes the key "lab" of bench/results.json.
+ * Still lab benchmark (issues 5 and 15). Run: flock /tmp/plateroom-bench.lock npx tsx bench/lab.ts
+ * [--quick: 2K only]. Every op alone (soften at σ 3, 12, 40 and flatten at σ 40 exact among them)
+ * and the demo recipe, with and without a σ-40 flatten, at 2048×1080 and 4096×2160, each beside a
+ * plain float RGB copy of the same frame measured in the same run; the exact blur's two methods
+ * side by side (where they cross sets DIRECT_MAX_RADIUS in lib/lab/gaussian.ts); proxy renders;
+ * cached re-run; peak RSS of the 4K recipe with flatten in a child process. Writes the key "lab"
+ * of bench/results.json.
  */
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
@@ -23,10 +26,18 @@ if (!process.env.LAB_BENCH_INNER) {
   process.exit(r.status ?? 1);
 }
 
-const { generateSyntheticPlate, demoCleanupRecipe } = await import("@/lib/lab/synthetic");
+const { generateSyntheticPlate, demoCleanupRecipe, SCREEN_COLOURS } = await import("@/lib/lab/synthetic");
 const { applyStep, applyStepsAt, codesSource, createLabState, decodeStill, runRecipe } = await import("@/lib/lab/engine");
 const { createLabRunner } = await import("@/lib/lab/runner");
 const { recipeSchema } = await import("@/lib/lab/recipe");
+const { blurExact, gaussianRadius } = await import("@/lib/lab/gaussian");
+
+/** The demo recipe with a σ-40 flatten of the screen (outside the marker matte) before the mix. */
+function withFlatten(steps: RecipeStep[], screen: [number, number, number]): RecipeStep[] {
+  const mix = steps.findIndex((s) => s.op === "mix");
+  const flatten: RecipeStep = { op: "flatten", sigma: 40, color: screen, weight: "outside" };
+  return [...steps.slice(0, mix), flatten, ...steps.slice(mix)];
+}
 
 // The float copy the ratios divide by, timed right before each repetition of the op, so both
 // see the same machine load (the machine is shared; a copy measured once drifts by 5×).
@@ -86,6 +97,7 @@ try {
     const steps = recipeSchema.parse(
       demoCleanupRecipe({ denoisedStillId: "denoised", width: W, screen: syn.screen, markerSamples: syn.markerSamples, screenSamples: syn.screenSamples, screenRect: syn.screenRect }),
     );
+    const flatSteps = withFlatten(steps, SCREEN_COLOURS[syn.screen]);
     const plateCodes = await decodeStill(syn.plate);
     const denCodes = await decodeStill(syn.denoised);
     const state = createLabState({ width: W, height: H, plate: codesSource(plateCodes, "linear"), base: codesSource(denCodes, "linear") });
@@ -111,9 +123,11 @@ try {
       ["grow (demo)", withMatte, steps.find((s) => s.op === "grow")!],
       ["grow 16 px", withMatte, { op: "grow", px: 16 }],
       ["soften matte (demo)", withMatte, steps.find((s) => s.op === "soften")!],
-      ["soften channel σ=5", reset, { op: "soften", sigma: 5, target: "g" }],
+      ["soften one channel σ=3 exact", reset, { op: "soften", sigma: 3, target: "g" }],
+      ["soften one channel σ=12 exact", reset, { op: "soften", sigma: 12, target: "g" }],
+      ["soften one channel σ=40 exact", reset, { op: "soften", sigma: 40, target: "g" }],
       ["mix", withMatte, { op: "mix", invert: false }],
-      ["flatten σ=40", withMatte, { op: "flatten", sigma: 40, color: [0.06, 0.42, 0.1], weight: "outside" }],
+      ["flatten σ=40 exact", withMatte, { op: "flatten", sigma: 40, color: [0.06, 0.42, 0.1], weight: "outside" }],
       ["grain", reset, { op: "grain", denoised: "denoised" }],
     ];
     const opResults: Record<string, number> = {};
@@ -135,12 +149,52 @@ try {
     const full = await time(W > 3000 ? 2 : 4, () => {}, () => runRecipe({ still: syn.plate, steps, space: "linear", format: "png16", loadStill }));
     const fullCopy = lastCopyMs;
     rows.push({ size: key, op: "demo recipe, exact png16 (decode+steps+encode)", ms: full, copyMs: fullCopy, ratio: full / fullCopy });
+    const flatFull = await time(W > 3000 ? 2 : 3, () => {}, () => runRecipe({ still: syn.plate, steps: flatSteps, space: "linear", format: "png16", loadStill }));
+    const flatFullCopy = lastCopyMs;
+    rows.push({ size: key, op: "demo recipe + flatten σ=40, exact png16", ms: flatFull, copyMs: flatFullCopy, ratio: flatFull / flatFullCopy });
     const sizeResult: Record<string, unknown> = {
       copyMs, ops: opResults, opCopyMs: opCopies, recipeStepsMs: stepsOnly, recipeStepsCopyMs: stepsCopy, recipeExactMs: full, recipeExactCopyMs: fullCopy,
+      recipeFlattenExactMs: flatFull, recipeFlattenExactCopyMs: flatFullCopy,
     };
 
     if (W === 2048) {
+      // The exact blur's two methods on one plane, by radius: where they cross sets
+      // DIRECT_MAX_RADIUS (lib/lab/gaussian.ts).
+      const methods: Record<string, Record<string, number>> = {};
+      const p32 = new Float32Array(W * H).map((_, i) => ((i * 2654435761) >>> 0) / 2 ** 32), p64 = new Float64Array(p32);
+      for (const sigma of [2, 4, 8, 12, 16, 24]) {
+        const r = gaussianRadius(sigma);
+        const entry: Record<string, number> = {};
+        for (const [kind, plane] of [["f32", p32], ["f64", p64]] as const) {
+          for (const method of ["direct", "fft"] as const) {
+            const ms = await time(3, () => {}, () => blurExact(plane, W, H, sigma, method));
+            entry[`${kind} ${method}`] = ms;
+            rows.push({ size: key, op: `exact blur, one ${kind} plane, ${method}, σ=${sigma} (R ${r})`, ms, copyMs: lastCopyMs, ratio: ms / lastCopyMs });
+          }
+        }
+        methods[`sigma ${sigma}`] = entry;
+      }
+      sizeResult.blurMethods = methods;
+    }
+
+    if (W === 2048) {
       const proxyCold = await time(5, () => {}, () => runRecipe({ still: syn.plate, steps, space: "linear", format: "webp", width: 1024, loadStill }));
+      // The same interaction with the σ-40 flatten in the recipe.
+      const flatRunner = createLabRunner({});
+      let flatTweak = 0;
+      const flatInput = () => ({
+        stillBytes: syn.plate, stillSha256: "bench-plate-flat", loadStill,
+        request: { still: "plate", space: "linear" as const, format: "webp" as const, width: 1024,
+          steps: flatSteps.map((s) => (s.op === "soften" ? { ...s, sigma: s.sigma + 1e-3 * ++flatTweak } : s)) },
+      });
+      await flatRunner.run(flatInput());
+      const flatProxy = await time(7, () => {}, async () => {
+        const r = await flatRunner.run(flatInput());
+        if (r.cached) throw new Error("proxy bench hit the result cache");
+        if (!r.approximate) throw new Error("a proxy render must be marked approximate");
+      });
+      rows.push({ size: key, op: "proxy 1024 px webp, demo + flatten σ=40 (approximate)", ms: flatProxy, copyMs, ratio: flatProxy / copyMs });
+      Object.assign(sizeResult, { flattenProxyMs: flatProxy, flattenProxyOverExact: flatProxy / flatFull });
       rows.push({ size: key, op: "proxy render 1024 px webp (cold decode)", ms: proxyCold, copyMs, ratio: proxyCold / copyMs });
       // Interaction: the same still re-rendered with changed parameters. Each run's recipe differs
       // (no result-cache hit); the decoded 1024-px proxies are reused by the runner.
@@ -177,10 +231,11 @@ try {
       (await import("node:fs")).mkdirSync(dir);
       writeFileSync(path.join(dir, "plate.png"), syn.plate);
       writeFileSync(path.join(dir, "denoised.png"), syn.denoised);
-      writeFileSync(path.join(dir, "recipe.json"), JSON.stringify(steps));
+      writeFileSync(path.join(dir, "recipe.json"), JSON.stringify(flatSteps));
       const child = spawnSync(process.execPath, [...process.execArgv, here, "--child-peak", dir], { env: process.env, encoding: "utf8", maxBuffer: 1 << 20 });
       const peak = JSON.parse(child.stdout) as { ms: number; maxRssMB: number; timings: unknown };
-      rows.push({ size: key, op: "child: demo recipe exact (peak RSS in MB as ms column)", ms: peak.maxRssMB, copyMs, ratio: NaN });
+      rows.push({ size: key, op: "child: demo + flatten σ=40 exact (ms)", ms: peak.ms, copyMs, ratio: NaN });
+      rows.push({ size: key, op: "child: demo + flatten σ=40 exact (peak RSS in MB as ms column)", ms: peak.maxRssMB, copyMs, ratio: NaN });
       Object.assign(sizeResult, { childRecipeMs: peak.ms, childTimings: peak.timings, peakRssMB: peak.maxRssMB });
     }
     (results.sizes as Record<string, unknown>)[key] = sizeResult;
@@ -193,7 +248,14 @@ const s2 = (results.sizes as Record<string, Record<string, unknown>>)["2048x1080
 const s4 = (results.sizes as Record<string, Record<string, unknown>>)["4096x2160"];
 const ops2 = s2.ops as Record<string, number>;
 const opCopy2 = s2.opCopyMs as Record<string, number>;
+const ratio = (ops: Record<string, number>, copies: Record<string, number>, name: string): number => ops[name]! / copies[name]!;
+const ops4 = s4?.ops as Record<string, number> | undefined, opCopy4 = s4?.opCopyMs as Record<string, number> | undefined;
 const targets = {
+  soften40OnePlane2kOverCopy: { value: ratio(ops2, opCopy2, "soften one channel σ=40 exact"), target: "≤ 40" },
+  soften40OnePlane4kOverCopy: { value: ops4 ? ratio(ops4, opCopy4!, "soften one channel σ=40 exact") : NaN, target: "≤ 40" },
+  flatten40_2kOverCopy: { value: ratio(ops2, opCopy2, "flatten σ=40 exact"), target: "(context)" },
+  recipeFlatten40Exact2kOverCopy: { value: (s2.recipeFlattenExactMs as number) / (s2.recipeFlattenExactCopyMs as number), target: "≤ 300" },
+  flattenProxyOverExact2k: { value: s2.flattenProxyOverExact as number, target: "≤ 0.125" },
   matrixFullOverCopy: { value: ops2["matrix (full 3×3 + offset)"]! / opCopy2["matrix (full 3×3 + offset)"]!, target: "≤ 2.5" },
   matrixOneRowOverCopy: { value: ops2["matrix (one solved row)"]! / opCopy2["matrix (one solved row)"]!, target: "≤ 2.5" },
   recipeExact2kOverCopy: { value: (s2.recipeExactMs as number) / (s2.recipeExactCopyMs as number), target: "≤ 120" },

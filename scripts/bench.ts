@@ -57,8 +57,13 @@ if (lab) {
   const sizes = (get(lab, "sizes") ?? {}) as Record<string, Json>;
   console.log("Still lab: full demo recipe");
   console.table(
-    Object.entries(sizes).map(([size, s]) => ({ size, "steps ms": fmt(s.recipeStepsMs, 0), "exact ms": fmt(s.recipeExactMs, 0), "proxy ms": fmt(s.proxyMs, 0), "float copy ms": fmt(s.copyMs, 2) })),
+    Object.entries(sizes).map(([size, s]) => ({
+      size, "steps ms": fmt(s.recipeStepsMs, 0), "exact ms": fmt(s.recipeExactMs, 0), "exact + flatten σ40 ms": fmt(s.recipeFlattenExactMs, 0),
+      "proxy ms": fmt(s.proxyMs, 0), "float copy ms": fmt(s.copyMs, 2),
+    })),
   );
+  const targets = get(lab, "targets");
+  if (targets) console.log("Still lab targets:", targets);
 }
 
 const exr = results.exr;

@@ -6,7 +6,7 @@ import { analyseLab, CHANNEL_COLOURS, errorText, labSpaceFields, labSpaceWords, 
 import { Choice } from "@/components/lab/recipe/number-input";
 import { Button } from "@/components/ui/button";
 import type { RecipeStep } from "@/lib/lab/recipe";
-import type { HistogramData, LabAnalyseResponse } from "@/app/api/lab/_lib/schemas";
+import type { HistogramData, LabAnalyseResponse } from "@/lib/lab/analysis-schemas";
 
 /** Per-channel histograms of the plate and of the recipe's float result. */
 export function Histogram({ still, space, steps }: { still: LabStillInfo; space: LabSpaceChoice; steps: RecipeStep[] }) {
@@ -50,7 +50,8 @@ export function Histogram({ still, space, steps }: { still: LabStillInfo; space:
             </AreaChart>
           </ResponsiveContainer>
           <figcaption className="text-xs text-muted">
-            {data!.width}×{data!.height} px in {labSpaceWords(space)}. Below 0: R {h.below[0]}, G {h.below[1]}, B {h.below[2]}; 1 and
+            {data!.width}×{data!.height} px in {labSpaceWords(space)}
+            {data!.approximate ? " (a resized copy: blurs approximate)" : ""}. Below 0: R {h.below[0]}, G {h.below[1]}, B {h.below[2]}; 1 and
             above: R {h.above[0]}, G {h.above[1]}, B {h.above[2]}.
           </figcaption>
         </figure>

@@ -2,7 +2,7 @@ import { apiFetch, ApiError } from "@/lib/api/fetcher";
 import type { ErrorBody } from "@/lib/api/errors";
 import type { LabRunRequestInput, LabSolveRequest, LabSolveResponse, LabSpace, StepReport } from "@/lib/lab/recipe";
 import { COLOUR_SPACE_SHORT, type ColourSpace, type LinearSpace } from "@/lib/colour/spaces";
-import type { LabAnalyseRequest, LabAnalyseResponse, LabSampleRequest, LabSampleResponse } from "@/app/api/lab/_lib/schemas";
+import type { LabAnalyseRequest, LabAnalyseResponse, LabSampleRequest, LabSampleResponse } from "@/lib/lab/analysis-schemas";
 
 /** Client calls of the lab routes (app/api/lab). */
 
@@ -22,7 +22,8 @@ export function labSpaceWords(choice: LabSpaceChoice): string {
   const { space, workingSpace } = labSpaceFields(choice);
   return space === "stored" ? "stored values" : workingSpace ? `linear light, ${COLOUR_SPACE_SHORT[workingSpace]}` : "linear light";
 }
-export type LabRender = { url: string; width: number; height: number; reports: StepReport[]; cached: string };
+/** `approximate`: a proxy render (resized, fast blur approximations), from the X-Lab-Render header. */
+export type LabRender = { url: string; width: number; height: number; reports: StepReport[]; cached: string; approximate: boolean };
 export type Box = { x: number; y: number; w: number; h: number };
 
 /** POST /api/lab/run; the image comes back as an object URL the caller must revoke. */
@@ -55,6 +56,7 @@ export async function renderLab(body: LabRunRequestInput, signal?: AbortSignal):
     height: Number(res.headers.get("X-Lab-Height")) || 0,
     reports,
     cached: res.headers.get("X-Lab-Cache") ?? "miss",
+    approximate: res.headers.get("X-Lab-Render") === "approximate",
   };
 }
 

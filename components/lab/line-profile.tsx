@@ -8,7 +8,7 @@ import { NumberInput } from "@/components/lab/recipe/number-input";
 import { Button } from "@/components/ui/button";
 import type { RecipeStep } from "@/lib/lab/recipe";
 import { stillUrl } from "@/lib/stills/schemas";
-import type { LabAnalyseResponse } from "@/app/api/lab/_lib/schemas";
+import type { LabAnalyseResponse } from "@/lib/lab/analysis-schemas";
 
 type Line = { x0: number; y0: number; x1: number; y1: number };
 
@@ -88,6 +88,7 @@ export function LineProfile({ still, space, steps }: { still: LabStillInfo; spac
           </ResponsiveContainer>
           <figcaption className="text-xs text-muted">
             Values in {labSpaceWords(space)} (0..1), unclipped; distance along the line in full-resolution pixels.
+            {data?.approximate ? " Sampled from a resized copy, so blurs are approximate." : ""}
           </figcaption>
         </figure>
       ) : null}

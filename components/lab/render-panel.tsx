@@ -60,10 +60,18 @@ export function RenderPanel({ still, steps, space }: { still: LabStillInfo; step
             ) : null}
           </div>
         ) : state.status === "done" ? (
-          <p className="text-xs text-ok">
-            {state.result.width}×{state.result.height} {state.mode === "full" ? "exact render" : "preview render"} in {state.seconds.toFixed(1)} s
-            {state.result.cached !== "miss" ? " (from the cache)" : ""}.
-          </p>
+          <div className="space-y-1">
+            <p className="text-xs text-ok">
+              {state.result.width}×{state.result.height} {state.result.approximate ? "approximate preview" : "exact render"} in {state.seconds.toFixed(1)} s
+              {state.result.cached !== "miss" ? " (from the cache)" : ""}.
+            </p>
+            {state.result.approximate ? (
+              <p className="rounded border border-line bg-surface-2 px-2 py-1 text-xs">
+                Approximate: resized to {state.result.width} px wide, and soften and flatten use a fast approximation of the Gaussian.
+                Use “Render exact” for the numbers to trust.
+              </p>
+            ) : null}
+          </div>
         ) : null}
       </div>
       {state.status === "done" ? (
@@ -97,7 +105,8 @@ function StepReports({ reports }: { reports: StepReport[] }) {
             : r.op === "matte"
               ? `matte covers ${(r.coverage * 100).toFixed(1)} %`
               : r.op === "flatten"
-                ? `${r.unfilled} px had no clean screen nearby`
+                ? `${r.thin} px had less than 1 % clean screen within reach (topped up with the frame's mean screen colour)` +
+                  (r.leftAsIs ? `; ${r.leftAsIs} px left as they were (no positive screen estimate)` : "")
                 : ""}
         </li>
       ))}

@@ -7,6 +7,7 @@ import { LineProfile } from "@/components/lab/line-profile";
 import { MatrixPreview } from "@/components/lab/matrix-preview";
 import { MatrixSliders } from "@/components/lab/matrix-sliders";
 import { MatrixSolver } from "@/components/lab/matrix-solver";
+import { RecipeHelp } from "@/components/lab/recipe-help";
 import { RenderPanel } from "@/components/lab/render-panel";
 import { StillChoice } from "@/components/lab/still-choice";
 import { LabTabs, type LabTab } from "@/components/lab/lab-tabs";
@@ -75,6 +76,7 @@ export function TechniqueLab({ slug, recipe, stills, canEditRecipe, onApplyMatri
               ) : (
                 <Button onClick={() => setMatrix({ op: "matrix", m: IDENTITY3.map((r) => [...r]) as MatrixStep["m"] })}>Try a colour matrix first</Button>
               )}
+              <RecipeHelp steps={steps} />
               <RenderPanel key={`${still.id}-${space}`} still={still} steps={steps} space={space} />
             </div>
           ) : tab === "solver" ? (

@@ -20,9 +20,14 @@ import {
   type StillColour,
 } from "@/lib/stills/lab-source";
 import { releaseSimdRgb, takeSimdRgb } from "@/lib/lab/simd";
+import { blurExact, exactBlurWith, releaseExactBlurMemory } from "@/lib/lab/gaussian";
 import { megapixels, STILL_PIXEL_LIMIT } from "@/lib/stills/limits";
 import {
-  blurPlane,
+  approxReduction,
+  bilinearUp,
+  blurPlaneApprox,
+  blurSampledSparse,
+  reducedSize,
   copyChannel,
   extractChannel,
   insertChannel,
@@ -30,11 +35,18 @@ import {
   morphPlane,
   rampPlane,
 } from "@/lib/lab/kernels";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
 
 /*
  * The still lab engine: decode with sharp (stored values, ICC ignored), run the recipe in
- * float32 on reused buffers with no clipping between steps, quantise once at encoding.
- * LAB-NOTES.md explains why per-pixel work is JS loops rather than libvips operations.
+ * float32 on reused buffers with no clipping between steps (the matte and flatten's weights in
+ * float64), quantise once at encoding. LAB-NOTES.md explains why per-pixel work is JS loops and
+ * WebAssembly rather than libvips operations.
+ *
+ * Exact renders (full resolution) blur with the exact Gaussian of lib/lab/gaussian.ts; proxy
+ * renders (resized) with the fast approximation of kernels.ts, and say so (`approximate`).
+ * Every step's result stays finite: a step whose values could have left the float range is
+ * checked, and one that did fails the run with LabOverflowError naming it.
  */
 
 /** Decoded stored codes, always RGB interleaved. */
@@ -43,7 +55,7 @@ export type StillCodes = { width: number; height: number; bits: 8 | 16; codes: U
 /** A read-only image the steps refer to: stored codes through a LUT, or plain floats (tests). */
 export type PixelSource =
   | { kind: "codes"; codes: Uint8Array | Uint16Array; lut: Float32Array }
-  | { kind: "float"; data: Float32Array; codes8?: Uint8Array };
+  | { kind: "float"; data: Float32Array; codes8?: Uint8Array; /** Largest |value| of data, when known. */ maxAbs?: number };
 
 export type LabState = {
   width: number;
@@ -54,10 +66,15 @@ export type LabState = {
   base: PixelSource;
   /** The plate as shot (with grain). */
   plate: PixelSource;
-  matte: Float32Array | null;
+  /** The matte in float64: 1 − m keeps its digits where m is near 1 (flatten's weights). */
+  matte: Float64Array | null;
   /** Full-resolution pixels per working pixel (rects in steps are in full-res pixels). */
   scale: number;
+  /** Full resolution: blurs are the exact Gaussian (else the proxy's approximation). */
+  exact: boolean;
   scratch: Float32Array[];
+  /** Upper bounds of |value| in cur, base and plate, to know when a step needs an overflow check. */
+  bound: { cur: number; base: number; plate: number };
   /**
    * Set when the last step run was a mix + grain over a float plate that carries its 8-bit codes:
    * per row y the pixels [spans[2y], spans[2y+1]) (indices in the frame) outside which the result is the plate itself,
@@ -77,6 +94,14 @@ export class LabInputError extends Error {
   constructor(message: string, readonly stepIndex?: number) {
     super(message);
     this.name = "LabInputError";
+  }
+}
+
+/** A step's result left the float range (an infinite or not-a-number value): the run fails. */
+export class LabOverflowError extends Error {
+  constructor(readonly stepIndex: number, readonly op: RecipeStep["op"]) {
+    super(`this ${op} step's result left the floating-point range (a value became infinite or not a number); lower its gains`);
+    this.name = "LabOverflowError";
   }
 }
 
@@ -147,6 +172,27 @@ export function codesSource(still: StillCodes, space: LabSpace): PixelSource {
   return { kind: "codes", codes: still.codes, lut: codeLut(still.bits, space === "linear") };
 }
 
+/** Largest |value| in an array; a non-finite value is refused (a still must hold numbers). */
+function maxAbsOf(values: Float32Array): number {
+  let m = 0;
+  for (let i = 0; i < values.length; i++) {
+    const a = Math.abs(values[i]!);
+    if (!(a <= FLOAT32_MAX)) throw new LabInputError("the still holds values that are not finite numbers");
+    if (a > m) m = a;
+  }
+  return m;
+}
+
+const lutBounds = new WeakMap<Float32Array, number>();
+
+/** Largest |value| a source holds (a table's is computed once; a float source's kept with it). */
+function sourceBound(src: PixelSource): number {
+  if (src.kind === "float") return (src.maxAbs ??= maxAbsOf(src.data));
+  let m = lutBounds.get(src.lut);
+  if (m === undefined) lutBounds.set(src.lut, (m = maxAbsOf(src.lut)));
+  return m;
+}
+
 export function createLabState(opts: { width: number; height: number; plate: PixelSource; base?: PixelSource; scale?: number }): LabState {
   const { width, height, plate } = opts;
   const base = opts.base ?? plate;
@@ -156,33 +202,91 @@ export function createLabState(opts: { width: number; height: number; plate: Pix
     const { codes, lut } = base;
     for (let i = 0; i < cur.length; i++) cur[i] = lut[codes[i]!]!;
   }
-  return { width, height, cur, base, plate, matte: null, scale: opts.scale ?? 1, scratch: [] };
+  const scale = opts.scale ?? 1;
+  const baseBound = sourceBound(base);
+  const bound = { cur: baseBound, base: baseBound, plate: base === plate ? baseBound : sourceBound(plate) };
+  return { width, height, cur, base, plate, matte: null, scale, exact: scale === 1, scratch: [], bound };
 }
 
 /*
  * Planes (matte, scratch) are pooled like the RGB buffers: two fresh 2 MB planes per proxy render
  * are ~4 ms of page faults and collector work. Every user overwrites the whole plane first.
  */
-const PLANE_POOL_BYTES = 64 * 1024 * 1024;
-const idlePlanes: Float32Array[] = [];
+const PLANE_POOL_BYTES = MEMORY_BUDGET.labPlanePool;
+const idlePlanes: (Float32Array | Float64Array)[] = [];
 
 function takePlane(n: number): Float32Array {
-  const i = idlePlanes.findIndex((a) => a.length === n);
-  return i >= 0 ? idlePlanes.splice(i, 1)[0]! : new Float32Array(n);
+  const i = idlePlanes.findIndex((a) => a.length === n && a instanceof Float32Array);
+  return i >= 0 ? (idlePlanes.splice(i, 1)[0] as Float32Array) : new Float32Array(n);
+}
+
+function takePlane64(n: number): Float64Array {
+  const i = idlePlanes.findIndex((a) => a.length === n && a instanceof Float64Array);
+  return i >= 0 ? (idlePlanes.splice(i, 1)[0] as Float64Array) : new Float64Array(n);
+}
+
+function poolPlanes(planes: (Float32Array | Float64Array)[]): void {
+  for (const a of planes) if (!idlePlanes.includes(a)) idlePlanes.push(a);
+  let bytes = idlePlanes.reduce((t, a) => t + a.byteLength, 0);
+  while (bytes > PLANE_POOL_BYTES && idlePlanes.length) bytes -= idlePlanes.shift()!.byteLength;
 }
 
 /** Gives the state's matte and scratch planes back to the pool; the state must not use them again. */
 function releasePlanes(state: LabState): void {
-  for (const a of [...state.scratch, ...(state.matte ? [state.matte] : [])]) if (!idlePlanes.includes(a)) idlePlanes.push(a);
+  poolPlanes([...state.scratch, ...(state.matte ? [state.matte] : [])]);
   state.scratch = [];
   state.matte = null;
-  let bytes = idlePlanes.reduce((t, a) => t + a.byteLength, 0);
-  while (bytes > PLANE_POOL_BYTES && idlePlanes.length) bytes -= idlePlanes.shift()!.byteLength;
 }
 
 function scratch(state: LabState, i: number): Float32Array {
   while (state.scratch.length <= i) state.scratch.push(takePlane(state.width * state.height));
   return state.scratch[i]!;
+}
+
+// ---------------------------------------------------------------------------------------
+// Overflow: float32 holds magnitudes up to ~3.4e38. Each step's effect on the largest |value| is
+// bounded from its parameters; only when that bound passes SCAN_ABOVE is the working image read
+// to find the true largest value, and an infinite or not-a-number value fails the run.
+
+const FLOAT32_MAX = 3.4028234663852886e38;
+const SCAN_ABOVE = 1e30;
+
+function maxAbsChecked(cur: Float32Array, index: number, op: RecipeStep["op"]): number {
+  let m = 0;
+  for (let i = 0; i < cur.length; i++) {
+    const a = Math.abs(cur[i]!);
+    if (!(a <= FLOAT32_MAX)) throw new LabOverflowError(index, op);
+    if (a > m) m = a;
+  }
+  return m;
+}
+
+/** The bound on |cur| after `step` ran (its report in hand); a scan where the bound says it could have overflowed. */
+function updateBound(state: LabState, step: RecipeStep, report: StepReport): void {
+  const b = state.bound;
+  let next = b.cur;
+  switch (step.op) {
+    case "matrix": {
+      const rowSum = Math.max(...step.m.map((row) => Math.abs(row[0]) + Math.abs(row[1]) + Math.abs(row[2])));
+      next = rowSum * b.cur + Math.max(...(step.offset ?? [0, 0, 0]).map(Math.abs));
+      break;
+    }
+    case "level":
+      if (report.op === "level") next = Math.abs(report.gain) * b.cur + Math.abs(report.offset);
+      if (!Number.isFinite(next)) next = Infinity;
+      break;
+    case "mix":
+      next = Math.max(b.cur, b.base); // matte in 0..1: a blend of the two
+      break;
+    case "grain":
+      next = b.cur + b.base + b.plate; // mix + grain fused: m·(cur − base) + plate
+      break;
+    case "flatten":
+      break; // divides by a screen estimate: flattenStep checks every value it writes and sets the bound
+    default:
+      break; // copy, matte, grow, soften: no value leaves the range it had
+  }
+  b.cur = next > SCAN_ABOVE ? maxAbsChecked(state.cur, report.index, step.op) : next;
 }
 
 /**
@@ -257,7 +361,7 @@ function levelFit(state: LabState, step: Extract<RecipeStep, { op: "level" }>, i
 
 function matteStep(state: LabState, step: Extract<RecipeStep, { op: "matte" }>, index: number): StepReport {
   const n = state.width * state.height;
-  const matte = state.matte ?? takePlane(n);
+  const matte = state.matte ?? takePlane64(n);
   const w = typeof step.channel === "string"
     ? ([0, 0, 0].map((_, i) => (i === CHANNEL_INDEX[step.channel as "r"] ? 1 : 0)) as number[])
     : step.channel;
@@ -393,7 +497,7 @@ function mixGrainStep(state: LabState, invert: boolean, final = false): boolean 
  * mixGrainStep over working-space floats (cached proxies): the same arithmetic, no table. Where
  * a row's matte is 0 the plate is copied as a block (a marker matte is ~1 % of the frame).
  */
-function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number,
+function mixGrainFloat(cur: Float32Array, matte: Float64Array, pd: Float32Array, bd: Float32Array, invert: boolean, width: number,
   skipPlate: boolean): Int32Array | null {
   if (!invert) {
     const height = matte.length / width;
@@ -427,7 +531,7 @@ function mixGrainFloat(cur: Float32Array, matte: Float32Array, pd: Float32Array,
   return null;
 }
 
-function mixGrainRange(cur: Float32Array, matte: Float32Array, pd: Float32Array, bd: Float32Array, p0: number, p1: number): void {
+function mixGrainRange(cur: Float32Array, matte: Float64Array, pd: Float32Array, bd: Float32Array, p0: number, p1: number): void {
   for (let p = p0, i = 3 * p0; p < p1; p++, i += 3) {
     const m = matte[p]!;
     if (m === 0) {
@@ -474,34 +578,185 @@ export function applyStepsAt(state: LabState, steps: readonly RecipeStep[], i: n
   return [applyStep(state, step, i)];
 }
 
+/**
+ * Below this share of the kernel's weight on clean screen within reach, a pixel's local screen
+ * estimate is topped up with the frame's mean screen colour (see flattenStep).
+ */
+export const FLATTEN_MIN_SCREEN = 0.01;
+
+/*
+ * flatten: divide the image by a smooth estimate of the screen and multiply by the target colour
+ * (Knutsson & Westin's normalized convolution, CVPR 1993). With w the screen weight of each pixel
+ * (outside the matte: 1 − m; inside: m; everywhere: 1; m clamped to 0..1, in float64) and G the
+ * Gaussian of the step's sigma:
+ *   D = G(w), N_c = G(value_c · w)                       (float64 blurs)
+ *   estimate_c = N_c / D                        where D ≥ τ = FLATTEN_MIN_SCREEN
+ *              = (N_c + (τ − D) · mean_c) / τ   where D < τ ("thin": too little screen within reach)
+ *   mean_c = Σ value_c · w / Σ w over the whole frame
+ *   value_c ← value_c / estimate_c · target_c, left as it is where estimate_c ≤ 0
+ * The fill is continuous at D = τ, so no pixel jumps between "estimated" and "filled"; a pixel
+ * with no screen at all within reach takes the frame's mean screen colour.
+ */
 function flattenStep(state: LabState, step: Extract<RecipeStep, { op: "flatten" }>, index: number): StepReport {
   const { cur, width, height } = state;
   const n = width * height;
-  const w = scratch(state, 0), den = scratch(state, 1), num = scratch(state, 2), tmp = scratch(state, 3);
   const matte = state.matte;
-  for (let p = 0; p < n; p++) {
-    let m = matte && step.weight !== "all" ? matte[p]! : 0;
-    m = m < 0 ? 0 : m > 1 ? 1 : m;
-    w[p] = step.weight === "inside" ? m : step.weight === "outside" ? 1 - m : 1;
+  // 0: every pixel is screen; 1: the matte is the screen weight; 2: 1 − matte is.
+  const mode = !matte || step.weight === "all" ? 0 : step.weight === "inside" ? 1 : 2;
+  const reduced = state.exact ? null : approxReduction(step.sigma);
+  if (reduced) return flattenReduced(state, step, index, mode, reduced);
+  const den = takePlane64(n);
+  // w into den first (loops per mode, no call per pixel): the frame's weighted mean, then its blur.
+  if (mode === 0) den.fill(1);
+  else for (let p = 0; p < n; p++) {
+    const v = matte![p]!, m = v < 0 ? 0 : v > 1 ? 1 : v;
+    den[p] = mode === 1 ? m : 1 - m;
   }
-  den.set(w);
-  blurPlane(den, width, height, step.sigma, tmp);
-  let unfilled = 0;
-  for (let p = 0; p < n; p++) if (!(den[p]! > 1e-6)) unfilled++;
-  for (let c = 0; c < 3; c++) {
-    for (let p = 0, i = c; p < n; p++, i += 3) num[p] = cur[i]! * w[p]!;
-    blurPlane(num, width, height, step.sigma, tmp);
-    const target = step.color[c]!;
-    // Knutsson & Westin: screen estimate = blur(plate × w) / blur(w); where no screen was
-    // seen within reach the pixel is left as it is.
-    for (let p = 0, i = c; p < n; p++, i += 3) {
-      const d = den[p]!;
-      if (!(d > 1e-6)) continue;
-      const est = num[p]! / d;
-      if (est !== 0) cur[i] = (cur[i]! / est) * target;
+  let s0 = 0, s1 = 0, s2 = 0, sumW = 0;
+  for (let p = 0, i = 0; p < n; p++, i += 3) {
+    const w = den[p]!;
+    sumW += w;
+    s0 += w * cur[i]!; s1 += w * cur[i + 1]!; s2 += w * cur[i + 2]!;
+  }
+  const mean: [number, number, number] = sumW > 0 ? [s0 / sumW, s1 / sumW, s2 / sumW] : [0, 0, 0];
+  const tau = FLATTEN_MIN_SCREEN;
+  const left = new Uint8Array(n);
+  let thin = 0;
+  // Largest |value| written: the division can leave the float range (checked after the step).
+  let most = state.bound.cur;
+  const blur = (fill: (a: Float32Array | Float64Array) => void, read: (b: Float32Array | Float64Array) => void): void => {
+    if (state.exact) {
+      exactBlurWith(width, height, step.sigma, "f64", fill, read);
+      return;
+    }
+    const plane = takePlane64(n), tmp = takePlane64(n);
+    fill(plane);
+    blurPlaneApprox(plane, width, height, step.sigma, tmp);
+    read(plane);
+    poolPlanes([plane, tmp]);
+  };
+  /** a[p] = value_c · w, w recomputed from the matte as above. */
+  const weighted = (a: Float32Array | Float64Array, c: number): void => {
+    if (mode === 0) for (let p = 0, i = c; p < n; p++, i += 3) a[p] = cur[i]!;
+    else if (mode === 1) for (let p = 0, i = c; p < n; p++, i += 3) {
+      const v = matte![p]!;
+      a[p] = cur[i]! * (v < 0 ? 0 : v > 1 ? 1 : v);
+    } else for (let p = 0, i = c; p < n; p++, i += 3) {
+      const v = matte![p]!;
+      a[p] = cur[i]! * (1 - (v < 0 ? 0 : v > 1 ? 1 : v));
+    }
+  };
+  try {
+    blur((a) => a.set(den), (b) => den.set(b));
+    for (let p = 0; p < n; p++) if (den[p]! < tau) thin++;
+    for (let c = 0; c < 3; c++) {
+      const target = step.color[c]!, g = mean[c]!;
+      blur(
+        (a) => weighted(a, c),
+        (num) => {
+          for (let p = 0, i = c; p < n; p++, i += 3) {
+            // value / estimate · target with estimate = N / D, or (N + (τ − D)·mean) / τ below τ:
+            // as value · target · D' / N', one division.
+            const d = den[p]!, full = d >= tau;
+            const nn = full ? num[p]! : num[p]! + (tau - d) * g;
+            if (nn > 0) {
+              const v = (cur[i] = (cur[i]! * target * (full ? d : tau)) / nn);
+              const a = v < 0 ? -v : v;
+              if (!(a <= most)) {
+                if (!(a <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten"); // infinite or not a number
+                most = a;
+              }
+            } else left[p] = 1;
+          }
+        },
+      );
+    }
+  } finally {
+    poolPlanes([den]);
+  }
+  if (!(most <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten");
+  state.bound.cur = most;
+  let leftAsIs = 0;
+  for (let p = 0; p < n; p++) leftAsIs += left[p]!;
+  return { index, op: "flatten", thin, leftAsIs, screenMean: mean };
+}
+
+/**
+ * flatten on a proxy whose sigma takes the approximate blur's reduced path: the same result as
+ * blurring w and value·w one plane at a time (box reduce, blur small, enlarge bilinearly: all
+ * linear), but the four reductions are one pass over the image and the estimate is interpolated
+ * straight into the division, instead of sixteen full-size passes.
+ */
+function flattenReduced(state: LabState, step: Extract<RecipeStep, { op: "flatten" }>, index: number, mode: number,
+  red: { f: number; smallSigma: number }): StepReport {
+  const { cur, width, height } = state;
+  const matte = state.matte;
+  const { f } = red;
+  const { sw, sh } = reducedSize(width, height, f);
+  const m = sw * sh;
+  const sW = new Float64Array(m), s0 = new Float64Array(m), s1 = new Float64Array(m), s2 = new Float64Array(m);
+  const blockOf = Int32Array.from({ length: width }, (_, x) => Math.floor(x / f));
+  for (let y = 0; y < height; y++) {
+    const row = Math.floor(y / f) * sw;
+    for (let x = 0, p = y * width, i = 3 * p; x < width; x++, p++, i += 3) {
+      let w = 1;
+      if (mode !== 0) {
+        const v = matte![p]!, mm = v < 0 ? 0 : v > 1 ? 1 : v;
+        w = mode === 1 ? mm : 1 - mm;
+      }
+      const b = row + blockOf[x]!;
+      sW[b] = sW[b]! + w; s0[b] = s0[b]! + w * cur[i]!; s1[b] = s1[b]! + w * cur[i + 1]!; s2[b] = s2[b]! + w * cur[i + 2]!;
     }
   }
-  return { index, op: "flatten", unfilled };
+  // The frame's weighted mean screen colour from the block sums, before they become means.
+  let sumW = 0, m0 = 0, m1 = 0, m2 = 0;
+  for (let b = 0; b < m; b++) { sumW += sW[b]!; m0 += s0[b]!; m1 += s1[b]!; m2 += s2[b]!; }
+  const mean: [number, number, number] = sumW > 0 ? [m0 / sumW, m1 / sumW, m2 / sumW] : [0, 0, 0];
+  for (let sy = 0; sy < sh; sy++) for (let sx = 0; sx < sw; sx++) {
+    const area = (Math.min(height, sy * f + f) - sy * f) * (Math.min(width, sx * f + f) - sx * f), b = sy * sw + sx;
+    sW[b] = sW[b]! / area; s0[b] = s0[b]! / area; s1[b] = s1[b]! / area; s2[b] = s2[b]! / area;
+  }
+  const tmp = new Float64Array(m);
+  for (const small of [sW, s0, s1, s2]) blurPlaneApprox(small, sw, sh, red.smallSigma, tmp);
+  // Enlarge bilinearly: each small row pair once per output row, then across the row.
+  const { xi0, xi1, xw, row } = bilinearUp(width, height, f, sw, sh);
+  const rW = new Float64Array(sw), r0 = new Float64Array(sw), r1 = new Float64Array(sw), r2 = new Float64Array(sw);
+  const tau = FLATTEN_MIN_SCREEN, t0 = step.color[0], t1 = step.color[1], t2 = step.color[2];
+  const g0 = mean[0], g1 = mean[1], g2 = mean[2];
+  let thin = 0, leftAsIs = 0, most = state.bound.cur;
+  for (let y = 0; y < height; y++) {
+    const { r0: a, r1: b, wy } = row(y);
+    for (let sx = 0; sx < sw; sx++) {
+      rW[sx] = sW[a + sx]! + (sW[b + sx]! - sW[a + sx]!) * wy;
+      r0[sx] = s0[a + sx]! + (s0[b + sx]! - s0[a + sx]!) * wy;
+      r1[sx] = s1[a + sx]! + (s1[b + sx]! - s1[a + sx]!) * wy;
+      r2[sx] = s2[a + sx]! + (s2[b + sx]! - s2[a + sx]!) * wy;
+    }
+    for (let x = 0, i = 3 * y * width; x < width; x++, i += 3) {
+      const j0 = xi0[x]!, j1 = xi1[x]!, wx = xw[x]!;
+      const d = rW[j0]! + (rW[j1]! - rW[j0]!) * wx;
+      // value / (N / D) · target as value · target · D / N: one division per channel. Below τ the
+      // estimate is (N + (τ − D)·mean) / τ, so D becomes τ and N gains the mean's share.
+      const full = d >= tau;
+      if (!full) thin++;
+      const scale = full ? d : tau, fill = full ? 0 : tau - d;
+      const n0 = r0[j0]! + (r0[j1]! - r0[j0]!) * wx + fill * g0;
+      const n1 = r1[j0]! + (r1[j1]! - r1[j0]!) * wx + fill * g1;
+      const n2 = r2[j0]! + (r2[j1]! - r2[j0]!) * wx + fill * g2;
+      if (n0 > 0) cur[i] = (cur[i]! * t0 * scale) / n0;
+      if (n1 > 0) cur[i + 1] = (cur[i + 1]! * t1 * scale) / n1;
+      if (n2 > 0) cur[i + 2] = (cur[i + 2]! * t2 * scale) / n2;
+      if (!(n0 > 0 && n1 > 0 && n2 > 0)) leftAsIs++;
+      const a0 = Math.abs(cur[i]!), a1 = Math.abs(cur[i + 1]!), a2 = Math.abs(cur[i + 2]!);
+      if (!(a0 <= most && a1 <= most && a2 <= most)) {
+        most = Math.max(a0, a1, a2);
+        if (!(most <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten");
+      }
+    }
+  }
+  if (!(most <= FLOAT32_MAX)) throw new LabOverflowError(index, "flatten");
+  state.bound.cur = most;
+  return { index, op: "flatten", thin, leftAsIs, screenMean: mean };
 }
 
 /** Runs one validated step on the state. */
@@ -526,11 +781,27 @@ export function applyStep(state: LabState, step: RecipeStep, index: number): Ste
       const sigma = step.sigma / state.scale;
       if (step.target === "matte") {
         if (!state.matte) throw new LabInputError(`step ${index}: soften needs a matte`, index);
-        blurPlane(state.matte, width, height, sigma, scratch(state, 0));
+        // A marker matte is mostly zero: the sampled kernel over only its non-zero blocks (exact,
+        // float64 arithmetic) beats the full-frame passes while the radius is small.
+        if (state.exact) {
+          const tmp = takePlane64(width * height);
+          if (!blurSampledSparse(state.matte, width, height, sigma, tmp)) blurExact(state.matte, width, height, sigma);
+          poolPlanes([tmp]);
+        }
+        else {
+          const tmp = takePlane64(width * height);
+          blurPlaneApprox(state.matte, width, height, sigma, tmp);
+          poolPlanes([tmp]);
+        }
+      } else if (state.exact) {
+        const c = CHANNEL_INDEX[step.target], n = width * height;
+        exactBlurWith(width, height, sigma, "f32",
+          (a) => { for (let p = 0, i = c; p < n; p++, i += 3) a[p] = cur[i]!; },
+          (b) => { for (let p = 0, i = c; p < n; p++, i += 3) cur[i] = b[p]!; });
       } else {
         const plane = scratch(state, 1);
         extractChannel(cur, CHANNEL_INDEX[step.target], plane);
-        blurPlane(plane, width, height, sigma, scratch(state, 0));
+        blurPlaneApprox(plane, width, height, sigma, scratch(state, 0));
         insertChannel(cur, CHANNEL_INDEX[step.target], plane);
       }
       return { index, op: "soften" };
@@ -636,6 +907,8 @@ export type DecodedStill = StillCodes & { sourceWidth: number; sourceHeight: num
 export type ProxyStill = {
   width: number; height: number; bits: 8 | 16; sourceWidth: number; sourceHeight: number; space: LabSpace;
   data: Float32Array;
+  /** Largest |value| of data. */
+  maxAbs: number;
   /** `data` quantised for an 8-bit encode (png, webp) in the same space. */
   codes8?: Uint8Array;
 };
@@ -666,12 +939,13 @@ async function decodeCached(bytes: () => Uint8Array | Promise<Uint8Array>, width
   // Only proxies are kept: a full-resolution decode is as large as the render it feeds.
   const k = cache && key && width ? `${key}@${width}:${space}${colour ? `:${colourKey(colour.still, space, colour.working)}` : ""}` : null;
   const hit = k ? cache!.get(k) : undefined;
-  if (hit) return { ...hit, source: { kind: "float", data: hit.data, codes8: hit.codes8 }, spare16: null };
+  if (hit) return { ...hit, source: { kind: "float", data: hit.data, codes8: hit.codes8, maxAbs: hit.maxAbs }, spare16: null };
   if (float) {
     // OpenEXR and colour-converted stills arrive as working-space floats (no 8-bit codes to reuse).
     const f = await decodeLabFloat(await bytes(), width, space, colour.still, colour.working);
-    if (k) cache!.set(k, { ...f, bits: 16, space });
-    return { ...f, bits: 16, source: { kind: "float", data: f.data }, spare16: null };
+    const maxAbs = maxAbsOf(f.data);
+    if (k) cache!.set(k, { ...f, bits: 16, space, maxAbs });
+    return { ...f, bits: 16, source: { kind: "float", data: f.data, maxAbs }, spare16: null };
   }
   const still = await decodeStill(await bytes(), width);
   const { sourceWidth, sourceHeight, bits } = still;
@@ -681,8 +955,9 @@ async function decodeCached(bytes: () => Uint8Array | Promise<Uint8Array>, width
     // need no quantising (a third of a 1024-px render's encode).
     const codes8 = new Uint8Array(data.length);
     quantise(data, codes8, quantiser(8, space === "linear"));
-    cache!.set(k, { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, space, data, codes8 });
-    return { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, source: { kind: "float", data, codes8 }, spare16: null };
+    const maxAbs = maxAbsOf(data);
+    cache!.set(k, { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, space, data, codes8, maxAbs });
+    return { width: still.width, height: still.height, bits, sourceWidth, sourceHeight, source: { kind: "float", data, codes8, maxAbs }, spare16: null };
   }
   return {
     width: still.width, height: still.height, bits, sourceWidth, sourceHeight,
@@ -699,6 +974,8 @@ export type RunRecipeResult = {
   sourceWidth: number;
   sourceHeight: number;
   reports: StepReport[];
+  /** A proxy render: resized, and blurred with the fast approximation, not the exact Gaussian. */
+  approximate: boolean;
   timings: { decodeMs: number; stepsMs: number; encodeMs: number };
 };
 
@@ -746,22 +1023,30 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?:
   const t1 = performance.now();
   const reports: StepReport[] = [];
   let lastYield = t1;
-  for (let i = 0; i < steps.length; ) {
-    onProgress?.({ done: i + 1, total, label: steps[i]!.op });
-    state.tail = null; // only the last step's result may be marked
-    const ran = applyStepsAt(state, steps, i);
-    reports.push(...ran);
-    i += ran.length;
-    checkAbort(signal);
-    // Let the event loop breathe between steps so timeouts and other requests get a turn — once
-    // some milliseconds of work have gone by, not after every ~1 ms step of a proxy render.
-    if (performance.now() - lastYield >= YIELD_AFTER_MS) {
-      await new Promise<void>((resolve) => setImmediate(resolve));
-      lastYield = performance.now();
+  try {
+    for (let i = 0; i < steps.length; ) {
+      onProgress?.({ done: i + 1, total, label: steps[i]!.op });
+      state.tail = null; // only the last step's result may be marked
+      const ran = applyStepsAt(state, steps, i);
+      for (const r of ran) updateBound(state, steps[r.index]!, r);
+      reports.push(...ran);
+      i += ran.length;
+      checkAbort(signal);
+      // Let the event loop breathe between steps so timeouts and other requests get a turn — once
+      // some milliseconds of work have gone by, not after every ~1 ms step of a proxy render.
+      if (performance.now() - lastYield >= YIELD_AFTER_MS) {
+        await new Promise<void>((resolve) => setImmediate(resolve));
+        lastYield = performance.now();
+      }
     }
+  } catch (error) {
+    releaseSimdRgb(state.cur);
+    throw error;
+  } finally {
+    releasePlanes(state);
+    releaseExactBlurMemory();
   }
   const t2 = performance.now();
-  releasePlanes(state);
   return { state, plateCodes, reports, decodeMs: t1 - t0, stepsMs: t2 - t1 };
 }
 
@@ -803,6 +1088,7 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
     sourceWidth: plateCodes.sourceWidth,
     sourceHeight: plateCodes.sourceHeight,
     reports,
+    approximate: !state.exact,
     timings: { decodeMs, stepsMs, encodeMs: t3 - t2 },
   };
 }
@@ -815,6 +1101,7 @@ export type FloatRunResult = {
   reports: StepReport[];
   sourceWidth: number;
   sourceHeight: number;
+  approximate: boolean;
 };
 
 /** As runRecipe, but answers the float result instead of encoded bytes (for plots and samples). */
@@ -834,11 +1121,6 @@ export async function runRecipeToFloat(opts: Omit<RunRecipeOptions, "format"> & 
     reports,
     sourceWidth: plateCodes.sourceWidth,
     sourceHeight: plateCodes.sourceHeight,
+    approximate: !state.exact,
   };
-}
-
-/** A still as interleaved RGB floats in the lab's working space (for plots and sample boxes). */
-export async function decodeStillFloat(bytes: Uint8Array, space: LabSpace, width?: number): Promise<{ width: number; height: number; data: Float32Array }> {
-  const still = await decodeStill(bytes, width);
-  return { width: still.width, height: still.height, data: toFloats(still, space) };
 }

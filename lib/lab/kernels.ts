@@ -1,10 +1,17 @@
 /*
- * Pixel kernels of the still lab: tight loops over Float32Array buffers. No sharp here, so the
+ * Pixel kernels of the still lab: tight loops over typed-array planes. No sharp here, so the
  * tests can check each kernel against a reference on its own. Interleaved RGB for images,
  * single planes (width × height) for mattes and single channels.
  */
 
+import { gaussianHalfKernel } from "@/lib/lab/gaussian";
 import { matrixSimd } from "@/lib/lab/simd";
+
+/** A single plane: float32 for image channels, float64 for mattes and flatten weights. */
+export type Plane = Float32Array | Float64Array;
+
+/** A zeroed plane of the same element type as `p`. */
+const like = (p: Plane, n: number): Plane => (p instanceof Float64Array ? new Float64Array(n) : new Float32Array(n));
 
 /** out = M · rgb + offset per pixel, in place. Rows equal to the identity with no offset are skipped. */
 export function matrixInPlace(a: Float32Array, m: readonly (readonly number[])[], offset?: readonly number[]): void {
@@ -52,7 +59,7 @@ export function insertChannel(a: Float32Array, c: number, plane: Float32Array): 
 }
 
 /** Linear ramp black → 0, white → 1, clamped: a matte lives in 0..1. */
-export function rampPlane(v: Float32Array, black: number, white: number): void {
+export function rampPlane(v: Plane, black: number, white: number): void {
   const n = v.length;
   if (white === black) {
     for (let i = 0; i < n; i++) v[i] = v[i]! >= white ? 1 : 0;
@@ -70,8 +77,8 @@ export function rampPlane(v: Float32Array, black: number, white: number): void {
 // van Herk / Gil–Werman running max (3 compares per pixel whatever r). Outside the frame
 // counts as absent (−∞ for dilation, +∞ for erosion), as in the running min/max definition.
 
-function vanHerkRow(src: Float32Array, srcOff: number, stride: number, len: number, r: number, isMax: boolean,
-  pad: Float32Array, g: Float32Array, h: Float32Array, dst: Float32Array): void {
+function vanHerkRow(src: Plane, srcOff: number, stride: number, len: number, r: number, isMax: boolean,
+  pad: Plane, g: Plane, h: Plane, dst: Plane): void {
   const k = 2 * r + 1;
   const fill = isMax ? -Infinity : Infinity;
   const L = Math.ceil((len + 2 * r) / k) * k;
@@ -106,7 +113,7 @@ function vanHerkRow(src: Float32Array, srcOff: number, stride: number, len: numb
  * an output row whose whole window of input rows is zero is zero: such rows are skipped. This
  * is exact for any plane, not only mattes.
  */
-function zeroRowPrefix(plane: Float32Array, width: number, height: number): Int32Array {
+function zeroRowPrefix(plane: Plane, width: number, height: number): Int32Array {
   // prefix[y] = number of non-zero rows among rows 0..y-1
   const prefix = new Int32Array(height + 1);
   for (let y = 0; y < height; y++) {
@@ -129,17 +136,18 @@ const windowIsZero = (prefix: Int32Array, y0: number, y1: number, height: number
  */
 type Blocks = { bw: number; masks: Int32Array; prefix: Int32Array };
 
-function rowBlocks(plane: Float32Array, width: number, height: number): Blocks {
+function rowBlocks(plane: Plane, width: number, height: number): Blocks {
   const bw = Math.ceil(width / 32);
   const masks = new Int32Array(height), prefix = new Int32Array(height + 1);
   // OR of the bits, no branch per value (−0 counts as non-zero: only more work, never wrong).
-  const bits = new Int32Array(plane.buffer, plane.byteOffset, plane.length);
+  const words = plane.BYTES_PER_ELEMENT >> 2;
+  const bits = new Int32Array(plane.buffer, plane.byteOffset, plane.length * words);
   for (let y = 0; y < height; y++) {
     const o = y * width;
     let m = 0;
     for (let b = 0, x0 = 0; x0 < width; b++, x0 += bw) {
       let any = 0;
-      for (let x = o + x0, e = o + Math.min(width, x0 + bw); x < e; x++) any |= bits[x]!;
+      for (let x = (o + x0) * words, e = (o + Math.min(width, x0 + bw)) * words; x < e; x++) any |= bits[x]!;
       if (any !== 0) m |= 1 << b;
     }
     masks[y] = m;
@@ -182,12 +190,12 @@ function forRuns(mask: number, bw: number, width: number, fn: (xa: number, xb: n
 // Below this radius a plain running max over 2r+1 values is cheaper than van Herk's bookkeeping.
 const DIRECT_MORPH_RADIUS = 3;
 
-function directMorph(plane: Float32Array, width: number, height: number, r: number, isMax: boolean): void {
+function directMorph(plane: Plane, width: number, height: number, r: number, isMax: boolean): void {
   const fill = isMax ? -Infinity : Infinity;
   const blocks = rowBlocks(plane, width, height);
   const hb = growBlocks(blocks, width, r);
   const { prefix } = blocks;
-  const row = new Float32Array(width + 2 * r).fill(fill);
+  const row = like(plane, width + 2 * r).fill(fill);
   let o = 0;
   const horizontal = isMax
     ? (xa: number, xb: number): void => {
@@ -211,8 +219,8 @@ function directMorph(plane: Float32Array, width: number, height: number, r: numb
     forRuns(hb.masks[y]!, hb.bw, width, horizontal);
   }
   // Vertical: keep the last r+1 source rows in a ring so the pass can write in place.
-  const ring = new Float32Array((2 * r + 1) * width);
-  const acc = new Float32Array(width);
+  const ring = like(plane, (2 * r + 1) * width);
+  const acc = like(plane, width);
   const slot = (y: number): number => (y % (2 * r + 1)) * width;
   for (let y = 0; y < Math.min(r, height); y++) ring.set(plane.subarray(y * width, y * width + width), slot(y));
   let y0 = 0, y1 = 0;
@@ -241,7 +249,7 @@ function directMorph(plane: Float32Array, width: number, height: number, r: numb
  * Grows (px > 0, dilation) or shrinks (px < 0, erosion) a plane in place by a square of side 2|px|+1.
  * The vertical pass runs over whole rows at once (van Herk on row vectors) so memory is read in order.
  */
-export function morphPlane(plane: Float32Array, width: number, height: number, px: number): void {
+export function morphPlane(plane: Plane, width: number, height: number, px: number): void {
   const r = Math.abs(px);
   if (r === 0) return;
   const isMax = px > 0;
@@ -251,14 +259,14 @@ export function morphPlane(plane: Float32Array, width: number, height: number, p
   }
   const k = 2 * r + 1;
   const maxLen = Math.max(width, height) + 2 * r + k;
-  const pad = new Float32Array(maxLen), g = new Float32Array(maxLen), h = new Float32Array(maxLen);
+  const pad = like(plane, maxLen), g = like(plane, maxLen), h = like(plane, maxLen);
   const prefix = zeroRowPrefix(plane, width, height);
   for (let y = 0; y < height; y++) if (prefix[y + 1] !== prefix[y]) vanHerkRow(plane, y * width, 1, width, r, isMax, pad, g, h, plane);
 
   // Vertical: padded row index p = y + r; blocks of k rows; g/h hold one row per padded row.
   const fill = isMax ? -Infinity : Infinity;
   const P = Math.ceil((height + 2 * r) / k) * k;
-  const G = new Float32Array(P * width), H = new Float32Array(P * width);
+  const G = like(plane, P * width), H = like(plane, P * width);
   const rowOf = (p: number): number => p - r; // image row, or out of range for pads
   for (let b = 0; b < P; b += k) {
     for (let p = b; p < b + k; p++) {
@@ -288,24 +296,16 @@ export function morphPlane(plane: Float32Array, width: number, height: number, p
 }
 
 // ---------------------------------------------------------------------------------------
-// Gaussian blur of a plane, edges extended by copying the border pixel (as libvips does).
-// Up to FIR_MAX_RADIUS: an exact sampled kernel truncated where it falls below 1/1000 of its
-// peak (libvips' min_ampl 0.001). Beyond: box-reduce by f, blur the small plane, bilinear
-// back up — O(1) per full-size pixel; tolerance stated in the tests.
+// The proxy renders' Gaussian: APPROXIMATE, for quick previews only (exact renders use
+// lib/lab/gaussian.ts). Up to FIR_MAX_RADIUS it is the sampled kernel of gaussian.ts (cut at
+// round(4σ), edge pixels repeated), computed only where the plane is non-zero; beyond, the plane
+// is box-reduced by f, blurred small and enlarged bilinearly — O(1) per full-size pixel, within
+// ~1e-3 of the exact result on unit-contrast edges (tested) but not the Gaussian.
 
 export const FIR_MAX_RADIUS = 12;
 
-export function gaussianKernel(sigma: number): Float64Array {
-  const r = Math.max(1, Math.floor(sigma * Math.sqrt(-2 * Math.log(0.001))));
-  const k = new Float64Array(2 * r + 1);
-  let s = 0;
-  for (let i = -r; i <= r; i++) { const v = Math.exp(-(i * i) / (2 * sigma * sigma)); k[i + r] = v; s += v; }
-  for (let i = 0; i < k.length; i++) k[i] = k[i]! / s;
-  return k;
-}
-
-type HPass = (plane: Float32Array, tmp: Float32Array, row: Float32Array, o: number, width: number, xa: number, xb: number, k: Float64Array) => void;
-type VPass = (plane: Float32Array, tmp: Float32Array, offs: Int32Array, o: number, xa: number, xb: number, k: Float64Array) => void;
+type HPass = (plane: Plane, tmp: Plane, row: Plane, o: number, width: number, xa: number, xb: number, k: Float64Array) => void;
+type VPass = (plane: Plane, tmp: Plane, offs: Int32Array, o: number, xa: number, xb: number, k: Float64Array) => void;
 const firCache = new Map<number, { h: HPass; v: VPass }>();
 
 /*
@@ -317,7 +317,7 @@ const firCache = new Map<number, { h: HPass; v: VPass }>();
 function firPasses(r: number): { h: HPass; v: VPass } {
   const hit = firCache.get(r);
   if (hit) return hit;
-  const weights = Array.from({ length: r + 1 }, (_, t) => `k${t} = k[${r + t}]`).join(", ");
+  const weights = Array.from({ length: r + 1 }, (_, t) => `k${t} = k[${t}]`).join(", ");
   let hs = `k0 * row[x + ${r}]`;
   for (let t = 1; t <= r; t++) hs += ` + k${t} * (row[x + ${r - t}] + row[x + ${r + t}])`;
   // Columns [xa, xb) of the row at o, through a padded copy of the row (edges repeated).
@@ -339,13 +339,12 @@ function firPasses(r: number): { h: HPass; v: VPass } {
   return passes;
 }
 
-function firBlur(plane: Float32Array, width: number, height: number, sigma: number, tmp: Float32Array): void {
-  const k = gaussianKernel(sigma);
-  const r = (k.length - 1) >> 1;
+function firBlur(plane: Plane, width: number, height: number, k: Float64Array, tmp: Plane): void {
+  const r = k.length - 1;
   const { h, v } = firPasses(r);
   const blocks = rowBlocks(plane, width, height);
   const hb = growBlocks(blocks, width, r);
-  const row = new Float32Array(width + 2 * r);
+  const row = like(plane, width + 2 * r);
   for (let y = 0; y < height; y++) {
     const o = y * width;
     if (hb.masks[y] === 0) { tmp.fill(0, o, o + width); continue; }
@@ -372,18 +371,71 @@ function firBlur(plane: Float32Array, width: number, height: number, sigma: numb
   }
 }
 
-/** Gaussian blur of a plane in place; `tmp` is a scratch plane of the same size. */
-export function blurPlane(plane: Float32Array, width: number, height: number, sigma: number, tmp: Float32Array): void {
-  const r = Math.floor(sigma * Math.sqrt(-2 * Math.log(0.001)));
-  if (r <= FIR_MAX_RADIUS) {
-    firBlur(plane, width, height, sigma, tmp);
+/** Above this share of a plane's column blocks (grown by the radius) the sparse path stops paying. */
+const SPARSE_MAX_SHARE = 0.25;
+
+/**
+ * The exact sampled Gaussian of gaussian.ts (same kernel, edges repeated), computed only over the
+ * column blocks and rows that hold non-zero values grown by the radius — for mostly-zero planes
+ * such as marker mattes, with R ≤ FIR_MAX_RADIUS. Answers false (plane untouched) when the plane
+ * is not sparse enough or the radius too large; the caller then runs the full-frame passes.
+ */
+export function blurSampledSparse(plane: Plane, width: number, height: number, sigma: number, tmp: Plane): boolean {
+  const k = gaussianHalfKernel(sigma);
+  const r = k.length - 1;
+  if (r === 0) return true;
+  if (r > FIR_MAX_RADIUS) return false;
+  const hb = growBlocks(rowBlocks(plane, width, height), width, r);
+  let marked = 0;
+  for (let y = 0; y < height; y++) {
+    let m = hb.masks[y]!;
+    while (m !== 0) { m &= m - 1; marked++; }
+  }
+  // Rows within r of a marked row are computed too.
+  if ((marked * (2 * r + 1)) / (32 * height) > SPARSE_MAX_SHARE) return false;
+  firBlur(plane, width, height, k, tmp);
+  return true;
+}
+
+/**
+ * Approximate Gaussian blur of a plane in place (proxy renders); `tmp` is a scratch plane of the
+ * same size and type.
+ */
+export function blurPlaneApprox(plane: Plane, width: number, height: number, sigma: number, tmp: Plane): void {
+  const k = gaussianHalfKernel(sigma);
+  if (k.length - 1 <= FIR_MAX_RADIUS) {
+    if (k.length > 1) firBlur(plane, width, height, k, tmp);
     return;
   }
-  // Reduce by f so the small blur stays within the FIR range; the box (variance (f²−1)/12)
-  // and the bilinear enlargement (about (f²−1)/6) are taken out of the small blur's sigma.
-  const f = Math.max(2, Math.ceil(sigma / 4));
-  const sw = Math.ceil(width / f), sh = Math.ceil(height / f);
-  const small = new Float32Array(sw * sh);
+  const red = approxReduction(sigma)!;
+  const { sw, sh } = reducedSize(width, height, red.f);
+  const small = like(plane, sw * sh);
+  boxReduce(plane, width, height, red.f, small);
+  blurPlaneApprox(small, sw, sh, red.smallSigma, like(plane, sw * sh));
+  const up = bilinearUp(width, height, red.f, sw, sh);
+  for (let y = 0; y < height; y++) {
+    const { r0, r1, wy } = up.row(y), o = y * width;
+    for (let x = 0; x < width; x++) plane[o + x] = up.at(small, r0, r1, wy, x);
+  }
+}
+
+/**
+ * The proxy blur's reduced path, for a sigma beyond the FIR range (else null): reduce by f so the
+ * small blur stays within the FIR range; the box (variance (f²−1)/12) and the bilinear enlargement
+ * (about (f²−1)/6) are taken out of the small blur's sigma.
+ */
+export function approxReduction(sigma: number): { f: number; smallSigma: number } | null {
+  if (gaussianHalfKernel(sigma).length - 1 <= FIR_MAX_RADIUS) return null;
+  const f = Math.max(2, Math.ceil(sigma / 3));
+  const residual = sigma * sigma - (f * f - 1) / 12 - (f * f - 1) / 6;
+  return { f, smallSigma: Math.max(0.5, Math.sqrt(Math.max(residual, 0)) / f) };
+}
+
+export const reducedSize = (width: number, height: number, f: number) => ({ sw: Math.ceil(width / f), sh: Math.ceil(height / f) });
+
+/** Mean of each f × f block (the last row and column of blocks may be smaller). */
+export function boxReduce(plane: Plane, width: number, height: number, f: number, small: Plane): void {
+  const { sw, sh } = reducedSize(width, height, f);
   for (let sy = 0; sy < sh; sy++) {
     const y0 = sy * f, y1 = Math.min(height, y0 + f);
     for (let sx = 0; sx < sw; sx++) {
@@ -393,28 +445,30 @@ export function blurPlane(plane: Float32Array, width: number, height: number, si
       small[sy * sw + sx] = s / ((y1 - y0) * (x1 - x0));
     }
   }
-  const residual = sigma * sigma - (f * f - 1) / 12 - (f * f - 1) / 6;
-  const ss = Math.max(0.5, Math.sqrt(Math.max(residual, 0)) / f);
-  blurPlane(small, sw, sh, ss, new Float32Array(sw * sh));
-  // Bilinear back to full size; small pixel i is centred at full coordinate (i + 0.5)·f − 0.5.
-  const xi0 = new Int32Array(width), xi1 = new Int32Array(width), xw = new Float32Array(width);
+}
+
+/** Bilinear enlargement of a reduced plane: small pixel i is centred at full coordinate (i + 0.5)·f − 0.5. */
+export function bilinearUp(width: number, height: number, f: number, sw: number, sh: number) {
+  const xi0 = new Int32Array(width), xi1 = new Int32Array(width), xw = new Float64Array(width);
   for (let x = 0; x < width; x++) {
     let u = (x + 0.5) / f - 0.5;
     u = u < 0 ? 0 : u > sw - 1 ? sw - 1 : u;
     const i = Math.floor(u);
     xi0[x] = i; xi1[x] = Math.min(sw - 1, i + 1); xw[x] = u - i;
   }
-  void tmp;
-  for (let y = 0; y < height; y++) {
-    let v = (y + 0.5) / f - 0.5;
-    v = v < 0 ? 0 : v > sh - 1 ? sh - 1 : v;
-    const j = Math.floor(v), j1 = Math.min(sh - 1, j + 1), wy = v - j;
-    const r0 = j * sw, r1 = j1 * sw, o = y * width;
-    for (let x = 0; x < width; x++) {
+  return {
+    xi0, xi1, xw,
+    row(y: number): { r0: number; r1: number; wy: number } {
+      let v = (y + 0.5) / f - 0.5;
+      v = v < 0 ? 0 : v > sh - 1 ? sh - 1 : v;
+      const j = Math.floor(v);
+      return { r0: j * sw, r1: Math.min(sh - 1, j + 1) * sw, wy: v - j };
+    },
+    at(small: Plane, r0: number, r1: number, wy: number, x: number): number {
       const a = small[r0 + xi0[x]!]!, b = small[r0 + xi1[x]!]!, c = small[r1 + xi0[x]!]!, d = small[r1 + xi1[x]!]!;
       const wx = xw[x]!;
       const top = a + (b - a) * wx, bot = c + (d - c) * wx;
-      plane[o + x] = top + (bot - top) * wy;
-    }
-  }
+      return top + (bot - top) * wy;
+    },
+  };
 }

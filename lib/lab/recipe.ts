@@ -46,7 +46,10 @@ export const levelStepSchema = z.object({
   op: z.literal("level"),
   /** Channel of the working image that gets the fitted gain (and offset). */
   channel: channelSchema,
-  /** Channel of the original plate it must match. */
+  /**
+   * Channel of the plate the recipe cleans that it must match: the denoised still when the recipe
+   * restores grain (the steps before the grain step all run on it), else the plate.
+   */
   ref: channelSchema,
   fit: z.enum(["gain", "gain+offset"]).default("gain+offset"),
   /** Fit over this rectangle; whole frame when absent. */
@@ -57,7 +60,7 @@ export const matteStepSchema = z.object({
   op: z.literal("matte"),
   /** A channel name, or a row of weights applied to R, G, B (e.g. the solver's matte row). */
   channel: z.union([channelSchema, vec3Schema]),
-  /** "current": the working image; "plate": the original (denoised, if the recipe regrains). */
+  /** "current": the working image; "plate": the plate the recipe cleans (the denoised still, if it restores grain). */
   source: z.enum(["current", "plate"]).default("current"),
   black: finite.refine((v) => Math.abs(v) <= 100, { message: "must be between -100 and 100" }),
   white: finite.refine((v) => Math.abs(v) <= 100, { message: "must be between -100 and 100" }),
@@ -196,7 +199,12 @@ export type LabSolveResponse = {
 export type StepReport =
   | { index: number; op: "level"; gain: number; offset: number; residual: number; samples: number }
   | { index: number; op: "matte"; coverage: number }
-  | { index: number; op: "flatten"; unfilled: number }
+  /**
+   * thin: pixels with less than 1 % of the kernel's weight on clean screen within reach (their
+   * estimate topped up with the frame's mean screen colour); leftAsIs: pixels with a channel whose
+   * screen estimate was not positive (left unchanged); screenMean: that mean colour.
+   */
+  | { index: number; op: "flatten"; thin: number; leftAsIs: number; screenMean: [number, number, number] }
   | { index: number; op: Exclude<RecipeOp, "level" | "matte" | "flatten"> };
 
 export const IDENTITY3: [[number, number, number], [number, number, number], [number, number, number]] = [

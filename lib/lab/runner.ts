@@ -2,35 +2,24 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { mkdir, readFile, rename, writeFile } from "node:fs/promises";
 import path from "node:path";
+import { LRUCache } from "lru-cache";
 import { canonicalJson, type LabRunRequest, type StepReport } from "@/lib/lab/recipe";
 import { LabAbortedError, runRecipe, type DecodeCache, type ProxyStill, type DenoisedLoader, type LabProgress } from "@/lib/lab/engine";
 import type { LabColour } from "@/lib/stills/lab-source";
+import { createLabLimiter, labLimiter, LabTimeoutError, type LabLimiter } from "@/lib/lab/limiter";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
+
+export { LabBusyError, LabTimeoutError } from "@/lib/lab/limiter";
 
 /*
  * Runs lab recipes with a result cache (memory LRU with a byte cap, then an on-disk folder)
- * and a bound on how many run at once, how many wait, and how long a run may take, so one
- * heavy render cannot starve the server. Errors are typed for the route handler:
- * LabBusyError → 429, LabTimeoutError → 503, LabInputError (engine) → 400.
+ * under the lab's concurrency limiter (lib/lab/limiter.ts) and a bound on how long a run may
+ * take. Errors are typed for the route handler: LabBusyError → 429, LabTimeoutError → 503,
+ * LabInputError (engine) → 400, LabOverflowError (engine) → 422.
  */
 
 /** Bump when the engine's output for the same inputs changes, to retire old cache entries. */
-export const LAB_ENGINE_VERSION = 1;
-
-export class LabBusyError extends Error {
-  readonly code = "rate_limited" as const;
-  constructor() {
-    super("the lab is busy; try again shortly");
-    this.name = "LabBusyError";
-  }
-}
-
-export class LabTimeoutError extends Error {
-  readonly code = "timeout" as const;
-  constructor(ms: number) {
-    super(`the lab run took longer than ${Math.round(ms / 1000)} s`);
-    this.name = "LabTimeoutError";
-  }
-}
+export const LAB_ENGINE_VERSION = 2;
 
 export type LabRunInput = {
   stillBytes: Uint8Array;
@@ -49,6 +38,8 @@ export type LabRunOutput = {
   width: number;
   height: number;
   reports: StepReport[];
+  /** A proxy render (resized, blurs approximated): see RunRecipeResult.approximate. */
+  approximate: boolean;
   key: string;
   cached: "memory" | "disk" | false;
 };
@@ -57,6 +48,8 @@ export type LabRunnerOptions = {
   /** On-disk cache folder; no disk cache when absent. */
   cacheDir?: string;
   memoryCacheBytes?: number;
+  /** The concurrency bound; a fresh one with these limits when absent (the app passes the shared one). */
+  limiter?: LabLimiter;
   maxConcurrent?: number;
   maxQueue?: number;
   timeoutMs?: number;
@@ -73,6 +66,13 @@ export function labCacheKey(stillSha256: string, request: LabRunRequest): string
     .digest("hex");
 }
 
+/*
+ * A file in the result cache folder. The folder is chosen at run time (inside the data folder) and
+ * holds no source: the build's file tracing must not follow these paths (it would otherwise trace
+ * the whole project into the lab routes).
+ */
+const cacheFile = (dir: string, name: string): string => path.join(/* turbopackIgnore: true */ dir, name);
+
 export type LabRunner = {
   run(input: LabRunInput): Promise<LabRunOutput>;
   stats(): { active: number; queued: number; memoryEntries: number; memoryBytes: number };
@@ -82,62 +82,38 @@ export type LabRunner = {
 const pendingWrites = new Map<string, Promise<void>>();
 
 export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
-  const memCap = options.memoryCacheBytes ?? 256 * 1024 * 1024;
-  const maxConcurrent = options.maxConcurrent ?? 2;
-  const maxQueue = options.maxQueue ?? 8;
+  const limiter = options.limiter ?? createLabLimiter({ maxConcurrent: options.maxConcurrent, maxQueue: options.maxQueue });
   const timeoutMs = options.timeoutMs ?? 60_000;
-  const memory = new Map<string, { bytes: Buffer; meta: Meta }>();
-  let memBytes = 0;
-  let active = 0;
-  const waiting: (() => void)[] = [];
+  // Encoded results; an entry larger than the whole cap is not kept.
+  const memory = new LRUCache<string, { bytes: Buffer; meta: Meta }>({
+    maxSize: options.memoryCacheBytes ?? MEMORY_BUDGET.labResults,
+    sizeCalculation: (v) => Math.max(1, v.bytes.length),
+  });
   const inflight = new Map<string, Promise<LabRunOutput>>();
-  // Decoded proxy stills as working-space floats plus 8-bit codes (≈ 8.3 MB each at 1024 × 540),
-  // least recently used first out.
-  const decoded = new Map<string, ProxyStill>();
-  let decodedBytes = 0;
-  const decodedCap = options.decodedCacheBytes ?? 128 * 1024 * 1024;
+  // Decoded proxy stills as working-space floats plus 8-bit codes (≈ 8.3 MB each at 1024 × 540).
+  const decoded = new LRUCache<string, ProxyStill>({
+    maxSize: options.decodedCacheBytes ?? MEMORY_BUDGET.labDecodedProxies,
+    sizeCalculation: (v) => v.data.byteLength + (v.codes8?.byteLength ?? 0),
+  });
   const decodeCache: DecodeCache = {
-    get(key) {
-      const v = decoded.get(key);
-      if (v) {
-        decoded.delete(key);
-        decoded.set(key, v);
-      }
-      return v;
-    },
-    set(key, value) {
-      const size = (v: ProxyStill): number => v.data.byteLength + (v.codes8?.byteLength ?? 0);
-      if (decoded.has(key) || size(value) > decodedCap) return;
-      decoded.set(key, value);
-      decodedBytes += size(value);
-      for (const [k, v] of decoded) {
-        if (decodedBytes <= decodedCap) break;
-        decoded.delete(k);
-        decodedBytes -= size(v);
-      }
+    get: (key) => decoded.get(key),
+    set: (key, value) => {
+      if (!decoded.has(key)) decoded.set(key, value);
     },
   };
 
   function remember(key: string, bytes: Buffer, meta: Meta): void {
-    if (bytes.length > memCap) return;
-    memory.delete(key);
     memory.set(key, { bytes, meta });
-    memBytes += bytes.length;
-    for (const [k, v] of memory) {
-      if (memBytes <= memCap) break;
-      memory.delete(k);
-      memBytes -= v.bytes.length;
-    }
   }
 
   async function fromDisk(key: string): Promise<{ bytes: Buffer; meta: Meta } | null> {
     if (!options.cacheDir) return null;
     // A result still being written by this process is read once it is complete.
-    await pendingWrites.get(path.join(/* turbopackIgnore: true */ options.cacheDir, key));
+    await pendingWrites.get(cacheFile(options.cacheDir, key));
     try {
       const [bytes, metaText] = await Promise.all([
-        readFile(path.join(options.cacheDir, `${key}.bin`)),
-        readFile(path.join(options.cacheDir, `${key}.json`), "utf8"),
+        readFile(cacheFile(options.cacheDir, `${key}.bin`)),
+        readFile(cacheFile(options.cacheDir, `${key}.json`), "utf8"),
       ]);
       return { bytes, meta: JSON.parse(metaText) as Meta };
     } catch {
@@ -147,45 +123,19 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
 
   async function toDisk(key: string, bytes: Buffer, meta: Meta): Promise<void> {
     if (!options.cacheDir) return;
-    await mkdir(options.cacheDir, { recursive: true });
+    await mkdir(/* turbopackIgnore: true */ options.cacheDir, { recursive: true });
     // Write then rename, so a reader never sees half a file; bytes before meta, since meta marks it complete.
     const tmp = `.${process.pid}-${Math.random().toString(36).slice(2)}`;
-    const bin = path.join(options.cacheDir, `${key}.bin`), json = path.join(options.cacheDir, `${key}.json`);
+    const bin = cacheFile(options.cacheDir, `${key}.bin`), json = cacheFile(options.cacheDir, `${key}.json`);
     await writeFile(bin + tmp, bytes);
     await rename(bin + tmp, bin);
     await writeFile(json + tmp, JSON.stringify(meta));
     await rename(json + tmp, json);
   }
 
-  async function acquire(deadline: number): Promise<void> {
-    if (active < maxConcurrent) {
-      active++;
-      return;
-    }
-    if (waiting.length >= maxQueue) throw new LabBusyError();
-    await new Promise<void>((resolve, reject) => {
-      const grant = (): void => {
-        clearTimeout(timer);
-        active++;
-        resolve();
-      };
-      const timer = setTimeout(() => {
-        const i = waiting.indexOf(grant);
-        if (i >= 0) waiting.splice(i, 1);
-        reject(new LabTimeoutError(timeoutMs));
-      }, Math.max(0, deadline - Date.now()));
-      waiting.push(grant);
-    });
-  }
-
-  function release(): void {
-    active--;
-    waiting.shift()?.();
-  }
-
   async function compute(key: string, input: LabRunInput): Promise<LabRunOutput> {
     const deadline = Date.now() + timeoutMs;
-    await acquire(deadline);
+    const release = await limiter.acquire(deadline, timeoutMs);
     const controller = new AbortController();
     const run = runRecipe({
       still: input.stillBytes,
@@ -212,12 +162,14 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
     });
     try {
       const result = await Promise.race([run, timeout]);
-      const meta: Meta = { contentType: result.contentType, width: result.width, height: result.height, reports: result.reports, key };
+      const meta: Meta = {
+        contentType: result.contentType, width: result.width, height: result.height, reports: result.reports, approximate: result.approximate, key,
+      };
       remember(key, result.bytes, meta);
       if (options.cacheDir) {
         // The answer does not wait for the disk copy (1–3 ms of file system calls per render, more
         // under load, which an interactive proxy render feels); readers in this process wait for it.
-        const id = path.join(/* turbopackIgnore: true */ options.cacheDir, key);
+        const id = cacheFile(options.cacheDir, key);
         const write = toDisk(key, result.bytes, meta).catch(() => undefined).finally(() => {
           if (pendingWrites.get(id) === write) pendingWrites.delete(id);
         });
@@ -254,7 +206,7 @@ export function createLabRunner(options: LabRunnerOptions = {}): LabRunner {
       }
       return pending;
     },
-    stats: () => ({ active, queued: waiting.length, memoryEntries: memory.size, memoryBytes: memBytes }),
+    stats: () => ({ ...limiter.stats(), memoryEntries: memory.size, memoryBytes: memory.calculatedSize }),
   };
 }
 
@@ -266,7 +218,7 @@ export function runLab(input: LabRunInput & { cacheDir?: string }): Promise<LabR
   const id = input.cacheDir ?? "";
   let runner = runners.get(id);
   if (!runner) {
-    runner = createLabRunner({ cacheDir: input.cacheDir });
+    runner = createLabRunner({ cacheDir: input.cacheDir, limiter: labLimiter() });
     runners.set(id, runner);
   }
   return runner.run(input);

@@ -21,15 +21,6 @@ export function srgbEncodeExt(l: number): number {
   return l < 0 ? -srgbEncode(-l) : srgbEncode(l);
 }
 
-export function srgbDecodeArray(a: Float32Array): Float32Array {
-  for (let i = 0; i < a.length; i++) a[i] = srgbDecodeExt(a[i]!);
-  return a;
-}
-export function srgbEncodeArray(a: Float32Array): Float32Array {
-  for (let i = 0; i < a.length; i++) a[i] = srgbEncodeExt(a[i]!);
-  return a;
-}
-
 const lutCache = new Map<string, Float32Array>();
 
 /** code → float value for `bits`-bit stored codes, linear (sRGB-decoded) or stored/max. */

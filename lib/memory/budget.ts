@@ -15,6 +15,8 @@ export const MEMORY_BUDGET = {
   labRgbPool: 160 * MB,
   /** Idle matte and scratch planes (lib/lab/engine.ts). */
   labPlanePool: 64 * MB,
+  /** The exact blur's working memory kept after a run (lib/lab/gaussian.ts); larger is let go. */
+  labExactBlurIdle: 96 * MB,
   /** Decoded originals for the pixel probe (lib/stills/pixels.ts). */
   stillPixels: 256 * MB,
   /** Rendered technique pages kept per person (lib/page-cache/rendered-pages.ts). */

@@ -5,7 +5,7 @@ import path from "node:path";
 import { hasChromium, isShown, launchBrowser, SCREENSHOT_DIR, signIn, startApp, type RunningApp } from "@/tests/e2e/harness";
 import { generateSyntheticPlate, type Box, type SyntheticPlate } from "@/lib/lab/synthetic";
 import type { LabSolveResponse, RecipeStep } from "@/lib/lab/recipe";
-import type { LabAnalyseResponse, LabSampleResponse } from "@/app/api/lab/_lib/schemas";
+import type { LabAnalyseResponse, LabSampleResponse } from "@/lib/lab/analysis-schemas";
 
 /*
  * Issue 5, "Browser (Chromium)": a senior solves a colour-matrix row from samples picked on the

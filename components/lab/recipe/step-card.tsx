@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { StepFields } from "@/components/lab/recipe/step-fields";
 import { opLabel } from "@/components/lab/recipe/defaults";
+import { STEP_HELP } from "@/components/lab/recipe/step-help";
 import { Button } from "@/components/ui/button";
 import type { RecipeStep } from "@/lib/lab/recipe";
 import { cn } from "@/lib/utils";
@@ -56,6 +57,10 @@ export function StepCard({ idBase, index, count, step, errors, onChange, onMove,
         </p>
       ) : null}
       <StepFields id={id} step={step} onChange={onChange} errors={errors} />
+      <details className="mt-2 text-xs text-muted">
+        <summary className="cursor-pointer select-none">What this step computes</summary>
+        <p className="mt-1 max-w-prose leading-5">{STEP_HELP[step.op]}</p>
+      </details>
     </li>
   );
 }

@@ -31,7 +31,7 @@ export function StepFields(props: Props<RecipeStep>) {
         <div className="space-y-2">
           <div className="grid grid-cols-3 gap-2 sm:max-w-xl">
             <Choice id={`${id}-channel`} label="Adjust channel" value={step.channel} options={CHANNEL_OPTIONS} onChange={(channel) => onChange({ ...step, channel })} error={e("channel")} />
-            <Choice id={`${id}-ref`} label="To match plate channel" value={step.ref} options={CHANNEL_OPTIONS} onChange={(ref) => onChange({ ...step, ref })} error={e("ref")} />
+            <Choice id={`${id}-ref`} label="To match the plate's channel" value={step.ref} options={CHANNEL_OPTIONS} onChange={(ref) => onChange({ ...step, ref })} error={e("ref")} />
             <Choice id={`${id}-fit`} label="Fit" value={step.fit} options={[["gain", "Gain only"], ["gain+offset", "Gain and offset"]]} onChange={(fit) => onChange({ ...step, fit })} error={e("fit")} />
           </div>
           <RectFields id={id} rect={step.rect} onChange={(rect) => onChange({ ...step, rect })} errors={errors} />
@@ -96,7 +96,7 @@ function MatteFields({ id, step, onChange, errors }: Props<Of<"matte">>) {
         <Choice id={`${id}-channel`} label="From" value={weights ? "w" : (step.channel as string)}
           options={[...CHANNEL_OPTIONS, ["w", "Weighted R, G, B"]]}
           onChange={(v) => onChange({ ...step, channel: v === "w" ? [0, 1, 0] : (v as "r" | "g" | "b") })} error={weights ? undefined : e("channel")} />
-        <Choice id={`${id}-source`} label="Of" value={step.source} options={[["current", "The working image"], ["plate", "The original plate"]]} onChange={(source) => onChange({ ...step, source })} error={e("source")} />
+        <Choice id={`${id}-source`} label="Of" value={step.source} options={[["current", "The working image"], ["plate", "The plate (denoised, with grain restored)"]]} onChange={(source) => onChange({ ...step, source })} error={e("source")} />
         <NumberInput id={`${id}-black`} label="Black point" min={-100} max={100} value={step.black} onChange={(black) => onChange({ ...step, black })} error={e("black")} />
         <NumberInput id={`${id}-white`} label="White point" min={-100} max={100} value={step.white} onChange={(white) => onChange({ ...step, white })} error={e("white")} />
       </div>

@@ -11,7 +11,7 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { stills } from "@/db/schema";
 import { env } from "@/lib/env";
-import { LabInputError } from "@/lib/lab/engine";
+import { LabInputError, LabOverflowError } from "@/lib/lab/engine";
 import { LabBusyError, LabTimeoutError } from "@/lib/lab/runner";
 import { variantPath } from "@/lib/stills/storage";
 import { POST as stillsPost } from "@/app/api/stills/route";
@@ -19,8 +19,8 @@ import { POST as run } from "@/app/api/lab/run/route";
 import { POST as solve } from "@/app/api/lab/solve/route";
 import { POST as analyse } from "@/app/api/lab/analyse/route";
 import { POST as sample } from "@/app/api/lab/sample/route";
-import { mapLabError } from "@/app/api/lab/_lib/lab-server";
-import type { LabAnalyseResponse, LabSampleResponse } from "@/app/api/lab/_lib/schemas";
+import { labAppError } from "@/lib/lab/service";
+import type { LabAnalyseResponse, LabSampleResponse } from "@/lib/lab/analysis-schemas";
 import type { LabSolveResponse } from "@/lib/lab/recipe";
 import { apiRequest, createPerson, params, type TestPerson } from "@/tests/factories";
 
@@ -174,7 +174,31 @@ describe("POST /api/lab/run on an uploaded 16-bit PNG", () => {
   it("answers the step reports as JSON with ?report=1", async () => {
     const res = await run(runReq(artist, { still: stillId, space: "stored", steps: [{ op: "copy", from: "r", to: "g" }] }, "?report=1"), ctx);
     expect(res.status).toBe(200);
-    expect(await res.json()).toMatchObject({ width: W, height: H, contentType: "image/png", reports: [{ index: 0, op: "copy" }] });
+    expect(await res.json()).toMatchObject({ width: W, height: H, contentType: "image/png", approximate: false, reports: [{ index: 0, op: "copy" }] });
+  });
+
+  it("answers 422 naming the step whose values overflowed (twenty gains of 100, then twenty of 0.01)", async () => {
+    const gain = (k: number) => ({ op: "matrix", m: [[k, 0, 0], [0, k, 0], [0, 0, k]] });
+    const steps = [...Array.from({ length: 20 }, () => gain(100)), ...Array.from({ length: 20 }, () => gain(0.01))];
+    const res = await run(runReq(artist, { still: stillId, steps }), ctx);
+    expect(res.status).toBe(422);
+    const { error } = (await res.json()) as { error: { code: string; message: string; fields: Record<string, string> } };
+    expect(error.code).toBe("unprocessable");
+    expect(Object.keys(error.fields)).toEqual(["steps.19"]);
+    expect(error.message).toContain("steps.19");
+  });
+
+  it("says whether a render is exact or an approximate proxy, and how many pixels flatten filled", async () => {
+    const steps = [{ op: "matte", channel: "g", source: "plate", black: 0.2, white: 0.8 }, { op: "flatten", sigma: 3, color: [0.1, 0.5, 0.2] }];
+    const exact = await run(runReq(artist, { still: stillId, space: "stored", steps }), ctx);
+    expect(exact.status).toBe(200);
+    expect(exact.headers.get("X-Lab-Render")).toBe("exact");
+    const reports = JSON.parse(Buffer.from(exact.headers.get("X-Lab-Report")!, "base64url").toString("utf8")) as { op: string; thin?: number }[];
+    expect(exact.headers.get("X-Lab-Flatten-Thin")).toBe(String(reports[1]!.thin));
+    const proxy = await run(runReq(artist, { still: stillId, space: "stored", steps, width: 20, format: "webp" }), ctx);
+    expect(proxy.status).toBe(200);
+    expect(proxy.headers.get("X-Lab-Render")).toBe("approximate");
+    expect(proxy.headers.get("X-Lab-Width")).toBe("20");
   });
 });
 
@@ -280,17 +304,14 @@ describe("POST /api/lab/sample and /api/lab/analyse", () => {
 
 describe("engine errors become the API error shape", () => {
   const codeOf = (e: unknown) => {
-    try {
-      mapLabError(e);
-    } catch (err) {
-      return err instanceof AppError ? [err.code, err.fields] : ["other"];
-    }
-    return ["none"];
+    const err = labAppError(e);
+    return err instanceof AppError ? [err.code, err.fields] : ["other"];
   };
-  it("maps busy, timeout and input errors", () => {
+  it("maps busy, timeout, input and overflow errors", () => {
     expect(codeOf(new LabBusyError())[0]).toBe("rate_limited");
     expect(codeOf(new LabTimeoutError(1000))[0]).toBe("unavailable");
     expect(codeOf(new LabInputError("bad", 3))).toEqual(["validation_failed", { "steps.3": "bad" }]);
+    expect(codeOf(new LabOverflowError(19, "matrix"))[0]).toBe("unprocessable");
     expect(codeOf(new Error("x"))).toEqual(["other"]);
   });
 });

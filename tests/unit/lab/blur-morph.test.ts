@@ -1,25 +1,10 @@
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
-import { blurPlane, morphPlane } from "@/lib/lab/kernels";
+import { blurPlaneApprox, morphPlane } from "@/lib/lab/kernels";
 
 function rand(seed: number): () => number {
   let a = seed >>> 0;
   return () => ((a = (Math.imul(a, 1664525) + 1013904223) >>> 0) / 2 ** 32);
-}
-
-/** sharp's accurate float blur of one plane, through LAB-NOTES.md's join pattern. */
-async function sharpFloatBlur(plane: Float32Array, width: number, height: number, sigma: number): Promise<Float32Array> {
-  const ones = new Float32Array(width * height).fill(1);
-  const out = await sharp(plane, { raw: { width, height, channels: 1 } })
-    .joinChannel(Buffer.from(ones.buffer), { raw: { width, height, channels: 1 } })
-    .blur({ sigma, precision: "float", minAmplitude: 0.001 })
-    .toColourspace("b-w")
-    .raw({ depth: "float" })
-    .toBuffer();
-  const f = new Float32Array(out.buffer, out.byteOffset, out.length / 4);
-  // b-w leaves [value, alpha-like band] or just value depending on band count: take band 0.
-  const bands = f.length / (width * height);
-  return bands === 1 ? f : f.filter((_, i) => i % bands === 0);
 }
 
 function testPlane(width: number, height: number, seed: number): Float32Array {
@@ -33,34 +18,39 @@ function testPlane(width: number, height: number, seed: number): Float32Array {
   return p;
 }
 
-describe("Gaussian blur vs sharp/libvips accurate float blur (join pattern, LAB-NOTES.md)", () => {
-  // Compared away from the borders (libvips and we both extend edges, but by different means).
-  const cases: [number, number][] = [
-    [1.5, 1e-5], // exact sampled kernel, same truncation as libvips (measured: bit-identical)
-    [3, 1e-5],
-    [12, 5e-3], // reduced-resolution path (box-reduce, blur, bilinear): 5e-3 on unit-contrast edges (measured ~1e-3)
+describe("proxy (approximate) Gaussian blur against the sampled Gaussian it approximates", () => {
+  // The exact Gaussian is checked against scipy in gaussian-reference.test.ts; here the proxy's
+  // fast blur against the definition (bruteBlur below), everywhere including the borders.
+  // [sigma, tolerance within 4σ of the border, tolerance further in]
+  const cases: [number, number, number][] = [
+    [1.5, 1e-6, 1e-6], // within the FIR range: the sampled kernel itself (float32 arithmetic)
+    [3, 1e-6, 1e-6],
+    [12, 6e-2, 5e-3], // reduced-resolution path (box-reduce, blur, bilinear): an approximation, worst at the borders
   ];
-  for (const [sigma, tol] of cases) {
-    it(`σ = ${sigma} agrees within ${tol}`, async () => {
-      const w = 160, h = 120;
+  for (const [sigma, tolBorder, tolInside] of cases) {
+    it(`σ = ${sigma} agrees within ${tolBorder} near the borders and ${tolInside} inside`, () => {
+      const w = 200, h = 150;
       const p = testPlane(w, h, 11);
-      const ref = await sharpFloatBlur(p, w, h, sigma);
+      const ref = bruteBlur(p, w, h, sigma);
       const ours = new Float32Array(p);
-      blurPlane(ours, w, h, sigma, new Float32Array(w * h));
-      const m = Math.ceil(sigma * 4);
-      let worst = 0;
-      for (let y = m; y < h - m; y++) for (let x = m; x < w - m; x++) worst = Math.max(worst, Math.abs(ours[y * w + x]! - ref[y * w + x]!));
-      expect(worst).toBeLessThan(tol);
-      // The comparison means something only if the blur changed the plane.
-      let moved = 0;
-      for (let i = 0; i < p.length; i++) moved = Math.max(moved, Math.abs(ref[i]! - p[i]!));
-      expect(moved).toBeGreaterThan(0.1);
+      blurPlaneApprox(ours, w, h, sigma, new Float32Array(w * h));
+      const m = Math.ceil(4 * sigma);
+      let worst = 0, worstInside = 0, moved = 0;
+      for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+        const i = y * w + x, d = Math.abs(ours[i]! - ref[i]!);
+        worst = Math.max(worst, d);
+        if (x >= m && y >= m && x < w - m && y < h - m) worstInside = Math.max(worstInside, d);
+        moved = Math.max(moved, Math.abs(ref[i]! - p[i]!));
+      }
+      expect(worst).toBeLessThan(tolBorder);
+      expect(worstInside).toBeLessThan(tolInside);
+      expect(moved).toBeGreaterThan(0.1); // the comparison means something only if the blur changed the plane
     });
   }
   it("keeps a constant plane constant (normalised kernel)", () => {
     for (const sigma of [0.7, 4, 30]) {
       const p = new Float32Array(90 * 70).fill(0.37);
-      blurPlane(p, 90, 70, sigma, new Float32Array(90 * 70));
+      blurPlaneApprox(p, 90, 70, sigma, new Float32Array(90 * 70));
       for (const v of p) expect(v).toBeCloseTo(0.37, 6);
     }
   });
@@ -148,9 +138,9 @@ function sparsePlane(width: number, height: number, seed: number): Float32Array 
   return p;
 }
 
-/** Separable Gaussian from the definition, border pixels repeated (as libvips extends edges). */
+/** Separable Gaussian from the definition (cut at round(4σ)), border pixels repeated. */
 function bruteBlur(p: Float32Array, w: number, h: number, sigma: number): Float64Array {
-  const r = Math.floor(sigma * Math.sqrt(-2 * Math.log(0.001)));
+  const r = Math.floor(4 * sigma + 0.5);
   const k: number[] = [];
   let s = 0;
   for (let i = -r; i <= r; i++) { const v = Math.exp(-(i * i) / (2 * sigma * sigma)); k.push(v); s += v; }
@@ -185,7 +175,7 @@ describe("mostly-zero planes (only each row's non-zero span is computed)", () =>
       const h = 37;
       const p = sparsePlane(w, h, 300);
       const ours = new Float32Array(p);
-      blurPlane(ours, w, h, sigma, new Float32Array(w * h).fill(7)); // dirty scratch must not leak through
+      blurPlaneApprox(ours, w, h, sigma, new Float32Array(w * h).fill(7)); // dirty scratch must not leak through
       const ref = bruteBlur(p, w, h, sigma);
       let worst = 0, moved = 0;
       for (let i = 0; i < p.length; i++) {

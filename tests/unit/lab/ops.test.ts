@@ -65,7 +65,7 @@ describe("flatten screen (normalized convolution)", () => {
     for (const [seed, sigma] of [[1, 6], [2, 6], [3, 20]] as const) {
       const r = rand(seed);
       const plate = new Float32Array(w * h * 3);
-      const matte = new Float32Array(w * h);
+      const matte = new Float64Array(w * h);
       for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
         const hole = holesAt(x, y), p = y * w + x;
         matte[p] = hole ? 1 : 0;
@@ -98,7 +98,7 @@ describe("mix and grain", () => {
     const state = createLabState({ width: w, height: h, plate: floatSource(plate) });
     const cleaned = Float32Array.from({ length: w * h * 3 }, () => r());
     state.cur.set(cleaned);
-    state.matte = Float32Array.from({ length: w * h }, (_, i) => (i % 4) / 3);
+    state.matte = Float64Array.from({ length: w * h }, (_, i) => (i % 4) / 3);
     applyStep(state, step({ op: "mix" }), 0);
     for (let p = 0; p < w * h; p++) for (let c = 0; c < 3; c++) {
       const m = (p % 4) / 3;
@@ -164,8 +164,8 @@ describe("one-pass paths the engine takes", () => {
       const { w, h, r, make } = codeState(invert ? 12 : 11);
       const a = make(), b = make();
       const cleaned = Float32Array.from({ length: w * h * 3 }, () => r() * 1.2 - 0.1);
-      const matte = Float32Array.from({ length: w * h }, (_, p) => (p % 3 === 0 ? (invert ? 1 : 0) : r()));
-      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float32Array(matte); }
+      const matte = Float64Array.from({ length: w * h }, (_, p) => (p % 3 === 0 ? (invert ? 1 : 0) : r()));
+      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float64Array(matte); }
       const steps = [step({ op: "mix", invert }), step({ op: "grain", denoised: "d" })];
       const reports = applyStepsAt(a, steps, 0);
       expect(reports.map((x) => x.op)).toEqual(["mix", "grain"]);
@@ -209,11 +209,11 @@ describe("proxy paths (decoded proxy kept as working-space floats)", () => {
       const cleaned = Float32Array.from({ length: w * h * 3 }, () => r() * 1.2 - 0.1);
       // Whole zero rows, zero margins and zeros inside a span: every branch of the span copy.
       const zero = invert ? 1 : 0;
-      const matte = Float32Array.from({ length: w * h }, (_, p) => {
+      const matte = Float64Array.from({ length: w * h }, (_, p) => {
         const x = p % w, y = Math.floor(p / w);
         return y % 4 === 0 || x < 5 || x > 20 || x === 11 ? zero : r();
       });
-      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float32Array(matte); }
+      for (const s of [a, b]) { s.cur.set(cleaned); s.matte = new Float64Array(matte); }
       const steps = [step({ op: "mix", invert }), step({ op: "grain", denoised: "d" })];
       expect(applyStepsAt(a, steps, 0).map((x) => x.op)).toEqual(["mix", "grain"]);
       applyStep(b, steps[0]!, 0);
@@ -291,5 +291,101 @@ describe("float result", () => {
     expect(r.before!.data[0]).toBe(1);
     expect(r.after.data[0]).toBe(2);
     expect(r.after.data[2]).toBe(-1);
+  });
+});
+
+describe("values beyond the float range", () => {
+  async function still16(w: number, h: number, seed: number): Promise<{ png: Buffer; codes: Uint16Array }> {
+    const r = rand(seed);
+    const codes = Uint16Array.from({ length: w * h * 3 }, () => 1000 + Math.floor(r() * 60000));
+    const png = await sharp(codes, { raw: { width: w, height: h, channels: 3 } }).toColourspace("rgb16").png().toBuffer();
+    return { png, codes };
+  }
+  const gains = (k: number, times: number) => Array.from({ length: times }, () => step({ op: "matrix", m: [[k, 0, 0], [0, k, 0], [0, 0, k]] }));
+
+  it("twenty gains of 100 then twenty of 0.01 fail the run at the step that overflowed, never as black pixels", async () => {
+    // 100^20 = 1e40 exceeds float32's largest value (about 3.4e38, IEEE 754 binary32): step 20.
+    const { png } = await still16(16, 8, 5);
+    const { LabOverflowError } = await import("@/lib/lab/engine");
+    for (const space of ["stored", "linear"] as const) {
+      const run = runRecipe({ still: png, steps: [...gains(100, 20), ...gains(0.01, 20)], space, format: "png16" });
+      await expect(run).rejects.toBeInstanceOf(LabOverflowError);
+      await expect(run).rejects.toMatchObject({ stepIndex: 19, op: "matrix" });
+    }
+  });
+
+  it("ten gains of 100 then ten of 0.01 stay finite and give the still back (within a code)", async () => {
+    const { png, codes } = await still16(16, 8, 6);
+    const out = await runRecipe({ still: png, steps: [...gains(100, 10), ...gains(0.01, 10)], space: "stored", format: "png16" });
+    const { data } = await sharp(out.bytes).toColourspace("rgb16").raw({ depth: "ushort" }).toBuffer({ resolveWithObject: true });
+    const back = new Uint16Array(data.buffer, data.byteOffset, data.length / 2);
+    for (let i = 0; i < codes.length; i++) expect(Math.abs(back[i]! - codes[i]!)).toBeLessThanOrEqual(1);
+  });
+});
+
+describe("flatten's fill where too little screen is within reach", () => {
+  it("a constant screen with a hole wider than the kernel's reach is recovered everywhere, hole centre included (Knutsson & Westin, CVPR 1993)", () => {
+    // Deep in the hole blur(w) → 0, where the estimate is the frame's mean screen colour; on a
+    // constant screen that is the screen itself, so the result is the same as near the edges.
+    const w = 160, h = 120, screen = [0.12, 0.5, 0.2], target = [0.1, 0.45, 0.15], sigma = 6;
+    const r = rand(41);
+    const inHole = (x: number, y: number) => (x - 80) ** 2 + (y - 60) ** 2 < 45 ** 2;
+    const plate = new Float32Array(w * h * 3), matte = new Float64Array(w * h);
+    for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+      const p = y * w + x, hole = inHole(x, y);
+      matte[p] = hole ? 1 : 0;
+      for (let c = 0; c < 3; c++) plate[p * 3 + c] = hole ? 0.05 + r() : screen[c]!;
+    }
+    const state = createLabState({ width: w, height: h, plate: floatSource(plate) });
+    state.matte = matte;
+    const rep = applyStep(state, step({ op: "flatten", sigma, color: target, weight: "outside" }), 3);
+    if (rep.op !== "flatten") throw new Error("wrong report");
+    // The hole's middle (radius 45 − 4σ = 21) sees no screen at all; its rim some.
+    expect(rep.thin).toBeGreaterThan(Math.PI * 21 ** 2);
+    expect(rep.thin).toBeLessThan(Math.PI * 45 ** 2);
+    expect(rep.leftAsIs).toBe(0);
+    for (let c = 0; c < 3; c++) expect(rep.screenMean[c]).toBeCloseTo(screen[c]!, 6);
+    let worst = 0;
+    for (let p = 0; p < w * h; p++) for (let c = 0; c < 3; c++) {
+      const expected = (plate[p * 3 + c]! / screen[c]!) * target[c]!;
+      worst = Math.max(worst, Math.abs(state.cur[p * 3 + c]! - expected) / Math.max(1, expected));
+    }
+    expect(worst).toBeLessThan(2e-6);
+  });
+});
+
+describe("flatten on a proxy (the approximate blur's reduced path)", () => {
+  it("the fused pass equals blurring w and value·w plane by plane with the same approximation", async () => {
+    const { blurPlaneApprox } = await import("@/lib/lab/kernels");
+    const { FLATTEN_MIN_SCREEN } = await import("@/lib/lab/engine");
+    const w = 97, h = 61, r = rand(52), sigma = 40, target = [0.1, 0.45, 0.15] as const;
+    const plate = Float32Array.from({ length: w * h * 3 }, (_, i) => 0.05 + r() * (i % 3 === 1 ? 0.6 : 0.2));
+    const matte = Float64Array.from({ length: w * h }, (_, p) => ((p % w) - 40) ** 2 + (Math.floor(p / w) - 30) ** 2 < 400 ? 1 : r() * 0.1);
+    const state = createLabState({ width: w, height: h, plate: floatSource(plate), scale: 2 });
+    expect(state.exact).toBe(false);
+    state.matte = new Float64Array(matte);
+    const rep = applyStep(state, step({ op: "flatten", sigma: sigma * 2, color: [...target], weight: "outside" }), 0);
+    if (rep.op !== "flatten") throw new Error("wrong report");
+    // Plane by plane: D = G̃(w), N_c = G̃(value_c·w), the same fill rule.
+    const wt = Float64Array.from(matte, (m) => 1 - Math.min(1, Math.max(0, m)));
+    const D = new Float64Array(wt);
+    blurPlaneApprox(D, w, h, sigma, new Float64Array(w * h));
+    let sumW = 0;
+    const sums: number[] = [0, 0, 0];
+    for (let p = 0; p < w * h; p++) { sumW += wt[p]!; for (let c = 0; c < 3; c++) sums[c] = sums[c]! + wt[p]! * plate[p * 3 + c]!; }
+    let worst = 0, thin = 0;
+    for (let p = 0; p < w * h; p++) if (D[p]! < FLATTEN_MIN_SCREEN) thin++;
+    for (let c = 0; c < 3; c++) {
+      const N = Float64Array.from({ length: w * h }, (_, p) => plate[p * 3 + c]! * wt[p]!);
+      blurPlaneApprox(N, w, h, sigma, new Float64Array(w * h));
+      for (let p = 0; p < w * h; p++) {
+        const d = D[p]!, tau = FLATTEN_MIN_SCREEN;
+        const est = d >= tau ? N[p]! / d : (N[p]! + (tau - d) * (sums[c]! / sumW)) / tau;
+        const want = (plate[p * 3 + c]! / est) * target[c]!;
+        worst = Math.max(worst, Math.abs(state.cur[p * 3 + c]! - want) / Math.max(1, Math.abs(want)));
+      }
+    }
+    expect(worst).toBeLessThan(1e-6);
+    expect(rep.thin).toBe(thin);
   });
 });

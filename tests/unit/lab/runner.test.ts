@@ -4,6 +4,7 @@ import path from "node:path";
 import sharp from "sharp";
 import { afterAll, describe, expect, it } from "vitest";
 import { labRunRequestSchema } from "@/lib/lab/recipe";
+import { createLabLimiter } from "@/lib/lab/limiter";
 import { createLabRunner, labCacheKey, LabBusyError, LabTimeoutError } from "@/lib/lab/runner";
 
 const dir = mkdtempSync(path.join(os.tmpdir(), "lab-runner-"));
@@ -56,6 +57,27 @@ describe("lab runner", () => {
     const runner = createLabRunner({ timeoutMs: 1 });
     const heavy = labRunRequestSchema.parse({ still: "x", steps: [{ op: "soften", sigma: 3, target: "g" }, { op: "soften", sigma: 3, target: "r" }] });
     await expect(runner.run({ stillBytes: bytes, stillSha256: "slow", request: heavy })).rejects.toBeInstanceOf(LabTimeoutError);
+  });
+
+  it("keeps results within its byte cap, least recently used out first", async () => {
+    const bytes = await still();
+    const runner = createLabRunner({});
+    const first = await runner.run({ stillBytes: bytes, stillSha256: "cap-0", request });
+    const size = first.bytes.length;
+    const small = createLabRunner({ memoryCacheBytes: size * 2 + 1 });
+    for (const i of [0, 1, 2]) await small.run({ stillBytes: bytes, stillSha256: `cap-${i}`, request });
+    expect(small.stats().memoryEntries).toBe(2);
+    expect(small.stats().memoryBytes).toBe(size * 2);
+    expect((await small.run({ stillBytes: bytes, stillSha256: "cap-2", request })).cached).toBe("memory");
+    expect((await small.run({ stillBytes: bytes, stillSha256: "cap-0", request })).cached).toBe(false);
+  });
+
+  it("runners sharing one limiter share its bound", async () => {
+    const bytes = await still(256, 256);
+    const limiter = createLabLimiter({ maxConcurrent: 1, maxQueue: 1 });
+    const a = createLabRunner({ limiter }), b = createLabRunner({ limiter });
+    const settled = await Promise.allSettled([0, 1, 2].map((i) => (i % 2 ? b : a).run({ stillBytes: bytes, stillSha256: `shared-${i}`, request })));
+    expect(settled.filter((s) => s.status === "rejected").map((s) => (s).reason)).toEqual([expect.any(LabBusyError)]);
   });
 
   it("shares one computation between identical requests in flight", async () => {

@@ -40,15 +40,16 @@ describe("ESLint refuses imports that point up the layers", { timeout: 60_000 },
     expect(await restrictedImports("lib/techniques/probe.ts", code)).toEqual(["@/components/ui/button", "../../app/api/me/route", "@/scripts/fake-smtp/server"]);
   });
 
-  it("components/ never import app/ or db/ (the lab's types from app/api/lab/_lib excepted until issue #15 moves them)", async () => {
+  it("components/ never import app/ or db/, type-only imports included", async () => {
     const code = [
       'import { GET } from "@/app/api/me/route";',
       'import { getDb } from "@/db/client";',
-      'import type { LabAnalyseResponse } from "@/app/api/lab/_lib/schemas";',
+      'import type { POST } from "@/app/api/lab/run/route";',
+      'import type { LabAnalyseResponse } from "@/lib/lab/analysis-schemas";',
       'import { cn } from "@/lib/utils";',
-      "export const probe = [GET, getDb, cn, null as LabAnalyseResponse | null];",
+      "export const probe = [GET, getDb, cn, null as LabAnalyseResponse | null, null as typeof POST | null];",
     ].join("\n");
-    expect(await restrictedImports("components/stills/probe.ts", code)).toEqual(["@/app/api/me/route", "@/db/client"]);
+    expect(await restrictedImports("components/lab/probe.ts", code)).toEqual(["@/app/api/me/route", "@/db/client", "@/app/api/lab/run/route"]);
   });
 
   it("app/ reaches the database only through lib/", async () => {

@@ -1,30 +1,21 @@
 import { authedRoute, otherMethods } from "@/lib/api/handler";
 import { labRunRequestSchema } from "@/lib/lab/recipe";
-import { runLab, type LabRunOutput } from "@/lib/lab/runner";
-import { denoisedLoader, headerJson, labCacheDir, labColour, mapLabError, originalBytes, readableStill } from "@/app/api/lab/_lib/lab-server";
+import { labRunHeaders, runLabFor } from "@/lib/lab/service";
 
 export const dynamic = "force-dynamic";
 export const runtime = "nodejs";
 
 /**
  * POST /api/lab/run (shared/API.md "The lab"): runs a recipe on a readable still and answers
- * the encoded image. Step reports travel in `X-Lab-Report` (base64url JSON); `?report=1`
- * answers them as JSON instead of the image.
+ * the encoded image, with step reports in `X-Lab-Report` (base64url JSON) and `X-Lab-Render:
+ * exact | approximate`; `?report=1` answers the reports as JSON instead of the image.
  */
 export const POST = authedRoute("lab:run", async (req, { user, json }) => {
   const input = await json(labRunRequestSchema);
-  const still = await readableStill(user, input.still);
-  const loadStill = await denoisedLoader(user, input.steps);
-  const { space, colour, key } = labColour(still, input.space, input.workingSpace, loadStill.stills);
-  const stillBytes = await originalBytes(still);
-  let out: LabRunOutput;
-  try {
-    out = await runLab({ stillBytes, stillSha256: key, request: { ...input, space }, colour, loadStill, cacheDir: labCacheDir() });
-  } catch (error) {
-    mapLabError(error);
-  }
+  const out = await runLabFor(user, input);
   if (new URL(req.url).searchParams.get("report") === "1") {
-    return Response.json({ width: out.width, height: out.height, contentType: out.contentType, cached: out.cached, reports: out.reports });
+    const { width, height, contentType, cached, approximate, reports } = out;
+    return Response.json({ width, height, contentType, cached, approximate, reports });
   }
   return new Response(new Uint8Array(out.bytes), {
     status: 200,
@@ -32,11 +23,8 @@ export const POST = authedRoute("lab:run", async (req, { user, json }) => {
       "Content-Type": out.contentType,
       "Content-Length": String(out.bytes.length),
       "Cache-Control": "private, no-store",
-      "X-Lab-Report": headerJson(out.reports),
-      "X-Lab-Width": String(out.width),
-      "X-Lab-Height": String(out.height),
-      "X-Lab-Cache": out.cached || "miss",
-      ...(input.format === "exr" ? { "Content-Disposition": `attachment; filename="lab-${still.id.slice(0, 8)}.exr"` } : {}),
+      ...labRunHeaders(out),
+      ...(input.format === "exr" ? { "Content-Disposition": `attachment; filename="lab-${input.still.slice(0, 8)}.exr"` } : {}),
     },
   });
 });

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { labSpaceSchema, labWorkingSpaceSchema, recipeSchema } from "@/lib/lab/recipe";
 
-/** Request shapes of the lab's plot and sample routes (client-safe; the lab UI shares them). */
+/** Request and response shapes of the lab's plot and sample routes (client-safe: the lab UI shares them). */
 
 const coord = z.number().refine(Number.isFinite, { message: "must be a finite number" }).refine((v) => Math.abs(v) <= 100_000, {
   message: "must be within the still",
@@ -20,6 +20,7 @@ export const labAnalyseRequestSchema = z.object({
   width: z.number().int().min(16).max(8192).optional(),
 });
 export type LabAnalyseRequest = z.input<typeof labAnalyseRequestSchema>;
+export type LabAnalyseParsed = z.infer<typeof labAnalyseRequestSchema>;
 
 export const boxSchema = z.object({
   x: z.number().int().min(0).max(100_000),
@@ -35,6 +36,7 @@ export const labSampleRequestSchema = z.object({
   boxes: z.array(boxSchema).min(1).max(64),
 });
 export type LabSampleRequest = z.input<typeof labSampleRequestSchema>;
+export type LabSampleParsed = z.infer<typeof labSampleRequestSchema>;
 
 export type LineProfileData = { t: number[]; x: number[]; y: number[]; r: number[]; g: number[]; b: number[] };
 export type HistogramData = { edges: number[]; r: number[]; g: number[]; b: number[]; below: number[]; above: number[] };
@@ -45,6 +47,8 @@ export type LabAnalyseResponse = {
   height: number;
   sourceWidth: number;
   sourceHeight: number;
+  /** Worked on a resized copy (`width`), with the proxy's approximate blurs. */
+  approximate: boolean;
   before: AnalysisSide;
   /** Null when the request had no steps. */
   after: AnalysisSide | null;

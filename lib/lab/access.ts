@@ -9,13 +9,12 @@ import { LabInputError } from "@/lib/lab/engine";
 import type { LabSpace, RecipeStep } from "@/lib/lab/recipe";
 import type { LinearSpace } from "@/lib/colour/spaces";
 import { colourKey, type LabColour, type StillColour } from "@/lib/stills/lab-source";
-import { LabBusyError, LabTimeoutError } from "@/lib/lab/runner";
 import { getStillForRead } from "@/lib/stills/queries";
 import { variantPath } from "@/lib/stills/storage";
 
 /*
- * Glue between the lab routes and the stills/engine modules: who may read which still, where
- * its original bytes are, and how the engine's typed errors become the API error shape.
+ * Which stills the lab may read for a person, and where their original bytes are. The lab only
+ * ever reads a stored still; it never writes to one.
  */
 
 const uuid = z.string().uuid();
@@ -42,7 +41,7 @@ export function labColour(still: LabStill, space: LabSpace, working: LinearSpace
   return { space: effective, colour, key };
 }
 
-/** The original bytes exactly as uploaded (read-only: the lab never writes to a stored still). */
+/** The original bytes exactly as uploaded. */
 export async function originalBytes(still: LabStill): Promise<Uint8Array> {
   try {
     return await fs.readFile(variantPath(still.sha256, "original"));
@@ -78,43 +77,7 @@ export async function denoisedLoader(user: SessionUser, steps: RecipeStep[]): Pr
   return Object.assign(load, { stills: [...allowed.values()] });
 }
 
+/** The on-disk result cache of the lab runner, inside the data folder. */
 export function labCacheDir(): string {
   return path.resolve(env.PLATEROOM_DATA_DIR, "lab-cache");
-}
-
-/** Engine and runner errors as the API error shape; anything else is rethrown. */
-export function mapLabError(error: unknown): never {
-  if (error instanceof LabBusyError) throw new AppError("rate_limited", "The lab is busy. Try again in a moment.", { cause: error });
-  if (error instanceof LabTimeoutError) throw new AppError("unavailable", `${error.message}. Try a proxy render or a smaller region.`);
-  if (error instanceof LabInputError) {
-    const key = error.stepIndex === undefined ? "still" : `steps.${error.stepIndex}`;
-    throw new AppError("validation_failed", error.stepIndex === undefined ? error.message : `${key}: ${error.message}`, {
-      fields: { [key]: error.message },
-    });
-  }
-  throw error;
-}
-
-/** A small bound for the analysis routes, which decode and run outside the runner's own slots. */
-const slots = { active: 0, waiting: [] as (() => void)[] };
-const MAX_ACTIVE = 1;
-const MAX_WAITING = 4;
-
-export async function withAnalysisSlot<T>(work: () => Promise<T>): Promise<T> {
-  if (slots.active >= MAX_ACTIVE) {
-    if (slots.waiting.length >= MAX_WAITING) throw new AppError("rate_limited", "The lab is busy. Try again in a moment.");
-    await new Promise<void>((resolve) => slots.waiting.push(resolve));
-  } else slots.active++;
-  try {
-    return await work();
-  } finally {
-    const next = slots.waiting.shift();
-    if (next) next();
-    else slots.active--;
-  }
-}
-
-/** JSON for a header value: base64url, so any characters survive. */
-export function headerJson(value: unknown): string {
-  return Buffer.from(JSON.stringify(value), "utf8").toString("base64url");
 }
