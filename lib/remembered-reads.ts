@@ -2,6 +2,7 @@ import "server-only";
 import { LRUCache } from "lru-cache";
 import { changeGeneration } from "@/db/change-watch";
 import type { SessionUser } from "@/lib/auth/roles";
+import { MEMORY_BUDGET } from "@/lib/memory/budget";
 
 /*
  * Reads remembered until the database changes. Where this process holds the database (PGlite),
@@ -16,7 +17,7 @@ const reads = new LRUCache<string, Remembered>({
   max: 10_000,
   // Bounded by size too: a technique with its body is tens of kB. The JSON length is a rough
   // measure, taken once per read that is kept.
-  maxSize: 64 * 1024 * 1024,
+  maxSize: MEMORY_BUDGET.rememberedReads,
   sizeCalculation: (entry, key) => key.length + (JSON.stringify(entry.value)?.length ?? 8),
 });
 let generationKept: number | null = null;

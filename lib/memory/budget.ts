@@ -21,6 +21,8 @@ export const MEMORY_BUDGET = {
   stillPixels: 256 * MB,
   /** Rendered technique pages kept per person (lib/page-cache/rendered-pages.ts). */
   renderedPages: 64 * MB,
+  /** A technique page's reads per viewer until the next write (lib/remembered-reads.ts). */
+  rememberedReads: 64 * MB,
   /** Decoded OpenEXR stills (float samples) for the pixel probe and display renders (lib/stills/exr.ts). */
   decodedExr: 256 * MB,
 } as const;

@@ -67,6 +67,25 @@ describe.skipIf(!hasChromium())("accessibility of every page for every role (axe
     });
   }
 
+  it("the trade thesaurus (read by an artist, edited by a lead) and a still's own page pass too", async () => {
+    const found: string[] = [];
+    for (const email of ["artist@kestrel.test", "lead@kestrel.test"]) {
+      const { context, page } = await signIn(running.browser, running.app.baseUrl, email);
+      await page.goto("/thesaurus");
+      await settle(page);
+      for (const v of await seriousViolations(page)) found.push(`${email} /thesaurus: ${v}`);
+      // A still's page (the plate check of a demo still), reached from the technique's evidence.
+      await page.goto(`/techniques/${MARKER}`);
+      const still = await page.locator('a[href^="/stills/"]').first().getAttribute("href");
+      expect(still).toMatch(/^\/stills\/[0-9a-f-]{36}$/);
+      await page.goto(still!);
+      await settle(page);
+      for (const v of await seriousViolations(page)) found.push(`${email} ${still}: ${v}`);
+      await context.close();
+    }
+    expect(found, found.join("\n")).toEqual([]);
+  });
+
   it("signed out: the sign-in pages", async () => {
     const context = await running.browser.newContext({ baseURL: running.app.baseUrl });
     const page = await context.newPage();

@@ -83,6 +83,9 @@ export function ensureBuild(): void {
   withLock(`build-${distDir.replace(/[^a-z0-9]/gi, "_")}`, () => {
     const buildId = path.join(root, distDir, "BUILD_ID");
     if (fs.existsSync(buildId) && fs.existsSync(buildLog) && fs.statSync(buildId).mtimeMs >= newestMtime(SOURCES)) return;
+    // Under CI, next build warns "No build cache found" when <dist>/cache is missing (a fresh clone):
+    // the folder is where it keeps its cache, so make it rather than let the notice fail the check.
+    fs.mkdirSync(path.join(root, distDir, "cache"), { recursive: true });
     const output = run(bin("next"), ["build"], baseEnv({ NODE_ENV: "production", PLATEROOM_DIST_DIR: distDir }));
     fs.writeFileSync(buildLog, output);
   });
