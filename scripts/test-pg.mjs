@@ -11,5 +11,5 @@ if (!url) {
   console.log("Skipping the PostgreSQL integration run: set PLATEROOM_TEST_PG_URL (see .ci/start-postgres.sh).");
   process.exit(0);
 }
-const result = spawnSync("npx", ["vitest", "run", "--project", "integration"], { stdio: "inherit", env: process.env });
+const result = spawnSync("npx", ["vitest", "run", "--project", "integration"], { stdio: "inherit", env: { ...process.env, PLATEROOM_TEST_DB: "pg" } });
 process.exit(result.status ?? 1);

@@ -57,8 +57,8 @@ export const MARKER_COLOURS: [Rgb3, Rgb3] = [
 ];
 export const FOREGROUND_COLOUR: Rgb3 = [0.03, 0.05, 0.07];
 
-
-function gaussian(rand: () => number): () => number {
+/** Standard normal samples from a uniform source (Box–Muller, both values of each pair used). */
+export function gaussianSource(rand: () => number): () => number {
   let spare: number | null = null;
   return () => {
     if (spare !== null) {
@@ -79,7 +79,7 @@ export async function generateSyntheticPlate(opts: SyntheticOptions): Promise<Sy
   const { width: W, height: H } = opts;
   const screenKind = opts.screen ?? "green";
   const rand = mulberry32(opts.seed ?? 7);
-  const gauss = gaussian(mulberry32((opts.seed ?? 7) * 7919 + 1));
+  const gauss = gaussianSource(mulberry32((opts.seed ?? 7) * 7919 + 1));
   const grainSigma = opts.grain ?? 0.012;
   const s0 = SCREEN_COLOURS[screenKind];
   const n = W * H;

@@ -5,11 +5,11 @@ import { PGlite } from "@electric-sql/pglite";
 import pg from "pg";
 import { afterAll } from "vitest";
 import { closeDb, installNodePostgres, installPglite } from "@/db/client";
-import { PG_TEMPLATE_DB, withDatabase } from "@/tests/global-setup";
+import { PG_TEMPLATE_DB, postgresRunUrl, withDatabase } from "@/tests/global-setup";
 
 // Each test file gets its own database, a copy of the migrated template made in global-setup:
-// in-process PGlite by default, or a database on the PostgreSQL server in PLATEROOM_TEST_PG_URL.
-const serverUrl = process.env.PLATEROOM_TEST_PG_URL;
+// in-process PGlite by default, or in the PostgreSQL run (npm run test:pg) a database on its server.
+const serverUrl = postgresRunUrl();
 let dropDatabase: (() => Promise<void>) | undefined;
 
 if (serverUrl) {

@@ -1,5 +1,6 @@
 import sharp from "sharp";
 import { srgbEncode } from "@/lib/lab/srgb";
+import { gaussianSource } from "@/lib/lab/synthetic";
 import { mulberry32 } from "@/lib/random";
 
 /*
@@ -106,21 +107,6 @@ export function hueOf([r, g, b]: readonly number[]): number {
   let h = max === r ? ((g! - b!) / d) % 6 : max === g ? (b! - r!) / d + 2 : (r! - g!) / d + 4;
   h *= 60;
   return h < 0 ? h + 360 : h;
-}
-
-export function gaussianSource(rand: () => number): () => number {
-  let spare: number | null = null;
-  return () => {
-    if (spare !== null) {
-      const s = spare;
-      spare = null;
-      return s;
-    }
-    const u = Math.max(rand(), 1e-12), v = rand();
-    const r = Math.sqrt(-2 * Math.log(u));
-    spare = r * Math.sin(2 * Math.PI * v);
-    return r * Math.cos(2 * Math.PI * v);
-  };
 }
 
 function angleBetween(a: readonly number[], b: readonly number[]): number {

@@ -8,6 +8,7 @@ import { followSearchChanges, SEARCH_POLL_MS, type SearchFollower } from "@/lib/
 import { rebuildSearchFromDb } from "@/lib/techniques/search-sync";
 import { createPerson, simpleDoc } from "@/tests/factories";
 import { createTechnique } from "@/lib/techniques/mutations";
+import { postgresRunUrl } from "@/tests/global-setup";
 
 /*
  * Several instances on one PostgreSQL server (README, "Beyond one machine"): a change committed
@@ -15,11 +16,11 @@ import { createTechnique } from "@/lib/techniques/mutations";
  * LISTEN/NOTIFY (PostgreSQL documentation, NOTIFY: delivered after the sending transaction
  * commits), well before the 30-second poll. "Another instance" here is a separate connection
  * that writes with plain SQL, so nothing in this process reindexes except the change feed.
- * Needs the CI's PostgreSQL (PLATEROOM_TEST_PG_URL); tests/e2e/several-instances.test.ts runs
+ * Runs in the PostgreSQL run (npm run test:pg); tests/e2e/several-instances.test.ts runs
  * two whole app instances.
  */
 
-const serverUrl = process.env.PLATEROOM_TEST_PG_URL;
+const serverUrl = postgresRunUrl();
 
 describe.skipIf(!serverUrl)("search index kept in step across instances by LISTEN/NOTIFY", () => {
   let follower: SearchFollower;

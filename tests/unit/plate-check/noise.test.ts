@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { immerkaerSigma, laplacianAbsSums, laplacianAbsSumsRgb, median, robustSigma } from "@/lib/plate-check/noise";
 import { mulberry32 } from "@/lib/random";
 import { hasScipy, runPython } from "@/tests/plate-check/python";
-import { gaussianSource } from "@/tests/plate-check/synthetic-plates";
+import { gaussianSource } from "@/lib/lab/synthetic";
 
 /*
  * The single-frame noise estimate. Source: J. Immerkær, "Fast Noise Variance Estimation",
