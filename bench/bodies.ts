@@ -11,6 +11,7 @@ import fs from "node:fs";
 import http from "node:http";
 import os from "node:os";
 import { createApiToken } from "@/bench/lib/http-client";
+import { treeRss } from "@/bench/lib/process-memory";
 import { writeResultsKey } from "@/bench/lib/results";
 import { DEMO_PASSWORD, copySeededData, startServerOn } from "@/tests/e2e/harness";
 
@@ -19,31 +20,8 @@ const BODY_BYTES = 300 * 1024 * 1024;
 const CHUNK = Buffer.alloc(64 * 1024, "1");
 const ROUTES = ["/api/lab/run", "/api/lab/solve", "/api/tokens", "/api/techniques"];
 
-/** Resident memory of a process and all its descendants, in MB (Linux /proc). */
-function treeRssMb(pid: number): number {
-  const children = new Map<number, number[]>();
-  for (const entry of fs.readdirSync("/proc")) {
-    if (!/^\d+$/.test(entry)) continue;
-    try {
-      const stat = fs.readFileSync(`/proc/${entry}/stat`, "utf8");
-      const ppid = Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[1]);
-      children.set(ppid, [...(children.get(ppid) ?? []), Number(entry)]);
-    } catch {
-      // the process ended while we looked
-    }
-  }
-  let kb = 0;
-  const visit = (p: number) => {
-    try {
-      kb += Number(/VmRSS:\s+(\d+)/.exec(fs.readFileSync(`/proc/${p}/status`, "utf8"))?.[1] ?? 0);
-    } catch {
-      // ended
-    }
-    for (const c of children.get(p) ?? []) visit(c);
-  };
-  visit(pid);
-  return Math.round(kb / 1024);
-}
+/** Resident memory of the server and its children, in MB. */
+const treeRssMb = (pid: number): number => Math.round(treeRss(pid) / (1024 * 1024));
 
 type Outcome = { status: number | "closed"; sentMb: number; ms: number };
 
