@@ -23,7 +23,12 @@ const nextConfig: NextConfig = {
     ];
   },
   typedRoutes: false,
+  // The browser tests' build (tests/e2e/harness.ts) sets PLATEROOM_TEST_BUILD: npm test runs `tsc`
+  // on the whole project itself, so that build skips Next's second pass over the same types, and
+  // in CI (a fresh clone, built once) it writes no Turbopack cache that nothing would read.
+  typescript: { ignoreBuildErrors: process.env.PLATEROOM_TEST_BUILD === "1" },
   experimental: {
+    turbopackFileSystemCacheForBuild: !(process.env.PLATEROOM_TEST_BUILD === "1" && process.env.CI),
     serverActions: { bodySizeLimit: "2mb" },
     // forbidden() and forbidden.tsx: pages refused for a role answer 403 (app/(app)/forbidden.tsx).
     authInterrupts: true,

@@ -28,6 +28,8 @@ export default defineConfig({
         test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
+          // The build and the seeded data, side by side, before any file (tests/e2e/global-setup.ts).
+          globalSetup: ["tests/e2e/global-setup.ts"],
           fileParallelism: false,
           testTimeout: 90_000,
         },

@@ -39,8 +39,25 @@ function newestMtime(paths: string[]): number {
 /** Runs a command to its end; its output (stdout, then stderr) is returned, or thrown with the exit status. */
 function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): string {
   const r = spawnSync(cmd, args, { cwd: root, env, encoding: "utf8", stdio: ["ignore", "pipe", "pipe"], maxBuffer: 64 * 1024 * 1024 });
-  if (r.status !== 0) throw new Error(`${path.basename(cmd)} ${args.join(" ")} failed (${r.status}):\n${r.stdout?.slice(-4000)}\n${r.stderr?.slice(-4000)}`);
+  if (r.status !== 0) throw new Error(failure(cmd, args, r.status, r.stdout ?? "", r.stderr ?? ""));
   return `${r.stdout ?? ""}${r.stderr ?? ""}`;
+}
+
+/** `run`, without blocking this process (so two commands can run side by side). */
+function runAsync(cmd: string, args: string[], env: NodeJS.ProcessEnv): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(cmd, args, { cwd: root, env, stdio: ["ignore", "pipe", "pipe"] });
+    let stdout = "";
+    let stderr = "";
+    child.stdout.on("data", (d: Buffer) => (stdout += d.toString()));
+    child.stderr.on("data", (d: Buffer) => (stderr += d.toString()));
+    child.once("error", reject);
+    child.once("close", (status) => (status === 0 ? resolve(`${stdout}${stderr}`) : reject(new Error(failure(cmd, args, status, stdout, stderr)))));
+  });
+}
+
+function failure(cmd: string, args: string[], status: number | null, stdout: string, stderr: string): string {
+  return `${path.basename(cmd)} ${args.join(" ")} failed (${status}):\n${stdout.slice(-4000)}\n${stderr.slice(-4000)}`;
 }
 
 const SOURCES = ["app", "components", "lib", "db", "public", "proxy.ts", "instrumentation.ts", "next.config.ts", "package-lock.json", "postcss.config.mjs"];
@@ -50,23 +67,32 @@ function baseEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
   return { ...rest, NEXT_TELEMETRY_DISABLED: "1", ...extra } as unknown as NodeJS.ProcessEnv;
 }
 
-const distDir = process.env.PLATEROOM_DIST_DIR || ".next";
+/**
+ * The tests' build has its own folder, so `npm test` can build it while `npm run typecheck`
+ * generates the route types in `.next` beside it (PLATEROOM_DIST_DIR picks another folder).
+ */
+const distDir = process.env.PLATEROOM_DIST_DIR || ".next-e2e";
 
-/** A cross-process lock (mkdir is atomic), so parallel runs never build or seed into the same folder at once. */
-function withLock<T>(name: string, work: () => T): T {
-  const lock = path.join(os.tmpdir(), `plateroom-${name}.lock`);
-  const started = Date.now();
-  for (;;) {
-    try {
-      fs.mkdirSync(lock);
-      break;
-    } catch {
-      // A lock older than 20 minutes belongs to a run that died.
-      if (Date.now() - (fs.statSync(lock, { throwIfNoEntry: false })?.mtimeMs ?? Date.now()) > 20 * 60_000) fs.rmSync(lock, { recursive: true, force: true });
-      if (Date.now() - started > 30 * 60_000) throw new Error(`Timed out waiting for ${lock}`);
-      Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 1000);
-    }
+/** Tries to take a cross-process lock (mkdir is atomic); clears a lock left by a run that died. */
+function tryLock(lock: string, started: number): boolean {
+  try {
+    fs.mkdirSync(lock);
+    return true;
+  } catch {
+    // A lock older than 20 minutes belongs to a run that died.
+    if (Date.now() - (fs.statSync(lock, { throwIfNoEntry: false })?.mtimeMs ?? Date.now()) > 20 * 60_000) fs.rmSync(lock, { recursive: true, force: true });
+    if (Date.now() - started > 30 * 60_000) throw new Error(`Timed out waiting for ${lock}`);
+    return false;
   }
+}
+
+const lockPath = (name: string) => path.join(os.tmpdir(), `plateroom-${name}.lock`);
+
+/** A cross-process lock, so parallel runs never build or seed into the same folder at once. */
+function withLock<T>(name: string, work: () => T): T {
+  const lock = lockPath(name);
+  const started = Date.now();
+  while (!tryLock(lock, started)) Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 1000);
   try {
     return work();
   } finally {
@@ -74,27 +100,86 @@ function withLock<T>(name: string, work: () => T): T {
   }
 }
 
+async function withLockAsync<T>(name: string, work: () => Promise<T>): Promise<T> {
+  const lock = lockPath(name);
+  const started = Date.now();
+  while (!tryLock(lock, started)) await new Promise((r) => setTimeout(r, 1000));
+  try {
+    return await work();
+  } finally {
+    fs.rmSync(lock, { recursive: true, force: true });
+  }
+}
+
+/** A step that makes something the browser tests need, under its lock, unless it is already there. */
+type Step = { lock: string; done(): boolean; command: [string, string[], NodeJS.ProcessEnv]; before(): void; after(output: string): void; cleanup(): void };
+
+function runStep(step: Step): void {
+  withLock(step.lock, () => {
+    if (step.done()) return;
+    step.before();
+    try {
+      step.after(run(...step.command));
+    } finally {
+      step.cleanup();
+    }
+  });
+}
+
+async function runStepAsync(step: Step): Promise<void> {
+  await withLockAsync(step.lock, async () => {
+    if (step.done()) return;
+    step.before();
+    try {
+      step.after(await runAsync(...step.command));
+    } finally {
+      step.cleanup();
+    }
+  });
+}
+
+const buildLog = path.join(root, distDir, "build.log");
+
 /**
  * Builds the app when there is no build or a source is newer than it. The build's output is kept
  * beside it, and a build that printed a warning fails every browser test (scripts/build-log.ts).
  */
-export function ensureBuild(): void {
-  const buildLog = path.join(root, distDir, "build.log");
-  withLock(`build-${distDir.replace(/[^a-z0-9]/gi, "_")}`, () => {
-    const buildId = path.join(root, distDir, "BUILD_ID");
-    if (fs.existsSync(buildId) && fs.existsSync(buildLog) && fs.statSync(buildId).mtimeMs >= newestMtime(SOURCES)) return;
-    // Under CI, next build warns "No build cache found" when <dist>/cache is missing (a fresh clone):
-    // the folder is where it keeps its cache, so make it rather than let the notice fail the check.
-    fs.mkdirSync(path.join(root, distDir, "cache"), { recursive: true });
-    const output = run(bin("next"), ["build"], baseEnv({ NODE_ENV: "production", PLATEROOM_DIST_DIR: distDir }));
-    fs.writeFileSync(buildLog, output);
-  });
+function buildStep(): Step {
+  const buildId = path.join(root, distDir, "BUILD_ID");
+  const tsconfigPath = path.join(root, "tsconfig.json");
+  let tsconfig = "";
+  return {
+    lock: `build-${distDir.replace(/[^a-z0-9]/gi, "_")}`,
+    done: () => fs.existsSync(buildId) && fs.existsSync(buildLog) && fs.statSync(buildId).mtimeMs >= newestMtime(SOURCES),
+    // PLATEROOM_TEST_BUILD: no second type check (npm run typecheck covers it), see next.config.ts.
+    command: [bin("next"), ["build"], baseEnv({ NODE_ENV: "production", PLATEROOM_DIST_DIR: distDir, PLATEROOM_TEST_BUILD: "1" })],
+    before() {
+      // Under CI, next build warns "No build cache found" when <dist>/cache is missing (a fresh clone):
+      // the folder is where it keeps its cache, so make it rather than let the notice fail the check.
+      fs.mkdirSync(path.join(root, distDir, "cache"), { recursive: true });
+      tsconfig = fs.readFileSync(tsconfigPath, "utf8");
+    },
+    after: (output) => fs.writeFileSync(buildLog, output),
+    // next build adds its folder's type globs to tsconfig.json: not to be committed (and the
+    // exclude of .next-* leaves them out anyway), so the file is put back as it was.
+    cleanup() {
+      if (fs.readFileSync(tsconfigPath, "utf8") !== tsconfig) fs.writeFileSync(tsconfigPath, tsconfig);
+    },
+  };
+}
+
+function checkBuildLog(): void {
   const warnings = buildWarnings(fs.readFileSync(buildLog, "utf8"));
   if (warnings.length) throw new Error(`next build printed ${warnings.length} warning line(s) (full output in ${path.relative(root, buildLog)}):\n${warnings.join("\n")}`);
 }
 
+export function ensureBuild(): void {
+  runStep(buildStep());
+  checkBuildLog();
+}
+
 /** A migrated and seeded data folder, made once and reused while migrations and seed data stay the same. */
-export function seededTemplate(): { data: string; uploads: string } {
+function seedStep(): Step & { data: string; uploads: string } {
   const stamp = crypto
     .createHash("sha256")
     .update(String(newestMtime(["db", "scripts/seed", "scripts/seed.ts", "lib/lab/synthetic.ts"])))
@@ -103,14 +188,28 @@ export function seededTemplate(): { data: string; uploads: string } {
   const dir = path.join(root, "tests", ".tmp", `e2e-template-${stamp}`);
   const data = path.join(dir, "data");
   const uploads = path.join(dir, "uploads");
-  withLock("seed-template", () => {
-    if (fs.existsSync(path.join(dir, "ready"))) return;
-    fs.rmSync(dir, { recursive: true, force: true });
-    const env = baseEnv({ PLATEROOM_DATA_DIR: data, PLATEROOM_UPLOADS_DIR: uploads });
-    run(bin("tsx"), ["-C", "react-server", "scripts/seed.ts"], env);
-    fs.writeFileSync(path.join(dir, "ready"), new Date().toISOString());
-  });
-  return { data, uploads };
+  return {
+    data,
+    uploads,
+    lock: "seed-template",
+    done: () => fs.existsSync(path.join(dir, "ready")),
+    command: [bin("tsx"), ["-C", "react-server", "scripts/seed.ts"], baseEnv({ PLATEROOM_DATA_DIR: data, PLATEROOM_UPLOADS_DIR: uploads })],
+    before: () => fs.rmSync(dir, { recursive: true, force: true }),
+    after: () => fs.writeFileSync(path.join(dir, "ready"), new Date().toISOString()),
+    cleanup: () => undefined,
+  };
+}
+
+export function seededTemplate(): { data: string; uploads: string } {
+  const step = seedStep();
+  runStep(step);
+  return { data: step.data, uploads: step.uploads };
+}
+
+/** The build and the seeded template side by side (they do not depend on each other): the browser tests' global setup. */
+export async function prepareBuildAndData(): Promise<void> {
+  await Promise.all([runStepAsync(buildStep()), runStepAsync(seedStep())]);
+  checkBuildLog();
 }
 
 export function freePort(): Promise<number> {
@@ -192,15 +291,34 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
-/** Signs in through the sign-in page, as a person would. */
+type Cookies = Awaited<ReturnType<BrowserContext["cookies"]>>;
+/** The session cookies of each person already signed in on an app, and the page sign-in led to. */
+const signedIn = new Map<string, { cookies: Cookies; landing: string }>();
+
+/**
+ * Signs in through the sign-in page, as a person would. The first time per app and person only:
+ * later calls open a fresh context holding that session's cookies (nothing else of the earlier
+ * context) on the page the sign-in led to, and sign in again if the session has ended.
+ */
 export async function signIn(browser: Browser, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1400, height: 900 } });
   const page = await context.newPage();
+  const key = `${baseUrl} ${email} ${password}`;
+  const saved = signedIn.get(key);
+  if (saved) {
+    await context.addCookies(saved.cookies);
+    await page.goto(saved.landing);
+    if (!new URL(page.url()).pathname.startsWith("/login")) return { context, page };
+    signedIn.delete(key);
+    await context.clearCookies();
+  }
   await page.goto("/login");
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL((url) => !url.pathname.startsWith("/login"), { timeout: 30_000 });
+  const landing = new URL(page.url());
+  signedIn.set(key, { cookies: await context.cookies(), landing: `${landing.pathname}${landing.search}` });
   return { context, page };
 }
 
