@@ -1,7 +1,11 @@
+import { availableParallelism } from "node:os";
 import { fileURLToPath } from "node:url";
 import { defineConfig } from "vitest/config";
 
 const root = fileURLToPath(new URL("./", import.meta.url));
+// Vitest's default is one worker fewer than the cores: one on a 2-core machine, where npm test's
+// other parts then end and leave this suite running alone on one core. Two let it use both.
+const workers = Math.max(2, availableParallelism() - 1);
 
 export default defineConfig({
   resolve: {
@@ -18,10 +22,10 @@ export default defineConfig({
     testTimeout: 30_000,
     hookTimeout: 120_000,
     projects: [
-      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"] } },
+      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"], maxWorkers: workers } },
       {
         extends: true,
-        test: { name: "integration", include: ["tests/integration/**/*.test.ts"], setupFiles: ["tests/integration/setup.ts"] },
+        test: { name: "integration", include: ["tests/integration/**/*.test.ts"], setupFiles: ["tests/integration/setup.ts"], maxWorkers: workers },
       },
       {
         extends: true,
@@ -30,7 +34,9 @@ export default defineConfig({
           include: ["tests/e2e/**/*.test.ts"],
           // The build and the seeded data, side by side, before any file (tests/e2e/global-setup.ts).
           globalSetup: ["tests/e2e/global-setup.ts"],
-          fileParallelism: false,
+          // Two files at a time: each starts its own app on its own copy of the data, and a file
+          // spends much of its time waiting on its app or its browser, so two keep 2 cores busy.
+          maxWorkers: 2,
           testTimeout: 90_000,
         },
       },

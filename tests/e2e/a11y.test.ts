@@ -1,8 +1,8 @@
-import type { Page } from "playwright-core";
+import type { BrowserContext, Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
 import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
 import { useAppAndBrowser } from "@/tests/e2e/running-app";
-import { seriousViolations } from "@/tests/e2e/axe";
+import { networkQuiet, seriousViolations, watchRequests } from "@/tests/e2e/axe";
 
 /*
  * Issue 13, item 9: every page, for every role, checked in Chromium with axe-core (Deque's engine
@@ -39,10 +39,35 @@ const ROLES: Record<string, string[]> = {
   "admin@kestrel.test": [...EVERYONE, ...ADMINS],
 };
 
-/** Waits for client rendering to settle: the editor's toolbar, the lab, lists that load after paint. */
+/** Pages checked at once per person: their waits for the server and the network overlap. */
+const TABS = 3;
+
+/** Waits for client rendering to settle: lists that load after paint, then the editor's toolbar. */
 async function settle(page: Page): Promise<void> {
-  await page.waitForLoadState("networkidle", { timeout: 15_000 }).catch(() => undefined);
+  await networkQuiet(page);
   if (/\/edit$|\/new$/.test(new URL(page.url()).pathname)) await page.getByRole("toolbar", { name: "Formatting" }).waitFor();
+}
+
+/**
+ * Opens each address in one of a few tabs of the signed-in context and runs axe-core on it once
+ * it has settled; the violations, each prefixed with the address (and `label`).
+ */
+async function sweep(context: BrowserContext, urls: string[], label = ""): Promise<string[]> {
+  const queue = [...urls];
+  const found: string[] = [];
+  await Promise.all(
+    Array.from({ length: Math.min(TABS, queue.length) }, async () => {
+      const page = await context.newPage();
+      watchRequests(page);
+      for (let url = queue.shift(); url !== undefined; url = queue.shift()) {
+        await page.goto(url);
+        await settle(page);
+        for (const v of await seriousViolations(page)) found.push(`${url}${label}: ${v}`);
+      }
+      await page.close();
+    }),
+  );
+  return found;
 }
 
 describe.skipIf(!hasChromium())("accessibility of every page for every role (axe-core)", () => {
@@ -50,18 +75,11 @@ describe.skipIf(!hasChromium())("accessibility of every page for every role (axe
 
   for (const [email, paths] of Object.entries(ROLES)) {
     it(`${email.split("@")[0]}: no serious or critical violations, in both themes on the technique page`, async () => {
-      const { context, page } = await signIn(running.browser, running.app.baseUrl, email);
-      const found: string[] = [];
-      for (const url of paths) {
-        await page.goto(url);
-        await settle(page);
-        for (const v of await seriousViolations(page)) found.push(`${url}: ${v}`);
-      }
+      const { context } = await signIn(running.browser, running.app.baseUrl, email);
+      const found = await sweep(context, paths);
       // The light theme has its own colours: check the densest page in it too.
       await context.addCookies([{ name: "plateroom-theme", value: "light", url: running.app.baseUrl }]);
-      await page.goto(`/techniques/${MARKER}`);
-      await settle(page);
-      for (const v of await seriousViolations(page)) found.push(`/techniques/${MARKER} (light): ${v}`);
+      found.push(...(await sweep(context, [`/techniques/${MARKER}`], " (light)")));
       expect(found, found.join("\n")).toEqual([]);
       await context.close();
     });
@@ -71,6 +89,7 @@ describe.skipIf(!hasChromium())("accessibility of every page for every role (axe
     const found: string[] = [];
     for (const email of ["artist@kestrel.test", "lead@kestrel.test"]) {
       const { context, page } = await signIn(running.browser, running.app.baseUrl, email);
+      watchRequests(page);
       await page.goto("/thesaurus");
       await settle(page);
       for (const v of await seriousViolations(page)) found.push(`${email} /thesaurus: ${v}`);
@@ -88,13 +107,7 @@ describe.skipIf(!hasChromium())("accessibility of every page for every role (axe
 
   it("signed out: the sign-in pages", async () => {
     const context = await running.browser.newContext({ baseURL: running.app.baseUrl });
-    const page = await context.newPage();
-    const found: string[] = [];
-    for (const url of ["/login", "/forgot-password", "/set-password?token=nothing", "/unsubscribe?token=nothing"]) {
-      await page.goto(url);
-      await settle(page);
-      for (const v of await seriousViolations(page)) found.push(`${url}: ${v}`);
-    }
+    const found = await sweep(context, ["/login", "/forgot-password", "/set-password?token=nothing", "/unsubscribe?token=nothing"]);
     expect(found, found.join("\n")).toEqual([]);
     await context.close();
   });
@@ -109,6 +122,7 @@ describe.skipIf(!hasChromium())("accessibility of every page for every role (axe
     for (const v of await seriousViolations(page)) found.push(`finder: ${v}`);
     await page.keyboard.press("Escape");
 
+    watchRequests(page);
     await page.goto(`/techniques/${MARKER}/edit`);
     await settle(page);
     await page.getByRole("toolbar", { name: "Formatting" }).getByRole("button", { name: "Add a still" }).click();

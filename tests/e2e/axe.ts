@@ -23,3 +23,43 @@ export async function seriousViolations(page: Page): Promise<string[]> {
     .flatMap((v) => v.nodes.map((n) => `${v.id} (${v.impact}): ${v.help} at ${n.target.join(" ")} — ${n.failureSummary ?? ""}`));
 }
 
+
+const requestsOf = new WeakMap<Page, { inFlight: number; lastChange: number }>();
+
+/** Counts the page's requests in flight from now on (call it before the page navigates). */
+export function watchRequests(page: Page): void {
+  if (requestsOf.has(page)) return;
+  const state = { inFlight: 0, lastChange: Date.now() };
+  requestsOf.set(page, state);
+  const change = (delta: number) => {
+    state.inFlight = Math.max(0, state.inFlight + delta);
+    state.lastChange = Date.now();
+  };
+  page.on("request", () => change(1));
+  page.on("requestfinished", () => change(-1));
+  page.on("requestfailed", () => change(-1));
+}
+
+/**
+ * Waits until the page has loaded, no request is in flight, and its main thread has gone idle
+ * with still none started (hydration done, the effects that fetch lists have run and their
+ * answers rendered). The real condition, in place of a fixed half-second of network silence;
+ * gives up quietly after `timeoutMs`, as Playwright's "networkidle" wait did here.
+ */
+export async function networkQuiet(page: Page, timeoutMs = 15_000): Promise<void> {
+  const state = requestsOf.get(page);
+  if (!state) throw new Error("networkQuiet needs watchRequests(page) before the page navigates");
+  const until = Date.now() + timeoutMs;
+  await page.waitForLoadState("load", { timeout: timeoutMs }).catch(() => undefined);
+  while (Date.now() < until) {
+    if (state.inFlight > 0 || Date.now() - state.lastChange < 100) {
+      await new Promise((r) => setTimeout(r, 20));
+      continue;
+    }
+    const seen = state.lastChange;
+    const idle = await page
+      .evaluate(() => new Promise<boolean>((resolve) => requestIdleCallback((deadline) => resolve(!deadline.didTimeout), { timeout: 2000 })))
+      .catch(() => false);
+    if (idle && state.inFlight === 0 && state.lastChange === seen) return;
+  }
+}
