@@ -6,6 +6,7 @@ import os from "node:os";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Locator, type Page } from "playwright-core";
 import { buildWarnings } from "@/scripts/build-log";
+import { startFakeSmtp } from "@/scripts/fake-smtp/server";
 
 /**
  * Drives the built app the way people use it: a production build on a free port with its own
@@ -258,17 +259,23 @@ export async function startApp(options: { env?: Record<string, string>; nodeArgs
     ...options.env,
   });
   let output = "";
-  const smtp = spawn(bin("tsx"), ["-C", "react-server", "scripts/fake-smtp.ts", "--port", String(smtpPort), "--dir", inboxDir], { cwd: root, env });
+  // The fake SMTP server (scripts/fake-smtp/server.ts) runs in this process: a process of its own
+  // per app cost a TypeScript compile at every start.
+  const smtp = await startFakeSmtp({ port: smtpPort, host: "127.0.0.1", storeDir: inboxDir, quiet: true });
   // nodeArgs (benchmarks: --cpu-prof, which NODE_OPTIONS refuses) go to the node running `next start`.
   const app = options.nodeArgs?.length
     ? spawn(process.execPath, [...options.nodeArgs, bin("next"), "start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env })
     : spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env });
-  for (const child of [smtp, app]) {
-    child.stdout?.on("data", (d: Buffer) => (output += d.toString()));
-    child.stderr?.on("data", (d: Buffer) => (output += d.toString()));
-  }
+  app.stdout?.on("data", (d: Buffer) => (output += d.toString()));
+  app.stderr?.on("data", (d: Buffer) => (output += d.toString()));
   const baseUrl = `http://127.0.0.1:${port}`;
-  await waitFor(`${baseUrl}/api/health`, app, () => output.slice(-6000));
+  try {
+    await waitFor(`${baseUrl}/api/health`, app, () => output.slice(-6000));
+  } catch (error) {
+    if (app.exitCode === null) app.kill("SIGKILL");
+    await smtp.stop();
+    throw error;
+  }
   return {
     baseUrl,
     dataDir,
@@ -277,8 +284,13 @@ export async function startApp(options: { env?: Record<string, string>; nodeArgs
     smtpPort,
     pid: app.pid ?? 0,
     async stop() {
-      for (const child of [app, smtp]) if (child.exitCode === null) child.kill("SIGTERM");
-      await new Promise((r) => setTimeout(r, 500));
+      if (app.exitCode === null && app.signalCode === null) {
+        const exited = new Promise((r) => app.once("exit", r));
+        app.kill("SIGTERM");
+        await Promise.race([exited, new Promise((r) => setTimeout(r, 5_000))]);
+      }
+      // Open client connections could hold close() for ever.
+      await Promise.race([smtp.stop(), new Promise((r) => setTimeout(r, 2_000))]);
       fs.rmSync(work, { recursive: true, force: true });
     },
   };
