@@ -1,11 +1,7 @@
-import { availableParallelism } from "node:os";
 import { fileURLToPath } from "node:url";
 import { defineConfig } from "vitest/config";
 
 const root = fileURLToPath(new URL("./", import.meta.url));
-// Vitest's default is one worker fewer than the cores: one on a 2-core machine, where npm test's
-// other parts then end and leave this suite running alone on one core. Two let it use both.
-const workers = Math.max(2, availableParallelism() - 1);
 
 export default defineConfig({
   resolve: {
@@ -22,10 +18,10 @@ export default defineConfig({
     testTimeout: 30_000,
     hookTimeout: 120_000,
     projects: [
-      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"], maxWorkers: workers } },
+      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"] } },
       {
         extends: true,
-        test: { name: "integration", include: ["tests/integration/**/*.test.ts"], setupFiles: ["tests/integration/setup.ts"], maxWorkers: workers },
+        test: { name: "integration", include: ["tests/integration/**/*.test.ts"], setupFiles: ["tests/integration/setup.ts"] },
       },
       {
         extends: true,
