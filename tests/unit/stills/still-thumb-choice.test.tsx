@@ -34,18 +34,18 @@ describe("still thumbnail choice", () => {
   it("in the pair editor: one card a still in each group, with thumbnail, alt text and size; picking one checks it", () => {
     act(() => root.render(<PairEditor technique="dust-lift" stills={STILLS} />));
     const [before, after] = [...host.querySelectorAll("fieldset")];
-    expect(radios(before!)).toHaveLength(3);
-    expect(radios(after!)).toHaveLength(3);
+    expect(radios(before)).toHaveLength(3);
+    expect(radios(after)).toHaveLength(3);
     // Starting choices follow the stills' roles.
-    expect(radios(before!).map((r) => r.checked)).toEqual([true, false, false]);
-    expect(radios(after!).map((r) => r.checked)).toEqual([false, true, false]);
-    const card = labelOf(radios(before!)[2]!);
+    expect(radios(before).map((r) => r.checked)).toEqual([true, false, false]);
+    expect(radios(after).map((r) => r.checked)).toEqual([false, true, false]);
+    const card = labelOf(radios(before)[2]!);
     expect(card.querySelector("img")!.getAttribute("src")).toBe(`/api/stills/${STILLS[2]!.id}/thumb`);
     expect(card.querySelector("img")!.getAttribute("alt")).toBe("Denoised sky");
     expect(card.textContent).toContain("64×36 · reference");
-    act(() => radios(before!)[2]!.click());
-    expect(radios(before!).map((r) => r.checked)).toEqual([false, false, true]);
-    expect(labelOf(radios(before!)[2]!).className).toContain("border-accent");
+    act(() => radios(before)[2]!.click());
+    expect(radios(before).map((r) => r.checked)).toEqual([false, false, true]);
+    expect(labelOf(radios(before)[2]!).className).toContain("border-accent");
   });
 
   it("in the recipe's denoised-plate picker: the same cards, and a pick reports the still's id", () => {
