@@ -1,11 +1,9 @@
 // @vitest-environment jsdom
 import { act } from "react";
-import { createRoot, type Root } from "react-dom/client";
-import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { DenoisedStillPicker, RecipeStillsProvider } from "@/components/lab/recipe/denoised-still-picker";
 import { PairEditor } from "@/components/stills/pair-editor";
-
-(globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
+import { mountEachTest } from "@/tests/unit/dom-root";
 
 /* The still thumbnails both pickers offer are one card: a radio button named by the still's alt text. */
 
@@ -15,25 +13,15 @@ const STILLS = [
   { id: "33333333-3333-4333-8333-333333333333", alt: "Denoised sky", role: "reference" as const, width: 64, height: 36 },
 ];
 
-let host: HTMLDivElement;
-let root: Root;
-beforeEach(() => {
-  host = document.createElement("div");
-  document.body.append(host);
-  root = createRoot(host);
-});
-afterEach(() => {
-  act(() => root.unmount());
-  host.remove();
-});
+const dom = mountEachTest();
 
-const radios = (within: Element = host) => [...within.querySelectorAll<HTMLInputElement>('input[type="radio"]')];
+const radios = (within: Element = dom.host) => [...within.querySelectorAll<HTMLInputElement>('input[type="radio"]')];
 const labelOf = (input: HTMLInputElement) => input.closest("label")!;
 
 describe("still thumbnail choice", () => {
   it("in the pair editor: one card a still in each group, with thumbnail, alt text and size; picking one checks it", () => {
-    act(() => root.render(<PairEditor technique="dust-lift" stills={STILLS} />));
-    const [before, after] = [...host.querySelectorAll("fieldset")];
+    dom.render(<PairEditor technique="dust-lift" stills={STILLS} />);
+    const [before, after] = [...dom.host.querySelectorAll("fieldset")];
     expect(radios(before)).toHaveLength(3);
     expect(radios(after)).toHaveLength(3);
     // Starting choices follow the stills' roles.
@@ -50,12 +38,10 @@ describe("still thumbnail choice", () => {
 
   it("in the recipe's denoised-plate picker: the same cards, and a pick reports the still's id", () => {
     const onChange = vi.fn();
-    act(() =>
-      root.render(
-        <RecipeStillsProvider stills={STILLS}>
-          <DenoisedStillPicker id="grain" value={STILLS[0]!.id} onChange={onChange} />
-        </RecipeStillsProvider>,
-      ),
+    dom.render(
+      <RecipeStillsProvider stills={STILLS}>
+        <DenoisedStillPicker id="grain" value={STILLS[0]!.id} onChange={onChange} />
+      </RecipeStillsProvider>,
     );
     expect(radios().map((r) => r.checked)).toEqual([true, false, false]);
     expect(radios().map((r) => labelOf(r).querySelector("img")!.getAttribute("alt"))).toEqual(["Sky with dust", "Sky after dust lift", "Denoised sky"]);
