@@ -182,6 +182,24 @@ describe("scoring", () => {
     expect(at(0)).toBeGreaterThan(at(2));
     expect(s.coverage[s.ids.indexOf(1)]).toBeCloseTo(2 / 3, 5);
   });
+
+  it("lets a thesaurus term on most pages add to pages the word found, but bring in none of its own", () => {
+    const docs = [
+      doc({ title: "Crash mats", bodyText: "pads" }),
+      doc({ title: "Landing pads on the ground" }),
+      ...Array.from({ length: 8 }, (_, i) => doc({ title: `Other ${i}`, bodyText: "pads everywhere" })),
+    ];
+    const { ctx, scorer } = build(docs, [{ kind: "synonyms", terms: ["mat", "pad"] }]);
+    const plan = parseQuery("mats", ctx, { prefix: "none", exact: false });
+    expect(plan.units[0]?.alternatives.map((a) => a.kind)).toEqual(["exact", "synonym"]);
+    const s = scorer.score(plan, 0b1111111, docs.length);
+    // "pad" is on 10 of 10 pages: only page 0, found by "mats" itself, is a candidate.
+    expect(s.ids).toEqual([0]);
+    // Where no page says the word typed, the same term finds its pages.
+    const { ctx: ctx2, scorer: scorer2 } = build(docs.slice(1), [{ kind: "synonyms", terms: ["mat", "pad"] }]);
+    const s2 = scorer2.score(parseQuery("mats", ctx2, { prefix: "none", exact: false }), 0b1111111, docs.length - 1);
+    expect(s2.ids.length).toBe(9);
+  });
 });
 
 describe("ranking rules", () => {
