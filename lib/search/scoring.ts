@@ -49,12 +49,21 @@ export const ALTERNATIVE_WEIGHTS = {
   synonym: 0.5,
   /** A narrower thesaurus term reaching its broader one ("tracker" → marker): looser still. */
   broader: 0.4,
+  /** A symptom word of the built-in lexicon reaching a problem name ("blotchy" → uneven): loosest. */
+  related: 0.3,
 } as const;
 
 /** Alternatives that count well under the word typed: thesaurus terms and completions (and corrections past one edit). */
-const WEAK_KINDS: ReadonlySet<Alternative["kind"]> = new Set(["synonym", "broader", "prefix"]);
+const WEAK_KINDS: ReadonlySet<Alternative["kind"]> = new Set(["synonym", "broader", "related", "prefix"]);
 /** A weak alternative of a stem on more than this share of the pages only adds to pages found otherwise. */
 export const JOIN_ONLY_SHARE = 0.25;
+/** …and on more pages than this: in a small department every page is cheap to score, so none is cut. */
+export const JOIN_ONLY_MIN_PAGES = 200;
+
+/** Alternatives that come from the thesaurus or the symptom lexicon rather than from the word typed. */
+export function isThesaurusKind(kind: Alternative["kind"]): boolean {
+  return kind === "synonym" || kind === "broader" || kind === "related";
+}
 
 /** A partial word completed: the more of it typed, the likelier; a complete word less likely a start. */
 export function completionWeight(typed: string, word: string, typedIsWord: boolean): number {
@@ -214,7 +223,7 @@ export class Scorer {
       if (!strongInColumn || !isWeak(alt)) return false;
       let rarest = Number.POSITIVE_INFINITY;
       for (const sid of alt.stems) rarest = Math.min(rarest, store.docFreq(sid));
-      return rarest > JOIN_ONLY_SHARE * N;
+      return rarest > JOIN_ONLY_MIN_PAGES && rarest > JOIN_ONLY_SHARE * N;
     };
 
     const runAlternatives = (alternatives: Alternative[], column: number, pass: "seed" | "join"): void => {
@@ -234,7 +243,7 @@ export class Scorer {
         };
         // Naming (ranking rule 4) counts the query's own words only: a page names the problem better
         // by saying it, not by a thesaurus term for it.
-        const namingShare = alt.kind === "synonym" || alt.kind === "broader" ? 0 : 1;
+        const namingShare = isThesaurusKind(alt.kind) ? 0 : 1;
         if (alt.stems.length === 1) {
           const sid = alt.stems[0] as number;
           const sc = stemScores(sid);
@@ -264,7 +273,7 @@ export class Scorer {
         // page; the alternative scores the mean of its stems.
         // A thesaurus phrase counts where its words are likely to stand together, in the short fields:
         // "blue" and "backing" far apart in a body are not "blue backing".
-        const isPhrase = alt.kind === "synonym" || alt.kind === "broader";
+        const isPhrase = isThesaurusKind(alt.kind);
         const altStamp = ++this.counter;
         const hits: number[] = [];
         for (const sid of alt.stems) {
