@@ -5,7 +5,7 @@ import { StillStage } from "@/components/lab/still-stage";
 import { CHANNEL_INDEX, type LabSpace, type RecipeStep } from "@/lib/lab/recipe";
 
 /** Row-major 3×3 + offset as the 4×5 `values` of feColorMatrix (W3C Filter Effects Module Level 1, §15.10). */
-export function feValues(m: readonly (readonly number[])[], offset: readonly number[] = [0, 0, 0]): string {
+function feValues(m: readonly (readonly number[])[], offset: readonly number[] = [0, 0, 0]): string {
   const rows = [0, 1, 2].map((i) => [m[i]![0]!, m[i]![1]!, m[i]![2]!, 0, offset[i]!]);
   return [...rows.flat(), 0, 0, 0, 1, 0].join(" ");
 }

@@ -8,7 +8,7 @@ import { apiFetch } from "@/lib/api/fetcher";
 import type { MatrixStep, RecipeStep } from "@/lib/lab/recipe";
 import type { TechniqueDocument } from "@/lib/techniques/document";
 
-export type ApplyTechnique = {
+type ApplyTechnique = {
   slug: string;
   title: string;
   summary: string;

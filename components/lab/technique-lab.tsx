@@ -17,7 +17,7 @@ import { IDENTITY3, type MatrixStep, type RecipeStep } from "@/lib/lab/recipe";
 import { spaceChoices } from "@/components/lab/space-choices";
 import { stillUrl } from "@/lib/stills/schemas";
 
-export type TechniqueLabProps = {
+type TechniqueLabProps = {
   slug: string;
   recipe: RecipeStep[];
   /** The technique's (before) stills. */

@@ -4,8 +4,8 @@ import { useCallback, useEffect, useRef, useState } from "react";
 import { errorText, renderLab, type LabRender } from "@/components/lab/lab-api";
 import type { LabRunRequestInput } from "@/lib/lab/recipe";
 
-export type RenderMode = "proxy" | "full";
-export type RenderState =
+type RenderMode = "proxy" | "full";
+type RenderState =
   | { status: "idle" }
   | { status: "running"; mode: RenderMode; elapsed: number }
   | { status: "done"; mode: RenderMode; result: LabRender; seconds: number }

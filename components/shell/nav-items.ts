@@ -1,6 +1,7 @@
 import type { Permission } from "@/lib/auth/permissions";
 
-export type NavItem = { href: string; label: string; permission: Permission; badge?: "review" };
+/** `tucked`: a less-used destination, gathered with the others under one menu so the bar keeps to one row. */
+export type NavItem = { href: string; label: string; permission: Permission; badge?: "review"; tucked?: true };
 
 /** The signed-in navigation; each entry shows only to people whose role has its permission. */
 export const NAV_ITEMS: NavItem[] = [
@@ -11,9 +12,9 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/check", label: "Plate check", permission: "still:check" },
   { href: "/shows", label: "Shows", permission: "technique:read" },
   { href: "/review", label: "Review", permission: "technique:review", badge: "review" },
-  { href: "/thesaurus", label: "Thesaurus", permission: "thesaurus:manage" },
-  { href: "/people", label: "People", permission: "people:manage" },
-  { href: "/mail", label: "Mail", permission: "mail:read-outbox" },
-  { href: "/audit", label: "Audit", permission: "audit:read" },
-  { href: "/settings", label: "Settings", permission: "token:manage" },
+  { href: "/thesaurus", label: "Thesaurus", permission: "thesaurus:manage", tucked: true },
+  { href: "/people", label: "People", permission: "people:manage", tucked: true },
+  { href: "/mail", label: "Mail", permission: "mail:read-outbox", tucked: true },
+  { href: "/audit", label: "Audit", permission: "audit:read", tucked: true },
+  { href: "/settings", label: "Settings", permission: "token:manage", tucked: true },
 ];

@@ -3,8 +3,9 @@
 import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { inputClasses } from "@/components/ui/field";
+import { StillThumbChoice } from "@/components/stills/still-thumb-choice";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
-import { stillUrl, type StillPairResponse, type StillResponse } from "@/lib/stills/schemas";
+import type { StillPairResponse, StillResponse } from "@/lib/stills/schemas";
 import { cn } from "@/lib/utils";
 
 type PairCandidate = Pick<StillResponse, "id" | "alt" | "role" | "width" | "height">;
@@ -76,25 +77,19 @@ function StillChoice({ legend, name, stills, value, onChange }: { legend: string
       <legend className="px-1 text-sm font-medium">{legend}</legend>
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
         {stills.map((s) => (
-          <label
+          <StillThumbChoice
             key={s.id}
-            className={cn(
-              "block cursor-pointer rounded border p-1 text-xs has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-accent",
-              value === s.id ? "border-accent bg-surface-2" : "border-line",
-            )}
-          >
-            <input type="radio" name={name} value={s.id} checked={value === s.id} onChange={() => onChange(s.id)} className="sr-only" />
-            <span className="block bg-stage">
-              {/* eslint-disable-next-line @next/next/no-img-element -- private thumbnails from our API */}
-              <img src={stillUrl(s.id, "thumb")} alt={s.alt} className="mx-auto max-h-24 object-contain" />
-            </span>
-            <span className="mt-1 block truncate" title={s.alt}>
-              {s.alt}
-            </span>
-            <span className="block text-muted">
-              {s.width}×{s.height} · {s.role}
-            </span>
-          </label>
+            name={name}
+            still={s}
+            checked={value === s.id}
+            onChoose={onChange}
+            thumbClassName="max-h-24"
+            details={
+              <span className="block text-muted">
+                {s.width}×{s.height} · {s.role}
+              </span>
+            }
+          />
         ))}
       </div>
     </fieldset>

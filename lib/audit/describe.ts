@@ -93,6 +93,7 @@ function revisionOf(detail: Record<string, unknown>): string {
   const n = num(detail.revision);
   return n === null ? "a revision" : `revision ${n}`;
 }
+/** A technique the detail names as `{ slug, title }` (the title it had then); entries written before titles were kept hold just the slug. */
 function slugRef(value: unknown): SentencePart | null {
   if (value && typeof value === "object" && "slug" in value) {
     const v = value as { slug?: unknown; title?: unknown };

@@ -22,7 +22,7 @@ export const labAnalyseRequestSchema = z.object({
 export type LabAnalyseRequest = z.input<typeof labAnalyseRequestSchema>;
 export type LabAnalyseParsed = z.infer<typeof labAnalyseRequestSchema>;
 
-export const boxSchema = z.object({
+const boxSchema = z.object({
   x: z.number().int().min(0).max(100_000),
   y: z.number().int().min(0).max(100_000),
   w: z.number().int().min(1).max(4096),
@@ -38,7 +38,7 @@ export const labSampleRequestSchema = z.object({
 export type LabSampleRequest = z.input<typeof labSampleRequestSchema>;
 export type LabSampleParsed = z.infer<typeof labSampleRequestSchema>;
 
-export type LineProfileData = { t: number[]; x: number[]; y: number[]; r: number[]; g: number[]; b: number[] };
+type LineProfileData = { t: number[]; x: number[]; y: number[]; r: number[]; g: number[]; b: number[] };
 export type HistogramData = { edges: number[]; r: number[]; g: number[]; b: number[]; below: number[]; above: number[] };
 export type AnalysisSide = { profile: LineProfileData | null; histogram: HistogramData | null };
 

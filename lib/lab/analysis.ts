@@ -8,7 +8,7 @@ export type Point = { x: number; y: number };
 export type LineProfile = { t: number[]; x: number[]; y: number[]; r: number[]; g: number[]; b: number[] };
 
 /** Bilinear sample of channel c at pixel-centre coordinates (x, y), edges clamped. */
-export function sampleBilinear(img: FloatImage, x: number, y: number, c: number): number {
+function sampleBilinear(img: FloatImage, x: number, y: number, c: number): number {
   const { width, height, data } = img;
   const cx = Math.min(Math.max(x, 0), width - 1), cy = Math.min(Math.max(y, 0), height - 1);
   const x0 = Math.floor(cx), y0 = Math.floor(cy);

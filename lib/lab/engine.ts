@@ -50,14 +50,14 @@ import { MEMORY_BUDGET } from "@/lib/memory/budget";
  */
 
 /** Decoded stored codes, always RGB interleaved. */
-export type StillCodes = { width: number; height: number; bits: 8 | 16; codes: Uint8Array | Uint16Array };
+type StillCodes = { width: number; height: number; bits: 8 | 16; codes: Uint8Array | Uint16Array };
 
 /** A read-only image the steps refer to: stored codes through a LUT, or plain floats (tests). */
 export type PixelSource =
   | { kind: "codes"; codes: Uint8Array | Uint16Array; lut: Float32Array }
   | { kind: "float"; data: Float32Array; codes8?: Uint8Array; /** Largest |value| of data, when known. */ maxAbs?: number };
 
-export type LabState = {
+type LabState = {
   width: number;
   height: number;
   /** Working image, interleaved RGB float. */
@@ -818,14 +818,14 @@ export function applyStep(state: LabState, step: RecipeStep, index: number): Ste
   }
 }
 
-export const CONTENT_TYPES: Record<LabFormat, string> = { png16: "image/png", png: "image/png", webp: "image/webp", exr: "image/x-exr" };
+const CONTENT_TYPES: Record<LabFormat, string> = { png16: "image/png", png: "image/png", webp: "image/webp", exr: "image/x-exr" };
 
 /**
  * Encodes the working image. `reuse` may be handed a 16-bit code buffer of the right size that
  * is no longer needed (the plate's), so a 4K png16 render does not allocate another 53 MB.
  * `consume`: `cur` is not needed afterwards, so 8-bit codes may be written over it in place.
  */
-export async function encodeImage(cur: Float32Array, width: number, height: number, space: LabSpace, format: LabFormat,
+async function encodeImage(cur: Float32Array, width: number, height: number, space: LabSpace, format: LabFormat,
   reuse?: Uint16Array, consume = false, tail?: LabState["tail"]): Promise<Buffer> {
   const linear = space === "linear";
   const raw = { width, height, channels: 3 as const };
@@ -873,7 +873,7 @@ function quantiseTail(cur: Float32Array, width: number, tail: NonNullable<LabSta
 
 export type LabProgress = { done: number; total: number; label: string };
 
-export type RunRecipeOptions = {
+type RunRecipeOptions = {
   /** Encoded still (PNG, TIFF, JPEG, WebP …). */
   still: Uint8Array;
   steps: RecipeStep[];
@@ -896,8 +896,6 @@ export type RunRecipeOptions = {
   /** format "exr": sample type and compression. */
   exr?: ExrOutput;
 };
-
-export type DecodedStill = StillCodes & { sourceWidth: number; sourceHeight: number };
 
 /**
  * A decoded proxy as kept between runs: already in the working space as floats, so a re-render
@@ -1050,10 +1048,6 @@ async function decodeAndRun(opts: Omit<RunRecipeOptions, "format"> & { encode8?:
   return { state, plateCodes, reports, decodeMs: t1 - t0, stepsMs: t2 - t1 };
 }
 
-/** A still as the steps read it (codes through a table, or working-space floats), without the proxy cache. */
-export async function decodeSource(bytes: Uint8Array, width: number | undefined, space: LabSpace, colour?: LabColour, id: string | null = null): Promise<Omit<Decoded, "spare16">> {
-  return decodeCached(() => bytes, width, space, undefined, undefined, colourOf(colour, id));
-}
 
 function colourOf(colour: LabColour | undefined, id: string | null): { still: StillColour; working: LabColour["working"] } | undefined {
   if (!colour) return undefined;
@@ -1093,7 +1087,7 @@ export async function runRecipe(opts: RunRecipeOptions): Promise<RunRecipeResult
   };
 }
 
-export type FloatRunResult = {
+type FloatRunResult = {
   /** The plate in the working space, before any step (only when asked for). */
   before: { width: number; height: number; data: Float32Array } | null;
   /** The float result, unclipped (values outside 0..1 kept). */

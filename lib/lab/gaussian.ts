@@ -20,7 +20,7 @@ import { labWasmInstance } from "@/lib/lab/wasm/modules";
  * the radius). Both compute every output pixel from the full kernel; neither approximates.
  */
 
-export const GAUSS_TRUNCATE = 4;
+const GAUSS_TRUNCATE = 4;
 
 export function gaussianRadius(sigma: number): number {
   return Math.floor(GAUSS_TRUNCATE * sigma + 0.5);
@@ -46,7 +46,7 @@ export function gaussianHalfKernel(sigma: number): Float64Array {
  */
 export const DIRECT_MAX_RADIUS = { f32: 48, f64: 16 } as const;
 
-export type BlurMethod = "direct" | "fft";
+type BlurMethod = "direct" | "fft";
 
 type GaussExports = {
   rows32(src: number, dst: number, w: number, rows: number, k: number, r: number, pad: number): void;
@@ -72,7 +72,7 @@ let memory: WebAssembly.Memory | null = null;
 let gauss: GaussExports | null = null;
 let fft: FftExports | null = null;
 
-export const EXACT_BLUR_KEEP_BYTES = MEMORY_BUDGET.labExactBlurIdle;
+const EXACT_BLUR_KEEP_BYTES = MEMORY_BUDGET.labExactBlurIdle;
 
 function workspace(bytes: number): { buffer: ArrayBuffer; gauss: GaussExports; fft: FftExports } {
   const pages = Math.ceil(bytes / 65536);

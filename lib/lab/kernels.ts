@@ -302,7 +302,7 @@ export function morphPlane(plane: Plane, width: number, height: number, px: numb
 // is box-reduced by f, blurred small and enlarged bilinearly — O(1) per full-size pixel, within
 // ~1e-3 of the exact result on unit-contrast edges (tested) but not the Gaussian.
 
-export const FIR_MAX_RADIUS = 12;
+const FIR_MAX_RADIUS = 12;
 
 type HPass = (plane: Plane, tmp: Plane, row: Plane, o: number, width: number, xa: number, xb: number, k: Float64Array) => void;
 type VPass = (plane: Plane, tmp: Plane, offs: Int32Array, o: number, xa: number, xb: number, k: Float64Array) => void;
@@ -434,7 +434,7 @@ export function approxReduction(sigma: number): { f: number; smallSigma: number 
 export const reducedSize = (width: number, height: number, f: number) => ({ sw: Math.ceil(width / f), sh: Math.ceil(height / f) });
 
 /** Mean of each f × f block (the last row and column of blocks may be smaller). */
-export function boxReduce(plane: Plane, width: number, height: number, f: number, small: Plane): void {
+function boxReduce(plane: Plane, width: number, height: number, f: number, small: Plane): void {
   const { sw, sh } = reducedSize(width, height, f);
   for (let sy = 0; sy < sh; sy++) {
     const y0 = sy * f, y1 = Math.min(height, y0 + f);

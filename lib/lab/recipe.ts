@@ -10,15 +10,15 @@ import { LINEAR_SPACES } from "@/lib/colour/spaces";
 const finite = z.number().refine(Number.isFinite, { message: "must be a finite number" });
 const coeff = finite.refine((v) => Math.abs(v) <= 100, { message: "must be between -100 and 100" });
 
-export const channelSchema = z.enum(["r", "g", "b"]);
+const channelSchema = z.enum(["r", "g", "b"]);
 export type Channel = z.infer<typeof channelSchema>;
 export const CHANNEL_INDEX: Record<Channel, 0 | 1 | 2> = { r: 0, g: 1, b: 2 };
 
-export const vec3Schema = z.tuple([coeff, coeff, coeff]);
-export const matrix3Schema = z.tuple([vec3Schema, vec3Schema, vec3Schema]);
+const vec3Schema = z.tuple([coeff, coeff, coeff]);
+const matrix3Schema = z.tuple([vec3Schema, vec3Schema, vec3Schema]);
 
 /** A rectangle in full-resolution pixels of the still (scaled for proxy renders). */
-export const rectSchema = z.object({
+const rectSchema = z.object({
   x: z.number().int().min(0).max(100_000),
   y: z.number().int().min(0).max(100_000),
   w: z.number().int().min(1).max(100_000),
@@ -29,20 +29,20 @@ export type Rect = z.infer<typeof rectSchema>;
 // Large enough for a screen estimate on a 4K plate, small enough to stay interactive.
 const sigma = finite.refine((v) => v > 0 && v <= 200, { message: "sigma must be > 0 and ≤ 200 px" });
 
-export const matrixStepSchema = z.object({
+const matrixStepSchema = z.object({
   op: z.literal("matrix"),
   /** Row-major: row i makes output channel i (out = M · rgb + offset). */
   m: matrix3Schema,
   offset: vec3Schema.optional(),
 });
 
-export const copyStepSchema = z.object({
+const copyStepSchema = z.object({
   op: z.literal("copy"),
   from: channelSchema,
   to: channelSchema,
 });
 
-export const levelStepSchema = z.object({
+const levelStepSchema = z.object({
   op: z.literal("level"),
   /** Channel of the working image that gets the fitted gain (and offset). */
   channel: channelSchema,
@@ -56,7 +56,7 @@ export const levelStepSchema = z.object({
   rect: rectSchema.optional(),
 });
 
-export const matteStepSchema = z.object({
+const matteStepSchema = z.object({
   op: z.literal("matte"),
   /** A channel name, or a row of weights applied to R, G, B (e.g. the solver's matte row). */
   channel: z.union([channelSchema, vec3Schema]),
@@ -66,25 +66,25 @@ export const matteStepSchema = z.object({
   white: finite.refine((v) => Math.abs(v) <= 100, { message: "must be between -100 and 100" }),
 });
 
-export const growStepSchema = z.object({
+const growStepSchema = z.object({
   op: z.literal("grow"),
   /** Pixels; negative shrinks. Square structuring element of side 2|N|+1. */
   px: z.number().int().min(-256).max(256),
 });
 
-export const softenStepSchema = z.object({
+const softenStepSchema = z.object({
   op: z.literal("soften"),
   sigma,
   target: z.union([z.literal("matte"), channelSchema]).default("matte"),
 });
 
-export const mixStepSchema = z.object({
+const mixStepSchema = z.object({
   op: z.literal("mix"),
   /** out = current × matte + plate × (1 − matte). */
   invert: z.boolean().default(false),
 });
 
-export const flattenStepSchema = z.object({
+const flattenStepSchema = z.object({
   op: z.literal("flatten"),
   sigma,
   /** Screen colour the flattened screen should come out at. */
@@ -93,7 +93,7 @@ export const flattenStepSchema = z.object({
   weight: z.enum(["outside", "inside", "all"]).default("outside"),
 });
 
-export const grainStepSchema = z.object({
+const grainStepSchema = z.object({
   op: z.literal("grain"),
   /** Still id of the denoised plate; the recipe's earlier steps run on it. */
   denoised: z.string().min(1).max(200),
@@ -114,14 +114,6 @@ export const recipeStepSchema = z.discriminatedUnion("op", [
 export type RecipeStep = z.infer<typeof recipeStepSchema>;
 export type RecipeStepInput = z.input<typeof recipeStepSchema>;
 export type MatrixStep = z.infer<typeof matrixStepSchema>;
-export type CopyStep = z.infer<typeof copyStepSchema>;
-export type LevelStep = z.infer<typeof levelStepSchema>;
-export type MatteStep = z.infer<typeof matteStepSchema>;
-export type GrowStep = z.infer<typeof growStepSchema>;
-export type SoftenStep = z.infer<typeof softenStepSchema>;
-export type MixStep = z.infer<typeof mixStepSchema>;
-export type FlattenStep = z.infer<typeof flattenStepSchema>;
-export type GrainStep = z.infer<typeof grainStepSchema>;
 export type RecipeOp = RecipeStep["op"];
 
 export const RECIPE_OPS = [
@@ -153,10 +145,10 @@ export type Recipe = z.infer<typeof recipeSchema>;
 
 export const labSpaceSchema = z.enum(["linear", "stored"]);
 /** "exr": the float result as OpenEXR (see `exr`), never clipped. */
-export const labFormatSchema = z.enum(["png16", "png", "webp", "exr"]);
+const labFormatSchema = z.enum(["png16", "png", "webp", "exr"]);
 /** A linear space to work in instead of the still's own (lib/colour/spaces.ts); only with space "linear". */
 export const labWorkingSpaceSchema = z.enum(LINEAR_SPACES, { error: `Working space is one of ${LINEAR_SPACES.join(", ")}.` });
-export const labExrSchema = z.object({
+const labExrSchema = z.object({
   pixelType: z.enum(["half", "float"]).default("half"),
   compression: z.enum(["zip", "none"]).default("zip"),
 });

@@ -19,9 +19,9 @@ export { LabBusyError, LabTimeoutError } from "@/lib/lab/limiter";
  */
 
 /** Bump when the engine's output for the same inputs changes, to retire old cache entries. */
-export const LAB_ENGINE_VERSION = 2;
+const LAB_ENGINE_VERSION = 2;
 
-export type LabRunInput = {
+type LabRunInput = {
   stillBytes: Uint8Array;
   /** Hex sha256 of the still's stored bytes (its content address). */
   stillSha256: string;
@@ -44,7 +44,7 @@ export type LabRunOutput = {
   cached: "memory" | "disk" | false;
 };
 
-export type LabRunnerOptions = {
+type LabRunnerOptions = {
   /** On-disk cache folder; no disk cache when absent. */
   cacheDir?: string;
   memoryCacheBytes?: number;
@@ -73,7 +73,7 @@ export function labCacheKey(stillSha256: string, request: LabRunRequest): string
  */
 const cacheFile = (dir: string, name: string): string => path.join(/* turbopackIgnore: true */ dir, name);
 
-export type LabRunner = {
+type LabRunner = {
   run(input: LabRunInput): Promise<LabRunOutput>;
   stats(): { active: number; queued: number; memoryEntries: number; memoryBytes: number };
 };

@@ -12,10 +12,10 @@ import { CHANNEL_INDEX, type Channel, type LabSolveResponse } from "@/lib/lab/re
  */
 
 export type Rgb = readonly [number, number, number] | readonly number[];
-export type SolveGoal = { kind: "hide" | "matte"; channel: Channel };
-export type SolveInput = { markers: readonly Rgb[]; screen: readonly Rgb[]; goal: SolveGoal; ridge?: number };
+type SolveGoal = { kind: "hide" | "matte"; channel: Channel };
+type SolveInput = { markers: readonly Rgb[]; screen: readonly Rgb[]; goal: SolveGoal; ridge?: number };
 
-export function meanRgb(samples: readonly Rgb[]): [number, number, number] {
+function meanRgb(samples: readonly Rgb[]): [number, number, number] {
   const s: [number, number, number] = [0, 0, 0];
   for (const v of samples) for (let i = 0; i < 3; i++) s[i] = s[i]! + v[i]! / samples.length;
   return s;

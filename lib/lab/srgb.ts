@@ -49,7 +49,7 @@ export function codeLut(bits: 8 | 16, linear: boolean): Float32Array {
  * frame against ~12 ms now.
  * Stored space: the code is round(x·max) give or take one, settled by the same thresholds.
  */
-export type Quantiser = {
+type Quantiser = {
   bits: 8 | 16;
   max: number;
   linear: boolean;

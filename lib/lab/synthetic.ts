@@ -13,10 +13,10 @@ import { mulberry32 } from "@/lib/random";
  */
 
 export type Box = { x: number; y: number; w: number; h: number };
-export type Rgb3 = [number, number, number];
-export type SyntheticMarker = { kind: "cross" | "dot"; x: number; y: number; size: number; hue: 0 | 1 };
+type Rgb3 = [number, number, number];
+type SyntheticMarker = { kind: "cross" | "dot"; x: number; y: number; size: number; hue: 0 | 1 };
 
-export type SyntheticOptions = {
+type SyntheticOptions = {
   width: number;
   height: number;
   seed?: number;
@@ -55,7 +55,7 @@ export const MARKER_COLOURS: [Rgb3, Rgb3] = [
   [0.55, 0.16, 0.3],
   [0.5, 0.45, 0.05],
 ];
-export const FOREGROUND_COLOUR: Rgb3 = [0.03, 0.05, 0.07];
+const FOREGROUND_COLOUR: Rgb3 = [0.03, 0.05, 0.07];
 
 /** Standard normal samples from a uniform source (Box–Muller, both values of each pair used). */
 export function gaussianSource(rand: () => number): () => number {

@@ -21,7 +21,8 @@ import type { Language } from "./language";
 import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore } from "./postings";
 import { parseQuery, type ParseOptions, type QueryPlan } from "./query";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
-import { Scorer } from "./scoring";
+import { isThesaurusKind, Scorer } from "./scoring";
+import { SYMPTOM_LEXICON } from "./lexicon";
 import { excerpt, matchesFor, SNIPPET_CHARS, thesaurusMatches, type MatchedWords } from "./snippets";
 import { compileThesaurus, EMPTY_THESAURUS, phraseStems, type CompiledThesaurus, type ThesaurusEntry } from "./thesaurus";
 import type {
@@ -209,7 +210,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
   function setThesaurus(list: readonly ThesaurusEntry[]): void {
     contentVersion++;
     for (const sf of pinnedWords) vocab.addRef(sf, -1);
-    thesaurus = compileThesaurus(list, stemOf);
+    thesaurus = compileThesaurus(list, stemOf, SYMPTOM_LEXICON);
     // Thesaurus words join the spelling vocabulary, so "peple" can reach "people" before any page says it.
     pinnedWords = [...thesaurus.words].map((w) => vocab.internSurface(w));
     for (const sf of pinnedWords) vocab.addRef(sf, 1);
@@ -345,7 +346,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const doc = e.doc;
     const shown = p && matched && matched.stems.size > 0 ? matchesFor(doc, matched) : { matches: [], snippet: excerpt(doc.summary, 0, SNIPPET_CHARS).text };
     let via: SearchResult["via"] = [];
-    if (p && (p.units.some((u) => u.alternatives.some((a) => a.kind === "synonym" || a.kind === "broader")) || p.spans.length > 0)) {
+    if (p && (p.units.some((u) => u.alternatives.some((a) => isThesaurusKind(a.kind))) || p.spans.length > 0)) {
       via = thesaurusMatches(p, (sid, inShortFields) => ((store.lists[sid]?.countsOf(item.id) ?? 0) & (inShortFields ? SHORT_FIELDS_MASK : 0xffffffff)) !== 0, query);
     }
     return {
@@ -467,7 +468,8 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     });
   }
 
-  if (options.thesaurus) setThesaurus(options.thesaurus);
+  // The built-in symptom lexicon applies even before any lead has written a thesaurus entry.
+  setThesaurus(options.thesaurus ?? []);
 
   return {
     upsert,

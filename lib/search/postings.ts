@@ -156,6 +156,8 @@ export class PostingStore {
   lengths = new Uint16Array(1024 * FIELD_COUNT);
   readonly totalLength = new Float64Array(FIELD_COUNT);
   liveDocs = 0;
+  /** Bumped on every add and remove: what depends on the field averages (scoring.ts) is redone. */
+  version = 0;
 
   addStem(): void {
     this.lists.push(new Postings());
@@ -179,12 +181,14 @@ export class PostingStore {
       this.totalLength[f] = (this.totalLength[f] as number) + (a.fieldLengths[f] as number);
     }
     this.liveDocs++;
+    this.version++;
   }
 
   remove(id: number, a: AnalysedDocument): void {
     for (const sid of a.terms) (this.lists[sid] as Postings).remove(id);
     for (let f = 0; f < FIELD_COUNT; f++) this.totalLength[f] = (this.totalLength[f] as number) - (this.lengths[id * FIELD_COUNT + f] as number);
     this.liveDocs--;
+    this.version++;
   }
 
   /** Average length per field over live documents (at least 1). */

@@ -10,7 +10,7 @@ import { findPhrases, type CompiledThesaurus } from "./thesaurus";
 import { FILLER_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
 import type { Vocabulary } from "./vocabulary";
 
-export type AlternativeKind = "exact" | "stem" | "family" | "parts" | "prefix" | "typo" | "split" | "joined" | "synonym" | "broader";
+export type AlternativeKind = "exact" | "stem" | "family" | "parts" | "prefix" | "typo" | "split" | "joined" | "synonym" | "broader" | "related";
 
 /** One way a page can answer a unit or span: all `stems` present (one stem for most kinds). */
 export type Alternative = { stems: number[]; weight: number; kind: AlternativeKind; surface: string };

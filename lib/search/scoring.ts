@@ -7,7 +7,7 @@
  * how much of the query a page covers scales its score (ranking.ts decides the order).
  */
 import { FIELD_COUNT, F_ALIASES, F_SUMMARY, type PostingStore } from "./postings";
-import type { Alternative, QueryPlan } from "./query";
+import type { Alternative, QueryPlan, QuerySpan } from "./query";
 
 /** Query words past this are ignored (a 200-character query has far fewer content words). */
 export const MAX_UNITS = 10;
@@ -49,7 +49,21 @@ export const ALTERNATIVE_WEIGHTS = {
   synonym: 0.5,
   /** A narrower thesaurus term reaching its broader one ("tracker" → marker): looser still. */
   broader: 0.4,
+  /** A symptom word of the built-in lexicon reaching a problem name ("blotchy" → uneven): loosest. */
+  related: 0.3,
 } as const;
+
+/** Alternatives that count well under the word typed: thesaurus terms and completions (and corrections past one edit). */
+const WEAK_KINDS: ReadonlySet<Alternative["kind"]> = new Set(["synonym", "broader", "related", "prefix"]);
+/** A weak alternative of a stem on more than this share of the pages only adds to pages found otherwise. */
+export const JOIN_ONLY_SHARE = 0.25;
+/** …and on more pages than this: in a small department every page is cheap to score, so none is cut. */
+export const JOIN_ONLY_MIN_PAGES = 200;
+
+/** Alternatives that come from the thesaurus or the symptom lexicon rather than from the word typed. */
+export function isThesaurusKind(kind: Alternative["kind"]): boolean {
+  return kind === "synonym" || kind === "broader" || kind === "related";
+}
 
 /** A partial word completed: the more of it typed, the likelier; a complete word less likely a start. */
 export function completionWeight(typed: string, word: string, typedIsWord: boolean): number {
@@ -93,28 +107,57 @@ export class Scorer {
   }
 
   /**
+   * BM25's per-field denominator part K1 · (1 − b + b · length / average) of every document, redone
+   * only after the corpus changed (the averages move with every write): per posting the score is then
+   * one load and one division per field.
+   */
+  private lengthNorms = new Float64Array(0);
+  private lengthNormsVersion = -1;
+
+  private refreshLengthNorms(capacity: number): void {
+    const store = this.store;
+    if (this.lengthNormsVersion === store.version && this.lengthNorms.length >= capacity * FIELD_COUNT) return;
+    const avg = store.averageLengths();
+    if (this.lengthNorms.length < capacity * FIELD_COUNT) this.lengthNorms = new Float64Array(Math.max(1024, capacity) * FIELD_COUNT * 1.25);
+    const norms = this.lengthNorms;
+    const lengths = store.lengths;
+    const upTo = Math.min(capacity * FIELD_COUNT, lengths.length);
+    for (let i = 0; i < upTo; i++) {
+      const f = i % FIELD_COUNT;
+      const b = FIELD_B[f] as number;
+      norms[i] = K1 * (1 - b + (b * (lengths[i] as number)) / (avg[f] as number));
+    }
+    this.lengthNormsVersion = store.version;
+  }
+
+  /** Per-stem scores of one query, side by side in one reusable buffer (no arrays made per stem). */
+  private pool = new Float64Array(3 * 4096);
+
+  /**
    * Scores every document that answers some unit of the plan. `fieldMask` limits the fields read
    * (the quick finder reads title, aliases and tags only); `capacity` is one past the largest id.
    */
   score(plan: QueryPlan, fieldMask: number, capacity: number): ScoredCandidates {
     this.ensure(capacity);
+    this.refreshLengthNorms(capacity);
     const queryStamp = ++this.counter;
     const touched: number[] = [];
     const { units, spans } = plan;
     const store = this.store;
     const N = store.liveDocs;
-    const avg = store.averageLengths();
-    const weights = FIELD_WEIGHTS.map((w, f) => ((fieldMask >> f) & 1 ? w : 0));
+    const weights = FIELD_WEIGHTS.map((w, f) => ((fieldMask >> f) & 1 ? w * (K1 + 1) : 0));
     const rows = this.rows;
+    const norms = this.lengthNorms;
 
     /**
      * BM25 of each posting of a stem, fields summed with weights (and the naming fields' part apart),
      * computed once per stem per query: several alternatives often share a stem ("lens distortion",
-     * "barrel distortion", "pincushion distortion").
+     * "barrel distortion", "pincushion distortion"). Kept in `pool` from `at`: the field-weighted
+     * sums, then the naming part, then the short-field part, `n` each.
      */
-    type StemScores = { ids: Uint32Array; n: number; sum: Float64Array; naming: Float64Array; short: Float64Array };
+    type StemScores = { data: Uint32Array; n: number; at: number };
     const byStem = new Map<number, StemScores | null>();
-    const lengths = store.lengths;
+    let poolUsed = 0;
     const stemScores = (sid: number): StemScores | null => {
       let cached = byStem.get(sid);
       if (cached !== undefined) return cached;
@@ -125,32 +168,34 @@ export class Scorer {
       }
       const n = list.n;
       const data = list.data;
-      const ids = new Uint32Array(n);
-      const sum = new Float64Array(n);
-      const naming = new Float64Array(n);
-      const short = new Float64Array(n);
+      if (poolUsed + 3 * n > this.pool.length) {
+        const next = new Float64Array(Math.max(this.pool.length * 2, poolUsed + 3 * n));
+        next.set(this.pool.subarray(0, poolUsed));
+        this.pool = next;
+      }
+      const pool = this.pool;
+      const at = poolUsed;
+      poolUsed += 3 * n;
       for (let k = 0; k < n; k++) {
         const id = data[k * 2] as number;
         let packed = data[k * 2 + 1] as number;
-        ids[k] = id;
+        const base = id * FIELD_COUNT;
         let total = 0;
         let named = 0;
         let inShort = 0;
         for (let f = 0; packed !== 0; f++, packed >>>= 4) {
           const tf = packed & 15;
           if (tf === 0) continue;
-          const b = FIELD_B[f] as number;
-          const norm = 1 - b + (b * (lengths[id * FIELD_COUNT + f] as number)) / (avg[f] as number);
-          const v = ((weights[f] as number) * tf * (K1 + 1)) / (tf + K1 * norm);
+          const v = ((weights[f] as number) * tf) / (tf + (norms[base + f] as number));
           total += v;
           if (f <= F_ALIASES) named += v;
           if (f <= F_SUMMARY) inShort += v;
         }
-        sum[k] = total;
-        naming[k] = named;
-        short[k] = inShort;
+        pool[at + k] = total;
+        pool[at + n + k] = named;
+        pool[at + 2 * n + k] = inShort;
       }
-      cached = { ids, n, sum, naming, short };
+      cached = { data, n, at };
       byStem.set(sid, cached);
       return cached;
     };
@@ -168,40 +213,58 @@ export class Scorer {
       if (naming > (rows[at + MAX_COLUMNS + column] as number)) rows[at + MAX_COLUMNS + column] = naming;
     };
 
-    const runAlternatives = (alternatives: Alternative[], column: number): void => {
+    // Early cut-off: where the word itself (or a strong form of it) is on pages, a weak alternative
+    // of it (a thesaurus term, a far correction, a completion) whose stem is on more than
+    // JOIN_ONLY_SHARE of the pages adds to pages found otherwise but brings in none of its own. Its
+    // IDF is low and its weight well under the word's, so such pages would stay far under the best;
+    // skipping them spares touching thousands of pages at 10,000.
+    const isWeak = (alt: Alternative): boolean => WEAK_KINDS.has(alt.kind) || (alt.kind === "typo" && alt.weight < ALTERNATIVE_WEIGHTS.typo);
+    const joinOnly = (alt: Alternative, strongInColumn: boolean): boolean => {
+      if (!strongInColumn || !isWeak(alt)) return false;
+      let rarest = Number.POSITIVE_INFINITY;
+      for (const sid of alt.stems) rarest = Math.min(rarest, store.docFreq(sid));
+      return rarest > JOIN_ONLY_MIN_PAGES && rarest > JOIN_ONLY_SHARE * N;
+    };
+
+    const runAlternatives = (alternatives: Alternative[], column: number, pass: "seed" | "join"): void => {
       // Corrections and completions share the IDF of their most common candidate, so a rare look-alike
       // word (likely noise) does not outscore the common word meant: Lucene's fuzzy queries do the same
       // by default (TopTermsBlendedFreqScoringRewrite).
       let maxDf = 0;
       for (const a of alternatives) if (a.kind === "typo" || a.kind === "prefix") maxDf = Math.max(maxDf, store.docFreq(a.stems[0] as number));
       const blendedIdf = bm25Idf(N, maxDf);
+      const strongInColumn = alternatives.some((a) => !isWeak(a));
       for (const alt of alternatives) {
+        const joins = joinOnly(alt, strongInColumn);
+        if (joins !== (pass === "join")) continue;
         const idfOf = (sid: number): number => {
           const own = bm25Idf(N, store.docFreq(sid));
           return alt.kind === "typo" || alt.kind === "prefix" ? Math.min(own, blendedIdf) : own;
         };
         // Naming (ranking rule 4) counts the query's own words only: a page names the problem better
         // by saying it, not by a thesaurus term for it.
-        const namingShare = alt.kind === "synonym" || alt.kind === "broader" ? 0 : 1;
+        const namingShare = isThesaurusKind(alt.kind) ? 0 : 1;
         if (alt.stems.length === 1) {
           const sid = alt.stems[0] as number;
           const sc = stemScores(sid);
           if (!sc) continue;
           const scale = idfOf(sid) * alt.weight;
           const nameScale = scale * namingShare;
-          const { ids, sum, naming } = sc;
-          for (let k = 0; k < sc.n; k++) {
-            const v = sum[k] as number;
+          const { data, n, at: from } = sc;
+          const pool = this.pool;
+          for (let k = 0; k < n; k++) {
+            const v = pool[from + k] as number;
             if (v === 0) continue;
-            const id = ids[k] as number;
+            const id = data[k * 2] as number;
             if (this.stamp[id] !== queryStamp) {
+              if (joins) continue;
               this.stamp[id] = queryStamp;
               rows.fill(0, id * ROW, (id + 1) * ROW);
               touched.push(id);
             }
             const at = id * ROW + column;
             if (v * scale > (rows[at] as number)) rows[at] = v * scale;
-            const nm = (naming[k] as number) * nameScale;
+            const nm = (pool[from + n + k] as number) * nameScale;
             if (nm > (rows[at + MAX_COLUMNS] as number)) rows[at + MAX_COLUMNS] = nm;
           }
           continue;
@@ -210,18 +273,19 @@ export class Scorer {
         // page; the alternative scores the mean of its stems.
         // A thesaurus phrase counts where its words are likely to stand together, in the short fields:
         // "blue" and "backing" far apart in a body are not "blue backing".
-        const isPhrase = alt.kind === "synonym" || alt.kind === "broader";
+        const isPhrase = isThesaurusKind(alt.kind);
         const altStamp = ++this.counter;
         const hits: number[] = [];
         for (const sid of alt.stems) {
           const sc = stemScores(sid);
           if (!sc) continue;
           const idf = idfOf(sid);
-          const scores = isPhrase ? sc.short : sc.sum;
+          const pool = this.pool;
+          const scoresAt = isPhrase ? sc.at + 2 * sc.n : sc.at;
           for (let k = 0; k < sc.n; k++) {
-            const id = sc.ids[k] as number;
-            const s = scores[k] as number;
-            const naming = sc.naming[k] as number;
+            const id = sc.data[k * 2] as number;
+            const s = pool[scoresAt + k] as number;
+            const naming = pool[sc.at + sc.n + k] as number;
             if (s === 0) continue;
             if (this.altStamp[id] !== altStamp) {
               this.altStamp[id] = altStamp;
@@ -237,59 +301,70 @@ export class Scorer {
         }
         const n = alt.stems.length;
         for (const id of hits) {
-          if (this.altCount[id] !== n) continue;
+          if (this.altCount[id] !== n || (joins && this.stamp[id] !== queryStamp)) continue;
           keep(id, column, ((this.altSum[id] as number) / n) * alt.weight, ((this.altNaming[id] as number) / n) * alt.weight * namingShare);
         }
       }
     };
 
-    units.forEach((u, i) => runAlternatives(u.alternatives, i));
-    spans.forEach((s, i) => runAlternatives(s.alternatives, units.length + i));
+    for (const pass of ["seed", "join"] as const) {
+      units.forEach((u, i) => runAlternatives(u.alternatives, i, pass));
+      spans.forEach((s, i) => runAlternatives(s.alternatives, units.length + i, pass));
+    }
 
     // Combine: a unit adds weight × its best alternative; a span adds the better of its units' sum
     // and its own alternatives scaled by the weight of the words it replaces.
-    const inSpan = new Int8Array(units.length).fill(-1);
+    const unitCount = units.length;
+    const inSpan = new Int8Array(unitCount).fill(-1);
     spans.forEach((s, si) => {
       for (let k = s.first; k < s.first + s.count; k++) inSpan[k] = si;
     });
+    const unitWeight = Float64Array.from(units, (u) => u.weight);
+    const looseUnits = units.map((_, i) => i).filter((i) => inSpan[i] === -1);
     // Filler words are not looked up (query.ts) and do not count toward coverage either.
     const totalWeight = units.reduce((sum, u) => sum + (u.isFiller ? 0 : u.weight), 0) || 1;
     const scores = new Float64Array(touched.length);
     const naming = new Float64Array(touched.length);
     const coverage = new Float64Array(touched.length);
-    touched.forEach((id, t) => {
-      const at = id * ROW;
+    for (let t = 0; t < touched.length; t++) {
+      const at = (touched[t] as number) * ROW;
       let total = 0;
       let named = 0;
       let covered = 0;
-      units.forEach((u, i) => {
-        if (inSpan[i] !== -1) return;
-        total += u.weight * (rows[at + i] as number);
-        named += u.weight * (rows[at + MAX_COLUMNS + i] as number);
-        if ((rows[at + i] as number) > 0) covered += u.weight;
-      });
-      spans.forEach((s, si) => {
+      for (let j = 0; j < looseUnits.length; j++) {
+        const i = looseUnits[j] as number;
+        const v = rows[at + i] as number;
+        if (v === 0) continue;
+        const w = unitWeight[i] as number;
+        total += w * v;
+        named += w * (rows[at + MAX_COLUMNS + i] as number);
+        covered += w;
+      }
+      for (let si = 0; si < spans.length; si++) {
+        const s = spans[si] as QuerySpan;
         let sum = 0;
         let sumNamed = 0;
         let sumCovered = 0;
         let spanWeight = 0;
         for (let k = s.first; k < s.first + s.count; k++) {
-          const w = (units[k] as { weight: number }).weight;
+          const w = unitWeight[k] as number;
           spanWeight += w;
-          sum += w * (rows[at + k] as number);
+          const v = rows[at + k] as number;
+          if (v === 0) continue;
+          sum += w * v;
           sumNamed += w * (rows[at + MAX_COLUMNS + k] as number);
-          if ((rows[at + k] as number) > 0) sumCovered += w;
+          sumCovered += w;
         }
-        const own = spanWeight * (rows[at + units.length + si] as number);
-        const ownNamed = spanWeight * (rows[at + MAX_COLUMNS + units.length + si] as number);
+        const own = spanWeight * (rows[at + unitCount + si] as number);
+        const ownNamed = spanWeight * (rows[at + MAX_COLUMNS + unitCount + si] as number);
         total += Math.max(sum, own);
         named += Math.max(sumNamed, ownNamed);
         covered += own > 0 ? spanWeight : sumCovered;
-      });
+      }
       scores[t] = total;
       naming[t] = named;
       coverage[t] = covered / totalWeight;
-    });
+    }
     return { ids: touched, scores, naming, coverage };
   }
 }

@@ -5,6 +5,7 @@
  * words that matched.
  */
 import type { Alternative, QueryPlan } from "./query";
+import { isThesaurusKind } from "./scoring";
 import type { SearchDocument, SearchField, SearchMatch, SearchVia } from "./types";
 import { tokenize, type Token } from "./text";
 
@@ -121,7 +122,7 @@ export function matchesFor(doc: SearchDocument, m: MatchedWords): { matches: Sea
  */
 export function thesaurusMatches(plan: QueryPlan, has: (stemId: number, inShortFields: boolean) => boolean, query: string): SearchVia[] {
   const out: SearchVia[] = [];
-  const direct = (kinds: string): boolean => !["synonym", "broader"].includes(kinds);
+  const direct = (kind: Alternative["kind"]): boolean => !isThesaurusKind(kind);
   // Thesaurus phrases count in the short fields only, as scoring.ts counts them.
   const found = (a: Alternative): boolean => a.stems.every((s) => has(s, !direct(a.kind) && a.stems.length > 1));
   plan.units.forEach((u) => {

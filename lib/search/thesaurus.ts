@@ -7,13 +7,15 @@
  * the query parser finds the longest rules that its words spell and adds their targets as weaker
  * alternatives (see scoring.ts for the weights).
  */
+import type { LexiconEntry } from "./lexicon";
 import { isStopWord, tokenize } from "./text";
 
 export type ThesaurusEntry =
   | { id?: string; kind: "synonyms"; terms: readonly string[] }
   | { id?: string; kind: "narrower"; broader: string; terms: readonly string[] };
 
-export type ThesaurusTarget = { stems: string[]; text: string; kind: "synonym" | "broader" };
+/** "related": from the built-in symptom lexicon (lexicon.ts), weaker than any lead's entry. */
+export type ThesaurusTarget = { stems: string[]; text: string; kind: "synonym" | "broader" | "related" };
 export type ThesaurusRule = { source: string[]; text: string; targets: ThesaurusTarget[] };
 
 export type CompiledThesaurus = {
@@ -33,7 +35,13 @@ export function phraseStems(phrase: string, stemOf: (word: string) => string): s
     .map((t) => stemOf(t.word));
 }
 
-export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (word: string) => string): CompiledThesaurus {
+const STRENGTH: Record<ThesaurusTarget["kind"], number> = { synonym: 3, broader: 2, related: 1 };
+
+/**
+ * `lexicon` (the built-in symptom words, lexicon.ts) adds one-way "related" rules under the leads'
+ * entries: where a lead's entry links the same terms, the lead's kind stands.
+ */
+export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (word: string) => string, lexicon: readonly LexiconEntry[] = []): CompiledThesaurus {
   const rules = new Map<string, ThesaurusRule>();
   const words = new Set<string>();
   const term = (text: string): { stems: string[]; text: string } | null => {
@@ -51,9 +59,9 @@ export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (wo
       rules.set(key, rule);
     }
     const existing = rule.targets.find((t) => t.stems.join(" ") === target.stems.join(" "));
-    // A synonym link is stronger than a narrower one; keep the stronger when both exist.
+    // A synonym link is stronger than a narrower one, and both than a lexicon one; keep the stronger.
     if (existing) {
-      if (kind === "synonym") existing.kind = "synonym";
+      if (STRENGTH[kind] > STRENGTH[existing.kind]) existing.kind = kind;
     } else rule.targets.push({ stems: target.stems, text: target.text, kind });
   };
   for (const entry of entries) {
@@ -63,6 +71,13 @@ export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (wo
     } else {
       const broader = term(entry.broader);
       if (broader) for (const n of terms) addRule(n, broader, "broader");
+    }
+  }
+  for (const entry of lexicon) {
+    const targets = entry.means.map(term).filter((t): t is NonNullable<typeof t> => t !== null);
+    for (const seen of entry.seen) {
+      const source = term(seen);
+      if (source) for (const target of targets) addRule(source, target, "related");
     }
   }
   const rulesByFirstStem = new Map<string, ThesaurusRule[]>();

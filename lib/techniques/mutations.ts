@@ -376,7 +376,7 @@ export async function retireTechnique(actor: SessionUser, slug: string, input: R
         note: input.note ?? null,
       });
     }
-    await writeAudit(tx, { actorId: actor.id, action: "technique.retire", targetType: "technique", targetId: t.id, detail: { supersededBy: replacement?.slug ?? null, note: input.note } });
+    await writeAudit(tx, { actorId: actor.id, action: "technique.retire", targetType: "technique", targetId: t.id, detail: { supersededBy: replacement ? { slug: replacement.slug, title: replacement.title } : null, note: input.note } });
     return { id: t.id, slug: t.slug };
   });
   await reindexTechnique(result.id);

@@ -1,8 +1,7 @@
 "use client";
 
 import { createContext, useContext, type ReactNode } from "react";
-import { stillUrl } from "@/lib/stills/schemas";
-import { cn } from "@/lib/utils";
+import { StillThumbChoice } from "@/components/stills/still-thumb-choice";
 
 /** A still a recipe step may name, with what is needed to show it as a thumbnail. */
 export type RecipeStill = { id: string; alt: string; role?: string };
@@ -24,22 +23,7 @@ export function DenoisedStillPicker({ id, value, onChange, error }: { id: string
       {stills.length ? (
         <div className="grid grid-cols-3 gap-2 sm:grid-cols-5">
           {stills.map((s) => (
-            <label
-              key={s.id}
-              className={cn(
-                "block cursor-pointer rounded border p-1 text-xs has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-accent",
-                value === s.id ? "border-accent bg-surface-2" : "border-line",
-              )}
-            >
-              <input type="radio" name={`${id}-denoised`} value={s.id} checked={value === s.id} onChange={() => onChange(s.id)} className="sr-only" />
-              <span className="block bg-stage">
-                {/* eslint-disable-next-line @next/next/no-img-element -- private thumbnails from our API */}
-                <img src={stillUrl(s.id, "thumb")} alt={s.alt} className="mx-auto max-h-20 object-contain" />
-              </span>
-              <span className="mt-1 block truncate" title={s.alt}>
-                {s.alt}
-              </span>
-            </label>
+            <StillThumbChoice key={s.id} name={`${id}-denoised`} still={s} checked={value === s.id} onChoose={onChange} />
           ))}
         </div>
       ) : null}

@@ -56,7 +56,7 @@ export function NumberInput({ id, label, value, onChange, min, max, step = 0.01,
   );
 }
 
-export const CHANNEL_NAMES: Record<Channel, string> = { r: "R (red)", g: "G (green)", b: "B (blue)" };
+const CHANNEL_NAMES: Record<Channel, string> = { r: "R (red)", g: "G (green)", b: "B (blue)" };
 
 /** A labelled select with fixed options (channels, fit modes …). */
 export function Choice<T extends string>({ id, label, value, options, onChange, error }: {

@@ -4,6 +4,7 @@ import { auditLog } from "@/db/schema";
 import { GET } from "@/app/api/admin/audit/route";
 import { sentenceText } from "@/lib/audit/describe";
 import { listAudit, listAuditActors } from "@/lib/audit/queries";
+import { retireTechnique } from "@/lib/techniques/mutations";
 import { makeTechnique, makeUser } from "@/tests/integration/mail/factories";
 import { createPerson, ctx } from "@/tests/integration/stills/factories";
 
@@ -48,6 +49,19 @@ describe("audit log", () => {
 
     expect((await listAuditActors(admin)).map((p) => p.name)).toEqual(["Ines Varrow", "Joel Brackwell"]);
     await expect(listAudit(lead, { limit: 10, offset: 0 })).rejects.toMatchObject({ code: "forbidden" });
+  });
+
+  it("names a retired technique's replacement by its title, linked, like the retired one", async () => {
+    const admin = await makeUser({ role: "admin" });
+    const lead = await makeUser({ role: "lead", name: "Ines Varrow" });
+    const old = await makeTechnique({ title: "Single-pass marker paint-out" });
+    const replacement = await makeTechnique({ title: "Two-pass marker cleanup" });
+    await retireTechnique(lead, old.slug, { supersededBy: replacement.slug, note: "Keeps the grain." });
+
+    const [retired] = (await listAudit(admin, { actions: ["technique.retire"], limit: 50, offset: 0 })).items;
+    expect(sentenceText(retired!.sentence)).toBe("Ines Varrow retired Single-pass marker paint-out, replaced by Two-pass marker cleanup: “Keeps the grain.”");
+    expect(retired!.sentence).toContainEqual({ text: "Two-pass marker cleanup", href: `/techniques/${replacement.slug}` });
+    expect(retired!.sentence).toContainEqual({ text: "Single-pass marker paint-out", href: `/techniques/${old.slug}` });
   });
 
   it("the API takes the same filters and refuses a bad one with a clear message", async () => {

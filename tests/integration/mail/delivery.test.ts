@@ -3,14 +3,14 @@ import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { eq, gte, sql } from "drizzle-orm";
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { afterEach, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/client";
 import { digestItems, outbox, subscriptions, users } from "@/db/schema";
 import { AppError } from "@/lib/api/errors";
 import { env } from "@/lib/env";
 import { notifyPerson, notifyTechniqueEvent } from "@/lib/mail/events";
 import { readInbox } from "@/lib/mail/inbox";
-import { startFakeSmtp, type FakeSmtp } from "@/scripts/fake-smtp/server";
+import { startFakeSmtp } from "@/scripts/fake-smtp/server";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { listOutbox } from "@/lib/mail/queries";
 import type { InboxMessage } from "@/lib/mail/schemas";
@@ -19,49 +19,27 @@ import { applyUnsubscribe } from "@/lib/mail/unsubscribe";
 import { invitePerson } from "@/lib/people/mutations";
 import { requestPasswordReset } from "@/lib/people/password-reset";
 import { follow, makeShow, makeTag, makeTechnique, makeUse, makeUser } from "./factories";
+import { MAIL_BASE as BASE, setUpFakeMail } from "./fake-mail";
 
-const BASE = "https://plateroom.kestrel.test";
-let smtp: FakeSmtp;
-let storeDir: string;
-let savedBase: string | undefined;
-
-beforeAll(async () => {
-  // RFC 8058 §3.1 wants an HTTPS unsubscribe URI; links follow PLATEROOM_BASE_URL, so use an https one here.
-  savedBase = env.PLATEROOM_BASE_URL;
-  env.PLATEROOM_BASE_URL = BASE;
-  storeDir = fs.mkdtempSync(path.join(os.tmpdir(), "plateroom-mail-"));
-  smtp = await startFakeSmtp({ storeDir, quiet: true });
-});
-
-afterAll(async () => {
-  env.PLATEROOM_BASE_URL = savedBase;
-  await smtp.stop();
-  fs.rmSync(storeDir, { recursive: true, force: true });
-});
-
+const mail = setUpFakeMail();
 beforeEach(async () => {
-  const db = getDb();
-  await db.delete(outbox).where(gte(outbox.id, 0));
-  await db.delete(digestItems).where(gte(digestItems.id, 0));
-  await db.delete(subscriptions).where(sql`true`);
+  await getDb().delete(subscriptions).where(sql`true`);
 });
 
 let received = 0;
 afterEach(() => {
-  received = smtp.messages().length;
+  received = mail.smtp.messages().length;
 });
 
 /** Messages received by the shared server during the current test. */
-const inbox = (): InboxMessage[] => smtp.messages().slice(received);
+const inbox = (): InboxMessage[] => mail.smtp.messages().slice(received);
 
 /** Flushes the outbox to the shared server and returns just the messages that run delivered. */
 async function deliver(expected: number): Promise<InboxMessage[]> {
-  const before = smtp.messages().length;
-  const r = await flushUntilIdle({ smtpUrl: smtp.url });
-  expect(r.sent).toBe(expected);
-  const got = smtp.messages().slice(before);
-  expect(got).toHaveLength(expected);
-  return got;
+  const { sent, messages } = await mail.deliver();
+  expect(sent).toBe(expected);
+  expect(messages).toHaveLength(expected);
+  return messages;
 }
 
 async function freePort(): Promise<number> {
@@ -190,7 +168,7 @@ describe("a revision approval", () => {
     expect(sven.text).toContain("you follow the show SLM (Saltmarsh)");
 
     // The admin mail view reads the same messages from the store folder.
-    const stored = await readInbox(storeDir);
+    const stored = await readInbox(mail.storeDir);
     expect(stored.map((s) => s.messageId)).toEqual(expect.arrayContaining(messages.map((m) => m.messageId)));
   });
 
@@ -310,10 +288,10 @@ describe("delivery across a mail server outage", () => {
     await getDb().transaction(async (tx) => {
       for (let i = 0; i < 30; i++) await enqueueMail(tx, { to: person, kind: "test", subject: `Parallel ${i}`, html: "<p>x</p>", text: "x" });
     });
-    const before = smtp.messages().length;
-    const runs = await Promise.all([1, 2, 3].map(() => flushUntilIdle({ smtpUrl: smtp.url, batch: 4 })));
+    const before = mail.smtp.messages().length;
+    const runs = await Promise.all([1, 2, 3].map(() => flushUntilIdle({ smtpUrl: mail.smtp.url, batch: 4 })));
     expect(runs.reduce((n, r) => n + r.sent, 0)).toBe(30);
-    const got = smtp.messages().slice(before);
+    const got = mail.smtp.messages().slice(before);
     expect(got).toHaveLength(30);
     expect(new Set(got.map((m) => m.messageId)).size).toBe(30);
   });
@@ -326,7 +304,7 @@ describe("delivery across a mail server outage", () => {
       .set({ state: "sending", attempts: 1, nextAttemptAt: new Date(Date.now() - 1000) })
       .where(gte(outbox.id, 0))
       .returning();
-    const r = await flushOutbox({ smtpUrl: smtp.url });
+    const r = await flushOutbox({ smtpUrl: mail.smtp.url });
     expect(r.recovered).toBe(1);
     expect(r.sent).toBe(1);
     expect(inbox().map((m) => m.messageId)).toEqual([row!.messageId]);
@@ -369,7 +347,7 @@ describe("delivery across a mail server outage", () => {
 
       const retried = await retryFailed(admin, failed!.id);
       expect(retried.state).toBe("queued");
-      const r = await flushOutbox({ smtpUrl: smtp.url });
+      const r = await flushOutbox({ smtpUrl: mail.smtp.url });
       expect(r.sent).toBe(1);
       expect(inbox().map((m) => m.messageId)).toEqual([failed!.messageId]);
       await expect(retryFailed(admin, failed!.id)).rejects.toMatchObject({ code: "conflict" });

@@ -1,18 +1,15 @@
 import fs from "node:fs";
-import os from "node:os";
 import path from "node:path";
-import { and, eq, gte, sql } from "drizzle-orm";
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { and, eq, sql } from "drizzle-orm";
+import { beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/client";
-import { auditLog, digestItems, outbox, subscriptions, users } from "@/db/schema";
-import { env } from "@/lib/env";
-import { startFakeSmtp, type FakeSmtp } from "@/scripts/fake-smtp/server";
+import { auditLog, digestItems, subscriptions, users } from "@/db/schema";
 import type { InboxMessage } from "@/lib/mail/schemas";
-import { flushUntilIdle } from "@/lib/mail/sender";
 import { askQuestion } from "@/lib/questions/mutations";
 import { documentFromText } from "@/lib/techniques/document";
 import { createTechnique, reviewTechnique, setHouseMethod, submitTechnique, updateTechnique } from "@/lib/techniques/mutations";
 import { follow, makeTag, makeTechnique, makeUser } from "@/tests/integration/mail/factories";
+import { MAIL_BASE as BASE, setUpFakeMail } from "@/tests/integration/mail/fake-mail";
 
 /*
  * Issue 13, item 5: who hears of what in the writing and review flow, delivered over SMTP to the
@@ -21,35 +18,14 @@ import { follow, makeTag, makeTechnique, makeUser } from "@/tests/integration/ma
  * of submissions, immediate or digest per their setting; nobody gets mail about their own action.
  */
 
-const BASE = "https://plateroom.kestrel.test";
-let smtp: FakeSmtp;
-let storeDir: string;
-let savedBase: string | undefined;
-
-beforeAll(async () => {
-  savedBase = env.PLATEROOM_BASE_URL;
-  env.PLATEROOM_BASE_URL = BASE;
-  storeDir = fs.mkdtempSync(path.join(os.tmpdir(), "plateroom-review-mail-"));
-  smtp = await startFakeSmtp({ storeDir, quiet: true });
-});
-afterAll(async () => {
-  env.PLATEROOM_BASE_URL = savedBase;
-  await smtp.stop();
-  fs.rmSync(storeDir, { recursive: true, force: true });
-});
+const mail = setUpFakeMail();
 beforeEach(async () => {
-  await getDb().delete(outbox).where(gte(outbox.id, 0));
-  await getDb().delete(digestItems).where(gte(digestItems.id, 0));
   // Each test has its own people: those of earlier tests (leads among them) are disabled.
   await getDb().update(users).set({ disabledAt: new Date() }).where(sql`true`);
 });
 
 /** Sends everything queued to the fake SMTP server; returns what it received in this run. */
-async function deliver(): Promise<InboxMessage[]> {
-  const before = smtp.messages().length;
-  await flushUntilIdle({ smtpUrl: smtp.url });
-  return smtp.messages().slice(before);
-}
+const deliver = async (): Promise<InboxMessage[]> => (await mail.deliver()).messages;
 const to = (messages: InboxMessage[], email: string) => messages.filter((m) => m.envelope.to.includes(email));
 const digestFor = async (userId: string) => getDb().select().from(digestItems).where(eq(digestItems.userId, userId));
 

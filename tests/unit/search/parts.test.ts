@@ -104,6 +104,24 @@ describe("thesaurus", () => {
     expect(t.rulesByFirstStem.get("marker")).toBeUndefined();
   });
 
+  it("adds the symptom lexicon one way and under the leads' entries", () => {
+    const withLexicon = compileThesaurus(
+      [{ kind: "synonyms", terms: ["patchy", "blotchy"] }],
+      stemOf,
+      [{ means: ["uneven", "patchy"], seen: ["blotchy", "mottled"] }],
+    );
+    expect(withLexicon.rulesByFirstStem.get("mottled")?.[0]?.targets.map((x) => [x.text, x.kind])).toEqual([
+      ["uneven", "related"],
+      ["patchy", "related"],
+    ]);
+    // The lead's synonym link stands; the lexicon only adds what the leads did not say.
+    expect(withLexicon.rulesByFirstStem.get("blotchy")?.[0]?.targets.map((x) => [x.text, x.kind])).toEqual([
+      ["patchy", "synonym"],
+      ["uneven", "related"],
+    ]);
+    expect(withLexicon.rulesByFirstStem.get("uneven")).toBeUndefined();
+  });
+
   it("finds the longest phrase a query spells, left to right without overlap", () => {
     const q = ["put", "grain", "back", "tape", "cros"];
     const found = findPhrases(q.length, (i) => [q[i] as string], t);
@@ -150,6 +168,19 @@ describe("query parsing", () => {
     expect(ALTERNATIVE_WEIGHTS.synonym).toBeLessThan(ALTERNATIVE_WEIGHTS.exact);
   });
 
+  it("reaches a problem name through the symptom lexicon, under a page that says the word itself", () => {
+    const docs = [doc({ title: "Flattening an uneven screen" }), doc({ title: "Blotchy skin tones" }), doc({ title: "Marker removal" })];
+    const { ctx, scorer } = build(docs);
+    const lexiconCtx = { ...ctx, thesaurus: compileThesaurus([], (w) => ctx.vocab.stemOf(w), [{ means: ["uneven"], seen: ["blotchy"] }]) };
+    const plan = parseQuery("blotchy", lexiconCtx, { prefix: "none", exact: false });
+    const related = plan.units[0]?.alternatives.find((a) => a.kind === "related");
+    expect(related?.weight).toBe(ALTERNATIVE_WEIGHTS.related);
+    expect(ALTERNATIVE_WEIGHTS.related).toBeLessThan(ALTERNATIVE_WEIGHTS.broader);
+    const s = scorer.score(plan, 0b1111111, docs.length);
+    expect([...s.ids].sort()).toEqual([0, 1]);
+    expect(s.scores[s.ids.indexOf(1)]).toBeGreaterThan(s.scores[s.ids.indexOf(0)] as number);
+  });
+
   it("weighs filler words little", () => {
     const p = parse("how do i get rid of floor markers");
     expect(p.units.map((u) => [u.text, u.weight])).toEqual([
@@ -181,6 +212,24 @@ describe("scoring", () => {
     const at = (id: number) => s.scores[s.ids.indexOf(id)] as number;
     expect(at(0)).toBeGreaterThan(at(2));
     expect(s.coverage[s.ids.indexOf(1)]).toBeCloseTo(2 / 3, 5);
+  });
+
+  it("lets a thesaurus term on most of many pages add to pages the word found, but bring in none of its own", () => {
+    const docs = [
+      doc({ title: "Crash mats", bodyText: "pads" }),
+      doc({ title: "Landing pads on the ground" }),
+      ...Array.from({ length: 298 }, (_, i) => doc({ title: `Other ${i}`, bodyText: "pads everywhere" })),
+    ];
+    const { ctx, scorer } = build(docs, [{ kind: "synonyms", terms: ["mat", "pad"] }]);
+    const plan = parseQuery("mats", ctx, { prefix: "none", exact: false });
+    expect(plan.units[0]?.alternatives.map((a) => a.kind)).toEqual(["exact", "synonym"]);
+    const s = scorer.score(plan, 0b1111111, docs.length);
+    // "pad" is on 300 of 300 pages: only page 0, found by "mats" itself, is a candidate.
+    expect(s.ids).toEqual([0]);
+    // Where no page says the word typed, the same term finds its pages.
+    const { ctx: ctx2, scorer: scorer2 } = build(docs.slice(1), [{ kind: "synonyms", terms: ["mat", "pad"] }]);
+    const s2 = scorer2.score(parseQuery("mats", ctx2, { prefix: "none", exact: false }), 0b1111111, docs.length - 1);
+    expect(s2.ids.length).toBe(299);
   });
 });
 

@@ -257,13 +257,83 @@ const filler: Row[] = [
   ["how do i hide an earpiece", "earpiece-radio-mic", "an earpiece"],
 ];
 
+
+/**
+ * Second held-out batch (2026-12-03): ten new queries per kind, written from the page titles and
+ * summaries only, before looking at the engine's vocabulary or the thesaurus, and never tuned on.
+ * All of them count as held out.
+ */
+const heldOutPlain: Row[] = [
+  ["dark corners stitched panorama", "vignetting-stitched-tiles", "corner darkening repeated in the tiles of a panorama"],
+  ["contrail removal", "contrails-sky", "aircraft trails across the sky"],
+  ["insects at night", "insects-around-lights", "bugs around lamps on night shoots"],
+  ["dropped frames", "duplicate-dropped-frames", "missing frames in a damaged sequence"],
+  ["earpiece removal", "earpiece-radio-mic", "hiding earpieces on actors"],
+  ["fixing things behind smoke", "paint-through-smoke", "paint work through drifting smoke"],
+  ["dead leds on video wall", "led-wall-dead-leds", "failed LED modules on a display wall, not sensor pixels"],
+  ["seams in green screen", "screen-tape-seams", "joins between screen panels"],
+  ["shadow from the crane", "crane-shadow-moving-shot", "a camera crane's shadow, not the boom or crew"],
+  ["sunglasses reflection", "reflection-sunglasses-visor", "crew reflected in dark glasses"],
+];
+
+const heldOutTypo: Row[] = [
+  ["removng posters from wals", "posters-graffiti", "dropped letters in 'removing' and 'walls'"],
+  ["flickring tv screen", "monitor-flicker-in-shot", "dropped letter in 'flickering'"],
+  ["grian on cg elemnts", "grain-match-cg", "transposed 'grain', dropped letter in 'elements'"],
+  ["hareness under costum", "wire-harness-bulges", "extra letter in 'harness', dropped letter in 'costume'"],
+  ["lens gohsts", "lens-ghosts", "transposed letters in 'ghosts'"],
+  ["chromatic abberation", "chromatic-aberration-edges", "the usual doubled b"],
+  ["rolling shuter", "rolling-shutter-skew", "dropped letter in 'shutter'"],
+  ["footprnts in sand", "footprints-snow-sand", "dropped letter in 'footprints'"],
+  ["numbr plate swap", "number-plates-cars", "dropped letter in 'number'"],
+  ["creeses in the screen", "screen-creases-cloth", "misspelt 'creases'"],
+];
+
+const heldOutDescribe: Row[] = [
+  ["the actors shirt has weird wavy lines all over it", "moire-fabric", "rippling interference on a fabric pattern"],
+  ["the lamps in the room keep getting brighter and darker", "deflicker-practical-lights", "practical lamps flickering, not time-lapse exposure"],
+  ["purple and green edges around the window frames", "chromatic-aberration-edges", "coloured fringes on high-contrast edges"],
+  ["the walls of the building look bent outwards", "straighten-wide-lens-lines", "bowed architecture from a wide lens"],
+  ["the whole picture wobbles like jelly from the car mount", "jello-wobble-vibration", "vibration wobble on a car mount"],
+  ["moths flying round the street lamp", "insects-around-lights", "insects swarming through a lamp's light"],
+  ["you can see the sound guys pole at the top", "boom-mic-in-frame", "the boom dipping into the top of frame"],
+  ["tiny coloured dots that stay put in the night shot", "hot-pixels-dark-plates", "hot pixels in a dark plate"],
+  ["my patch looks stuck because the grain on it does not move", "frozen-grain-held-patch", "still grain on a held patch"],
+  ["half the frame is suddenly bright from someones camera", "flash-band-repair", "a photographer's flash lighting part of the frame"],
+];
+
+const heldOutFiller: Row[] = [
+  ["how do i remove a tattoo off someones arm", "tattoo-cover", "covering a tattoo"],
+  ["whats the best way to fix shiny sweaty foreheads", "sweat-shine-skin", "shine on skin under hot lights"],
+  ["how can i get rid of the van parked far away in the wide", "crew-vehicles-wide", "unit vehicles in a wide"],
+  ["i need to take out a guy walking through the shot and the camera does not move", "crew-passers-by-locked", "a passer-by in a static shot"],
+  ["is there a way to make my patch as blurry as the out of focus background", "defocus-patch-match", "matching the softness of a patch"],
+  ["how do i get rid of the camera rails on the floor", "rig-dolly-track", "dolly track in shot"],
+  ["what should i do when the rain is hiding the actors face", "rain-streaks", "thinning out rain over faces"],
+  ["how do you fix the frames at the end of a film roll that go orange", "light-leak-flash-frames", "roll-end light leaks"],
+  ["can someone tell me how to remove cables lying on the set floor", "floor-tape-cables", "cables on the floor of the set"],
+  ["how do i put a new sky behind the trees", "sky-replacement-trees", "sky replacement behind foliage"],
+];
+
 const toQueries = (kind: QueryKind, rows: Row[]): QualityQuery[] => rows.map(([query, expected, reason]) => ({ kind, query, expected, reason }));
 
-export const QUALITY_QUERIES: QualityQuery[] = [...toQueries("plain", plain), ...toQueries("typo", typo), ...toQueries("describe", describe), ...toQueries("filler", filler)];
+const FIRST_SET: QualityQuery[] = [...toQueries("plain", plain), ...toQueries("typo", typo), ...toQueries("describe", describe), ...toQueries("filler", filler)];
+const SECOND_HELD_OUT: QualityQuery[] = [
+  ...toQueries("plain", heldOutPlain),
+  ...toQueries("typo", heldOutTypo),
+  ...toQueries("describe", heldOutDescribe),
+  ...toQueries("filler", heldOutFiller),
+];
 
-/** Every fourth query of each kind (positions 3, 7, 11, … within the kind) was held out of tuning. */
+export const QUALITY_QUERIES: QualityQuery[] = [...FIRST_SET, ...SECOND_HELD_OUT];
+
+/**
+ * Held out of tuning: every fourth query of each kind in the first set (positions 3, 7, 11, …
+ * within the kind), and every query of the second batch.
+ */
 export function isHeldOut(q: QualityQuery): boolean {
-  const sameKind = QUALITY_QUERIES.filter((x) => x.kind === q.kind);
+  if (SECOND_HELD_OUT.includes(q)) return true;
+  const sameKind = FIRST_SET.filter((x) => x.kind === q.kind);
   return sameKind.indexOf(q) % 4 === 3;
 }
 
