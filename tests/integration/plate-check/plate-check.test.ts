@@ -196,7 +196,7 @@ describe("POST and GET /api/stills/{id}/check", () => {
     const lossy = ((await (await check(artist, id)).json()) as CheckDto).findings;
     const lossless = dto.findings;
     for (const key of ["noise", "defects", "dust"] as const) {
-      expect(lossy[key].summary).toMatch(/JPEG-compressed/);
+      expect(lossy[key].summary).toMatch(/lossy-compressed \(JPEG\)/);
       expect(lossy[key].confidence).toBeLessThanOrEqual(0.5);
       expect(lossless[key].summary).not.toMatch(/JPEG/);
     }
