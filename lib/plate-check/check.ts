@@ -134,7 +134,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     dropDepartingBlocks(blockMeans(smooth, W, H, size, mask, 2), mask, W, H, range);
     surface = fitSurface(frame, smooth, mask, size, floorSmooth);
     await stage("screen", 4);
-    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: true, surfaceMask: mask, toLinear, toCode }));
+    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: true, surfaceMask: mask, toLinear, toCode, sigma: rough }));
     stats = screenStats(linear, W, H, cleanScreen(mask, labels), size, 2);
     const onScreen = spots.filter((s) => s.kind !== "other").reduce((a, s) => a + s.area, 0);
     coverage = (stats.pixels + onScreen) / n;
@@ -147,7 +147,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     if (surface) giveBack(surface.z2.buffer as ArrayBuffer);
     mask.fill(1);
     surface = fitSurface(frame, smooth, mask, size, floorSmooth);
-    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: false, surfaceMask: flatMask(surface, W, H), toLinear, toCode }));
+    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: false, surfaceMask: flatMask(surface, W, H), toLinear, toCode, sigma: rough }));
   }
   // A flagged pixel inside a spot that is there without it (the end of a hair, a fleck of a
   // marker) is structure, not a defect: give it back its value.

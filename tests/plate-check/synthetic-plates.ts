@@ -415,6 +415,9 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
     const o = (y * W + x) * 3;
     const roll = rand();
     let kind: TruthDefect["kind"], channels: TruthDefect["channels"];
+    // In linear floats a dead pixel on a dark area is no step at all (0.02 → 0 is lost in the grain):
+    // as for stuck channels below, one is planted only where it steps at least a quarter of the display scale.
+    if (linearOut && roll >= 0.35 && roll < 0.6 && Math.min(storedCode(o), storedCode(o + 1), storedCode(o + 2)) < 0.25) continue;
     if (roll < 0.35) {
       kind = "hot";
       channels = ["r", "g", "b"];
