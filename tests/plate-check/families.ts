@@ -93,11 +93,12 @@ export function heldOut2Spec(seed: number): PlateSpec {
 
 /**
  * Tape of the screen's own hue (a darker patch of the screen colour, common practice on set) as
- * one of the shades, crosses only: colour cannot tell such tape from dust, only its shape can (a
- * screen-hued dot cannot be told from a dust speck in one frame and is not claimed). Written after
- * probe plates made outside the project (crosses of dark screen colour, generated with numpy)
- * showed them taken for dust. Seen: the solidity limit (0.88) was raised from 0.8 after this
- * family's first run missed its chunky blurred crosses.
+ * one of the shades, crosses only: colour cannot tell such tape from dust. Written after probe
+ * plates made outside the project (crosses of dark screen colour, generated with numpy) showed
+ * them taken for dust. Seen: first told apart by shape (solidity, its limit raised from 0.8 to
+ * 0.88 after this family's first run); since the linear OpenEXR work, by the set rule
+ * (lib/plate-check/spots.ts markSameHueSets), after a run of this family found 5 thin crosses
+ * taken for hairs — the set rule now also looks at hair-like spots.
  */
 export function screenHuedTapeSpec(seed: number): PlateSpec {
   const r = mulberry32(seed * 6007 + 29);

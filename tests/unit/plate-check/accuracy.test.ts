@@ -88,7 +88,7 @@ describe("plate check accuracy on generated plates", () => {
     expectTargets(t);
   });
 
-  it("tape of the screen's own hue (crosses), told from dust by shape: 3 plates", { timeout: 240_000 }, async () => {
+  it("tape of the screen's own hue (crosses), told from dust by the set it belongs to: 3 plates", { timeout: 240_000 }, async () => {
     const t = await runFamily(Array.from({ length: 3 }, (_, i) => screenHuedTapeSpec(i + 1)));
     report("screen-hued tape", t);
     expectTargets(t);
