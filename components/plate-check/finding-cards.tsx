@@ -83,6 +83,7 @@ export function FindingCards({ findings: f, tagNames }: Props) {
           Single-frame estimate after J. Immerkær, “Fast Noise Variance Estimation” (1996), ± {percent(f.noise.relativeError[0], 2)} standard error.
         </p>
       </Finding>
+      <Finding title="File coding" confidence={f.compression.confidence} summary={f.compression.summary} tags={f.compression.tags} tagNames={tagNames} />
       <Finding title="Clipped and crushed" confidence={f.clipping.confidence} summary={f.clipping.summary} tags={f.clipping.tags} tagNames={tagNames}>
         <dl className="space-y-0.5">
           <Row label="Clipped R · G · B">{f.clipping.clipped.join(" · ")} px</Row>

@@ -55,7 +55,7 @@ export function FrameDrop({ compact = false, maxBytes = 80 * 1024 * 1024 }: { co
       >
         <input {...getInputProps({ "aria-label": "Choose a frame to check" })} />
         <p className={compact ? "" : "text-base"}>
-          {isDragActive ? "Drop the frame to check it." : compact ? "Can't put it into words? Or drop a frame here" : "Drop a frame here — PNG, TIFF, JPEG or WebP, 8 or 16 bits — and Plateroom measures what is on it."}
+          {isDragActive ? "Drop the frame to check it." : compact ? "Can't put it into words? Or drop a frame here" : "Drop a frame here — PNG, TIFF, JPEG, WebP or OpenEXR — and Plateroom measures what is on it."}
         </p>
         <Button variant={compact ? "secondary" : "primary"} onClick={open} disabled={busy}>
           Choose a frame…

@@ -1,8 +1,9 @@
 import { countClipping } from "@/lib/plate-check/clipping";
 import { findDefects, repairDefects } from "@/lib/plate-check/defects";
+import { quantisationFloor } from "@/lib/plate-check/frame";
 import { CHANNELS, codeToLinear, linearToCode, round, type PlateFrame } from "@/lib/plate-check/image";
 import { IMMERKAER_SCALE, laplacianAbsSumsRgb, robustSigma } from "@/lib/plate-check/noise";
-import type { DustFinding, Findings, MarkerFinding, MarkerShade, NoiseFinding, OverlayGrid, Rgb, ScreenFinding } from "@/lib/plate-check/schemas";
+import type { CompressionFinding, DustFinding, Findings, MarkerFinding, MarkerShade, NoiseFinding, OverlayGrid, Rgb, ScreenFinding } from "@/lib/plate-check/schemas";
 import { guessScreen, MIN_SCREEN_COVERAGE, screenKind, screenLikeMask, screenStats, type ScreenStats } from "@/lib/plate-check/screen";
 import { findSpots, groupShades, type Spot } from "@/lib/plate-check/spots";
 import { blockMeans, blockSize, boxMean3, deviationMap, dilateMask, dropDepartingBlocks, residualSigma, strongNearSampled, type SurfaceGrid } from "@/lib/plate-check/surface";
@@ -19,7 +20,7 @@ import { problemTagsFor } from "@/lib/plate-check/tags";
  */
 
 /** Bump when any detector's output for the same frame changes: stored findings are then re-run. */
-export const DETECTOR_VERSION = 2;
+export const DETECTOR_VERSION = 3;
 
 /** Spot thresholds on z² (three channels): a core beyond 40 (p ≈ 2·10⁻⁸ for pure noise), grown through 16. */
 const SPOT_HI = 40;
@@ -34,8 +35,8 @@ const NOISE_STEP = 2;
 export type CheckStage = "noise estimate" | "dead and hot pixels" | "clipping" | "screen" | "markers and dust" | "noise" | "done";
 
 export type CheckOptions = {
-  /** The still was stored with lossy compression (JPEG): grain and single pixels are not what the camera saw. */
-  lossy?: boolean;
+  /** How the still's file stores its pixels (lib/plate-check/compression.ts); lossless when absent. */
+  compression?: CompressionFinding;
   onStage?: (stage: CheckStage, done: number, total: number) => void;
   pause?: () => Promise<void>;
 };
@@ -89,7 +90,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
   const toLinear = (v: number): number => codeToLinear(frame, v);
   const toCode = (l: number): number => linearToCode(frame, l);
   // A floor for noise figures: quantisation of the stored depth (uniform: step/√12).
-  const quantFloor = 1 / (frame.codeMax * Math.sqrt(12));
+  const quantFloor = quantisationFloor(frame);
 
   // 1. Rough noise for thresholds.
   const sampleStep = Math.max(1, Math.round(Math.sqrt(n / 100_000)));
@@ -133,7 +134,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     dropDepartingBlocks(blockMeans(smooth, W, H, size, mask, 2), mask, W, H, range);
     surface = fitSurface(frame, smooth, mask, size, floorSmooth);
     await stage("screen", 4);
-    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: true, surfaceMask: mask, toLinear, toCode }));
+    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: true, surfaceMask: mask, toLinear, toCode, sigma: rough }));
     stats = screenStats(linear, W, H, cleanScreen(mask, labels), size, 2);
     const onScreen = spots.filter((s) => s.kind !== "other").reduce((a, s) => a + s.area, 0);
     coverage = (stats.pixels + onScreen) / n;
@@ -146,7 +147,7 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     if (surface) giveBack(surface.z2.buffer as ArrayBuffer);
     mask.fill(1);
     surface = fitSurface(frame, smooth, mask, size, floorSmooth);
-    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: false, surfaceMask: flatMask(surface, W, H), toLinear, toCode }));
+    ({ spots, labels } = findSpots(surface.z2, linear, surface.grid, { width: W, height: H, hi: SPOT_HI, lo: SPOT_LO, isScreen: false, surfaceMask: flatMask(surface, W, H), toLinear, toCode, sigma: rough }));
   }
   // A flagged pixel inside a spot that is there without it (the end of a hair, a fleck of a
   // marker) is structure, not a defect: give it back its value.
@@ -219,11 +220,12 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
     dust,
     noise: { ...noise, codeMax: frame.codeMax },
     clipping,
+    compression: options.compression ?? { lossy: false, method: "not told", summary: "The file's coding was not given to the check; its values are taken as stored.", confidence: 0.5, tags: [] },
     problemTags: [],
     plateTags: [],
     timings,
   };
-  if (options.lossy) markLossy(findings);
+  if (findings.compression.lossy) markLossy(findings);
   const tagged = problemTagsFor(findings);
   findings.problemTags = tagged.problemTags;
   findings.plateTags = tagged.plateTags;
@@ -232,11 +234,12 @@ export async function checkFrame(frame: PlateFrame, options: CheckOptions = {}):
 }
 
 /**
- * A lossy still (JPEG): its compression smooths grain and smears or invents single-pixel detail,
- * so the noise, defect and dust figures are rough; they say so and claim half their confidence.
+ * A lossy still (JPEG, lossy WebP, lossy OpenEXR): its compression smooths grain and smears or
+ * invents single-pixel detail, so the noise, defect and dust figures are rough; they say so and
+ * claim half their confidence.
  */
 function markLossy(f: Findings): void {
-  const note = " The still is JPEG-compressed: compression smooths grain and smears single pixels, so this is a rough figure.";
+  const note = ` The still is lossy-compressed (${f.compression.method}): compression smooths grain and smears single pixels, so this is a rough figure.`;
   f.noise.summary += note;
   f.noise.confidence = round(f.noise.confidence * 0.5, 2);
   f.defects.summary += note;
@@ -312,10 +315,12 @@ function measureNoise(frame: PlateFrame, include: Uint8Array, rough: Rgb): Omit<
   const used = flatEnough ? pixels : n / 4;
   const rel = Math.sqrt((Math.PI / 2 - 1) / Math.max(1, used / 4));
   const noisiest = CHANNELS[sigma.indexOf(Math.max(...sigma))]!;
-  const codes = sigma.map((s) => round(s * codeMax, 3)) as Rgb;
+  // Float stills: the stored values themselves (linear light for a still in a linear space).
+  const codes = sigma.map((s) => round(s * codeMax, frame.hasCodeCeiling ? 3 : 6)) as Rgb;
+  const units = frame.hasCodeCeiling ? `code values (of ${codeMax})` : frame.colourSpace === "linear" ? "in the still's linear float values" : "in the still's stored float values";
   const summary = flatEnough
-    ? `Noise σ R ${codes[0]} · G ${codes[1]} · B ${codes[2]} code values (of ${codeMax}); ${noisiest.toUpperCase()} is noisiest. Measured on ${pct((pixels * NOISE_STEP * NOISE_STEP) / n, 0)} of the frame where nothing else was found.`
-    : `Too little flat area to measure noise on its own; σ R ${codes[0]} · G ${codes[1]} · B ${codes[2]} code values from the whole frame's median response, which counts fine texture as noise.`;
+    ? `Noise σ R ${codes[0]} · G ${codes[1]} · B ${codes[2]} ${units}; ${noisiest.toUpperCase()} is noisiest. Measured on ${pct((pixels * NOISE_STEP * NOISE_STEP) / n, 0)} of the frame where nothing else was found.`
+    : `Too little flat area to measure noise on its own; σ R ${codes[0]} · G ${codes[1]} · B ${codes[2]} ${units} from the whole frame's median response, which counts fine texture as noise.`;
   return {
     summary,
     sigma: sigma.map((s) => round(s, 7)) as Rgb,

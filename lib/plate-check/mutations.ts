@@ -7,7 +7,8 @@ import { writeAudit } from "@/lib/audit/log";
 import { assertCan } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
 import { checkFrame, DETECTOR_VERSION, type CheckStage } from "@/lib/plate-check/check";
-import { originalBytesOf, readStillLinear } from "@/lib/plate-check/pixels";
+import { compressionFinding } from "@/lib/plate-check/compression";
+import { assertCheckable, isCodedSrgb, originalBytesOf, readStillLinear } from "@/lib/plate-check/pixels";
 import { checkDtoFor, storedCheck, storedTries, toKeptDto } from "@/lib/plate-check/queries";
 import { MAX_TRIES, type CheckDto, type Findings, type KeptRecipeDto, type TryResult } from "@/lib/plate-check/schemas";
 import { plateProxy, tryRecipe } from "@/lib/plate-check/tries";
@@ -53,7 +54,13 @@ export async function runPlateCheck(user: SessionUser, stillId: string, options:
   const still = await getStillForRead(user, stillId);
   const stored = await storedCheck(still.id);
   if (!stored || stored.detectorVersion !== DETECTOR_VERSION || options.force) {
-    const findings = await withCheckSlot(async () => checkFrame(await readStillLinear(still), { lossy: still.format === "jpeg", pause, onStage: options.onStage }));
+    assertCheckable(still);
+    const findings = await withCheckSlot(async () => {
+      // The coded path decodes these bytes; WebP's chunks tell its coding. Float stills are read by the stills module.
+      const bytes = isCodedSrgb(still) || still.format === "webp" ? await originalBytesOf(still) : undefined;
+      const compression = compressionFinding({ format: still.format, bytes, exr: still.exr });
+      return checkFrame(await readStillLinear(still, bytes), { compression, pause, onStage: options.onStage });
+    });
     await getDb().transaction(async (tx) => {
       await tx
         .insert(plateChecks)

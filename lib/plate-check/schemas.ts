@@ -108,10 +108,21 @@ export type ClippingFinding = {
   tags: TagReason[];
 };
 
+/** How the still's file stores its pixels: lossy coding changes what grain, defects and dust look like. */
+export type CompressionFinding = {
+  lossy: boolean;
+  /** The format and coding, in words ("WebP, lossy VP8 coding"). */
+  method: string;
+  summary: string;
+  confidence: number;
+  tags: TagReason[];
+};
+
 export type Findings = {
   detectorVersion: number;
   width: number;
   height: number;
+  /** How the check read the stored values: sRGB-encoded, or linear floats in the still's own space. */
   colourSpace: "srgb" | "linear";
   screen: ScreenFinding;
   markers: MarkerFinding;
@@ -119,6 +130,7 @@ export type Findings = {
   dust: DustFinding;
   noise: NoiseFinding;
   clipping: ClippingFinding;
+  compression: CompressionFinding;
   /** Problem tags over all findings, strongest reason first. */
   problemTags: TagReason[];
   /** Plate tags the findings suggest (the screen's colour). */

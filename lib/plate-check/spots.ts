@@ -8,12 +8,13 @@ import { modelAt, type SurfaceGrid } from "@/lib/plate-check/surface";
  *
  * The sorting rules are our own, from how these things look on a plate (common practice, no
  * published source):
- * - a marker sits on the screen (most of the ring around it is screen), is not a thin stroke, is smaller than a few per cent of the frame, and differs from the
- *   screen in colour, not just in brightness — or, when it is only a darker or lighter patch of the
- *   screen's own colour (tape of the screen's hue), is shaped like tape: a cross or another figure
- *   well short of convex (solidity ≤ 0.8, where a blob at any angle is ≈ 1), and no smaller than a marker is drawn;
- * - dust is a small speck that darkens or lightens the surface by the same factor in every
- *   channel (it blocks light; it has no colour of its own) or is too small to be a marker;
+ * - a marker sits on the screen (most of the ring around it is screen), is not a thin stroke, is
+ *   smaller than a few per cent of the frame, and differs from the screen in colour, not just in
+ *   brightness — or, when it is only a darker or lighter patch of the screen's own colour (tape or
+ *   a dot of the screen's hue), belongs to a set of alike ones (markSameHueSets);
+ * - dust is a speck that darkens or lightens the surface by the same factor in every channel (it
+ *   blocks light; it has no colour of its own) and belongs to no such set, or is coloured but too
+ *   small to be a marker;
  * - a hair is long, thin and colourless: at least ~1 % of the frame long, its stroke a few pixels wide;
  * - anything larger, or not on a flat surface, is structure (foreground, edges) and is not reported.
  */
@@ -40,10 +41,10 @@ export type Spot = {
   surface: [number, number, number];
   /** Σ over the spot of (linear pixel − linear surface): the direction a matrix sees. */
   direction: [number, number, number];
-  /** Its area over its convex hull's (solidity): ≈ 1 for a disc, an ellipse or a square at any angle; 0.4–0.75 for a plus or an X cross. */
-  solidity: number;
   /** Spread of log(core / surface) across channels over (15 % of its largest size + 0.05), the smaller of linear light and code values: > 1 means coloured; ≈ 0 for a colourless speck. */
   chroma: number;
+  /** A colourless spot a marker could be drawn as: its brightness against the surface (log of the ratio of channel sums) and √area. */
+  sameHue: { level: number; size: number } | null;
   confidence: number;
 };
 
@@ -58,6 +59,8 @@ export type SpotRules = {
   surfaceMask: Uint8Array;
   toLinear: (v: number) => number;
   toCode: (l: number) => number;
+  /** Grain sigma per channel in code values (0..1 scale): how far a spot's colour can stray by noise alone. */
+  sigma?: readonly [number, number, number];
 };
 
 type Raw = { label: number; area: number; x0: number; y0: number; x1: number; y1: number; sx: number; sy: number; sw: number; peak: number; big: boolean };
@@ -124,7 +127,31 @@ export function findSpots(z2: Float32Array, linear: Float32Array, grid: SurfaceG
     raws.push(r);
   }
   const spots = raws.filter((r) => !r.big && r.area >= 2).map((r) => measure(r, z2, linear, labels, grid, rules, limits));
+  markSameHueSets(spots);
   return { spots: absorbFragments(spots), labels };
+}
+
+/** Least number of alike spots that make a set of markers (own rule: a planar track needs four points; common practice, no published source). */
+export const SAME_HUE_SET = 4;
+/** Alike: brightness against the screen within ±15 % (0.14 in log) and √area within a factor 1.35 (own rule). */
+const SAME_LEVEL = 0.14;
+const SAME_SIZE = 1.35;
+
+/**
+ * Colourless spots on a screen: dust, or markers of the screen's own hue. In linear light both
+ * are the screen's colour scaled (dust blocks light; same-hue tape reflects less or more of it),
+ * so colour cannot part them; what does is that markers come as a set of one make — the same
+ * tape at the same size, so the same brightness against the screen and the same area, put up
+ * in fours or more — while dust specks differ in opacity and size and come alone. A candidate
+ * with at least SAME_HUE_SET − 1 alike others is a marker, whatever its shape (a dot or a cross).
+ */
+function markSameHueSets(spots: Spot[]): void {
+  const cands = spots.filter((s) => (s.kind === "dust" || s.kind === "hair") && s.sameHue);
+  for (const s of cands) {
+    const a = s.sameHue!;
+    const alike = cands.filter((o) => o !== s && Math.abs(o.sameHue!.level - a.level) <= SAME_LEVEL && Math.max(o.sameHue!.size / a.size, a.size / o.sameHue!.size) <= SAME_SIZE).length;
+    if (alike + 1 >= SAME_HUE_SET) s.kind = "marker";
+  }
 }
 
 /**
@@ -152,44 +179,18 @@ function absorbFragments(spots: Spot[]): Spot[] {
   return spots.filter((s) => !gone.has(s));
 }
 
-/** Spread of log(core / surface) across channels over (15 % of its largest size + 0.05). */
-function chromaOf(core: readonly number[], surf: readonly number[]): number {
-  const eps = 1e-4;
-  const l = [0, 1, 2].map((c) => Math.log(Math.max(core[c]!, eps) / Math.max(surf[c]!, eps)));
-  const spread = Math.max(...l) - Math.min(...l), mag = Math.max(...l.map(Math.abs));
-  return spread / (0.15 * mag + 0.05);
-}
-
 /**
- * Area of the convex hull of a spot's pixels, each taken as its unit square: the hull of each
- * row's outer corners (Andrew's monotone chain), by the shoelace formula.
+ * Spread of log(core / surface) across channels over (15 % of its largest size + 0.05 + what the
+ * grain alone spreads it by). `se` is the standard error of each channel's core mean: a core
+ * within two of them of zero is read at that floor (its log says nothing finer), and the grain's
+ * spread is three standard errors of the difference of the two extreme channels' logs.
  */
-function hullArea(labels: Int32Array, W: number, r: Raw): number {
-  const pts: [number, number][] = [];
-  for (let y = r.y0; y <= r.y1; y++) {
-    let lo = -1, hi = -1;
-    for (let x = r.x0; x <= r.x1; x++) if (labels[y * W + x] === r.label) { if (lo < 0) lo = x; hi = x; }
-    if (lo < 0) continue;
-    pts.push([lo, y], [lo, y + 1], [hi + 1, y], [hi + 1, y + 1]);
-  }
-  pts.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
-  const cross = (o: [number, number], a: [number, number], b: [number, number]) => (a[0] - o[0]) * (b[1] - o[1]) - (a[1] - o[1]) * (b[0] - o[0]);
-  const half = (list: [number, number][]) => {
-    const h: [number, number][] = [];
-    for (const p of list) {
-      while (h.length >= 2 && cross(h[h.length - 2]!, h[h.length - 1]!, p) <= 0) h.pop();
-      h.push(p);
-    }
-    h.pop();
-    return h;
-  };
-  const hull = [...half(pts), ...half([...pts].reverse())];
-  let twice = 0;
-  for (let i = 0; i < hull.length; i++) {
-    const a = hull[i]!, b = hull[(i + 1) % hull.length]!;
-    twice += a[0] * b[1] - b[0] * a[1];
-  }
-  return Math.max(r.area, Math.abs(twice) / 2);
+function chromaOf(core: readonly number[], surf: readonly number[], se: readonly number[] = [0, 0, 0]): number {
+  const l = [0, 1, 2].map((c) => Math.log(Math.max(core[c]!, 1e-4, 2 * se[c]!) / Math.max(surf[c]!, 1e-4)));
+  const spread = Math.max(...l) - Math.min(...l), mag = Math.max(...l.map(Math.abs));
+  const hi = l.indexOf(Math.max(...l)), lo = l.indexOf(Math.min(...l));
+  const logSe = (c: number): number => se[c]! / Math.max(core[c]!, se[c]!, 1e-4);
+  return spread / (0.15 * mag + 0.05 + 3 * Math.hypot(logSe(hi), logSe(lo)));
 }
 
 function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Array, grid: SurfaceGrid, rules: SpotRules, limits: ReturnType<typeof spotLimits>): Spot {
@@ -232,7 +233,18 @@ function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Ar
   // Colourless in light (dust on the sensor or film blocks every channel alike) or in the stored
   // code values (a speck that scales the encoded values alike): either way it has no colour of its own.
   const coreCode = core.map(rules.toCode);
-  const chroma = Math.min(chromaOf(core, surf), chromaOf(coreCode, surfCode));
+  // Standard error of the core's mean per channel from the grain: σ in code values, carried to
+  // linear light by the slope of the transfer at the surface's level, over √(core pixels).
+  const se = [0, 0, 0], seCode = [0, 0, 0];
+  if (rules.sigma) {
+    for (let c = 0; c < 3; c++) {
+      const sg = rules.sigma[c]!, sc = surfCode[c]!;
+      const slope = Math.abs(rules.toLinear(sc + sg) - rules.toLinear(sc - sg)) / (2 * sg);
+      se[c] = (sg * slope) / Math.sqrt(coreN);
+      seCode[c] = sg / Math.sqrt(coreN);
+    }
+  }
+  const chroma = Math.min(chromaOf(core, surf, se), chromaOf(coreCode, surfCode, seCode));
   const boundary = r.area - eroded;
   const strokeWidth = boundary ? (2 * r.area) / boundary : r.area;
   const side = Math.max(r.x1 - r.x0 + 1, r.y1 - r.y0 + 1);
@@ -243,12 +255,12 @@ function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Ar
   const elongation = Math.max(r.area / (strokeWidth * strokeWidth), side / strokeWidth);
   // The 3×3 mean widens every spot by about two pixels; a hair's stroke stays narrow and long.
   const isHair = !isColoured && strokeWidth <= 6 && elongation >= 4.5 && side >= limits.minHairLength;
-  // Dust is a blob; tape of the screen's own hue is told from it by shape alone.
-  const solidity = r.area / hullArea(labels, W, r);
-  const isScreenHuedTape = !isColoured && rules.isScreen && solidity <= 0.88 && side >= limits.minTapeSide && elongation < 12;
+  // A colourless spot big enough to be drawn as a marker may be one of the screen's own hue: the
+  // set it belongs to decides (markSameHueSets).
+  // (A cross of thin tape passes for a short hair on its own; the set decides for it too.)
+  const sameHueCandidate = !isColoured && rules.isScreen && side >= limits.minTapeSide && elongation < 12;
   if (ring >= 0.6) {
     if (isHair) kind = "hair";
-    else if (isScreenHuedTape) kind = "marker";
     else if (!isColoured) kind = "dust";
     else if (r.area < limits.minChromaticMarkerArea) kind = "dust";
     else if (rules.isScreen && elongation < 12) kind = "marker";
@@ -266,11 +278,11 @@ function measure(r: Raw, z2: Float32Array, linear: Float32Array, labels: Int32Ar
     peakZ,
     ringSurface: ring,
     strokeWidth,
-    solidity,
     core,
     surface: surf,
     direction: dir,
     chroma,
+    sameHue: ring >= 0.6 && sameHueCandidate ? { level: Math.log(Math.max(core[0] + core[1] + core[2], 1e-6) / Math.max(surf[0] + surf[1] + surf[2], 1e-6)), size: Math.sqrt(r.area) } : null,
     confidence,
   };
 }

@@ -47,7 +47,7 @@ export function problemTagsFor(f: Findings): { problemTags: TagReason[]; plateTa
   }
   const worst = Math.max(...f.noise.sigma);
   if (worst >= VISIBLE_GRAIN) {
-    const r = { slug: PROBLEM_TAG.grain, because: `grain σ ${(worst * f.noise.codeMax).toFixed(2)} code values in ${f.noise.noisiest.toUpperCase()} — a cleaned area needs it put back` };
+    const r = { slug: PROBLEM_TAG.grain, because: `grain σ ${f.noise.codeMax > 1 ? `${(worst * f.noise.codeMax).toFixed(2)} code values` : worst.toFixed(4)} in ${f.noise.noisiest.toUpperCase()} — a cleaned area needs it put back` };
     f.noise.tags.push(r);
     tags.push(r);
   }

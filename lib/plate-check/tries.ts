@@ -4,11 +4,15 @@ import { AppError } from "@/lib/api/errors";
 import { decodeStill, LabInputError } from "@/lib/lab/engine";
 import { recipeSchema, type LabFormat, type RecipeStep } from "@/lib/lab/recipe";
 import { LabBusyError, LabTimeoutError, runLab, type LabRunOutput } from "@/lib/lab/runner";
+import { decodeExr } from "@/lib/exr/decode";
+import { labColour, type LabStill } from "@/lib/lab/access";
 import { fillRecipe } from "@/lib/plate-check/fill";
 import { frameFromCodes } from "@/lib/plate-check/frame";
 import { measureTry, type FloatFrame } from "@/lib/plate-check/measure";
 import { originalBytesOf } from "@/lib/plate-check/pixels";
 import { PROXY_WIDTH, type Findings, type TryResult } from "@/lib/plate-check/schemas";
+import type { LabColour } from "@/lib/stills/lab-source";
+import { PIXEL_LIMIT } from "@/lib/stills/inspect";
 
 /*
  * One technique tried on one frame: its recipe filled from the findings, rendered through the
@@ -22,33 +26,74 @@ function labError(error: unknown): never {
   throw error;
 }
 
+/** What the tries need of a still: its content address and, for colour-managed stills, how its values are held. */
+export type TryStill = Pick<Still, "id" | "sha256"> & Partial<Pick<Still, "format" | "colourSpace" | "exr" | "width" | "height" | "bitDepth">>;
+
+/**
+ * The lab's colour entry for the still (lib/lab/access.ts labColour): none for an sRGB-encoded
+ * PNG/JPEG/TIFF/WebP (the engine decodes those itself); for OpenEXR and stills declared in a
+ * linear space, the still's own linear space to work in, with the cache key that names it.
+ */
+function colourEntry(still: TryStill): { key: string; colour?: LabColour } {
+  if (!still.format || !still.colourSpace) return { key: still.sha256 };
+  const lab: LabStill = { id: still.id, sha256: still.sha256, width: still.width ?? 0, height: still.height ?? 0, bitDepth: still.bitDepth ?? 8, colour: { format: still.format, colourSpace: still.colourSpace, exrLayer: still.exr?.layer ?? null } };
+  const { colour, key } = labColour(lab, "linear", undefined);
+  return key === still.sha256 ? { key } : { key, colour };
+}
+
 /** A filled recipe rendered through the lab's runner: a proxy at PROXY_WIDTH, or the exact frame. */
-export async function renderFilled(still: Pick<Still, "id" | "sha256">, recipe: RecipeStep[], format: LabFormat, exact: boolean, bytes?: Uint8Array): Promise<LabRunOutput> {
+export async function renderFilled(still: TryStill, recipe: RecipeStep[], format: LabFormat, exact: boolean, bytes?: Uint8Array): Promise<LabRunOutput> {
+  const { key, colour } = colourEntry(still);
   try {
     return await runLab({
       stillBytes: bytes ?? (await originalBytesOf(still)),
-      stillSha256: still.sha256,
-      request: { still: still.id, space: "linear", format, steps: recipe, ...(exact ? {} : { width: PROXY_WIDTH }) },
+      stillSha256: key,
+      colour,
+      request: { still: still.id, space: "linear", format, steps: recipe, ...(format === "exr" ? { exr: MEASURE_EXR } : {}), ...(exact ? {} : { width: PROXY_WIDTH }) },
     });
   } catch (error) {
     labError(error);
   }
 }
 
+/** Float renders for measuring (no rounding to half, no compression work). */
+const MEASURE_EXR = { pixelType: "float", compression: "none" } as const;
+
 /**
- * The plate at proxy size in linear light, as the runner sees it (an empty recipe rendered
- * 16-bit): the same resize the tries get, and it leaves the decoded proxy in the runner's cache
- * for their renders.
+ * A proxy render as linear floats in the space the lab worked in. sRGB-encoded stills render as
+ * 16-bit PNG (the runner encodes linear Rec.709 — their own space — with the sRGB curve, decoded
+ * here by exact tables); colour-managed stills render as float OpenEXR in their own linear space,
+ * never clipped, so the measures stay in the still's space and keep values above 1.
  */
-export async function plateProxy(still: Pick<Still, "id" | "sha256">, bytes: Uint8Array): Promise<FloatFrame> {
-  const out = await renderFilled(still, [], "png16", false, bytes);
-  const d = await decodeStill(out.bytes);
-  const f = frameFromCodes(d.codes, d.width, d.height, d.bits);
-  return { width: f.width, height: f.height, data: f.linear };
+async function renderMeasured(still: TryStill, recipe: RecipeStep[], bytes: Uint8Array): Promise<FloatFrame> {
+  if (!colourEntry(still).colour) {
+    const out = await renderFilled(still, recipe, "png16", false, bytes);
+    const d = await decodeStill(out.bytes);
+    const f = frameFromCodes(d.codes, d.width, d.height, d.bits);
+    return { width: f.width, height: f.height, data: f.linear };
+  }
+  const out = await renderFilled(still, recipe, "exr", false, bytes);
+  const d = decodeExr(out.bytes, { maxPixels: PIXEL_LIMIT });
+  const n = d.width * d.height;
+  const data = new Float32Array(n * 3);
+  for (let p = 0, i = 0; p < n; p++, i += d.channels) {
+    data[p * 3] = d.data[i]!;
+    data[p * 3 + 1] = d.data[d.channels === 1 ? i : i + 1]!;
+    data[p * 3 + 2] = d.data[d.channels === 1 ? i : i + 2]!;
+  }
+  return { width: d.width, height: d.height, data };
+}
+
+/**
+ * The plate at proxy size in linear light, as the runner sees it (an empty recipe): the same
+ * resize the tries get, and it leaves the decoded proxy in the runner's cache for their renders.
+ */
+export async function plateProxy(still: TryStill, bytes: Uint8Array): Promise<FloatFrame> {
+  return renderMeasured(still, [], bytes);
 }
 
 export type TryInput = {
-  still: Pick<Still, "id" | "sha256">;
+  still: TryStill;
   bytes: Uint8Array;
   /** The plate at proxy size, linear light. */
   before: FloatFrame;
@@ -70,13 +115,11 @@ export async function tryRecipe(input: TryInput): Promise<TryResult> {
     return { ...base, recipe: [], filled: fill.filled, skipped: fill.skipped, measures: null, problem };
   }
   const t0 = performance.now();
-  // One proxy render, 16-bit: the measures are taken from it, and the page's preview is the same
-  // render (kept in the runner's memory) encoded for display.
-  const png16 = await renderFilled(still, parsed.data, "png16", false, bytes);
+  // One proxy render: the measures are taken from it, and the page's preview is the same
+  // recipe rendered for display (kept in the runner's memory for sRGB-encoded stills).
+  const f = await renderMeasured(still, parsed.data, bytes);
   const renderMs = performance.now() - t0;
-  const d = await decodeStill(png16.bytes);
-  const f = frameFromCodes(d.codes, d.width, d.height, d.bits);
-  const m = measureTry(before, { width: f.width, height: f.height, data: f.linear }, findings, fill.targetChannel);
+  const m = measureTry(before, f, findings, fill.targetChannel);
   return {
     ...base,
     recipe: parsed.data,

@@ -49,6 +49,12 @@ export type PlateSpec = {
   dust?: number;
   hairs?: number;
   bits?: 8 | 16;
+  /**
+   * "codes" (default): sRGB-encoded integer codes, grain in code values. "linear": the frame stays
+   * in linear light as floats (an OpenEXR plate): grain of sigma `grain` in linear values, nothing
+   * clipped or quantised, defects planted as linear values (hot 4.0, dead 0).
+   */
+  encoding?: "codes" | "linear";
 };
 
 export type TruthMarker = { x: number; y: number; shade: number; box: Box; shape: MarkerShape };
@@ -77,6 +83,8 @@ export type GeneratedPlate = {
   truth: PlateTruth;
   /** The stored codes as a PNG of the stated bit depth. */
   png(): Promise<Buffer>;
+  /** encoding "linear": the plate's linear RGB floats, interleaved (null for coded plates). */
+  linear: Float32Array | null;
 };
 
 /** Marker shades, linear RGB. Chosen to be told apart from screens and from each other. */
@@ -177,6 +185,7 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
     dust: 6,
     hairs: 2,
     bits: 16 as 8 | 16,
+    encoding: "codes" as "codes" | "linear",
     ...input,
   };
   const { width: W, height: H } = spec;
@@ -378,7 +387,16 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
   // --- encode, grain, quantise ---
   const max = spec.bits === 16 ? 65535 : 255;
   const codes = spec.bits === 16 ? new Uint16Array(n * 3) : new Uint8Array(n * 3);
-  for (let i = 0; i < n * 3; i++) codes[i] = Math.round(clamp01(srgbEncode(clamp01(lin[i]!)) + gauss() * spec.grain) * max);
+  const linearOut = spec.encoding === "linear" ? new Float32Array(n * 3) : null;
+  if (linearOut) for (let i = 0; i < n * 3; i++) linearOut[i] = lin[i]! + gauss() * spec.grain;
+  else for (let i = 0; i < n * 3; i++) codes[i] = Math.round(clamp01(srgbEncode(clamp01(lin[i]!)) + gauss() * spec.grain) * max);
+  // Planting a defect: full scale and zero in codes; in linear floats a hot photosite well above 1.
+  const HOT_LINEAR = 4;
+  const plant = (o: number, high: boolean): void => {
+    if (linearOut) linearOut[o] = high ? HOT_LINEAR : 0;
+    else codes[o] = high ? max : 0;
+  };
+  const storedCode = (o: number): number => (linearOut ? clamp01(srgbEncode(clamp01(linearOut[o]!))) : codes[o]! / max);
 
   // --- sensor defects, planted in the stored codes, isolated and off the markers and dust ---
   const defects: TruthDefect[] = [];
@@ -397,21 +415,24 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
     const o = (y * W + x) * 3;
     const roll = rand();
     let kind: TruthDefect["kind"], channels: TruthDefect["channels"];
+    // In linear floats a dead pixel on a dark area is no step at all (0.02 → 0 is lost in the grain):
+    // as for stuck channels below, one is planted only where it steps at least a quarter of the display scale.
+    if (linearOut && roll >= 0.35 && roll < 0.6 && Math.min(storedCode(o), storedCode(o + 1), storedCode(o + 2)) < 0.25) continue;
     if (roll < 0.35) {
       kind = "hot";
       channels = ["r", "g", "b"];
-      for (let c = 0; c < 3; c++) codes[o + c] = max;
+      for (let c = 0; c < 3; c++) plant(o + c, true);
     } else if (roll < 0.6) {
       kind = "dead";
       channels = ["r", "g", "b"];
-      for (let c = 0; c < 3; c++) codes[o + c] = 0;
+      for (let c = 0; c < 3; c++) plant(o + c, false);
     } else {
       kind = "stuck";
       // One channel stuck on or off: the one where that makes the larger step from its value.
       const c = Math.floor(rand() * 3);
-      const v = codes[o + c]! / max;
+      const v = storedCode(o + c);
       if (Math.max(v, 1 - v) < 0.25) continue;
-      codes[o + c] = v < 0.5 ? max : 0;
+      plant(o + c, v < 0.5);
       channels = [(["r", "g", "b"] as const)[c]!];
     }
     defects.push({ x, y, kind, channels });
@@ -460,6 +481,7 @@ export function generatePlate(input: PlateSpec): GeneratedPlate {
     bits: spec.bits,
     codes,
     truth,
+    linear: linearOut,
     png: () =>
       spec.bits === 16
         ? sharp(codes as Uint16Array, { raw: { width: W, height: H, channels: 3 } }).toColourspace("rgb16").png({ compressionLevel: 1 }).toBuffer()
