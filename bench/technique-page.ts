@@ -5,7 +5,7 @@
  * of the production build (tests/e2e/harness.ts), signed in as the demo senior, every request
  * carrying the page cache's render header so each one is a full server render (the page cache in
  * proxy.ts never answers). Target: ≥ 100 requests/s. PAGE_PROFILE=1 also writes a V8 CPU profile
- * of the server to bench/.profiles/ (open it in Chrome DevTools) — the profiler slows the run.
+ * of the server to bench/.profiles/ (sum it with bench/profile-summary.ts) — the profiler slows the run.
  * Then SHELL_DURATION (≤ 10) s of the settings page, the signed-in shell's floor, as a yardstick:
  * "pageToShellCpuRatio" changes little with other sessions' load, the CPU ms per request do.
  * Writes the key "techniquePage" of bench/results.json with the load average before and after.
