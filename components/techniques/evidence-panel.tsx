@@ -8,6 +8,7 @@ import { StillUploader } from "@/components/stills/still-uploader";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { EmptyState } from "@/components/ui/empty-state";
+import { LazyDetails } from "@/components/ui/lazy-details";
 import { ApiError, apiFetch } from "@/lib/api/fetcher";
 import type { StillPairResponse, StillResponse } from "@/lib/stills/schemas";
 
@@ -64,14 +65,13 @@ export function EvidencePanel({ slug, pairs, stills, canUpload, isApproved }: Pr
         </p>
       ) : null}
       {canUpload ? (
-        <details className="rounded border border-line p-3">
-          <summary className="cursor-pointer text-sm font-medium">Add stills and pair them</summary>
+        <LazyDetails className="rounded border border-line p-3" summary="Add stills and pair them">
           <div className="mt-3 space-y-4">
             {isApproved ? <p className="text-sm text-muted">{PAIRS_NOTE}</p> : null}
             <StillUploader technique={slug} owner="technique" role="before" onUploaded={() => router.refresh()} />
             {stills.length >= 2 ? <PairEditor technique={slug} stills={stills} onSaved={() => router.refresh()} /> : <p className="text-sm text-muted">Upload two stills to pair them as before and after.</p>}
           </div>
-        </details>
+        </LazyDetails>
       ) : null}
       <ConfirmDialog
         open={removing !== null}

@@ -6,14 +6,14 @@ import { SubmitForReviewButton } from "@/components/techniques/submit-button";
 import { buttonClasses } from "@/components/ui/button";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { listDepartmentMethods } from "@/lib/techniques/queries";
+import { departmentMethodsForPage } from "@/lib/techniques/page-data";
 import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
 /** The controls this person's role allows; the server checks every one of them again. */
 export async function TechniqueActions({ user, t }: { user: SessionUser; t: TechniqueResponse }) {
   const canMark = can(user, "technique:set-house-method") && t.status === "approved";
   const problemTags = t.tags.filter((x) => x.kind === "problem");
-  const current = canMark ? await listDepartmentMethods(problemTags.map((x) => x.slug)) : {};
+  const current = canMark ? await departmentMethodsForPage(problemTags.map((x) => x.slug)) : {};
   const isLatest = t.revision.number === t.latestRevision;
   const state = t.revision.state;
   const retired = t.status === "retired";

@@ -1,6 +1,7 @@
 import { Card, CardTitle } from "@/components/ui/card";
+import { LazyDetails } from "@/components/ui/lazy-details";
 import { OutcomeChart } from "@/components/shots/outcome-chart";
-import { UsesTable } from "@/components/shots/uses-table";
+import { UsesTableLoader } from "@/components/shots/uses-table-loader";
 import { LogUseForm } from "@/components/shots/log-use-form";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
@@ -17,13 +18,12 @@ export async function TechniqueShots({ user, technique }: { user: SessionUser; t
       </CardTitle>
       <div className="grid gap-4 md:grid-cols-[14rem_minmax(0,1fr)]">
         <OutcomeChart counts={uses.counts} />
-        <UsesTable initial={uses.items} />
+        <UsesTableLoader initial={uses.items} />
       </div>
       {can(user, "use:log") && technique.status !== "retired" ? (
-        <details className="mt-4 rounded border border-line p-3">
-          <summary className="cursor-pointer text-sm font-medium">Log that you used this on a shot</summary>
+        <LazyDetails className="mt-4 rounded border border-line p-3" summary="Log that you used this on a shot">
           <LogUseForm slug={technique.slug} />
-        </details>
+        </LazyDetails>
       ) : null}
     </Card>
   );

@@ -2,6 +2,7 @@ import "server-only";
 import { LRUCache } from "lru-cache";
 import { decode } from "next-auth/jwt";
 import { cookies, headers } from "next/headers";
+import { cache } from "react";
 import { AppError } from "@/lib/api/errors";
 import { authSecret } from "@/lib/auth/secret";
 import type { SessionUser } from "@/lib/auth/roles";
@@ -71,11 +72,11 @@ function userFromRequest(req: Request): Promise<SessionUser | null> {
   return userFromHeaders(req.headers, (name) => jar.get(name));
 }
 
-/** For server components and server actions. */
-export async function currentUser(): Promise<SessionUser | null> {
+/** For server components and server actions; once per request however many parts of a page ask (React `cache`). */
+export const currentUser = cache(async (): Promise<SessionUser | null> => {
   const [h, jar] = await Promise.all([headers(), cookies()]);
   return userFromHeaders(h, (name) => jar.get(name)?.value);
-}
+});
 
 /** Throws 401 when nobody valid is signed in. Pass the Request from route handlers. */
 export async function requireUser(req?: Request): Promise<SessionUser> {

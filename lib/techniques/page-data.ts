@@ -1,8 +1,8 @@
 import "server-only";
 import type { SessionUser } from "@/lib/auth/roles";
-import { rememberedPerViewer } from "@/lib/remembered-reads";
+import { rememberedPerViewer, rememberedUntilChange } from "@/lib/remembered-reads";
 import { listPairsForTechnique, listStillsForTechnique } from "@/lib/stills/queries";
-import { countReviewQueue, getTechnique } from "@/lib/techniques/queries";
+import { countReviewQueue, getTechnique, listDepartmentMethods } from "@/lib/techniques/queries";
 import { listTechniqueUses } from "@/lib/uses/queries";
 
 /*
@@ -24,3 +24,11 @@ export const usesForPage = rememberedPerViewer("uses", (viewer: SessionUser, slu
 
 /** The review queue's size for the navigation badge. */
 export const reviewQueueCountForShell = rememberedPerViewer("review-queue", countReviewQueue);
+
+/**
+ * The department's method for each of these problem tags, for the house-method picker (shown only
+ * to those whose role may set it; the same for everyone, so not keyed by viewer).
+ */
+export function departmentMethodsForPage(tagSlugs: string[]): ReturnType<typeof listDepartmentMethods> {
+  return rememberedUntilChange(JSON.stringify(["house-methods", ...tagSlugs]), 10 * 60_000, () => listDepartmentMethods(tagSlugs));
+}

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { Card, CardTitle } from "@/components/ui/card";
-import { QuestionsSection } from "@/components/techniques/questions-section";
+import { QuestionsSectionLoader } from "@/components/techniques/questions-section-loader";
 import { CONTENTS_MIN_HEADINGS, PageContents } from "@/components/techniques/page-contents";
 import { RenderedBody } from "@/components/techniques/rendered-body";
 import { TechniqueActions } from "@/components/techniques/technique-actions";
@@ -75,7 +75,7 @@ export default async function TechniquePage({ params }: Props) {
       <div className="space-y-6">
         <TechniqueLabSection user={user} technique={t} />
         <TechniqueShots user={user} technique={t} />
-        <QuestionsSection slug={t.slug} canAsk />
+        <QuestionsSectionLoader slug={t.slug} canAsk />
       </div>
     </article>
   );
