@@ -19,7 +19,7 @@ import { variantPath } from "@/lib/stills/storage";
 
 const uuid = z.string().uuid();
 
-type LabStill = { id: string; sha256: string; width: number; height: number; bitDepth: number; colour: StillColour };
+export type LabStill = { id: string; sha256: string; width: number; height: number; bitDepth: number; colour: StillColour };
 
 /** The still if this person may read it; a malformed id is the same 404 as a missing one. */
 export async function readableStill(user: SessionUser, id: string, field = "still"): Promise<LabStill> {
