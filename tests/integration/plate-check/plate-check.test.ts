@@ -179,7 +179,7 @@ describe("POST and GET /api/stills/{id}/check", () => {
     expect((await tries(artist, trialId, { techniques: ["no-such-technique"] })).status).toBe(404);
   });
 
-  it("says plainly when a frame has no screen, and does not try a screen method on it", async () => {
+  it("says plainly when a frame has no screen, and does not try a screen method on it", { timeout: 120_000 }, async () => {
     const grey = await sharp({ create: { width: 320, height: 200, channels: 3, background: { r: 120, g: 118, b: 115 }, noise: { type: "gaussian", mean: 120, sigma: 4 } } }).png().toBuffer();
     const id = await upload(artist, grey, "grey.png");
     const f = ((await (await check(artist, id)).json()) as CheckDto).findings;
@@ -191,7 +191,7 @@ describe("POST and GET /api/stills/{id}/check", () => {
     expect(out.tries[0]!.measures).toBeNull();
   });
 
-  it("does not claim full confidence in grain, defects or dust on a JPEG, and says why", async () => {
+  it("does not claim full confidence in grain, defects or dust on a JPEG, and says why", { timeout: 120_000 }, async () => {
     const jpeg = await sharp(png).jpeg({ quality: 92 }).toBuffer();
     const id = await upload(artist, jpeg, "frame.jpg");
     const lossy = ((await (await check(artist, id)).json()) as CheckDto).findings;
@@ -206,7 +206,7 @@ describe("POST and GET /api/stills/{id}/check", () => {
     expect(Math.abs(lossy.screen.hue! - lossless.screen.hue!)).toBeLessThanOrEqual(2);
   });
 
-  it("says a lossy WebP affects grain, defects and dust, and a lossless one does not (told from its VP8 / VP8L chunk)", async () => {
+  it("says a lossy WebP affects grain, defects and dust, and a lossless one does not (told from its VP8 / VP8L chunk)", { timeout: 120_000 }, async () => {
     const lossyId = await upload(artist, await sharp(png).webp({ quality: 90 }).toBuffer(), "frame.webp");
     const losslessId = await upload(artist, await sharp(png).webp({ lossless: true }).toBuffer(), "frame-lossless.webp");
     const lossy = ((await (await check(artist, lossyId)).json()) as CheckDto).findings;
