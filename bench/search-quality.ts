@@ -21,6 +21,11 @@ console.table(report.tuned);
 if (process.argv.includes("--held-out")) {
   console.log("held out (misses never listed)");
   console.table(report.heldOut);
+  if (process.argv.includes("--batches"))
+    for (const [batch, rows] of Object.entries(report.heldOutBatches)) {
+      console.log(`held out, ${batch} batch`);
+      console.table(rows.filter((r) => r.queries > 0));
+    }
 }
 console.log("real words corrected", report.realWordsCorrected);
 if (process.argv.includes("--misses")) console.log(report.tunedMisses.join("\n"));

@@ -9,12 +9,14 @@
  */
 import type { SearchIndex } from "@/lib/search/types";
 import { tokenize } from "@/lib/search/text";
-import { isHeldOut, QUERY_KINDS, type QualityQuery, type QueryKind } from "@/tests/unit/search/quality/queries";
+import { heldOutBatch, isHeldOut, QUERY_KINDS, type QualityQuery, type QueryKind } from "@/tests/unit/search/quality/queries";
 
 export type KindScore = { kind: QueryKind | "all"; queries: number; top1: number; top3: number; mrr: number };
 export type QualityReport = {
   tuned: KindScore[];
   heldOut: KindScore[];
+  /** The held-out queries per batch (first quarter, second and third batch), to show generalisation apart. */
+  heldOutBatches: Record<"first-quarter" | "second" | "third", KindScore[]>;
   all: KindScore[];
   /** Misses (not first) among the tuned queries only: the held-out ones are not listed on purpose. */
   tunedMisses: string[];
@@ -70,6 +72,11 @@ export function evaluateQuality(index: SearchIndex, queries: readonly QualityQue
   return {
     tuned: table(rows.filter((r) => !isHeldOut(r.q))),
     heldOut: table(rows.filter((r) => isHeldOut(r.q))),
+    heldOutBatches: {
+      "first-quarter": table(rows.filter((r) => heldOutBatch(r.q) === "first-quarter")),
+      second: table(rows.filter((r) => heldOutBatch(r.q) === "second")),
+      third: table(rows.filter((r) => heldOutBatch(r.q) === "third")),
+    },
     all: table(rows),
     tunedMisses,
     heldOutMissCount,
