@@ -153,9 +153,9 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
       if (live(sid)) out.push({ stems: [sid], weight: ALTERNATIVE_WEIGHTS.nearWord, kind: "typo", surface: vocab.surfaceWords[c.surfaceId] as string });
     }
   }
-  // Only for words the pages never use (nor their family): where pages say the word, their own
-  // vocabulary answers it better than any everyday relative would.
-  if (!hasExact) addWordNet(isKnown || vocab.isEnglishWord(word) ? word : correction, stem, ctx, out);
+  // Only for real words the pages never use (nor their family), and not for misspellings: where pages
+  // say the word, or the word is a slip for a page word, their own vocabulary answers it better.
+  if (!hasExact && !isSplit && (isKnown || vocab.isEnglishWord(word))) addWordNet(word, stem, ctx, out);
   // A word that mostly says where or how ("behind", "through", "away") weighs like a generic action word.
   const weight = vocab.isMostlyAdverb(word) ? Math.min(GENERIC_WEIGHT, queryWordWeight(word)) : undefined;
   return unit(tok, out, hasExact ? undefined : correction, weight);
