@@ -119,6 +119,11 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   }
   if (!isNumeric) {
     for (const f of vocab.family(stem)) if (live(f)) out.push({ stems: [f], weight: ALTERNATIVE_WEIGHTS.family, kind: "family", surface: vocab.stemWords[f] as string });
+    // The dictionary form where the stemmer keeps an inflection ("brighter" → bright, "darker" → dark).
+    for (const base of vocab.baseForms(word)) {
+      const sid = vocab.stemIdOf(vocab.stemOf(base));
+      if (sid !== stemId && live(sid)) out.push({ stems: [sid], weight: ALTERNATIVE_WEIGHTS.family, kind: "family", surface: base });
+    }
   }
   if (isNumeric) return unit(tok, out);
 

@@ -114,6 +114,11 @@ export class Vocabulary {
     return this.language.wordNet.related(word);
   }
 
+  /** Dictionary forms of an inflected word (WordNet's rules): "brighter" → bright. */
+  baseForms(word: string): string[] {
+    return this.language.wordNet.baseForms(word);
+  }
+
   /** A word WordNet knows mostly as an adverb ("behind", "away"): where or how, not what. */
   isMostlyAdverb(word: string): boolean {
     return this.language.wordNet.isMostlyAdverb(word);

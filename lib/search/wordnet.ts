@@ -23,11 +23,16 @@ export type WordNet = {
    * says where or how, not what is wrong, so a query weighs it less (query.ts).
    */
   isMostlyAdverb(word: string): boolean;
+  /**
+   * The dictionary forms of an inflected word by WordNet's detachment rules, where WordNet has the
+   * form in that part of speech ("brighter" → bright, "darker" → dark); never the word itself.
+   */
+  baseForms(word: string): string[];
   /** How many lemmas and synonym sets were read (for tests and the memory note). */
   size: { lemmas: number; synsets: number };
 };
 
-export const EMPTY_WORDNET: WordNet = { related: () => [], isMostlyAdverb: () => false, size: { lemmas: 0, synsets: 0 } };
+export const EMPTY_WORDNET: WordNet = { related: () => [], isMostlyAdverb: () => false, baseForms: () => [], size: { lemmas: 0, synsets: 0 } };
 
 /** Senses of a word looked at, most frequent first (WordNet's index files order them so). */
 const SENSES_PER_POS = 3;
@@ -257,20 +262,33 @@ class WordNetTables implements WordNet {
     return this.adverbs.indexOf(word) >= 0;
   }
 
-  private baseForms(word: string): number[] {
+  private baseFormIds(word: string): number[] {
     const out: number[] = [];
     const add = (w: string): void => {
       const i = this.table.indexOf(w);
       if (i >= 0 && !out.includes(i)) out.push(i);
     };
     add(word);
-    for (const pos of POS_ORDER) for (const [suffix, ending] of DETACH[pos]) if (word.endsWith(suffix) && word.length > suffix.length + 1) add(word.slice(0, -suffix.length) + ending);
+    POS_ORDER.forEach((pos, p) => {
+      for (const [suffix, ending] of DETACH[pos]) {
+        if (!word.endsWith(suffix) || word.length <= suffix.length + 1) continue;
+        // As morphy does: a detached form counts only where WordNet has it in that part of speech.
+        const i = this.table.indexOf(word.slice(0, -suffix.length) + ending);
+        if (i >= 0 && !out.includes(i) && [...this.lemmaSenses.get(i)].some((s) => this.posOf[s] === p)) out.push(i);
+      }
+    });
     return out;
+  }
+
+  baseForms(word: string): string[] {
+    return this.baseFormIds(word)
+      .map((i) => this.table.word(i))
+      .filter((w) => w !== word);
   }
 
   related(word: string): WordNetLink[] {
     const { table, words, ups, depths, lemmaSenses, posOf } = this;
-    const forms = this.baseForms(word);
+    const forms = this.baseFormIds(word);
     if (forms.length === 0) return [];
     const seen = new Set<number>(forms);
     const found: WordNetLink[][] = [[], [], []];

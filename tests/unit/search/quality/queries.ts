@@ -416,6 +416,44 @@ const thirdTypo: Row[] = [
   ["firelite flicker on patch", "firelight-flicker-on-patch", "phonetic spelling of 'firelight'"],
 ];
 
+/**
+ * A development batch of describe-what-you-see queries (2026-12-03), written like the third batch
+ * from titles and summaries only, but TUNED on openly: its misses were read to find general
+ * mechanisms (the held-out batches stay unread).
+ */
+const devDescribe: Row[] = [
+  ["there is a microphone on a stick poking in at the top", "boom-mic-in-frame", "the boom dipping into frame"],
+  ["the shot is wobbly like it was filmed from a moving car", "jello-wobble-vibration", "vibration wobble from a car mount"],
+  ["dirty marks from the old film reel that jump about", "dust-busting-film-scans", "dirt that sits on one frame only"],
+  ["grey smears on the lens after it rained", "lens-dirt-water-drops", "water and dirt on the lens"],
+  ["bright white circles of light across the image from the sun", "lens-ghosts", "ghost shapes from a bright source"],
+  ["my painted fix looks plastic because the rest of the shot is noisy", "regrain-paint-patches", "patches need the plate's grain back"],
+  ["the red letters on the shop window are a real brand", "shop-signs-replacement", "a real shop name needing clearance"],
+  ["the number on the back of the car is real", "number-plates-cars", "a real registration plate"],
+  ["somebody's phone shows a real app we cannot use", "phone-laptop-screens", "content on a device in shot"],
+  ["a bird flies right across the clean sky", "birds-planes-sky", "a bird through clear sky"],
+  ["seagulls bobbing on the harbour with crisp packets", "floating-rubbish-water", "litter floating in a harbour"],
+  ["the pictures on the monitor roll and flash", "monitor-flicker-in-shot", "rolling bars on a screen in shot"],
+  ["candle flames make the faces go brighter and darker", "firelight-flicker-on-patch", "firelight flicker"],
+  ["the lamp in the kitchen pulses all the time", "deflicker-practical-lights", "a practical light pulsing on mains power"],
+  ["two frames look the same and then one is missing", "duplicate-dropped-frames", "duplicated and dropped frames"],
+  ["spots and scabs on the actress's face", "beauty-blemishes", "blemishes on skin"],
+  ["the character has an ink drawing on his neck that must go", "tattoo-cover", "a tattoo to remove"],
+  ["a wire goes into the actor's ear", "earpiece-radio-mic", "an earpiece and its cable"],
+  ["the new sky looks cut out around the leaves", "sky-replacement-trees", "sky replacement behind foliage"],
+  ["hard to fix things behind the smoke machine haze", "paint-through-smoke", "paint through smoke"],
+  ["water from the sprinklers covers the actress's face", "rain-streaks", "rain from a rain machine hiding faces"],
+  ["the puppeteer's poles holding up the dragon", "rig-puppet-rods", "rods that move a creature"],
+  ["the big metal crane arm is in the shot and we have a plate without it", "rig-clean-plate", "a rig with a clean pass"],
+  ["the rig never leaves the shot so there is no empty plate", "rig-rebuild-background", "rebuilding the background without a clean pass"],
+  ["the stuntman is hanging from a wire in front of the blue sky", "wire-over-sky", "a wire over clear sky"],
+  ["the wire keeps crossing the busy brick wall behind", "wire-busy-background-offset", "wire over a busy background"],
+  ["the flying line is in front of clouds that move", "wire-against-moving-clouds", "a wire in front of moving clouds"],
+  ["white crosses on the green wall behind the actor", "markers-green-matrix", "tracking markers on a green screen"],
+  ["the stickers on the blue sheet need to go", "markers-blue-matrix", "markers on a blue screen"],
+  ["sticky dots stuck to the wall and floor of the set", "markers-walls-floors", "markers on real set surfaces"],
+];
+
 const toQueries = (kind: QueryKind, rows: Row[]): QualityQuery[] => rows.map(([query, expected, reason]) => ({ kind, query, expected, reason }));
 
 const FIRST_SET: QualityQuery[] = [...toQueries("plain", plain), ...toQueries("typo", typo), ...toQueries("describe", describe), ...toQueries("filler", filler)];
@@ -428,7 +466,9 @@ const SECOND_HELD_OUT: QualityQuery[] = [
 
 const THIRD_HELD_OUT: QualityQuery[] = [...toQueries("typo", thirdTypo), ...toQueries("describe", thirdDescribe)];
 
-export const QUALITY_QUERIES: QualityQuery[] = [...FIRST_SET, ...SECOND_HELD_OUT, ...THIRD_HELD_OUT];
+const DEV_SET: QualityQuery[] = toQueries("describe", devDescribe);
+
+export const QUALITY_QUERIES: QualityQuery[] = [...FIRST_SET, ...SECOND_HELD_OUT, ...THIRD_HELD_OUT, ...DEV_SET];
 
 /**
  * Held out of tuning: every fourth query of each kind in the first set (positions 3, 7, 11, …
