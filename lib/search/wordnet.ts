@@ -146,41 +146,106 @@ const SIMPLE = /^[a-z]+$/;
 export type WordNetFiles = Record<`data.${"noun" | "verb" | "adj"}` | `index.${"noun" | "verb" | "adj" | "adv"}`, string>;
 
 /** Builds the compact tables from the text of WordNet's data and index files. */
+/** Calls `each` with the bounds of every line that is not part of the licence header (which starts with spaces). */
+function forEachLine(text: string, each: (start: number, end: number) => void): void {
+  for (let start = 0; start < text.length; ) {
+    let end = text.indexOf("\n", start);
+    if (end < 0) end = text.length;
+    if (end > start && text.charCodeAt(start) !== 32) each(start, end);
+    start = end + 1;
+  }
+}
+
+/**
+ * The space-separated fields of one line, read in place: the database has ~30 MB of text, and
+ * splitting every line into strings would cost a few hundred MB at start-up for a moment.
+ */
+class FieldReader {
+  start = 0;
+  stop = 0;
+  constructor(
+    private readonly text: string,
+    private at: number,
+    private readonly end: number,
+  ) {}
+  /** Moves to the next field; false at the end of the line. */
+  next(): boolean {
+    const text = this.text;
+    while (this.at < this.end && text.charCodeAt(this.at) === 32) this.at++;
+    if (this.at >= this.end) return false;
+    this.start = this.at;
+    while (this.at < this.end && text.charCodeAt(this.at) !== 32) this.at++;
+    this.stop = this.at;
+    return true;
+  }
+  number(radix = 10): number {
+    let v = 0;
+    for (let i = this.start; i < this.stop; i++) {
+      const c = this.text.charCodeAt(i);
+      v = v * radix + (c <= 57 ? c - 48 : (c | 32) - 87);
+    }
+    return v;
+  }
+  string(): string {
+    return this.text.slice(this.start, this.stop);
+  }
+  is(value: string): boolean {
+    return this.stop - this.start === value.length && this.text.startsWith(value, this.start);
+  }
+  char(k = 0): number {
+    return this.text.charCodeAt(this.start + k);
+  }
+}
+
+const POS_CODE: Record<string, number> = { n: 0, v: 1, a: 2, s: 2, r: 3 };
+const synsetKey = (posCode: number, offset: number): number => posCode * 1e9 + offset;
+
+/** Builds the compact tables from the text of WordNet's data and index files. */
 export function parseWordNet(files: WordNetFiles): WordNet {
-  const synsetIndex = new Map<string, number>();
+  const synsetIndex = new Map<number, number>();
   const synsetWords: string[][] = [];
-  const synsetBroader: string[][] = [];
+  const synsetBroader: number[][] = [];
   const synsetPos: Pos[] = [];
   const posOfFile = { noun: "n", verb: "v", adj: "a" } as const;
 
   for (const name of ["noun", "verb", "adj"] as const) {
     const pos = posOfFile[name];
-    for (const line of files[`data.${name}`].split("\n")) {
-      if (line.length === 0 || line.startsWith(" ")) continue;
-      const f = line.slice(0, line.indexOf(" | ") >>> 0).split(" ");
-      const offset = f[0] as string;
-      const wordCount = parseInt(f[3] as string, 16);
+    const text = files[`data.${name}`];
+    forEachLine(text, (lineStart, lineEnd) => {
+      const f = new FieldReader(text, lineStart, lineEnd);
+      f.next();
+      const offset = f.number();
+      f.next(); // lexicographer file
+      f.next(); // synset type
+      f.next();
+      const wordCount = f.number(16);
       const words: string[] = [];
-      let k = 4;
-      for (let w = 0; w < wordCount; w++, k += 2) {
+      for (let w = 0; w < wordCount; w++) {
+        f.next();
         // Adjective lemmas may carry a syntactic marker: "big(a)".
-        const lemma = (f[k] as string).replace(/\(.*\)$/, "").toLowerCase();
+        const lemma = f.string().replace(/\(.*\)$/, "").toLowerCase();
         if (SIMPLE.test(lemma) && !words.includes(lemma)) words.push(lemma);
+        f.next(); // lex_id
       }
-      const pointerCount = parseInt(f[k] as string, 10);
-      k++;
-      const broader: string[] = [];
-      for (let p = 0; p < pointerCount; p++, k += 4) {
-        const symbol = f[k] as string;
-        const targetPos = (f[k + 2] as string) === "s" ? "a" : (f[k + 2] as string);
-        // Hypernyms of nouns and verbs; "similar to" between adjectives.
-        if (symbol === "@" || symbol === "@i" || (symbol === "&" && pos === "a")) broader.push(`${targetPos}${f[k + 1] as string}`);
+      f.next();
+      const pointerCount = f.number();
+      const broader: number[] = [];
+      for (let p = 0; p < pointerCount; p++) {
+        f.next();
+        // Hypernyms of nouns and verbs (@, @i); "similar to" between adjectives (&).
+        const wanted = f.is("@") || f.is("@i") || (f.is("&") && pos === "a");
+        f.next();
+        const target = f.number();
+        f.next();
+        const targetPos = POS_CODE[String.fromCharCode(f.char())] ?? 0;
+        f.next(); // source/target
+        if (wanted) broader.push(synsetKey(targetPos, target));
       }
-      synsetIndex.set(`${pos}${offset}`, synsetWords.length);
+      synsetIndex.set(synsetKey(POS_CODE[pos] as number, offset), synsetWords.length);
       synsetWords.push(words);
       synsetBroader.push(broader);
       synsetPos.push(pos);
-    }
+    });
   }
 
   // Depth of each noun synset below the top of the hierarchy (shortest hypernym path), to skip the very general.
@@ -196,42 +261,40 @@ export function parseWordNet(files: WordNetFiles): WordNet {
   };
   for (let id = 0; id < synsetWords.length; id++) depthOf(id);
 
-  // Each lemma's synonym sets per part of speech, most frequent sense first.
+  // Each lemma's synonym sets per part of speech, most frequent sense first, and its sense counts:
+  // of the adverbs (index.adv), and of everything else.
   const sensesOf = new Map<string, number[]>();
-  for (const name of ["noun", "verb", "adj"] as const) {
-    const pos = posOfFile[name];
-    for (const line of files[`index.${name}`].split("\n")) {
-      if (line.length === 0 || line.startsWith(" ")) continue;
-      const f = line.trim().split(" ");
-      const lemma = f[0] as string;
-      if (!SIMPLE.test(lemma)) continue;
-      const synsetCount = parseInt(f[2] as string, 10);
-      const offsets = f.slice(f.length - synsetCount).slice(0, SENSES_PER_POS);
+  const otherSenses = new Map<string, number>();
+  const adverbSenses = new Map<string, number>();
+  for (const name of ["noun", "verb", "adj", "adv"] as const) {
+    const text = files[`index.${name}`];
+    forEachLine(text, (lineStart, lineEnd) => {
+      const f = new FieldReader(text, lineStart, lineEnd);
+      f.next();
+      const lemma = f.string();
+      if (!SIMPLE.test(lemma)) return;
+      f.next(); // part of speech
+      f.next();
+      const synsetCount = f.number();
+      if (name === "adv") {
+        adverbSenses.set(lemma, synsetCount);
+        return;
+      }
+      otherSenses.set(lemma, (otherSenses.get(lemma) ?? 0) + synsetCount);
+      f.next();
+      const pointerKinds = f.number();
+      for (let k = 0; k < pointerKinds; k++) f.next();
+      f.next(); // sense_cnt
+      f.next(); // tagsense_cnt
       const list = sensesOf.get(lemma) ?? [];
-      for (const o of offsets) {
-        const id = synsetIndex.get(`${pos}${o}`);
+      for (let k = 0; k < Math.min(synsetCount, SENSES_PER_POS) && f.next(); k++) {
+        const id = synsetIndex.get(synsetKey(POS_CODE[posOfFile[name]] as number, f.number()));
         if (id !== undefined) list.push(id);
       }
       sensesOf.set(lemma, list);
-    }
+    });
   }
-
-  // Sense counts per word: of the adverbs (index.adv), and of everything else.
-  const otherSenses = new Map<string, number>();
-  for (const name of ["noun", "verb", "adj"] as const) {
-    for (const line of files[`index.${name}`].split("\n")) {
-      if (line.length === 0 || line.startsWith(" ")) continue;
-      const f = line.split(" ", 3);
-      otherSenses.set(f[0] as string, (otherSenses.get(f[0] as string) ?? 0) + parseInt(f[2] as string, 10));
-    }
-  }
-  const adverbs: string[] = [];
-  for (const line of files["index.adv"].split("\n")) {
-    if (line.length === 0 || line.startsWith(" ")) continue;
-    const f = line.split(" ", 3);
-    const lemma = f[0] as string;
-    if (SIMPLE.test(lemma) && parseInt(f[2] as string, 10) > (otherSenses.get(lemma) ?? 0)) adverbs.push(lemma);
-  }
+  const adverbs = [...adverbSenses].filter(([lemma, n]) => n > (otherSenses.get(lemma) ?? 0)).map(([lemma]) => lemma);
 
   const lemmas = new Set<string>(sensesOf.keys());
   for (const words of synsetWords) for (const w of words) lemmas.add(w);

@@ -25,6 +25,7 @@ const TINY: WordNetFiles = {
     "00000009 18 n 02 tourist 0 holidaymaker 0 001 @ 00000008 n 0000 | someone who travels for pleasure",
     "00000010 18 n 03 chap 0 bloke 0 fellow 0 001 @ 00000007 n 0000 | a boy or man",
     "00000011 18 n 02 crash_pad 0 landing_mat 0 001 @ 00000005 n 0000 | multi-word lemmas are left out",
+    "00000012 08 n 01 hair 0 000 | a covering for the body",
   ].join("\n"),
   "index.noun": [
     "  1 This software and database is being provided to you, the LICENSEE, by Princeton University",
@@ -44,6 +45,7 @@ const TINY: WordNetFiles = {
     "fellow n 1 1 @ 1 0 00000010",
     "behind n 1 1 @ 1 0 00000003",
     "crash_pad n 1 1 @ 1 0 00000011",
+    "hair n 1 0 1 0 00000012",
   ].join("\n"),
   "data.verb": "",
   "index.verb": "",
@@ -56,7 +58,7 @@ describe("WordNet tables", () => {
   const wn = parseWordNet(TINY);
 
   it("reads single-word lemmas only", () => {
-    expect(wn.size.synsets).toBe(13);
+    expect(wn.size.synsets).toBe(14);
     expect(wn.related("crash_pad")).toEqual([]);
     expect(wn.related("unknownword")).toEqual([]);
   });
