@@ -161,13 +161,8 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   // Only for real words the pages never use (nor their family), and not for misspellings: where pages
   // say the word, or the word is a slip for a page word, their own vocabulary answers it better.
   if (!hasExact && !isSplit && (isKnown || vocab.isEnglishWord(word))) addWordNet(word, stem, ctx, out);
-  // A word that mostly says where or how ("behind", "through", "away") weighs like a generic action
-  // word; a function word that the stop-word list misses ("his", "they", "because") like a filler.
-  const weight = vocab.isFunctionWord(word)
-    ? Math.min(FILLER_WEIGHT, queryWordWeight(word))
-    : vocab.isMostlyAdverb(word)
-      ? Math.min(GENERIC_WEIGHT, queryWordWeight(word))
-      : undefined;
+  // A word that mostly says where or how ("behind", "through", "away") weighs like a generic action word.
+  const weight = vocab.isMostlyAdverb(word) ? Math.min(GENERIC_WEIGHT, queryWordWeight(word)) : undefined;
   return unit(tok, out, hasExact ? undefined : correction, weight);
 }
 

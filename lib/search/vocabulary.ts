@@ -119,14 +119,6 @@ export class Vocabulary {
     return this.language.wordNet.baseForms(word);
   }
 
-  /**
-   * An English word that WordNet (open word classes only) lacks: a function word such as "his". Two
-   * letters are too few to tell one from a trade abbreviation ("cg", "uv").
-   */
-  isFunctionWord(word: string): boolean {
-    return word.length >= 3 && this.language.isEnglishWord(word) && !this.language.wordNet.knows(word);
-  }
-
   /** A word WordNet knows mostly as an adverb ("behind", "away"): where or how, not what. */
   isMostlyAdverb(word: string): boolean {
     return this.language.wordNet.isMostlyAdverb(word);

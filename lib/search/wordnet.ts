@@ -28,16 +28,12 @@ export type WordNet = {
    * form in that part of speech ("brighter" → bright, "darker" → dark); never the word itself.
    */
   baseForms(word: string): string[];
-  /**
-   * True for a word WordNet has, in any form. WordNet holds the open word classes only (nouns, verbs,
-   * adjectives, adverbs), so an English word it lacks is a function word: "his", "they", "because".
-   */
-  knows(word: string): boolean;
+
   /** How many lemmas and synonym sets were read (for tests and the memory note). */
   size: { lemmas: number; synsets: number };
 };
 
-export const EMPTY_WORDNET: WordNet = { related: () => [], isMostlyAdverb: () => false, baseForms: () => [], knows: () => true, size: { lemmas: 0, synsets: 0 } };
+export const EMPTY_WORDNET: WordNet = { related: () => [], isMostlyAdverb: () => false, baseForms: () => [], size: { lemmas: 0, synsets: 0 } };
 
 /** Senses of a word looked at, most frequent first (WordNet's index files order them so). */
 const SENSES_PER_POS = 3;
@@ -330,9 +326,6 @@ class WordNetTables implements WordNet {
     return this.adverbs.indexOf(word) >= 0;
   }
 
-  knows(word: string): boolean {
-    return this.adverbs.indexOf(word) >= 0 || this.baseFormIds(word).length > 0;
-  }
 
   private baseFormIds(word: string): number[] {
     const out: number[] = [];
