@@ -219,7 +219,8 @@ export function parseWordNet(files: WordNetFiles): WordNet {
       for (let w = 0; w < wordCount; w++) {
         f.next();
         // Adjective lemmas may carry a syntactic marker: "big(a)".
-        const lemma = f.string().replace(/\(.*\)$/, "").toLowerCase();
+        const raw = f.string();
+        const lemma = (raw.charCodeAt(raw.length - 1) === 41 ? raw.slice(0, raw.indexOf("(")) : raw).toLowerCase();
         if (SIMPLE.test(lemma) && !words.includes(lemma)) words.push(lemma);
         f.next(); // lex_id
       }
@@ -251,7 +252,10 @@ export function parseWordNet(files: WordNetFiles): WordNet {
     if ((depth[id] as number) >= 0) return depth[id] as number;
     const ups = broaderIds[id] as number[];
     let d = 0;
-    if (ups.length > 0 && synsetPos[id] !== "a" && guard < 40) d = 1 + Math.min(...ups.map((u) => depthOf(u, guard + 1)));
+    if (ups.length > 0 && synsetPos[id] !== "a" && guard < 40) {
+      d = Number.POSITIVE_INFINITY;
+      for (const u of ups) d = Math.min(d, 1 + depthOf(u, guard + 1));
+    }
     depth[id] = d;
     return d;
   };
@@ -294,14 +298,15 @@ export function parseWordNet(files: WordNetFiles): WordNet {
 
   const lemmas = new Set<string>(sensesOf.keys());
   for (const words of synsetWords) for (const w of words) lemmas.add(w);
-  const table = new WordTable([...lemmas].sort());
+  const sorted = [...lemmas].sort();
+  const idOf = new Map(sorted.map((w, i) => [w, i]));
   // Only compact arrays outlive the parse (the file texts and the maps above are garbage from here).
   return new WordNetTables(
-    table,
-    new IntLists(synsetWords.map((ws) => ws.map((w) => table.indexOf(w)))),
+    new WordTable(sorted),
+    new IntLists(synsetWords.map((ws) => ws.map((w) => idOf.get(w) as number))),
     new IntLists(broaderIds),
     depth,
-    new IntLists(Array.from({ length: table.length }, (_, i) => sensesOf.get(table.word(i)) ?? [])),
+    new IntLists(sorted.map((w) => sensesOf.get(w) ?? [])),
     Uint8Array.from(synsetPos, (p) => POS_ORDER.indexOf(p)),
     new WordTable(adverbs.sort()),
   );
