@@ -482,6 +482,11 @@ export function isHeldOut(q: QualityQuery): boolean {
 
 export const QUERY_KINDS: readonly QueryKind[] = ["plain", "typo", "describe", "filler"];
 
+/** The development batch: tuned on openly (its misses are listed), reported apart with `--batches`. */
+export function isDevBatch(q: QualityQuery): boolean {
+  return DEV_SET.includes(q);
+}
+
 /** Which held-out batch a query belongs to (for reporting generalisation apart), or null when tuned. */
 export function heldOutBatch(q: QualityQuery): "first-quarter" | "second" | "third" | null {
   if (SECOND_HELD_OUT.includes(q)) return "second";
