@@ -17,10 +17,20 @@ const judge = await hunspellJudge(QUALITY_PAGES.map((p) => [p.title, p.summary, 
 const report = evaluateQuality(index, QUALITY_QUERIES, judge);
 console.log("tuned");
 console.table(report.tuned);
+if (process.argv.includes("--batches"))
+  for (const [batch, rows] of Object.entries(report.tunedBatches)) {
+    console.log(`tuned, ${batch}`);
+    console.table(rows.filter((r) => r.queries > 0));
+  }
 // While tuning, leave the held-out numbers unseen too; `--held-out` shows them (for reports).
 if (process.argv.includes("--held-out")) {
   console.log("held out (misses never listed)");
   console.table(report.heldOut);
+  if (process.argv.includes("--batches"))
+    for (const [batch, rows] of Object.entries(report.heldOutBatches)) {
+      console.log(`held out, ${batch} batch`);
+      console.table(rows.filter((r) => r.queries > 0));
+    }
 }
 console.log("real words corrected", report.realWordsCorrected);
 if (process.argv.includes("--misses")) console.log(report.tunedMisses.join("\n"));

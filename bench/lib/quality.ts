@@ -9,12 +9,16 @@
  */
 import type { SearchIndex } from "@/lib/search/types";
 import { tokenize } from "@/lib/search/text";
-import { isHeldOut, QUERY_KINDS, type QualityQuery, type QueryKind } from "@/tests/unit/search/quality/queries";
+import { heldOutBatch, isDevBatch, isHeldOut, QUERY_KINDS, type QualityQuery, type QueryKind } from "@/tests/unit/search/quality/queries";
 
 export type KindScore = { kind: QueryKind | "all"; queries: number; top1: number; top3: number; mrr: number };
 export type QualityReport = {
   tuned: KindScore[];
   heldOut: KindScore[];
+  /** The held-out queries per batch (first quarter, second and third batch), to show generalisation apart. */
+  heldOutBatches: Record<"first-quarter" | "second" | "third", KindScore[]>;
+  /** The tuned part split: the first set's tuned three quarters, and the development batch. */
+  tunedBatches: Record<"first-set" | "dev", KindScore[]>;
   all: KindScore[];
   /** Misses (not first) among the tuned queries only: the held-out ones are not listed on purpose. */
   tunedMisses: string[];
@@ -70,6 +74,15 @@ export function evaluateQuality(index: SearchIndex, queries: readonly QualityQue
   return {
     tuned: table(rows.filter((r) => !isHeldOut(r.q))),
     heldOut: table(rows.filter((r) => isHeldOut(r.q))),
+    tunedBatches: {
+      "first-set": table(rows.filter((r) => !isHeldOut(r.q) && !isDevBatch(r.q))),
+      dev: table(rows.filter((r) => isDevBatch(r.q))),
+    },
+    heldOutBatches: {
+      "first-quarter": table(rows.filter((r) => heldOutBatch(r.q) === "first-quarter")),
+      second: table(rows.filter((r) => heldOutBatch(r.q) === "second")),
+      third: table(rows.filter((r) => heldOutBatch(r.q) === "third")),
+    },
     all: table(rows),
     tunedMisses,
     heldOutMissCount,

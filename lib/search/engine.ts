@@ -21,7 +21,7 @@ import type { Language } from "./language";
 import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore } from "./postings";
 import { parseQuery, type ParseOptions, type QueryPlan } from "./query";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
-import { isThesaurusKind, Scorer } from "./scoring";
+import { isThesaurusKind, isWordNetKind, Scorer } from "./scoring";
 import { SYMPTOM_LEXICON } from "./lexicon";
 import { excerpt, matchesFor, SNIPPET_CHARS, thesaurusMatches, type MatchedWords } from "./snippets";
 import { compileThesaurus, EMPTY_THESAURUS, phraseStems, type CompiledThesaurus, type ThesaurusEntry } from "./thesaurus";
@@ -258,7 +258,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
 
   function matchedStems(p: QueryPlan): Set<string> {
     const stems = new Set<string>();
-    for (const u of p.units) for (const a of u.alternatives) for (const s of a.stems) stems.add(vocab.stemWords[s] as string);
+    for (const u of p.units) for (const a of u.alternatives) if (!isWordNetKind(a.kind)) for (const s of a.stems) stems.add(vocab.stemWords[s] as string);
     for (const sp of p.spans) for (const a of sp.alternatives) for (const s of a.stems) stems.add(vocab.stemWords[s] as string);
     return stems;
   }

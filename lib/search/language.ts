@@ -7,10 +7,13 @@
  *   paired with words that only the American one has (dictionary-en), where a known spelling rule
  *   turns one into the other (colour/color, grey/gray, centre/center, stabilise/stabilize…).
  *
- * Loading reads ~3.8 MB of package files once per process (`loadLanguage`); tests may build a small
- * `Language` with `createLanguage`.
+ * - Everyday words related to a word: WordNet 3.1 (wordnet.ts), for query words the pages do not use.
+ *
+ * Loading reads ~3.8 MB of package files (and WordNet's ~27 MB) once per process (`loadLanguage`);
+ * tests may build a small `Language` with `createLanguage`.
  */
 import { snowballStem } from "./stemming";
+import { EMPTY_WORDNET, loadWordNet, type WordNet } from "./wordnet";
 
 export type Language = {
   /** True for a word of the English word list (lower case). */
@@ -19,6 +22,8 @@ export type Language = {
   normaliseStem(stem: string): string;
   /** British → American word pairs in use (for documentation and tests). */
   variantPairs: readonly (readonly [string, string])[];
+  /** WordNet's synonyms and broader words of an everyday word (empty in small test languages). */
+  wordNet: WordNet;
 };
 
 /** A sorted word list kept as one string with offsets: ~4 MB instead of ~30 MB for a Set of strings. */
@@ -86,7 +91,7 @@ export function deriveVariantPairs(americanOnly: ReadonlySet<string>, britishOnl
   return pairs.sort((a, b) => a[0].localeCompare(b[0]));
 }
 
-export function createLanguage(words: Iterable<string>, variantPairs: readonly (readonly [string, string])[]): Language {
+export function createLanguage(words: Iterable<string>, variantPairs: readonly (readonly [string, string])[], wordNet: WordNet = EMPTY_WORDNET): Language {
   const list = new SortedWords(words);
   const stemMap = new Map<string, string>();
   for (const [gb, us] of variantPairs) {
@@ -98,6 +103,7 @@ export function createLanguage(words: Iterable<string>, variantPairs: readonly (
     isEnglishWord: (word) => list.has(word),
     normaliseStem: (stem) => stemMap.get(stem) ?? stem,
     variantPairs,
+    wordNet,
   };
 }
 
@@ -117,18 +123,19 @@ let loading: Promise<Language> | undefined;
 /** The process-wide language data, read from the packages on first use. */
 export function loadLanguage(): Promise<Language> {
   loading ??= (async () => {
-    const [{ default: wordListPath }, { default: american }, { default: british }, fs] = await Promise.all([
+    const [{ default: wordListPath }, { default: american }, { default: british }, fs, wordNet] = await Promise.all([
       import("word-list"),
       import("dictionary-en"),
       import("dictionary-en-gb"),
       import("node:fs/promises"),
+      loadWordNet(),
     ]);
     const words = (await fs.readFile(wordListPath, "utf8")).split("\n");
     const us = dictionaryStems(american.dic);
     const gb = dictionaryStems(british.dic);
     const americanOnly = new Set([...us].filter((w) => !gb.has(w)));
     const britishOnly = [...gb].filter((w) => !us.has(w));
-    return createLanguage([...words, ...us, ...gb], deriveVariantPairs(americanOnly, britishOnly));
+    return createLanguage([...words, ...us, ...gb], deriveVariantPairs(americanOnly, britishOnly), wordNet);
   })();
   return loading;
 }

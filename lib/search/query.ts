@@ -7,10 +7,23 @@
  */
 import { ALTERNATIVE_WEIGHTS, completionWeight, MAX_UNITS } from "./scoring";
 import { findPhrases, type CompiledThesaurus } from "./thesaurus";
-import { FILLER_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
+import { FILLER_WEIGHT, GENERIC_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
 import type { Vocabulary } from "./vocabulary";
 
-export type AlternativeKind = "exact" | "stem" | "family" | "parts" | "prefix" | "typo" | "split" | "joined" | "synonym" | "broader" | "related";
+export type AlternativeKind =
+  | "exact"
+  | "stem"
+  | "family"
+  | "parts"
+  | "prefix"
+  | "typo"
+  | "split"
+  | "joined"
+  | "synonym"
+  | "broader"
+  | "related"
+  | "wordnet"
+  | "wordnetBroader";
 
 /** One way a page can answer a unit or span: all `stems` present (one stem for most kinds). */
 export type Alternative = { stems: number[]; weight: number; kind: AlternativeKind; surface: string };
@@ -106,6 +119,11 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   }
   if (!isNumeric) {
     for (const f of vocab.family(stem)) if (live(f)) out.push({ stems: [f], weight: ALTERNATIVE_WEIGHTS.family, kind: "family", surface: vocab.stemWords[f] as string });
+    // The dictionary form where the stemmer keeps an inflection ("brighter" → bright, "darker" → dark).
+    for (const base of vocab.baseForms(word)) {
+      const sid = vocab.stemIdOf(vocab.stemOf(base));
+      if (sid !== stemId && live(sid)) out.push({ stems: [sid], weight: ALTERNATIVE_WEIGHTS.family, kind: "family", surface: base });
+    }
   }
   if (isNumeric) return unit(tok, out);
 
@@ -140,7 +158,31 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
       if (live(sid)) out.push({ stems: [sid], weight: ALTERNATIVE_WEIGHTS.nearWord, kind: "typo", surface: vocab.surfaceWords[c.surfaceId] as string });
     }
   }
-  return unit(tok, out, hasExact ? undefined : correction);
+  // Only for real words the pages never use (nor their family), and not for misspellings: where pages
+  // say the word, or the word is a slip for a page word, their own vocabulary answers it better.
+  if (!hasExact && !isSplit && (isKnown || vocab.isEnglishWord(word))) addWordNet(word, stem, ctx, out);
+  // A word that mostly says where or how ("behind", "through", "away") weighs like a generic action word.
+  const weight = vocab.isMostlyAdverb(word) ? Math.min(GENERIC_WEIGHT, queryWordWeight(word)) : undefined;
+  return unit(tok, out, hasExact ? undefined : correction, weight);
+}
+
+/**
+ * Everyday words related to the word (WordNet, wordnet.ts) that pages use: "tourists" → person,
+ * "mattress" → pad. The loosest kind of match, under every other (scoring.ts).
+ */
+function addWordNet(word: string | undefined, ownStem: string, ctx: QueryContext, out: Alternative[]): void {
+  if (!word || word.length < 3) return;
+  const have = new Set(out.flatMap((a) => a.stems));
+  for (const link of ctx.vocab.relatedWords(word)) {
+    const stem = ctx.vocab.stemOf(link.word);
+    if (stem === ownStem) continue;
+    const sid = ctx.vocab.stemIdOf(stem);
+    if (sid === undefined || have.has(sid) || ctx.docFreq(sid) === 0) continue;
+    have.add(sid);
+    const kind = link.kind === "synonym" ? "wordnet" : "wordnetBroader";
+    const weight = link.steps === 2 ? ALTERNATIVE_WEIGHTS.wordnetBroader2 : ALTERNATIVE_WEIGHTS[kind];
+    out.push({ stems: [sid], weight, kind, surface: link.word });
+  }
 }
 
 /** A run-together word that is not itself a word ("infront", "deadpixel"): split where both halves are. */
@@ -162,8 +204,8 @@ function splitCompound(word: string, ctx: QueryContext, out: Alternative[]): boo
   return false;
 }
 
-function unit(tok: Token, alternatives: Alternative[], correction?: string): QueryUnit {
-  const weight = queryWordWeight(tok.word);
+function unit(tok: Token, alternatives: Alternative[], correction?: string, weightOverride?: number): QueryUnit {
+  const weight = weightOverride ?? queryWordWeight(tok.word);
   // One alternative per stem set (the strongest), then the strongest few: more only adds noise and time.
   const best = new Map<string, Alternative>();
   for (const a of alternatives) {

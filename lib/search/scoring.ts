@@ -51,18 +51,29 @@ export const ALTERNATIVE_WEIGHTS = {
   broader: 0.4,
   /** A symptom word of the built-in lexicon reaching a problem name ("blotchy" → uneven): loosest. */
   related: 0.3,
+  /** An everyday synonym from WordNet ("bloke" → man): under the leads' thesaurus and the lexicon. */
+  wordnet: 0.25,
+  /** One step broader in WordNet ("mattress" → pad; "tiny" similar to small). */
+  wordnetBroader: 0.2,
+  /** Two steps broader ("tourists" → person). */
+  wordnetBroader2: 0.15,
 } as const;
 
 /** Alternatives that count well under the word typed: thesaurus terms and completions (and corrections past one edit). */
-const WEAK_KINDS: ReadonlySet<Alternative["kind"]> = new Set(["synonym", "broader", "related", "prefix"]);
+const WEAK_KINDS: ReadonlySet<Alternative["kind"]> = new Set(["synonym", "broader", "related", "wordnet", "wordnetBroader", "prefix"]);
 /** A weak alternative of a stem on more than this share of the pages only adds to pages found otherwise. */
 export const JOIN_ONLY_SHARE = 0.25;
 /** …and on more pages than this: in a small department every page is cheap to score, so none is cut. */
 export const JOIN_ONLY_MIN_PAGES = 200;
 
-/** Alternatives that come from the thesaurus or the symptom lexicon rather than from the word typed. */
+/** Alternatives that come from the thesaurus, the symptom lexicon or WordNet rather than from the word typed. */
 export function isThesaurusKind(kind: Alternative["kind"]): boolean {
-  return kind === "synonym" || kind === "broader" || kind === "related";
+  return kind === "synonym" || kind === "broader" || kind === "related" || kind === "wordnet" || kind === "wordnetBroader";
+}
+
+/** WordNet's everyday words: too loose to make a query "about" a problem tag (ranking.ts, rule 4). */
+export function isWordNetKind(kind: Alternative["kind"]): boolean {
+  return kind === "wordnet" || kind === "wordnetBroader";
 }
 
 /** A partial word completed: the more of it typed, the likelier; a complete word less likely a start. */
@@ -80,7 +91,17 @@ export function bm25Idf(docCount: number, docFreq: number): number {
 export type ScoredCandidates = { ids: number[]; scores: Float64Array; naming: Float64Array; coverage: Float64Array };
 
 const MAX_COLUMNS = MAX_UNITS + Math.ceil(MAX_UNITS / 2);
-const ROW = 2 * MAX_COLUMNS;
+const ROW = 3 * MAX_COLUMNS;
+const CREDIT = 2 * MAX_COLUMNS;
+
+/**
+ * How much of a query word a page answers when it matches it only by this kind of alternative (the
+ * coverage grade, ranking.ts rule 1): an everyday WordNet relative is weak evidence that the page is
+ * about what the word says, so it covers the word only in part.
+ */
+export function coverageCredit(kind: Alternative["kind"]): number {
+  return kind === "wordnet" || kind === "wordnetBroader" ? 0.5 : 1;
+}
 
 /** Reuses its scratch arrays across queries (single-threaded, so no sharing hazard). */
 export class Scorer {
@@ -207,10 +228,11 @@ export class Scorer {
       }
       return id * ROW;
     };
-    const keep = (id: number, column: number, s: number, naming: number): void => {
+    const keep = (id: number, column: number, s: number, naming: number, credit: number): void => {
       const at = touch(id);
       if (s > (rows[at + column] as number)) rows[at + column] = s;
       if (naming > (rows[at + MAX_COLUMNS + column] as number)) rows[at + MAX_COLUMNS + column] = naming;
+      if (credit > (rows[at + CREDIT + column] as number)) rows[at + CREDIT + column] = credit;
     };
 
     // Early cut-off: where the word itself (or a strong form of it) is on pages, a weak alternative
@@ -244,6 +266,7 @@ export class Scorer {
         // Naming (ranking rule 4) counts the query's own words only: a page names the problem better
         // by saying it, not by a thesaurus term for it.
         const namingShare = isThesaurusKind(alt.kind) ? 0 : 1;
+        const credit = coverageCredit(alt.kind);
         if (alt.stems.length === 1) {
           const sid = alt.stems[0] as number;
           const sc = stemScores(sid);
@@ -266,6 +289,7 @@ export class Scorer {
             if (v * scale > (rows[at] as number)) rows[at] = v * scale;
             const nm = (pool[from + n + k] as number) * nameScale;
             if (nm > (rows[at + MAX_COLUMNS] as number)) rows[at + MAX_COLUMNS] = nm;
+            if (credit > (rows[at + CREDIT] as number)) rows[at + CREDIT] = credit;
           }
           continue;
         }
@@ -302,7 +326,7 @@ export class Scorer {
         const n = alt.stems.length;
         for (const id of hits) {
           if (this.altCount[id] !== n || (joins && this.stamp[id] !== queryStamp)) continue;
-          keep(id, column, ((this.altSum[id] as number) / n) * alt.weight, ((this.altNaming[id] as number) / n) * alt.weight * namingShare);
+          keep(id, column, ((this.altSum[id] as number) / n) * alt.weight, ((this.altNaming[id] as number) / n) * alt.weight * namingShare, credit);
         }
       }
     };
@@ -338,7 +362,7 @@ export class Scorer {
         const w = unitWeight[i] as number;
         total += w * v;
         named += w * (rows[at + MAX_COLUMNS + i] as number);
-        covered += w;
+        covered += w * (rows[at + CREDIT + i] as number);
       }
       for (let si = 0; si < spans.length; si++) {
         const s = spans[si] as QuerySpan;
@@ -353,13 +377,13 @@ export class Scorer {
           if (v === 0) continue;
           sum += w * v;
           sumNamed += w * (rows[at + MAX_COLUMNS + k] as number);
-          sumCovered += w;
+          sumCovered += w * (rows[at + CREDIT + k] as number);
         }
         const own = spanWeight * (rows[at + unitCount + si] as number);
         const ownNamed = spanWeight * (rows[at + MAX_COLUMNS + unitCount + si] as number);
         total += Math.max(sum, own);
         named += Math.max(sumNamed, ownNamed);
-        covered += own > 0 ? spanWeight : sumCovered;
+        covered += own > 0 ? spanWeight * (rows[at + CREDIT + unitCount + si] as number) : sumCovered;
       }
       scores[t] = total;
       naming[t] = named;

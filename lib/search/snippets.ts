@@ -128,7 +128,7 @@ export function thesaurusMatches(plan: QueryPlan, has: (stemId: number, inShortF
   plan.units.forEach((u) => {
     if (u.alternatives.some((a) => direct(a.kind) && found(a))) return;
     const via = u.alternatives.find((a) => !direct(a.kind) && found(a));
-    if (via) out.push({ word: query.slice(u.start, u.end), term: via.surface, kind: via.kind === "synonym" ? "synonym" : "broader" });
+    if (via) out.push({ word: query.slice(u.start, u.end), term: via.surface, kind: via.kind === "synonym" || via.kind === "wordnet" ? "synonym" : "broader" });
   });
   for (const s of plan.spans) {
     const units = plan.units.slice(s.first, s.first + s.count);

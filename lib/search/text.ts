@@ -144,7 +144,12 @@ function wordRunsSlow(text: string, splitCamel: boolean): Token[] {
       word += ch;
       prevLower = code >= 97 && code <= 122 && !isUpper;
     } else if (APOSTROPHES.has(raw) && start >= 0 && isWordCode((text[i + 1] ?? " ").toLowerCase().charCodeAt(0))) {
-      // "actor's", "don't": one word, the apostrophe left out of it but inside its range.
+      // A possessive "'s" ("actress's", "someone's") is no part of the word: left out, inside its range.
+      if ((text[i + 1] === "s" || text[i + 1] === "S") && !isWordCode((text[i + 2] ?? " ").toLowerCase().charCodeAt(0))) {
+        i++;
+        continue;
+      }
+      // "don't": one word, the apostrophe left out of it but inside its range.
       continue;
     } else {
       flush(i);

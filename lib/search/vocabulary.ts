@@ -4,6 +4,7 @@
  * posting store indexes arrays with.
  */
 import type { Language } from "./language";
+import type { WordNetLink } from "./wordnet";
 import { familyCandidates, snowballStem } from "./stemming";
 import { editDistance, trigrams } from "./text";
 
@@ -106,6 +107,21 @@ export class Vocabulary {
   isKnownWord(word: string): boolean {
     const id = this.surfaceIds.get(word);
     return id !== undefined && this.isLive(id);
+  }
+
+  /** WordNet's related everyday words of a query word (language.ts). */
+  relatedWords(word: string): WordNetLink[] {
+    return this.language.wordNet.related(word);
+  }
+
+  /** Dictionary forms of an inflected word (WordNet's rules): "brighter" → bright. */
+  baseForms(word: string): string[] {
+    return this.language.wordNet.baseForms(word);
+  }
+
+  /** A word WordNet knows mostly as an adverb ("behind", "away"): where or how, not what. */
+  isMostlyAdverb(word: string): boolean {
+    return this.language.wordNet.isMostlyAdverb(word);
   }
 
   isEnglishWord(word: string): boolean {

@@ -48,10 +48,14 @@ describe("tokenize", () => {
     expect(tokenize("a 3 x b plate").map((t) => t.word)).toEqual(["3", "plate"]);
   });
 
-  it("folds apostrophes and accents without moving offsets", () => {
+  it("folds apostrophes and accents without moving offsets, and leaves a possessive 's out of the word", () => {
     const toks = tokenize("the actor’s moiré doesn't");
-    expect(toks.map((t) => t.word)).toEqual(["the", "actors", "moire", "doesnt"]);
+    expect(toks.map((t) => t.word)).toEqual(["the", "actor", "moire", "doesnt"]);
+    expect(toks[1]).toMatchObject({ start: 4, end: 11 });
     expect(toks[2]).toMatchObject({ start: 12, end: 17 });
+    // "actress's" would otherwise be the non-word "actresss"; "'s" inside a longer run stays folded.
+    expect(tokenize("the actress's face, it's").map((t) => t.word)).toEqual(["the", "actress", "face", "it"]);
+    expect(tokenize("o'shea's").map((t) => t.word)).toEqual(["oshea"]);
   });
 
   it("splits camelCase parameter names only when asked", () => {
