@@ -30,11 +30,6 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
               stills={labStills}
               technique={{
                 slug: technique.slug,
-                title: technique.title,
-                summary: technique.summary,
-                aliases: technique.aliases,
-                tags: technique.tags.map((t) => t.slug),
-                body: technique.body,
                 recipe: technique.recipe,
                 latestRevision: technique.latestRevision,
                 approved: technique.approvedRevision !== null,
