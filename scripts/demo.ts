@@ -8,6 +8,7 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import net from "node:net";
 import path from "node:path";
+import { serverNodeOptions } from "./server-options";
 
 const root = process.cwd();
 const dataDir = path.resolve(process.env.PLATEROOM_DATA_DIR ?? ".data");
@@ -91,7 +92,7 @@ const smtpPort = await freePort(2525);
 const env: NodeJS.ProcessEnv = { ...baseEnv, SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, NODE_ENV: "production" };
 const children: ChildProcess[] = [];
 children.push(spawn(bin("tsx"), ["-C", "react-server", "scripts/fake-smtp.ts", "--port", String(smtpPort)], { stdio: "inherit", env }));
-const app = spawn(bin("next"), ["start", "-p", String(port)], { stdio: ["inherit", "pipe", "inherit"], env });
+const app = spawn(bin("next"), ["start", "-p", String(port)], { stdio: ["inherit", "pipe", "inherit"], env: { ...env, NODE_OPTIONS: serverNodeOptions() } });
 children.push(app);
 
 let announced = false;

@@ -6,24 +6,18 @@ import { errorText, type LabStillInfo } from "@/components/lab/lab-api";
 import { TechniqueLab } from "@/components/lab/technique-lab";
 import { apiFetch } from "@/lib/api/fetcher";
 import type { MatrixStep, RecipeStep } from "@/lib/lab/recipe";
-import type { TechniqueDocument } from "@/lib/techniques/document";
+import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
-type ApplyTechnique = {
-  slug: string;
-  title: string;
-  summary: string;
-  aliases: string[];
-  tags: string[];
-  body: TechniqueDocument;
-  recipe: RecipeStep[];
-  latestRevision: number;
-  approved: boolean;
-};
+/** What the page gives the lab; the rest of the revision (write-up, aliases, tags) is read when saving. */
+type ApplyTechnique = { slug: string; recipe: RecipeStep[]; latestRevision: number; approved: boolean };
 
 /**
  * The lab for people who may edit the technique: "Apply to recipe" saves the solved or tuned
  * matrix into the technique's recipe as a new revision (PUT /api/techniques/{slug}), replacing
  * the recipe's first matrix step (or adding one in front), the same step the lab previews.
+ * The revision's other fields are read from the API only when saving, so every page render does
+ * not carry the whole write-up a second time; `baseRevision` stays the page's, so a page that is
+ * out of date gets the API's 409 rather than overwriting a newer revision.
  */
 export function TechniqueLabWithApply({ technique, stills }: { technique: ApplyTechnique; stills: LabStillInfo[] }) {
   const router = useRouter();
@@ -34,14 +28,15 @@ export function TechniqueLabWithApply({ technique, stills }: { technique: ApplyT
     const next = mi >= 0 ? recipe.map((s, i) => (i === mi ? step : s)) : [step, ...recipe];
     setStatus("Saving the matrix into the recipe…");
     try {
+      const current = await apiFetch<TechniqueResponse>(`/api/techniques/${technique.slug}`);
       const saved = await apiFetch<{ slug: string; revision: number }>(`/api/techniques/${technique.slug}`, {
         method: "PUT",
         json: {
-          title: technique.title,
-          summary: technique.summary,
-          aliases: technique.aliases,
-          tags: technique.tags,
-          body: technique.body,
+          title: current.title,
+          summary: current.summary,
+          aliases: current.aliases,
+          tags: current.tags.map((t) => t.slug),
+          body: current.body,
           recipe: next,
           baseRevision: technique.latestRevision,
           changeNote: `Colour matrix (step ${mi >= 0 ? mi + 1 : 1}) set from the still lab.`,

@@ -1,7 +1,10 @@
-import { signOutAction } from "@/lib/auth/actions";
-import { ROLE_LABELS, type SessionUser } from "@/lib/auth/roles";
+"use client";
 
-export function UserMenu({ user }: { user: SessionUser }) {
+import { signOutAction } from "@/lib/auth/actions";
+import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
+
+/** Who is signed in, and signing out (a server action). */
+export function UserMenu({ user }: { user: { name: string; role: Role } }) {
   return (
     <div className="flex items-center gap-2 text-sm">
       <span className="hidden text-muted sm:inline" data-testid="signed-in-as">

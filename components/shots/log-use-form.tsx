@@ -1,7 +1,9 @@
 "use client";
 
+import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useId, useState } from "react";
+import { TECHNIQUE_USES } from "@/components/shots/query-keys";
 import { ShotTypeahead } from "@/components/shots/shot-typeahead";
 import { TechniquePicker, type PickedTechnique } from "@/components/shots/technique-picker";
 import { ConfidentialNotice } from "@/components/stills/confidential-notice";
@@ -44,6 +46,7 @@ export function LogUseForm({ slug, shot: fixedShot }: { slug?: string; shot?: st
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const [done, setDone] = useState(false);
+  const queryClient = useQueryClient();
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -63,6 +66,8 @@ export function LogUseForm({ slug, shot: fixedShot }: { slug?: string; shot?: st
       setBefore(null);
       setAfter(null);
       router.refresh();
+      // The technique page's shot table reads its rows in the browser: read them again.
+      void queryClient.invalidateQueries({ queryKey: [TECHNIQUE_USES] });
     } catch (err) {
       setError(err instanceof ApiError ? err.message : "Logging failed; nothing was saved.");
     } finally {

@@ -1,3 +1,7 @@
+"use client";
+
+// A client component only to keep the technique page's payload small: the server sends the four
+// counts rather than the chart's element tree (issue 19). Its markup is still rendered on the server.
 import type { OutcomeCounts } from "@/lib/uses/schemas";
 
 const ROWS = [

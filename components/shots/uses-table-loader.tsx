@@ -5,8 +5,8 @@ import { Skeleton } from "@/components/ui/skeleton";
 
 /*
  * The shot table is built by TanStack Table, which was the largest single part of a technique
- * page's server render (issue 19: ~7 % of the server's CPU per page). Its rows are already in the
- * page's data, so it is rendered in the browser only, with a placeholder of about its height.
+ * page's server render (issue 19: ~7 % of the server's CPU per page). It is rendered in the
+ * browser only and reads its rows there, with a placeholder of about its height meanwhile.
  */
 function UsesTablePlaceholder() {
   return (
@@ -17,4 +17,7 @@ function UsesTablePlaceholder() {
   );
 }
 
-export const UsesTableLoader = dynamic(() => import("@/components/shots/uses-table").then((m) => m.UsesTable), { ssr: false, loading: UsesTablePlaceholder });
+export const UsesTableLoader = dynamic(() => import("@/components/shots/technique-uses-table").then((m) => m.TechniqueUsesTable), {
+  ssr: false,
+  loading: UsesTablePlaceholder,
+});

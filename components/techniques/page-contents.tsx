@@ -1,8 +1,10 @@
+"use client";
+
+// A client component only to keep the page's payload small: the server sends the outline as data
+// rather than the list's element tree (issue 19). Its markup is still rendered on the server.
+import { CONTENTS_MIN_HEADINGS } from "@/lib/techniques/outline";
 import type { OutlineHeading } from "@/lib/techniques/render";
 import { cn } from "@/lib/utils";
-
-/** Fewer headings than this and the page is short enough to read without contents. */
-export const CONTENTS_MIN_HEADINGS = 3;
 
 /** In-page contents of a long write-up: its headings as links to their sections. */
 export function PageContents({ outline }: { outline: OutlineHeading[] }) {

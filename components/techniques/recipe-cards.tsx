@@ -1,3 +1,8 @@
+"use client";
+
+// A client component only to keep the page's payload small: the server sends the recipe (which the
+// lab and the JSON button need anyway) rather than every card's element tree (issue 19). Its markup
+// is still rendered on the server.
 import type { RecipeStep } from "@/lib/lab/recipe";
 import { RECIPE_PARAMETER_LABELS } from "@/lib/techniques/recipe-labels";
 import { CopyJsonButton } from "@/components/techniques/copy-json-button";
@@ -35,7 +40,7 @@ function describe(step: RecipeStep, stillAlt: (id: string) => string): Array<[st
   }
 }
 
-/** A recipe as readable cards, with the exact JSON one click away. */
+/** A recipe as readable cards, with the exact JSON one click away. `stills` names the stills a step refers to. */
 export function RecipeCards({ recipe, stills = [] }: { recipe: RecipeStep[]; stills?: { id: string; alt: string }[] }) {
   // A still is named by its description, never by its id.
   const stillAlt = (id: string) => stills.find((s) => s.id === id)?.alt ?? "a still of this technique";

@@ -7,7 +7,10 @@ import type { TechniqueResponse } from "@/lib/techniques/schemas";
 
 /** Before/after pairs and the lab: the evidence that the method works. */
 export async function TechniqueEvidence({ user, technique }: { user: SessionUser; technique: TechniqueResponse }) {
-  const [pairs, stills] = await Promise.all([pairsForPage(user, technique.id), stillsForPage(user, technique.id)]);
+  const [readPairs, stills] = await Promise.all([pairsForPage(user, technique.id), stillsForPage(user, technique.id)]);
+  // The same still objects in pairs and list, so the page's payload carries each still once.
+  const byId = new Map(stills.map((s) => [s.id, s]));
+  const pairs = readPairs.map((p) => ({ ...p, before: byId.get(p.before.id) ?? p.before, after: byId.get(p.after.id) ?? p.after }));
   return (
     <Card aria-labelledby="evidence-title">
       <CardTitle>

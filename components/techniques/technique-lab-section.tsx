@@ -20,7 +20,7 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
       <CardTitle>
         <span id="parameters-title">Parameters</span>
       </CardTitle>
-      <RecipeCards recipe={technique.recipe} stills={all} />
+      <RecipeCards recipe={technique.recipe} stills={all.map((s) => ({ id: s.id, alt: s.alt }))} />
       {technique.recipe.length ? (
         <div className="mt-6 border-t border-line pt-4">
           <h3 className="mb-2 font-semibold">Try it</h3>
@@ -30,11 +30,6 @@ export async function TechniqueLabSection({ user, technique }: { user: SessionUs
               stills={labStills}
               technique={{
                 slug: technique.slug,
-                title: technique.title,
-                summary: technique.summary,
-                aliases: technique.aliases,
-                tags: technique.tags.map((t) => t.slug),
-                body: technique.body,
                 recipe: technique.recipe,
                 latestRevision: technique.latestRevision,
                 approved: technique.approvedRevision !== null,

@@ -1,3 +1,9 @@
+"use client";
+
+// A client component only to keep page payloads small: the server sends a reference to it instead
+// of its whole element tree, and Next.js sends the not-found and forbidden pages' trees with every
+// page (issue 19). It has no state; its markup is still rendered on the server.
+
 import Link from "next/link";
 
 /** The "not for your role" page (answered with 403 through forbidden()). */

@@ -1,9 +1,8 @@
 import "server-only";
-import type { SessionUser } from "@/lib/auth/roles";
 import { rememberedPerViewer, rememberedUntilChange } from "@/lib/remembered-reads";
 import { listPairsForTechnique, listStillsForTechnique } from "@/lib/stills/queries";
 import { countReviewQueue, getTechnique, listDepartmentMethods } from "@/lib/techniques/queries";
-import { listTechniqueUses } from "@/lib/uses/queries";
+import { techniqueUseCounts } from "@/lib/uses/queries";
 
 /*
  * What a technique page and the signed-in shell read, remembered per viewer until the next
@@ -19,8 +18,8 @@ export const techniqueForPage = rememberedPerViewer("technique", getTechnique);
 export const pairsForPage = rememberedPerViewer("pairs", listPairsForTechnique);
 export const stillsForPage = rememberedPerViewer("stills", listStillsForTechnique);
 
-/** The shot table's first page (as many rows as the page shows) and the outcome counts. */
-export const usesForPage = rememberedPerViewer("uses", (viewer: SessionUser, slug: string) => listTechniqueUses(viewer, slug, { limit: 500 }));
+/** The shot log's outcome counts; the table's rows are read by the browser (components/shots/technique-uses-table.tsx). */
+export const outcomeCountsForPage = rememberedPerViewer("use-counts", techniqueUseCounts);
 
 /** The review queue's size for the navigation badge. */
 export const reviewQueueCountForShell = rememberedPerViewer("review-queue", countReviewQueue);

@@ -138,6 +138,12 @@ export async function listTechniqueUses(actor: SessionUser, slug: string, query:
   return { ...page, counts };
 }
 
+/** The outcome counts of a technique's shot log, for the page's chart (the rows come from the API in the browser). */
+export async function techniqueUseCounts(actor: SessionUser, slug: string): Promise<OutcomeCounts> {
+  const { technique: t } = await requireVisibleTechnique(actor, slug);
+  return outcomeCounts(t.id);
+}
+
 /** Internal: the stills with these ids that exist, with what visibility needs. */
 export async function findStills(ids: string[]): Promise<Map<string, { id: string; owner: "technique" | "use" | "trial"; uploaderId: string | null }>> {
   const wanted = ids.filter(isUuid);

@@ -7,6 +7,7 @@ import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Locator, type Page } from "playwright-core";
 import { buildWarnings } from "@/scripts/build-log";
 import { startFakeSmtp } from "@/scripts/fake-smtp/server";
+import { serverNodeOptions } from "@/scripts/server-options";
 
 /**
  * Drives the built app the way people use it: a production build on a free port with its own
@@ -256,13 +257,15 @@ export async function startApp(options: { env?: Record<string, string>; nodeArgs
     AUTH_SECRET: crypto.randomBytes(32).toString("base64url"),
     SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
     PLATEROOM_BASE_URL: `http://127.0.0.1:${port}`,
+    NODE_OPTIONS: serverNodeOptions(),
     ...options.env,
   });
   let output = "";
   // The fake SMTP server (scripts/fake-smtp/server.ts) runs in this process: a process of its own
   // per app cost a TypeScript compile at every start.
   const smtp = await startFakeSmtp({ port: smtpPort, host: "127.0.0.1", storeDir: inboxDir, quiet: true });
-  // nodeArgs (benchmarks: --cpu-prof, which NODE_OPTIONS refuses) go to the node running `next start`.
+  // nodeArgs (benchmarks: --cpu-prof, which NODE_OPTIONS refuses) go to the node running `next start`,
+  // beside the server's own V8 options in NODE_OPTIONS (scripts/server-options.ts).
   const app = options.nodeArgs?.length
     ? spawn(process.execPath, [...options.nodeArgs, bin("next"), "start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env })
     : spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env });
@@ -379,6 +382,7 @@ export async function startServerOn(dataDir: string, uploadsDir: string, options
     AUTH_SECRET: options.authSecret ?? crypto.randomBytes(32).toString("base64url"),
     PLATEROOM_MAIL_SENDER: "off",
     PLATEROOM_BASE_URL: `http://127.0.0.1:${port}`,
+    NODE_OPTIONS: serverNodeOptions(),
     ...options.env,
   });
   let output = "";

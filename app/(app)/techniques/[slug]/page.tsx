@@ -1,8 +1,9 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
-import { Card, CardTitle } from "@/components/ui/card";
+import { Card } from "@/components/ui/card";
+import { RevisionFacts } from "@/components/techniques/revision-facts";
 import { QuestionsSectionLoader } from "@/components/techniques/questions-section-loader";
-import { CONTENTS_MIN_HEADINGS, PageContents } from "@/components/techniques/page-contents";
+import { PageContents } from "@/components/techniques/page-contents";
 import { RenderedBody } from "@/components/techniques/rendered-body";
 import { TechniqueActions } from "@/components/techniques/technique-actions";
 import { TechniqueBanners } from "@/components/techniques/technique-banners";
@@ -14,6 +15,7 @@ import { SubscribeButton } from "@/components/subscriptions/subscribe-button";
 import { loadOrNotFound } from "@/lib/api/page-guards";
 import { requireUser } from "@/lib/auth/session";
 import { techniqueForPage } from "@/lib/techniques/page-data";
+import { CONTENTS_MIN_HEADINGS } from "@/lib/techniques/outline";
 import { renderDocument } from "@/lib/techniques/render";
 
 type Props = { params: Promise<{ slug: string }> };
@@ -45,24 +47,7 @@ export default async function TechniquePage({ params }: Props) {
           </Card>
         </div>
         <aside className="space-y-4" aria-label="About this technique">
-          <Card>
-            <CardTitle>Revision</CardTitle>
-            <dl className="space-y-1 text-sm">
-              <div className="flex justify-between gap-2">
-                <dt className="text-muted">Shown</dt>
-                <dd>{t.revision.number}</dd>
-              </div>
-              <div className="flex justify-between gap-2">
-                <dt className="text-muted">Approved</dt>
-                <dd>{t.approvedRevision ?? "—"}</dd>
-              </div>
-              <div className="flex justify-between gap-2">
-                <dt className="text-muted">Newest</dt>
-                <dd>{t.latestRevision}</dd>
-              </div>
-            </dl>
-            {t.revision.changeNote ? <p className="mt-2 text-sm text-muted">“{t.revision.changeNote}”</p> : null}
-          </Card>
+          <RevisionFacts shown={t.revision.number} approved={t.approvedRevision} newest={t.latestRevision} changeNote={t.revision.changeNote || null} />
           {body.outline.length >= CONTENTS_MIN_HEADINGS ? (
             <Card className="lg:sticky lg:top-4">
               <PageContents outline={body.outline} />
