@@ -81,6 +81,11 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
       targets.push({ stems: stems as number[], weight: ALTERNATIVE_WEIGHTS[t.kind], kind: t.kind, surface: t.text });
     }
     if (targets.length === 0) continue;
+    // The leads' thesaurus decides what its words mean: WordNet's guesses for them are dropped.
+    for (let k = match.first; k < match.first + match.count; k++) {
+      const u = units[k] as QueryUnit;
+      u.alternatives = u.alternatives.filter((a) => a.kind !== "wordnet" && a.kind !== "wordnetBroader");
+    }
     if (match.count === 1) (units[match.first] as QueryUnit).alternatives.push(...targets);
     else spans.push({ first: match.first, count: match.count, alternatives: targets });
     for (let k = match.first; k < match.first + match.count; k++) taken[k] = 1;

@@ -132,6 +132,15 @@ describe("WordNet in the engine", () => {
     expect(res.results.map((r) => r.slug)).toEqual(["mattress-on-the-floor"]);
   });
 
+  it("gives way to a lead's thesaurus entry for the same word", () => {
+    const thesaurus = [{ kind: "narrower" as const, broader: "landing mat", terms: ["mattress"] }];
+    const index = createSearchIndex({ language, thesaurus });
+    index.load([doc("Crash pads on the ground"), doc("Landing mats for stunts")].map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
+    const res = index.search("mattresses", { audience: "published" });
+    expect(res.results.map((r) => r.slug)).toEqual(["landing-mats-for-stunts"]);
+    expect(res.results[0]?.via).toEqual([{ word: "mattresses", term: "landing mat", kind: "broader" }]);
+  });
+
   it("weighs a mostly-adverb word like a generic one, so the problem word decides", () => {
     const index = createSearchIndex({ language });
     const docs = [doc("Behind the actors"), doc("Markers in fine hair on moving actors")];
