@@ -1,12 +1,11 @@
-import { Wordmark } from "@/components/brand/logo-mark";
+import { StandaloneFrame } from "@/components/shell/standalone-frame";
 import { SignInFirst } from "@/components/ui/sign-in-first";
 
 /** unauthorized(): ours, not Next.js's default (which every page's payload also carried). */
 export default function Unauthorized() {
   return (
-    <main className="flex min-h-screen flex-col items-center justify-center gap-6 p-6">
-      <Wordmark />
+    <StandaloneFrame>
       <SignInFirst />
-    </main>
+    </StandaloneFrame>
   );
 }

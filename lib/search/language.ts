@@ -13,6 +13,7 @@
  * tests may build a small `Language` with `createLanguage`.
  */
 import { snowballStem } from "./stemming";
+import { WordTable } from "./word-table";
 import { EMPTY_WORDNET, loadWordNet, type WordNet } from "./wordnet";
 
 export type Language = {
@@ -25,35 +26,6 @@ export type Language = {
   /** WordNet's synonyms and broader words of an everyday word (empty in small test languages). */
   wordNet: WordNet;
 };
-
-/** A sorted word list kept as one string with offsets: ~4 MB instead of ~30 MB for a Set of strings. */
-class SortedWords {
-  private readonly text: string;
-  private readonly offsets: Uint32Array;
-  constructor(words: Iterable<string>) {
-    const sorted = [...new Set([...words].map((w) => w.trim().toLowerCase()).filter(Boolean))].sort();
-    this.text = sorted.join("\n");
-    this.offsets = new Uint32Array(sorted.length + 1);
-    let at = 0;
-    sorted.forEach((w, i) => {
-      this.offsets[i] = at;
-      at += w.length + 1;
-    });
-    this.offsets[sorted.length] = at;
-  }
-  has(word: string): boolean {
-    let lo = 0;
-    let hi = this.offsets.length - 2;
-    while (lo <= hi) {
-      const mid = (lo + hi) >> 1;
-      const w = this.text.slice(this.offsets[mid], (this.offsets[mid + 1] as number) - 1);
-      if (w === word) return true;
-      if (w < word) lo = mid + 1;
-      else hi = mid - 1;
-    }
-    return false;
-  }
-}
 
 // British → American spelling rules, as endings or inner letters (common knowledge of the two
 // spellings). A rule only pairs words when the British form is in the British dictionary alone and
@@ -92,7 +64,7 @@ export function deriveVariantPairs(americanOnly: ReadonlySet<string>, britishOnl
 }
 
 export function createLanguage(words: Iterable<string>, variantPairs: readonly (readonly [string, string])[], wordNet: WordNet = EMPTY_WORDNET): Language {
-  const list = new SortedWords(words);
+  const list = new WordTable([...new Set([...words].map((w) => w.trim().toLowerCase()).filter(Boolean))].sort());
   const stemMap = new Map<string, string>();
   for (const [gb, us] of variantPairs) {
     const from = snowballStem(gb);

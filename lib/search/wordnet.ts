@@ -11,6 +11,7 @@
  * (about 6 MB in memory); the database files (~27 MB of text) are read once per process and dropped.
  * Tests may build a small `WordNet` from database lines with `parseWordNet`.
  */
+import { WordTable } from "./word-table";
 
 /** How a WordNet word relates to the word typed: the same synonym set, or one or two steps broader. */
 export type WordNetLink = { word: string; kind: "synonym" | "broader"; steps: 0 | 1 | 2 };
@@ -80,40 +81,6 @@ const DETACH: Record<"n" | "v" | "a", readonly (readonly [string, string])[]> = 
 
 const POS_ORDER = ["n", "v", "a"] as const;
 type Pos = (typeof POS_ORDER)[number];
-
-/** A sorted list of words kept as one string with offsets (binary search), like language.ts. */
-class WordTable {
-  private readonly text: string;
-  private readonly offsets: Uint32Array;
-  constructor(sorted: readonly string[]) {
-    this.text = sorted.join("\n");
-    this.offsets = new Uint32Array(sorted.length + 1);
-    let at = 0;
-    sorted.forEach((w, i) => {
-      this.offsets[i] = at;
-      at += w.length + 1;
-    });
-    this.offsets[sorted.length] = at;
-  }
-  get length(): number {
-    return this.offsets.length - 1;
-  }
-  word(i: number): string {
-    return this.text.slice(this.offsets[i], (this.offsets[i + 1] as number) - 1);
-  }
-  indexOf(word: string): number {
-    let lo = 0;
-    let hi = this.length - 1;
-    while (lo <= hi) {
-      const mid = (lo + hi) >> 1;
-      const w = this.word(mid);
-      if (w === word) return mid;
-      if (w < word) lo = mid + 1;
-      else hi = mid - 1;
-    }
-    return -1;
-  }
-}
 
 /** Lists of integers per key in one array (compressed sparse rows). */
 class IntLists {

@@ -5,6 +5,8 @@ import { loadLanguage } from "@/lib/search/language";
 import type { ThesaurusEntry } from "@/lib/search/thesaurus";
 import type { SearchDocument, SearchOptions } from "@/lib/search/types";
 
+import { searchDoc } from "@/tests/unit/search/search-doc";
+
 import { TAGS } from "./quality/pages";
 
 const language = await loadLanguage();
@@ -14,19 +16,7 @@ const createSearchIndex = (thesaurus: ThesaurusEntry[] = []) => createEngine({ l
 let n = 0;
 function doc(p: Partial<SearchDocument> & { slug: string; title: string }): SearchDocument {
   n++;
-  return {
-    techniqueId: `t-${p.slug}`,
-    summary: "",
-    aliases: [],
-    tags: [],
-    parameterNames: [],
-    shotCodes: [],
-    bodyText: "",
-    status: "approved",
-    houseMethodFor: [],
-    updatedAt: `2026-03-${String(10 + (n % 18)).padStart(2, "0")}T09:00:00.000Z`,
-    ...p,
-  };
+  return searchDoc({ techniqueId: `t-${p.slug}`, updatedAt: `2026-03-${String(10 + (n % 18)).padStart(2, "0")}T09:00:00.000Z`, ...p });
 }
 const pub = (d: SearchDocument) => ({ published: d, working: null });
 const slugs = (idx: ReturnType<typeof createSearchIndex>, q: string, o: Partial<SearchOptions> = {}) =>

@@ -7,27 +7,15 @@ import { aboveFloor, bestScore, gradedScore, problemTagsHit, promoteHouseMethods
 import { ALTERNATIVE_WEIGHTS, bm25Idf, Scorer } from "@/lib/search/scoring";
 import { matchesFor, thesaurusMatches } from "@/lib/search/snippets";
 import { compileThesaurus, findPhrases, type ThesaurusEntry } from "@/lib/search/thesaurus";
-import type { SearchDocument } from "@/lib/search/types";
 import { Vocabulary } from "@/lib/search/vocabulary";
+import type { SearchDocument } from "@/lib/search/types";
+import { searchDoc } from "@/tests/unit/search/search-doc";
 
 // Each part of the engine on its own, with a tiny word list. Behaviour is Plateroom's own (issue 16)
 // unless a source is named.
 const language = createLanguage(["flor", "seems", "sideways", "side", "ways", "in", "front", "someone"], [["colour", "color"]]);
 
-const doc = (p: Partial<SearchDocument> & { title: string }): SearchDocument => ({
-  techniqueId: p.title,
-  slug: p.title.toLowerCase().replace(/\W+/g, "-"),
-  summary: "",
-  aliases: [],
-  tags: [],
-  parameterNames: [],
-  shotCodes: [],
-  bodyText: "",
-  status: "approved",
-  houseMethodFor: [],
-  updatedAt: "2026-01-01T00:00:00.000Z",
-  ...p,
-});
+const doc = searchDoc;
 
 /** A small index built from the parts, as engine.ts does. */
 function build(docs: SearchDocument[], thesaurus: ThesaurusEntry[] = []) {

@@ -3,8 +3,8 @@ import { describe, expect, it } from "vitest";
 import { createSearchIndex } from "@/lib/search/engine";
 import { createLanguage } from "@/lib/search/language";
 import { coverageCredit } from "@/lib/search/scoring";
-import type { SearchDocument } from "@/lib/search/types";
 import { loadWordNet, parseWordNet, type WordNetFiles } from "@/lib/search/wordnet";
+import { searchDoc } from "@/tests/unit/search/search-doc";
 
 // The WordNet layer (issue 16). The small database below is written in WordNet's own file format
 // (wndb(5WN), WordNet 3.x documentation: "offset lex_filenum ss_type w_cnt word lex_id … p_cnt
@@ -101,20 +101,7 @@ describe("WordNet tables", () => {
 describe("WordNet in the engine", () => {
   const wn = parseWordNet(TINY);
   const language = createLanguage(["mattress", "mattresses", "pad", "pads", "tourists", "behind", "hair", "markers"], [], wn);
-  const doc = (title: string, summary = ""): SearchDocument => ({
-    techniqueId: title,
-    slug: title.toLowerCase().replace(/\W+/g, "-"),
-    title,
-    summary,
-    aliases: [],
-    tags: [],
-    parameterNames: [],
-    shotCodes: [],
-    bodyText: "",
-    status: "approved",
-    houseMethodFor: [],
-    updatedAt: "2026-01-01T00:00:00.000Z",
-  });
+  const doc = (title: string, summary = "") => searchDoc({ title, summary });
 
   it("reaches a page word from an everyday word no page uses, and says through which term", () => {
     const index = createSearchIndex({ language });

@@ -3,8 +3,9 @@ import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { act } from "react";
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { TechniqueUsesTable } from "@/components/shots/technique-uses-table";
-import type { TechniqueUsesResponse, UseResponse } from "@/lib/uses/schemas";
+import type { TechniqueUsesResponse } from "@/lib/uses/schemas";
 import { mountEachTest } from "@/tests/unit/dom-root";
+import { logRow } from "@/tests/unit/shots/use-rows";
 
 // Our own behaviour (issue 19): a technique page's server render carries only the outcome counts;
 // the shot table reads its rows from GET /api/techniques/{slug}/uses (shared/API.md), whose pages
@@ -14,23 +15,6 @@ vi.mock("next/link", () => ({ default: ({ children, href }: { children: React.Re
 const dom = mountEachTest();
 afterEach(() => vi.unstubAllGlobals());
 
-function use(i: number): UseResponse {
-  return {
-    id: `u${i}`,
-    technique: { id: "t", slug: "dot-paint-out", title: "Dot paint-out", status: "approved" },
-    shot: { code: `KYR_010_${String(i).padStart(4, "0")}`, showCode: "KYR", sequence: "010" },
-    outcome: "clean",
-    note: `note ${i}`,
-    user: { id: "p", name: "Person" },
-    beforeStill: null,
-    afterStill: null,
-    revisionId: null,
-    canEdit: false,
-    createdAt: new Date(Date.UTC(2026, 0, 1, 0, i)).toISOString(),
-    updatedAt: new Date(Date.UTC(2026, 0, 1, 0, i)).toISOString(),
-  };
-}
-
 function serve(total: number, fail = false) {
   const urls: string[] = [];
   vi.stubGlobal("fetch", async (url: string) => {
@@ -38,7 +22,7 @@ function serve(total: number, fail = false) {
     if (fail) return new Response(JSON.stringify({ error: { code: "internal", message: "The database did not answer." } }), { status: 500 });
     const q = new URL(url, "http://x").searchParams;
     const [limit, offset] = [Number(q.get("limit")), Number(q.get("offset"))];
-    const items = Array.from({ length: Math.max(0, Math.min(limit, total - offset)) }, (_, k) => use(offset + k));
+    const items = Array.from({ length: Math.max(0, Math.min(limit, total - offset)) }, (_, k) => logRow(offset + k));
     const body: TechniqueUsesResponse = { items, total, counts: { clean: total, "touch-up": 0, failed: 0, total } };
     return new Response(JSON.stringify(body), { status: 200 });
   });
@@ -46,16 +30,17 @@ function serve(total: number, fail = false) {
 }
 
 const settle = () => act(async () => new Promise((r) => setTimeout(r, 20)));
-const client = () => new QueryClient({ defaultOptions: { queries: { retry: false } } });
+const showTable = () =>
+  dom.render(
+    <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
+      <TechniqueUsesTable slug="dot-paint-out" />
+    </QueryClientProvider>,
+  );
 
 describe("TechniqueUsesTable", () => {
   it("reads every row of a long shot log page by page from the API, then shows the first ten", async () => {
     const urls = serve(450);
-    dom.render(
-      <QueryClientProvider client={client()}>
-        <TechniqueUsesTable slug="dot-paint-out" />
-      </QueryClientProvider>,
-    );
+    showTable();
     expect(dom.host.querySelector('[role="status"]')?.getAttribute("aria-label")).toBe("Loading the shot table");
     await settle();
     expect(urls).toEqual([0, 200, 400].map((o) => `/api/techniques/dot-paint-out/uses?limit=200&offset=${o}`));
@@ -65,11 +50,7 @@ describe("TechniqueUsesTable", () => {
 
   it("asks once for a short log", async () => {
     const urls = serve(3);
-    dom.render(
-      <QueryClientProvider client={client()}>
-        <TechniqueUsesTable slug="dot-paint-out" />
-      </QueryClientProvider>,
-    );
+    showTable();
     await settle();
     expect(urls).toHaveLength(1);
     expect(dom.host.querySelectorAll("tbody tr")).toHaveLength(3);
@@ -77,11 +58,7 @@ describe("TechniqueUsesTable", () => {
 
   it("says what failed and offers to try again", async () => {
     serve(3, true);
-    dom.render(
-      <QueryClientProvider client={client()}>
-        <TechniqueUsesTable slug="dot-paint-out" />
-      </QueryClientProvider>,
-    );
+    showTable();
     await settle();
     const alert = dom.host.querySelector('[role="alert"]');
     expect(alert?.textContent).toContain("Could not load the shot table: The database did not answer.");

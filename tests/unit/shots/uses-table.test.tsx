@@ -4,26 +4,14 @@ import { createRoot } from "react-dom/client";
 import { describe, expect, it, vi } from "vitest";
 import { UsesTable } from "@/components/shots/uses-table";
 import type { UseResponse } from "@/lib/uses/schemas";
+import { logRow } from "@/tests/unit/shots/use-rows";
 
 vi.mock("next/link", () => ({ default: ({ children, href }: { children: React.ReactNode; href: string }) => <a href={href}>{children}</a> }));
 
 (globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
 
 function uses(n: number): UseResponse[] {
-  return Array.from({ length: n }, (_, i) => ({
-    id: `u${i}`,
-    technique: { id: "t", slug: "s", title: "T", status: "approved" },
-    shot: { code: `SLM_010_${String(i).padStart(4, "0")}`, showCode: "SLM", sequence: "010" },
-    outcome: i % 3 === 0 ? "failed" : "clean",
-    note: `note ${i}`,
-    user: { id: "p", name: "Person" },
-    beforeStill: null,
-    afterStill: null,
-    revisionId: null,
-    canEdit: false,
-    createdAt: new Date(Date.UTC(2026, 0, 1 + i)).toISOString(),
-    updatedAt: new Date(Date.UTC(2026, 0, 1 + i)).toISOString(),
-  }));
+  return Array.from({ length: n }, (_, i) => logRow(i, { outcome: i % 3 === 0 ? "failed" : "clean" }));
 }
 
 describe("UsesTable", () => {
