@@ -1,7 +1,8 @@
 "use client";
 
 // A client component only to keep page payloads small: the server sends a reference to it instead
-// of its whole element tree, and the mark is in every page's header and its not-found page (issue 19). It has no state; its markup is still rendered on the server.
+// of its element tree, and the mark is in every page's header and on the pages outside the shell
+// (issue 19). It has no state; its markup is still rendered on the server.
 
 /** Plateroom's mark: a plate frame, half wiped clean, with one tracking marker left to remove. */
 function LogoMark({ size = 28 }: { size?: number }) {

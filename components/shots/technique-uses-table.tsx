@@ -12,14 +12,16 @@ import type { TechniqueUsesResponse, UseResponse } from "@/lib/uses/schemas";
 const PAGE = 200;
 const MOST_ROWS = 1000;
 
-async function fetchUses(slug: string): Promise<UseResponse[]> {
+async function fetchUses(slug: string): Promise<{ rows: UseResponse[]; total: number }> {
   const rows: UseResponse[] = [];
+  let total = 0;
   for (let offset = 0; offset < MOST_ROWS; offset += PAGE) {
     const page = await apiFetch<TechniqueUsesResponse>(`/api/techniques/${encodeURIComponent(slug)}/uses?limit=${PAGE}&offset=${offset}`);
     rows.push(...page.items);
-    if (rows.length >= page.total || page.items.length < PAGE) break;
+    total = page.total;
+    if (rows.length >= total || page.items.length < PAGE) break;
   }
-  return rows;
+  return { rows, total };
 }
 
 /**
@@ -47,5 +49,15 @@ export function TechniqueUsesTable({ slug }: { slug: string }) {
       </div>
     );
   }
-  return <UsesTable initial={query.data} />;
+  const { rows, total } = query.data;
+  return (
+    <div className="space-y-2">
+      {total > rows.length ? (
+        <p className="text-sm text-muted">
+          The newest {rows.length.toLocaleString("en-GB")} of {total.toLocaleString("en-GB")} logged uses; the outcome counts cover them all.
+        </p>
+      ) : null}
+      <UsesTable initial={rows} />
+    </div>
+  );
 }

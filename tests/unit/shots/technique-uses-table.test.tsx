@@ -48,6 +48,15 @@ describe("TechniqueUsesTable", () => {
     expect(dom.host.textContent).toContain("page 1 of 45");
   });
 
+  it("says so when a log is longer than the table holds, and reads no further", async () => {
+    const urls = serve(1234);
+    showTable();
+    await settle();
+    expect(urls).toHaveLength(5);
+    expect(dom.host.textContent).toContain("The newest 1,000 of 1,234 logged uses");
+    expect(dom.host.textContent).toContain("page 1 of 100");
+  });
+
   it("asks once for a short log", async () => {
     const urls = serve(3);
     showTable();
