@@ -29,7 +29,13 @@ function serve(total: number, fail = false) {
   return urls;
 }
 
-const settle = () => act(async () => new Promise((r) => setTimeout(r, 20)));
+// Until the table (or its error) is on the page: the reads are chained, and a loaded machine is slow.
+async function settle() {
+  for (let waited = 0; waited < 5000; waited += 20) {
+    await act(async () => new Promise((r) => setTimeout(r, 20)));
+    if (!dom.host.querySelector('[aria-label="Loading the shot table"]')) return;
+  }
+}
 const showTable = () =>
   dom.render(
     <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
