@@ -108,7 +108,6 @@ const SIMPLE = /^[a-z]+$/;
 
 export type WordNetFiles = Record<`data.${"noun" | "verb" | "adj"}` | `index.${"noun" | "verb" | "adj" | "adv"}`, string>;
 
-/** Builds the compact tables from the text of WordNet's data and index files. */
 /** Calls `each` with the bounds of every line that is not part of the licence header (which starts with spaces). */
 function forEachLine(text: string, each: (start: number, end: number) => void): void {
   for (let start = 0; start < text.length; ) {
@@ -293,12 +292,11 @@ class WordNetTables implements WordNet {
     this.size = { lemmas: table.length, synsets: posOf.length };
   }
 
-  /** Base forms of a typed word that WordNet has, the word itself first. */
   isMostlyAdverb(word: string): boolean {
-    return this.adverbs.indexOf(word) >= 0;
+    return this.adverbs.has(word);
   }
 
-
+  /** Base forms of a typed word that WordNet has, the word itself first. */
   private baseFormIds(word: string): number[] {
     const out: number[] = [];
     const add = (w: string): void => {
@@ -311,7 +309,7 @@ class WordNetTables implements WordNet {
         if (!word.endsWith(suffix) || word.length <= suffix.length + 1) continue;
         // As morphy does: a detached form counts only where WordNet has it in that part of speech.
         const i = this.table.indexOf(word.slice(0, -suffix.length) + ending);
-        if (i >= 0 && !out.includes(i) && [...this.lemmaSenses.get(i)].some((s) => this.posOf[s] === p)) out.push(i);
+        if (i >= 0 && !out.includes(i) && this.lemmaSenses.get(i).some((s) => this.posOf[s] === p)) out.push(i);
       }
     });
     return out;
