@@ -5,7 +5,7 @@
  * itself, its word family, a completion of a partial last word, a spelling correction, a split
  * compound, thesaurus terms — each with its own weight (scoring.ts).
  */
-import { ALTERNATIVE_WEIGHTS, completionWeight, MAX_UNITS } from "./scoring";
+import { ALTERNATIVE_WEIGHTS, completionWeight, isWordNetKind, MAX_UNITS } from "./scoring";
 import { findPhrases, type CompiledThesaurus } from "./thesaurus";
 import { FILLER_WEIGHT, GENERIC_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
 import type { Vocabulary } from "./vocabulary";
@@ -84,7 +84,7 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
     // The leads' thesaurus decides what its words mean: WordNet's guesses for them are dropped.
     for (let k = match.first; k < match.first + match.count; k++) {
       const u = units[k] as QueryUnit;
-      u.alternatives = u.alternatives.filter((a) => a.kind !== "wordnet" && a.kind !== "wordnetBroader");
+      u.alternatives = u.alternatives.filter((a) => !isWordNetKind(a.kind));
     }
     if (match.count === 1) (units[match.first] as QueryUnit).alternatives.push(...targets);
     else spans.push({ first: match.first, count: match.count, alternatives: targets });

@@ -68,7 +68,7 @@ export const JOIN_ONLY_MIN_PAGES = 200;
 
 /** Alternatives that come from the thesaurus, the symptom lexicon or WordNet rather than from the word typed. */
 export function isThesaurusKind(kind: Alternative["kind"]): boolean {
-  return kind === "synonym" || kind === "broader" || kind === "related" || kind === "wordnet" || kind === "wordnetBroader";
+  return kind === "synonym" || kind === "broader" || kind === "related" || isWordNetKind(kind);
 }
 
 /** WordNet's everyday words: too loose to make a query "about" a problem tag (ranking.ts, rule 4). */
@@ -100,7 +100,7 @@ const CREDIT = 2 * MAX_COLUMNS;
  * about what the word says, so it covers the word only in part.
  */
 export function coverageCredit(kind: Alternative["kind"]): number {
-  return kind === "wordnet" || kind === "wordnetBroader" ? 0.5 : 1;
+  return isWordNetKind(kind) ? 0.5 : 1;
 }
 
 /** Reuses its scratch arrays across queries (single-threaded, so no sharing hazard). */
