@@ -1,7 +1,7 @@
 "use client";
 
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
-import { useState, type ReactNode } from "react";
+import { useEffect, useState, type ReactNode } from "react";
 import { ApiError } from "@/lib/api/fetcher";
 
 export function Providers({ children }: { children: ReactNode }) {
@@ -17,5 +17,10 @@ export function Providers({ children }: { children: ReactNode }) {
         },
       }),
   );
+  // Marks the page as interactive: browser tests wait for it before clicking a form whose submit
+  // handler exists only once React has hydrated (a click before that would reload the page).
+  useEffect(() => {
+    document.documentElement.dataset.hydrated = "true";
+  }, []);
   return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
 }

@@ -344,6 +344,11 @@ export async function screenshot(page: Page, name: string): Promise<void> {
 }
 
 /** Waits for the element to be visible; false (not a throw) when it never shows. */
+/** Until React has hydrated the page (app/providers.tsx marks <html>): client forms answer clicks only then. */
+export async function whenHydrated(page: Page, timeout = 30_000): Promise<void> {
+  await page.locator("html[data-hydrated]").waitFor({ state: "attached", timeout });
+}
+
 export async function isShown(locator: Locator, timeout = 10_000): Promise<boolean> {
   try {
     await locator.first().waitFor({ state: "visible", timeout });

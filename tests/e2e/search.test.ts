@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
+import { hasChromium, isShown, screenshot, signIn, whenHydrated } from "@/tests/e2e/harness";
 import { useAppAndBrowser } from "@/tests/e2e/running-app";
 
 // The seeded demo data (scripts/seed/data) makes "Marker channel cleanup" the department's approved
@@ -94,6 +94,7 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
   it("a lead adds a thesaurus entry and an artist's search uses it at once, saying through which word", async () => {
     const lead = await signIn(running.browser, running.app.baseUrl, "lead@kestrel.test");
     await lead.page.goto("/thesaurus");
+    await whenHydrated(lead.page);
     const form = lead.page.getByRole("form", { name: "New thesaurus entry" });
     await form.getByLabel("Kind").selectOption("narrower");
     await form.getByLabel("Broader term").fill("rolling shutter");
