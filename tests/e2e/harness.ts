@@ -343,12 +343,12 @@ export async function screenshot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
 }
 
-/** Waits for the element to be visible; false (not a throw) when it never shows. */
 /** Until React has hydrated the page (app/providers.tsx marks <html>): client forms answer clicks only then. */
 export async function whenHydrated(page: Page, timeout = 30_000): Promise<void> {
   await page.locator("html[data-hydrated]").waitFor({ state: "attached", timeout });
 }
 
+/** Waits for the element to be visible; false (not a throw) when it never shows. */
 export async function isShown(locator: Locator, timeout = 10_000): Promise<boolean> {
   try {
     await locator.first().waitFor({ state: "visible", timeout });
