@@ -46,10 +46,6 @@ const TABS = 3;
 async function settle(page: Page): Promise<void> {
   await networkQuiet(page);
   if (/\/edit$|\/new$/.test(new URL(page.url()).pathname)) await page.getByRole("toolbar", { name: "Formatting" }).waitFor();
-  // Colours at rest, not halfway through a CSS transition: a button that has just loaded its state
-  // (e.g. Follow turning into Following) fades between two colour pairs for 150 ms, and axe measured
-  // the blend once.
-  await page.waitForFunction(() => document.getAnimations().every((a) => !(a instanceof CSSTransition) || a.playState !== "running"), undefined, { timeout: 10_000 });
 }
 
 /**

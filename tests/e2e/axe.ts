@@ -11,6 +11,10 @@ type Violation = { id: string; impact: string | null; help: string; nodes: { tar
 /** Runs axe-core on the page as it is; the serious and critical violations, in words a reader can act on. */
 export async function seriousViolations(page: Page): Promise<string[]> {
   // Evaluated through the debugging protocol, so the app's Content-Security-Policy stays as it is.
+  // Colours at rest, not halfway through a CSS transition: a button that has just loaded its state
+  // (e.g. Follow turning into Following) fades between two colour pairs for 150 ms, and axe once
+  // measured the blend.
+  await page.waitForFunction(() => document.getAnimations().every((a) => !(a instanceof CSSTransition) || a.playState !== "running"), undefined, { timeout: 10_000 });
   if (!(await page.evaluate(() => "axe" in window))) await page.evaluate(AXE_SOURCE);
   const violations = await page.evaluate(async () => {
     const result = await (window as unknown as { axe: { run(ctx: Document, options: object): Promise<{ violations: Violation[] }> } }).axe.run(document, {
