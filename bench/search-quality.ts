@@ -2,19 +2,26 @@
  * `npx tsx -C react-server bench/search-quality.ts`: the quality set alone, for tuning. Prints the
  * per-kind table for the tuned queries and the held-out ones, and lists misses of the TUNED queries
  * only (the held-out quarter is never listed: look at its numbers, not its queries).
+ * Ranks with meaning as the product does; `--words` ranks by the engine alone.
  */
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
+import { MeaningVectors, searchWithMeaning } from "@/lib/search/meaning";
+import { sentenceEncoder } from "@/lib/search/meaning-model";
 import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { QUALITY_PAGES } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
 
-import { evaluateQuality, hunspellJudge } from "./lib/quality";
+import { byWords, evaluateQuality, hunspellJudge } from "./lib/quality";
 
 const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
 index.load(QUALITY_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
 const judge = await hunspellJudge(QUALITY_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
-const report = evaluateQuality(index, QUALITY_QUERIES, judge);
+const encode = process.argv.includes("--words") ? null : await sentenceEncoder();
+const meaning = encode && { encode, vectors: new MeaningVectors(encode) };
+const search = meaning ? (q: string) => searchWithMeaning(index, q, { audience: "published", limit: 20 }, meaning) : byWords(index);
+console.log(meaning ? "ranked by words, then meaning" : "ranked by words alone");
+const report = await evaluateQuality(search, QUALITY_QUERIES, judge);
 console.log("tuned");
 console.table(report.tuned);
 if (process.argv.includes("--batches"))

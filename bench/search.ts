@@ -18,17 +18,24 @@ import Fuse from "fuse.js";
 import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
-import type { SearchDocument } from "@/lib/search/types";
+import { type Meaning, MeaningVectors, searchWithMeaning } from "@/lib/search/meaning";
+import { sentenceEncoder } from "@/lib/search/meaning-model";
+import type { SearchDocument, SearchIndex } from "@/lib/search/types";
 import { QUALITY_PAGES as FIXTURE_DOCS } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
 
 import { syntheticCorpus, syntheticQueries } from "./lib/corpus";
-import { evaluateQuality, hunspellJudge, type KindScore, type QualityReport } from "./lib/quality";
+import { byWords, evaluateQuality, hunspellJudge, type KindScore, type QualityReport } from "./lib/quality";
 import { percentile, writeResultsKey } from "./lib/results";
 
 const language = await loadLanguage();
 const newIndex = () => createSearchIndex({ language, thesaurus: STARTER_THESAURUS });
 const judge = await hunspellJudge(FIXTURE_DOCS.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+const encode = await sentenceEncoder();
+if (!encode) throw new Error("the sentence encoder did not load");
+/** Ranking by meaning as the product does it, with page vectors made from nothing (lazily, as pages reach the top). */
+const freshMeaning = (): Meaning => ({ encode, vectors: new MeaningVectors(encode) });
+const withMeaning = (index: SearchIndex, meaning: Meaning) => (q: string) => searchWithMeaning(index, q, { audience: "published", limit: 20 }, meaning);
 
 // Expose gc without needing a node flag, so memory is measured after collection.
 setFlagsFromString("--expose-gc");
@@ -66,6 +73,17 @@ type Row = {
   speedupP95: number;
   quality: string;
   qualityByKind: KindScore[];
+  /** With ranking by meaning (what the product serves): wall ms per query once the pages it needs are encoded. */
+  meaningP50: number;
+  meaningP95: number;
+  meaningMax: number;
+  /** The first pass over the queries, which encodes each page the first time it reaches a top 10. */
+  meaningColdPassMs: number;
+  meaningPagesEncoded: number;
+  meaningSpeedupP50: number;
+  meaningSpeedupP95: number;
+  meaningQuality: string;
+  meaningQualityByKind: KindScore[];
   updateP50: number;
   updateP95: number;
   updateMax: number;
@@ -87,7 +105,7 @@ function time<T>(fn: () => T): [T, number] {
   return [v, performance.now() - t0];
 }
 
-function runSize(size: number): Row {
+async function runSize(size: number): Promise<Row> {
   const base = heapMB();
   let corpus: ReturnType<typeof corpusOf> | null = corpusOf(size);
   const withDocs = heapMB();
@@ -119,7 +137,25 @@ function runSize(size: number): Row {
     }
   }
 
-  const embedded = evaluateQuality(index, QUALITY_QUERIES, judge);
+  const embedded = await evaluateQuality(byWords(index), QUALITY_QUERIES, judge);
+
+  // With ranking by meaning: a first pass encodes the pages the queries bring to the top (as a
+  // running server does over its first searches), then every query is timed once.
+  const meaning = freshMeaning();
+  const search = withMeaning(index, meaning);
+  const cold0 = performance.now();
+  for (const q of queries) await search(q);
+  const meaningColdPassMs = performance.now() - cold0;
+  const meaningLat: number[] = [];
+  const meaningPerQuery = new Map<string, number>();
+  for (const q of queries) {
+    const t0 = performance.now();
+    await search(q);
+    const ms = performance.now() - t0;
+    meaningLat.push(ms);
+    meaningPerQuery.set(q, ms);
+  }
+  const embeddedMeaning = await evaluateQuality(search, QUALITY_QUERIES, judge);
 
   // Update-visible latency: write a new version with a fresh word, then search until it is found.
   const updates: number[] = [];
@@ -158,6 +194,7 @@ function runSize(size: number): Row {
   const fuseLat: number[] = [];
   for (const q of fuseQueries) fuseLat.push(time(() => fuse.search(q, { limit: 20 }))[1]);
   const oursSample = fuseQueries.flatMap((q) => perQuery.get(q) ?? []);
+  const meaningSample = fuseQueries.flatMap((q) => meaningPerQuery.get(q) ?? []);
 
   const r2 = (v: number): number => Math.round(v * 100) / 100;
   const row: Row = {
@@ -181,6 +218,15 @@ function runSize(size: number): Row {
     speedupP95: Math.round(percentile(fuseLat, 95) / percentile(oursSample, 95)),
     quality: `top-1 ${embedded.all.at(-1)?.top1} %, top-3 ${embedded.all.at(-1)?.top3} %`,
     qualityByKind: embedded.all,
+    meaningP50: r2(percentile(meaningLat, 50)),
+    meaningP95: r2(percentile(meaningLat, 95)),
+    meaningMax: r2(Math.max(...meaningLat)),
+    meaningColdPassMs: Math.round(meaningColdPassMs),
+    meaningPagesEncoded: meaning.vectors.size,
+    meaningSpeedupP50: Math.round(percentile(fuseLat, 50) / percentile(meaningSample, 50)),
+    meaningSpeedupP95: Math.round(percentile(fuseLat, 95) / percentile(meaningSample, 95)),
+    meaningQuality: `top-1 ${embeddedMeaning.all.at(-1)?.top1} %, top-3 ${embeddedMeaning.all.at(-1)?.top3} %`,
+    meaningQualityByKind: embeddedMeaning.all,
     updateP50: r2(percentile(updates, 50)),
     updateP95: r2(percentile(updates, 95)),
     updateMax: r2(Math.max(...updates)),
@@ -196,16 +242,21 @@ const loadAverageAtStart = os.loadavg().map((v) => Math.round(v * 10) / 10);
 // Quality on the quality pages alone.
 const qualityIndex = newIndex();
 qualityIndex.load(FIXTURE_DOCS.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-const quality: QualityReport = evaluateQuality(qualityIndex, QUALITY_QUERIES, judge);
-console.log(`\nSearch quality: ${QUALITY_QUERIES.length} queries over ${FIXTURE_DOCS.length} pages (percent; MRR 0–1)`);
+// The product ranks by words, then meaning; the engine alone is reported beside it.
+const quality: QualityReport = await evaluateQuality(withMeaning(qualityIndex, freshMeaning()), QUALITY_QUERIES, judge);
+const qualityByWords: QualityReport = await evaluateQuality(byWords(qualityIndex), QUALITY_QUERIES, judge);
+console.log(`\nSearch quality: ${QUALITY_QUERIES.length} queries over ${FIXTURE_DOCS.length} pages (percent; MRR 0–1), ranked by words then meaning`);
 console.log("all queries");
 console.table(quality.all);
 console.log("held-out quarter (not looked at while tuning)");
 console.table(quality.heldOut);
+console.log("by words alone: all queries, then held out");
+console.table(qualityByWords.all);
+console.table(qualityByWords.heldOut);
 console.log(`correctly spelt words "corrected": ${quality.realWordsCorrected.count} of ${quality.realWordsCorrected.wordsChecked}`);
 
 const rows: Row[] = [];
-for (const size of SIZES) rows.push(runSize(size));
+for (const size of SIZES) rows.push(await runSize(size));
 
 console.log("\nSearch benchmark (ms unless noted)");
 console.table(
@@ -220,6 +271,9 @@ console.table(
     "fuse p50/p95": `${r.fuseP50}/${r.fuseP95} (n=${r.fuseQueries})`,
     "speed-up p50/p95": `${r.speedupP50}×/${r.speedupP95}×`,
     quality: r.quality,
+    "meaning p50/p95": `${r.meaningP50}/${r.meaningP95}`,
+    "meaning speed-up p50/p95": `${r.meaningSpeedupP50}×/${r.meaningSpeedupP95}×`,
+    "meaning cold pass s (pages)": `${Math.round(r.meaningColdPassMs / 100) / 10} (${r.meaningPagesEncoded})`,
     "update p95/max": `${r.updateP95}/${r.updateMax}`,
     "update cpu p95": r.updateCpuP95,
   })),
@@ -231,8 +285,11 @@ const targets = {
   top1AtLeast95InEveryKind: kinds.every((k) => k.top1 >= 95),
   top3AtLeast99InEveryKind: kinds.every((k) => k.top3 >= 99),
   noRealWordCorrected: quality.realWordsCorrected.count === 0,
-  p95At10kAtMost10ms: at(10_000) ? (at(10_000) as Row).p95 <= 10 : null,
-  speedupAt10kAtLeast100x: at(10_000) ? (at(10_000) as Row).speedupP50 >= 100 && (at(10_000) as Row).speedupP95 >= 100 : null,
+  // Quality is the product's (words, then meaning); speed is given for both.
+  p95At10kAtMost10ms: at(10_000) ? (at(10_000) as Row).meaningP95 <= 10 : null,
+  speedupAt10kAtLeast100x: at(10_000) ? (at(10_000) as Row).meaningSpeedupP50 >= 100 && (at(10_000) as Row).meaningSpeedupP95 >= 100 : null,
+  wordsAloneP95At10kAtMost10ms: at(10_000) ? (at(10_000) as Row).p95 <= 10 : null,
+  wordsAloneSpeedupAt10kAtLeast100x: at(10_000) ? (at(10_000) as Row).speedupP50 >= 100 && (at(10_000) as Row).speedupP95 >= 100 : null,
   // Issue 6.
   p95At50kUnder100ms: at(50_000) ? (at(50_000) as Row).p95 < 100 : null,
   memoryAt50kUnder300MB: at(50_000) ? (at(50_000) as Row).memoryMB < 300 : null,
@@ -244,6 +301,7 @@ writeResultsKey("search", {
   machine: { cpus: os.cpus().length, node: process.version, loadAverageAtStart, loadAverageAtEnd: os.loadavg().map((v) => Math.round(v * 10) / 10) },
   notes: [
     `quality: ${QUALITY_QUERIES.length} junior queries in four kinds over ${FIXTURE_DOCS.length} look-alike pages with the starter thesaurus; rank of the expected page in the first 20 (published audience). Every fourth query of each kind was held out of tuning (heldOut). Correctly spelt = Hunspell en-US or en-GB (nspell) or a word of the pages.`,
+    "ranking by meaning (lib/search/meaning.ts): the engine's first 10 results re-ordered with Universal Sentence Encoder Lite vectors of the query and of each page's title, summary, aliases and tags. quality, meaningP50/P95 and meaningSpeedup are that; p50/p95 and speedup are the engine alone. meaningColdPassMs: the first pass over the queries, which also encodes each page on its first time in a top 10 (meaningPagesEncoded pages).",
     `p50/p95/max wall ms over every query of the fixed set (${QUALITY_QUERIES.length} junior quality queries + 40 misspelt synthetic title queries), run ${REPEATS} times after a warm-up; audience published, limit 20. cpuP50/cpuP95: process CPU ms for the same calls.`,
     "synthetic techniques cover other problems than the quality fixture (see bench/lib/corpus.ts) but share plate tags and trade vocabulary.",
     "fuse.js 7.5 timed on a fixed sample of the same queries (fuseQueries) over title, aliases, tag names/aliases, summary, parameter names and shot codes (no body); speed-up compares with our latency on that same sample.",
@@ -252,6 +310,7 @@ writeResultsKey("search", {
   ],
   targets,
   quality: { all: quality.all, heldOut: quality.heldOut, tuned: quality.tuned, realWordsCorrected: quality.realWordsCorrected, heldOutMissCount: quality.heldOutMissCount },
+  qualityByWordsAlone: { all: qualityByWords.all, heldOut: qualityByWords.heldOut, tuned: qualityByWords.tuned, heldOutMissCount: qualityByWords.heldOutMissCount },
   rows,
   totalSeconds: Math.round((performance.now() - started) / 1000),
 });

@@ -7,7 +7,7 @@
  * independent list from the one the engine protects words with (word-list), plus the words of the
  * corpus itself (trade words such as "despill" are spelt right when the pages spell them so).
  */
-import type { SearchIndex } from "@/lib/search/types";
+import type { SearchIndex, SearchResponse } from "@/lib/search/types";
 import { tokenize } from "@/lib/search/text";
 import { heldOutBatch, isDevBatch, isHeldOut, QUERY_KINDS, type QualityQuery, type QueryKind } from "@/tests/unit/search/quality/queries";
 
@@ -46,15 +46,24 @@ function table(rows: { q: QualityQuery; rank: number }[]): KindScore[] {
   return out;
 }
 
+/** How a query is run: the engine alone (`index.search`) or with ranking by meaning (`searchWithMeaning`). */
+export type QualitySearch = (query: string) => SearchResponse | Promise<SearchResponse>;
+
+/** The engine alone, as the quality set's search. */
+export const byWords =
+  (index: SearchIndex): QualitySearch =>
+  (query) =>
+    index.search(query, { audience: "published", limit: 20 });
+
 /** Rank (1-based, 0 = not in the first 20) of each query's expected page, published audience. */
-export function evaluateQuality(index: SearchIndex, queries: readonly QualityQuery[], isCorrectWord: SpellJudge): QualityReport {
+export async function evaluateQuality(search: QualitySearch, queries: readonly QualityQuery[], isCorrectWord: SpellJudge): Promise<QualityReport> {
   const rows: { q: QualityQuery; rank: number }[] = [];
   const tunedMisses: string[] = [];
   let heldOutMissCount = 0;
   const corrected: string[] = [];
   let wordsChecked = 0;
   for (const q of queries) {
-    const res = index.search(q.query, { audience: "published", limit: 20 });
+    const res = await search(q.query);
     const slugs = res.results.map((r) => r.slug);
     const rank = slugs.indexOf(q.expected) + 1;
     rows.push({ q, rank });

@@ -19,8 +19,8 @@ const MAX_SUGGESTIONS = 12;
 export async function suggestMethods(user: SessionUser, findings: Findings): Promise<SuggestedMethod[]> {
   const byslug = new Map<string, { title: string; summary: string; problems: string[]; house: number; plate: boolean; rank: number }>();
   let rank = 0;
-  findings.problemTags.forEach(({ slug: problem }, problemIndex) => {
-    const res = runSearch(user, { q: "", tag: [problem], status: ["approved"], sort: "relevance", retired: false, exact: false, offset: 0, limit: PER_PROBLEM });
+  for (const [problemIndex, { slug: problem }] of findings.problemTags.entries()) {
+    const res = await runSearch(user, { q: "", tag: [problem], status: ["approved"], sort: "relevance", retired: false, exact: false, offset: 0, limit: PER_PROBLEM });
     for (const r of res.results) {
       const entry = byslug.get(r.slug) ?? { title: r.title, summary: r.summary, problems: [], house: Infinity, plate: false, rank: rank++ };
       entry.problems.push(problem);
@@ -28,7 +28,7 @@ export async function suggestMethods(user: SessionUser, findings: Findings): Pro
       if (r.tags.some((t) => findings.plateTags.includes(t.slug))) entry.plate = true;
       byslug.set(r.slug, entry);
     }
-  });
+  }
   const ordered = [...byslug.entries()]
     .sort(([, a], [, b]) => a.house - b.house || b.problems.length - a.problems.length || Number(b.plate) - Number(a.plate) || a.rank - b.rank)
     .slice(0, MAX_SUGGESTIONS);

@@ -2,7 +2,7 @@ import "server-only";
 import { LRUCache } from "lru-cache";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/roles";
-import { getSearchIndex, type SearchAudience, type SearchIndex, type SearchResult } from "@/lib/search";
+import { getSearchIndex, searchTechniques, type SearchAudience, type SearchIndex, type SearchResult } from "@/lib/search";
 import type { SearchApiResponse, SearchQuery, SearchResultDto, SuggestApiResponse, SuggestItem } from "@/lib/search-ui/params";
 
 /**
@@ -37,7 +37,7 @@ type RememberedSearch = { index: SearchIndex; version: number; response: SearchA
 const rememberedSearches = new LRUCache<string, RememberedSearch>({ max: 2_000 });
 
 /** The search behind `GET /api/search` and the search page. Retired techniques only when asked for. */
-export function runSearch(user: SessionUser, query: Omit<SearchQuery, "limit"> & { limit?: number }): SearchApiResponse {
+export async function runSearch(user: SessionUser, query: Omit<SearchQuery, "limit"> & { limit?: number }): Promise<SearchApiResponse> {
   const t0 = performance.now();
   const index = getSearchIndex();
   const audience = searchAudienceFor(user);
@@ -46,7 +46,7 @@ export function runSearch(user: SessionUser, query: Omit<SearchQuery, "limit"> &
   if (seen && seen.index === index && seen.version === index.version()) {
     return { ...seen.response, tookMs: Math.round((performance.now() - t0) * 100) / 100 };
   }
-  const res = index.search(query.q, {
+  const res = await searchTechniques(query.q, {
     audience,
     tags: query.tag,
     status: query.status.length ? query.status : undefined,

@@ -358,6 +358,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       matches: shown.matches,
       snippet: shown.snippet,
       tags: doc.tags,
+      aliases: doc.aliases,
       updatedAt: doc.updatedAt,
       isHouseMethod: item.isHouseHit,
       houseMethodFor: doc.houseMethodFor,

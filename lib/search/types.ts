@@ -61,6 +61,8 @@ export type SearchResult = {
   /** Short body excerpt around the best body match, or the start of the summary. */
   snippet: string;
   tags: SearchTag[];
+  /** The page's own aliases: search vocabulary (ranking by meaning reads them), not shown in results. */
+  aliases: string[];
   updatedAt: string;
   /** The department's approved method for a problem this search is about (query words or a tag filter). */
   isHouseMethod: boolean;

@@ -20,7 +20,7 @@ export default async function SearchPage({ searchParams }: { searchParams: Promi
   const user = await requireUser();
   const { state, invalid } = parseSearchState(await searchParams);
   const tags = await listTags(user);
-  const response = runSearch(user, { ...state, limit: PAGE_SIZE });
+  const response = await runSearch(user, { ...state, limit: PAGE_SIZE });
   const tagInfo = Object.fromEntries(tags.map((t) => [t.slug, { name: t.name, kind: t.kind }]));
   const asked = response.corrected ?? state.q;
   const approvedCount = response.facets.status.find((s) => s.status === "approved")?.count ?? 0;

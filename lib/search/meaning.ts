@@ -1,0 +1,118 @@
+/**
+ * Ranking by meaning: the engine's first results re-ordered by how close each page's title, summary,
+ * aliases and tag names are in meaning to the whole query, as a sentence encoder reads them. Words
+ * alone miss "shiny guy in the window" → a page about reflections; a sentence encoder, trained on
+ * how people phrase things, places the two near each other.
+ *
+ * Only the order of the first RERANK_WINDOW results changes: which pages match is still decided by
+ * the words (so precision and the "matched through" notes stay as the engine made them), and a page
+ * the words did not find is never added. The encoder is injected (`MeaningEncoder`), so this file is
+ * pure and tested with fixed vectors; meaning-model.ts is the real one.
+ *
+ * Measured on the quality set (DEVELOPERS.md, "Search quality"): the weights below were chosen on the
+ * tuned queries only, then checked once on the held-out ones.
+ */
+import type { SearchDocument, SearchIndex, SearchOptions, SearchResponse, SearchResult } from "./types";
+
+/** Turns texts into unit-length vectors (cosine similarity = dot product). */
+export type MeaningEncoder = (texts: readonly string[]) => Promise<Float32Array[]>;
+
+/** How many of the engine's first results may change places. */
+export const RERANK_WINDOW = 10;
+/**
+ * Share of meaning in the new order. Query–page cosines of this encoder run from about 0.1
+ * (unrelated) to 0.6 (same problem), half the span of the engine's score divided by the best score
+ * (0–1), so cosine counts double to weigh the same.
+ */
+export const MEANING_SHARE = 0.5;
+const COSINE_SCALE = 2;
+
+/** What the encoder reads of a page: what it is called and what it is for, not its whole body. */
+export function meaningText(doc: Pick<SearchDocument, "title" | "summary" | "aliases" | "tags">): string {
+  const aliases = doc.aliases.length ? ` ${doc.aliases.join(", ")}.` : "";
+  const tags = doc.tags.length ? ` ${doc.tags.map((t) => t.name).join(", ")}.` : "";
+  return `${doc.title}. ${doc.summary}${aliases}${tags}`;
+}
+
+export function dot(a: Float32Array, b: Float32Array): number {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += (a[i] as number) * (b[i] as number);
+  return s;
+}
+
+/**
+ * The results with the first RERANK_WINDOW re-ordered by
+ * (1 − MEANING_SHARE) · score / best score + MEANING_SHARE · 2 · cosine(query, page).
+ * `pageVector` returns undefined for a page it has no vector for; such a page keeps its engine score.
+ */
+export function rerankByMeaning<R extends Pick<SearchResult, "score">>(results: readonly R[], query: Float32Array, pageVector: (r: R) => Float32Array | undefined): R[] {
+  const head = results.slice(0, RERANK_WINDOW);
+  if (head.length < 2) return [...results];
+  const best = Math.max(...head.map((r) => r.score));
+  if (!(best > 0)) return [...results];
+  const blended = head.map((r, i) => {
+    const v = pageVector(r);
+    const lexical = r.score / best;
+    const meaning = v ? COSINE_SCALE * dot(query, v) : lexical;
+    return { r, i, value: (1 - MEANING_SHARE) * lexical + MEANING_SHARE * meaning };
+  });
+  // Ties keep the engine's order.
+  blended.sort((a, b) => b.value - a.value || a.i - b.i);
+  return [...blended.map((b) => b.r), ...results.slice(RERANK_WINDOW)];
+}
+
+/**
+ * Page vectors, remembered by the text they were made from: a page is encoded again only when its
+ * title, summary, aliases or tags change. Bounded by the number of distinct texts seen, which is about
+ * the number of pages (two views each at most: approved and working).
+ */
+export class MeaningVectors {
+  private readonly byText = new Map<string, Float32Array>();
+  constructor(private readonly encode: MeaningEncoder) {}
+
+  get(text: string): Float32Array | undefined {
+    return this.byText.get(text);
+  }
+
+  get size(): number {
+    return this.byText.size;
+  }
+
+  /** Encode the texts not seen yet, `batch` at a time, yielding to the event loop between batches. */
+  async ensure(texts: Iterable<string>, batch = 32): Promise<void> {
+    const missing = [...new Set(texts)].filter((t) => !this.byText.has(t));
+    for (let i = 0; i < missing.length; i += batch) {
+      const slice = missing.slice(i, i + batch);
+      const vectors = await this.encode(slice);
+      slice.forEach((t, j) => this.byText.set(t, vectors[j] as Float32Array));
+      if (i + batch < missing.length) await new Promise<void>((resolve) => setImmediate(resolve));
+    }
+  }
+
+  /** Forget texts no page uses any more (after a rebuild), so edits do not grow the map forever. */
+  keepOnly(texts: Iterable<string>): void {
+    const keep = new Set(texts);
+    for (const t of this.byText.keys()) if (!keep.has(t)) this.byText.delete(t);
+  }
+}
+
+/** What ranking by meaning needs: the encoder and the page vectors made with it. */
+export type Meaning = { encode: MeaningEncoder; vectors: MeaningVectors };
+
+/**
+ * `index.search`, with the first RERANK_WINDOW results re-ordered by meaning when the search is by
+ * relevance for some words. The query is encoded as the engine understood it (spelling corrected),
+ * since the encoder does not know "markrs". Without `meaning` it is the engine's answer unchanged.
+ */
+export async function searchWithMeaning(index: Pick<SearchIndex, "search">, query: string, options: SearchOptions, meaning: Meaning | null): Promise<SearchResponse> {
+  const t0 = performance.now();
+  const offset = Math.max(0, Math.floor(options.offset ?? 0));
+  const limit = Math.max(0, Math.floor(options.limit ?? 20));
+  if (!meaning || options.sort === "recent" || !query.trim() || offset >= RERANK_WINDOW) return index.search(query, options);
+  const res = index.search(query, { ...options, offset: 0, limit: Math.max(RERANK_WINDOW, offset + limit) });
+  if (res.results.length < 2) return { ...res, results: res.results.slice(offset, offset + limit) };
+  const head = res.results.slice(0, RERANK_WINDOW);
+  const [[queryVector]] = await Promise.all([meaning.encode([res.corrected ?? query]), meaning.vectors.ensure(head.map(meaningText))]);
+  const reranked = rerankByMeaning(res.results, queryVector as Float32Array, (r) => meaning.vectors.get(meaningText(r)));
+  return { ...res, results: reranked.slice(offset, offset + limit), tookMs: Math.round((performance.now() - t0) * 100) / 100 };
+}
