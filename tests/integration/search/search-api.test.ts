@@ -142,6 +142,26 @@ describe("GET /api/search", () => {
     expect(body.facets.plate.find((f) => f.slug === "car-interior")?.count).toBe(body.total);
     expect(typeof body.tookMs).toBe("number");
   });
+
+  it("orders pages the words score alike by meaning: the page about what the person describes comes first", async () => {
+    // Both pages match only "window", in the title, so the engine scores them alike (and lists the
+    // older first); the sentence encoder puts the query nearer the page about reflections.
+    const made = [];
+    for (const [title, summary] of [
+      ["Window smudges", "Dirt and grease marks on the glass."],
+      ["Window reflections", "Mirror images of people on the glass."],
+    ] as const) {
+      const { slug } = await createTechnique(senior, { title, summary, aliases: [], tags: [], recipe: [], body: doc("") });
+      await approve(slug);
+      made.push(slug);
+    }
+    const [smudges, reflections] = made as [string, string];
+    const firstOf = async (q: string) => (await slugsFor(artist, `q=${encodeURIComponent(q)}`)).filter((s) => made.includes(s));
+    expect(await firstOf("you can see the film crew in the window")).toEqual([reflections, smudges]);
+    expect(await firstOf("a ghostly copy of the actor in the window")).toEqual([reflections, smudges]);
+    // Where the words already name the problem, meaning agrees with them.
+    expect(await firstOf("greasy window")).toEqual([smudges, reflections]);
+  });
 });
 
 describe("GET /api/search/suggest", () => {
