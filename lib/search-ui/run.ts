@@ -46,6 +46,9 @@ export async function runSearch(user: SessionUser, query: Omit<SearchQuery, "lim
   if (seen && seen.index === index && seen.version === index.version()) {
     return { ...seen.response, tookMs: Math.round((performance.now() - t0) * 100) / 100 };
   }
+  // Taken before the search: ranking by meaning awaits the encoder, and a write landing meanwhile
+  // must not be stamped onto this older answer.
+  const version = index.version();
   const res = await searchTechniques(query.q, {
     audience,
     tags: query.tag,
@@ -63,7 +66,7 @@ export async function runSearch(user: SessionUser, query: Omit<SearchQuery, "lim
     ...(res.corrected ? { corrected: res.corrected } : {}),
     tookMs: res.tookMs,
   };
-  rememberedSearches.set(key, { index, version: index.version(), response });
+  rememberedSearches.set(key, { index, version, response });
   return response;
 }
 

@@ -56,8 +56,10 @@ export async function applySearchChange(change: SearchChange): Promise<void> {
   if (change.kind === "thesaurus") {
     holder().thesaurus = change.entries;
     index.setThesaurus(change.entries);
-  } else if (change.views) index.upsert(change.techniqueId, change.views);
-  else index.remove(change.techniqueId);
+  } else if (change.views) {
+    index.upsert(change.techniqueId, change.views);
+    warmMeaning([{ techniqueId: change.techniqueId, ...change.views }], false).catch((err: unknown) => console.error("search: encoding a page for ranking by meaning failed", err));
+  } else index.remove(change.techniqueId);
 }
 
 /**
@@ -107,13 +109,14 @@ export async function searchTechniques(query: string, options: SearchOptions): P
 }
 
 /**
- * Encode every page's title, summary, aliases and tags ahead of the first searches, in the
- * background: a page not encoded yet is encoded when it first reaches the top results.
+ * Encode pages' titles, summaries, aliases and tags ahead of the searches that need them, in the
+ * background (every page after a rebuild, `isEverything`; a changed one after a write): a page not
+ * encoded yet is encoded when it first reaches the top results.
  */
-async function warmMeaning(rows: readonly SearchIndexEntry[]): Promise<void> {
+async function warmMeaning(rows: readonly SearchIndexEntry[], isEverything = true): Promise<void> {
   const meaning = await processMeaning();
   if (!meaning) return;
   const texts = rows.flatMap((r) => [r.published, r.working].flatMap((d) => (d ? [meaningText(d)] : [])));
-  meaning.vectors.keepOnly(texts);
+  if (isEverything) meaning.vectors.keepOnly(texts);
   await meaning.vectors.ensure(texts);
 }

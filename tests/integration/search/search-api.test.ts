@@ -146,7 +146,7 @@ describe("GET /api/search", () => {
   it("orders pages the words score alike by meaning: the page about what the person describes comes first", async () => {
     // Both pages match only "window", in the title, so the engine scores them alike (and lists the
     // older first); the sentence encoder puts the query nearer the page about reflections.
-    const made = [];
+    const made: string[] = [];
     for (const [title, summary] of [
       ["Window smudges", "Dirt and grease marks on the glass."],
       ["Window reflections", "Mirror images of people on the glass."],
