@@ -1,6 +1,6 @@
 import type { BrowserContext, Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
-import { hasChromium, isShown, screenshot, signIn } from "@/tests/e2e/harness";
+import { hasChromium, isShown, screenshot, signIn, whenHydrated } from "@/tests/e2e/harness";
 import { useAppAndBrowser } from "@/tests/e2e/running-app";
 import { networkQuiet, seriousViolations, watchRequests } from "@/tests/e2e/axe";
 
@@ -141,6 +141,8 @@ describe.skipIf(!hasChromium())("accessibility of every page for every role (axe
   it("the quick finder moves focus to the page it opens", async () => {
     const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
     await page.goto("/problems");
+    // The shortcut is a client listener: before hydration the key press goes nowhere.
+    await whenHydrated(page);
     await page.keyboard.press("Control+k");
     const box = page.getByRole("combobox", { name: "Find a technique" });
     await box.fill("marker channel");

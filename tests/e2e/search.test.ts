@@ -12,6 +12,7 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
   it("an artist opens the quick finder with the shortcut, types a misspelt problem and lands on the method", async () => {
     const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
     await expect(isShown(page.getByTestId("quick-finder-button"))).resolves.toBe(true);
+    await whenHydrated(page);
     await page.keyboard.press("Control+k");
     const dialog = page.getByRole("dialog", { name: "Find a technique" });
     expect(await isShown(dialog)).toBe(true);
