@@ -63,8 +63,8 @@ export function rerankByMeaning<R extends Pick<SearchResult, "score">>(results: 
 
 /**
  * Page vectors, remembered by the text they were made from: a page is encoded again only when its
- * title, summary, aliases or tags change. Bounded by the number of distinct texts seen, which is about
- * the number of pages (two views each at most: approved and working).
+ * title, summary, aliases or tags change. Holds about two texts a page (approved and working) plus
+ * the earlier texts of pages edited since the last rebuild, which `keepOnly` then drops.
  */
 export class MeaningVectors {
   private readonly byText = new Map<string, Float32Array>();
