@@ -6,20 +6,20 @@
  */
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
-import { MeaningVectors, searchWithMeaning } from "@/lib/search/meaning";
+import { createMeaning } from "@/lib/search/meaning";
 import { sentenceEncoder } from "@/lib/search/meaning-model";
 import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { QUALITY_PAGES } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
 
-import { byWords, evaluateQuality, hunspellJudge } from "./lib/quality";
+import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge } from "./lib/quality";
 
 const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
 index.load(QUALITY_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
 const judge = await hunspellJudge(QUALITY_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
 const encode = process.argv.includes("--words") ? null : await sentenceEncoder();
-const meaning = encode && { encode, vectors: new MeaningVectors(encode) };
-const search = meaning ? (q: string) => searchWithMeaning(index, q, { audience: "published", limit: 20 }, meaning) : byWords(index);
+const meaning = encode && createMeaning(encode);
+const search = meaning ? byWordsThenMeaning(index, meaning) : byWords(index);
 console.log(meaning ? "ranked by words, then meaning" : "ranked by words alone");
 const report = await evaluateQuality(search, QUALITY_QUERIES, judge);
 console.log("tuned");

@@ -18,24 +18,23 @@ import Fuse from "fuse.js";
 import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
-import { type Meaning, MeaningVectors, searchWithMeaning } from "@/lib/search/meaning";
+import { createMeaning } from "@/lib/search/meaning";
 import { sentenceEncoder } from "@/lib/search/meaning-model";
-import type { SearchDocument, SearchIndex } from "@/lib/search/types";
+import type { SearchDocument } from "@/lib/search/types";
 import { QUALITY_PAGES as FIXTURE_DOCS } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
 
 import { syntheticCorpus, syntheticQueries } from "./lib/corpus";
-import { byWords, evaluateQuality, hunspellJudge, type KindScore, type QualityReport } from "./lib/quality";
+import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge, type KindScore, type QualityReport } from "./lib/quality";
 import { percentile, writeResultsKey } from "./lib/results";
 
 const language = await loadLanguage();
 const newIndex = () => createSearchIndex({ language, thesaurus: STARTER_THESAURUS });
 const judge = await hunspellJudge(FIXTURE_DOCS.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
-const encode = await sentenceEncoder();
-if (!encode) throw new Error("the sentence encoder did not load");
-/** Ranking by meaning as the product does it, with page vectors made from nothing (lazily, as pages reach the top). */
-const freshMeaning = (): Meaning => ({ encode, vectors: new MeaningVectors(encode) });
-const withMeaning = (index: SearchIndex, meaning: Meaning) => (q: string) => searchWithMeaning(index, q, { audience: "published", limit: 20 }, meaning);
+const loadedEncoder = await sentenceEncoder();
+if (!loadedEncoder) throw new Error("the sentence encoder did not load");
+const encode = loadedEncoder;
+// Each run of ranking by meaning starts with no page vectors (pages are encoded as they reach the top).
 
 // Expose gc without needing a node flag, so memory is measured after collection.
 setFlagsFromString("--expose-gc");
@@ -141,8 +140,8 @@ async function runSize(size: number): Promise<Row> {
 
   // With ranking by meaning: a first pass encodes the pages the queries bring to the top (as a
   // running server does over its first searches), then every query is timed once.
-  const meaning = freshMeaning();
-  const search = withMeaning(index, meaning);
+  const meaning = createMeaning(encode);
+  const search = byWordsThenMeaning(index, meaning);
   const cold0 = performance.now();
   for (const q of queries) await search(q);
   const meaningColdPassMs = performance.now() - cold0;
@@ -243,7 +242,7 @@ const loadAverageAtStart = os.loadavg().map((v) => Math.round(v * 10) / 10);
 const qualityIndex = newIndex();
 qualityIndex.load(FIXTURE_DOCS.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
 // The product ranks by words, then meaning; the engine alone is reported beside it.
-const quality: QualityReport = await evaluateQuality(withMeaning(qualityIndex, freshMeaning()), QUALITY_QUERIES, judge);
+const quality: QualityReport = await evaluateQuality(byWordsThenMeaning(qualityIndex, createMeaning(encode)), QUALITY_QUERIES, judge);
 const qualityByWords: QualityReport = await evaluateQuality(byWords(qualityIndex), QUALITY_QUERIES, judge);
 console.log(`\nSearch quality: ${QUALITY_QUERIES.length} queries over ${FIXTURE_DOCS.length} pages (percent; MRR 0–1), ranked by words then meaning`);
 console.log("all queries");

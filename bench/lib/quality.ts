@@ -7,6 +7,7 @@
  * independent list from the one the engine protects words with (word-list), plus the words of the
  * corpus itself (trade words such as "despill" are spelt right when the pages spell them so).
  */
+import { type Meaning, searchWithMeaning } from "@/lib/search/meaning";
 import type { SearchIndex, SearchResponse } from "@/lib/search/types";
 import { tokenize } from "@/lib/search/text";
 import { heldOutBatch, isDevBatch, isHeldOut, QUERY_KINDS, type QualityQuery, type QueryKind } from "@/tests/unit/search/quality/queries";
@@ -49,11 +50,19 @@ function table(rows: { q: QualityQuery; rank: number }[]): KindScore[] {
 /** How a query is run: the engine alone (`index.search`) or with ranking by meaning (`searchWithMeaning`). */
 export type QualitySearch = (query: string) => SearchResponse | Promise<SearchResponse>;
 
+const QUALITY_OPTIONS = { audience: "published", limit: 20 } as const;
+
 /** The engine alone, as the quality set's search. */
 export const byWords =
   (index: SearchIndex): QualitySearch =>
   (query) =>
-    index.search(query, { audience: "published", limit: 20 });
+    index.search(query, QUALITY_OPTIONS);
+
+/** What people get: the engine, then ranking by meaning. */
+export const byWordsThenMeaning =
+  (index: SearchIndex, meaning: Meaning): QualitySearch =>
+  (query) =>
+    searchWithMeaning(index, query, QUALITY_OPTIONS, meaning);
 
 /** Rank (1-based, 0 = not in the first 20) of each query's expected page, published audience. */
 export async function evaluateQuality(search: QualitySearch, queries: readonly QualityQuery[], isCorrectWord: SpellJudge): Promise<QualityReport> {

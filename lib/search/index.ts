@@ -2,7 +2,7 @@ import "server-only";
 
 import { createSearchIndex, type SearchEngine } from "./engine";
 import { createLanguage, loadLanguage } from "./language";
-import { type Meaning, MeaningVectors, meaningText, searchWithMeaning } from "./meaning";
+import { createMeaning, type Meaning, meaningText, searchWithMeaning } from "./meaning";
 import { sentenceEncoder } from "./meaning-model";
 import type { ThesaurusEntry } from "./thesaurus";
 import type { SearchDocument, SearchIndex, SearchOptions, SearchResponse, SearchViews } from "./types";
@@ -96,7 +96,7 @@ const REBUILD_SLICE = 500;
 function processMeaning(): Promise<Meaning | null> {
   const h = holder();
   if (process.env.PLATEROOM_SEARCH_MEANING === "off") return Promise.resolve(null);
-  h.meaning ??= sentenceEncoder().then((encode) => encode && { encode, vectors: new MeaningVectors(encode) });
+  h.meaning ??= sentenceEncoder().then((encode) => encode && createMeaning(encode));
   return h.meaning;
 }
 

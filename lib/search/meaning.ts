@@ -103,6 +103,11 @@ export class MeaningVectors {
 /** What ranking by meaning needs: the encoder and the page vectors made with it. */
 export type Meaning = { encode: MeaningEncoder; vectors: MeaningVectors };
 
+/** An encoder with an empty store of page vectors. */
+export function createMeaning(encode: MeaningEncoder): Meaning {
+  return { encode, vectors: new MeaningVectors(encode) };
+}
+
 /**
  * `index.search`, with the first RERANK_WINDOW results re-ordered by meaning when the search is by
  * relevance for some words. The query is encoded as the engine understood it (spelling corrected),
@@ -115,8 +120,8 @@ export async function searchWithMeaning(index: Pick<SearchIndex, "search">, quer
   if (!meaning || options.sort === "recent" || !query.trim() || offset >= RERANK_WINDOW) return index.search(query, options);
   const res = index.search(query, { ...options, offset: 0, limit: Math.max(RERANK_WINDOW, offset + limit) });
   if (res.results.length < 2) return { ...res, results: res.results.slice(offset, offset + limit) };
-  const head = res.results.slice(0, RERANK_WINDOW);
-  const [[queryVector]] = await Promise.all([meaning.encode([res.corrected ?? query]), meaning.vectors.ensure(head.map(meaningText))]);
-  const reranked = rerankByMeaning(res.results, queryVector as Float32Array, (r) => meaning.vectors.get(meaningText(r)));
+  const textOf = new Map(res.results.slice(0, RERANK_WINDOW).map((r) => [r, meaningText(r)]));
+  const [[queryVector]] = await Promise.all([meaning.encode([res.corrected ?? query]), meaning.vectors.ensure(textOf.values())]);
+  const reranked = rerankByMeaning(res.results, queryVector as Float32Array, (r) => meaning.vectors.get(textOf.get(r) as string));
   return { ...res, results: reranked.slice(offset, offset + limit), tookMs: Math.round((performance.now() - t0) * 100) / 100 };
 }

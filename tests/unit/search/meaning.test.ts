@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 
 import { createSearchIndex } from "@/lib/search/engine";
 import { createLanguage } from "@/lib/search/language";
-import { dot, type Meaning, MeaningVectors, meaningText, RERANK_WINDOW, rerankByMeaning, searchWithMeaning } from "@/lib/search/meaning";
+import { createMeaning, dot, type Meaning, MeaningVectors, meaningText, RERANK_WINDOW, rerankByMeaning, searchWithMeaning } from "@/lib/search/meaning";
 import { sentenceEncoder } from "@/lib/search/meaning-model";
 import { searchDoc } from "@/tests/unit/search/search-doc";
 
@@ -73,7 +73,7 @@ describe("searchWithMeaning", () => {
     encoded.push(...texts);
     return Promise.resolve(texts.map((t) => (/rain|water|wet/i.test(t) ? unit(1, 0) : unit(0, 1))));
   };
-  const meaning = (): Meaning => ({ encode, vectors: new MeaningVectors(encode) });
+  const meaning = (): Meaning => createMeaning(encode);
   const index = createSearchIndex({ language: createLanguage(["rain", "on", "the", "lens", "dust", "drops"], []) });
   const pages = [
     searchDoc({ title: "Dust on the lens", summary: "Lens dust: spots that stay put.", bodyText: "lens lens lens drops" }),

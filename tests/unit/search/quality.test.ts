@@ -1,10 +1,10 @@
 import { describe, expect, it } from "vitest";
 
-import { byWords, evaluateQuality, hunspellJudge, type QualityReport } from "@/bench/lib/quality";
+import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge, type QualityReport } from "@/bench/lib/quality";
 import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
-import { MeaningVectors, searchWithMeaning } from "@/lib/search/meaning";
+import { createMeaning } from "@/lib/search/meaning";
 import { sentenceEncoder } from "@/lib/search/meaning-model";
 
 import { QUALITY_PAGES } from "./quality/pages";
@@ -75,8 +75,7 @@ describe("search quality set", async () => {
   const withMeaning = (): Promise<QualityReport> =>
     (rankedByMeaning ??= sentenceEncoder().then((encode) => {
       if (!encode) throw new Error("the sentence encoder did not load");
-      const meaning = { encode, vectors: new MeaningVectors(encode) };
-      return evaluateQuality((q) => searchWithMeaning(index, q, { audience: "published", limit: 20 }, meaning), QUALITY_QUERIES, judge);
+      return evaluateQuality(byWordsThenMeaning(index, createMeaning(encode)), QUALITY_QUERIES, judge);
     }));
   it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor and the engine alone", async (kind) => {
     const row = (await withMeaning()).all.find((r) => r.kind === kind);
