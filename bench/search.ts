@@ -290,7 +290,8 @@ const targets = {
   wordsAloneP95At10kAtMost10ms: at(10_000) ? (at(10_000) as Row).p95 <= 10 : null,
   wordsAloneSpeedupAt10kAtLeast100x: at(10_000) ? (at(10_000) as Row).speedupP50 >= 100 && (at(10_000) as Row).speedupP95 >= 100 : null,
   // Issue 6.
-  p95At50kUnder100ms: at(50_000) ? (at(50_000) as Row).p95 < 100 : null,
+  // On what the product serves too (words, then meaning); the engine alone is faster still.
+  p95At50kUnder100ms: at(50_000) ? (at(50_000) as Row).meaningP95 < 100 : null,
   memoryAt50kUnder300MB: at(50_000) ? (at(50_000) as Row).memoryMB < 300 : null,
   updateVisibleUnder50ms: rows.every((r) => r.updateMax < 50),
 };
