@@ -2,7 +2,7 @@ import Link from "next/link";
 import { HighlightedText } from "@/components/search/highlighted-text";
 import { HouseMethodBadge, StatusBadge } from "@/components/techniques/status-badge";
 import { TagChips } from "@/components/techniques/tag-chips";
-import type { SearchField, SearchMatch, SearchVia } from "@/lib/search/types";
+import type { SearchField, SearchMatch, SearchVia, SearchViaSource } from "@/lib/search/types";
 import type { SearchResultDto } from "@/lib/search-ui/params";
 import { formatDate } from "@/lib/utils";
 
@@ -38,7 +38,7 @@ export function ResultItem({ result }: { result: SearchResultDto }) {
         </p>
       ) : null}
       {others.length ? <OtherMatches matches={others} /> : null}
-      {result.via.length ? <ThesaurusNote via={result.via} /> : null}
+      {result.via.length ? <RelatedWordsNote via={result.via} /> : null}
       <div className="mt-2 flex flex-wrap items-center gap-3">
         <TagChips tags={result.tags} />
         <span className="ml-auto text-xs text-muted">Updated {formatDate(result.updatedAt)}</span>
@@ -59,20 +59,37 @@ function OtherMatches({ matches }: { matches: SearchMatch[] }) {
   );
 }
 
-/** Words found only through the department's thesaurus, so the reader sees why this page came up. */
-function ThesaurusNote({ via }: { via: SearchVia[] }) {
-  // "tracker" and "dots" both reaching "marker" read as one note.
-  const byTerm = new Map<string, string[]>();
-  for (const v of via) byTerm.set(v.term, [...(byTerm.get(v.term) ?? []), v.word]);
+const SOURCE_LABELS: Record<SearchViaSource, string> = {
+  thesaurus: "department thesaurus",
+  lexicon: "built-in symptom words",
+  wordnet: "everyday English, WordNet",
+};
+
+/**
+ * Words found only through a word of related meaning, so the reader sees why this page came up and
+ * where the link came from (a lead can change only the thesaurus ones).
+ */
+function RelatedWordsNote({ via }: { via: SearchVia[] }) {
+  const sources = (Object.keys(SOURCE_LABELS) as SearchViaSource[]).filter((s) => via.some((v) => v.source === s));
   return (
     <p className="mt-1 text-xs text-muted" data-testid="search-via">
-      {[...byTerm].map(([term, words], i) => (
-        <span key={term}>
-          {i > 0 ? "; " : null}
-          {words.map((w) => `“${w}”`).join(", ")} found as <span className="text-ink">“{term}”</span>
-        </span>
-      ))}{" "}
-      <span>(thesaurus)</span>
+      {sources.map((source, i) => {
+        // "tracker" and "dots" both reaching "marker" read as one note.
+        const byTerm = new Map<string, string[]>();
+        for (const v of via) if (v.source === source) byTerm.set(v.term, [...(byTerm.get(v.term) ?? []), v.word]);
+        return (
+          <span key={source}>
+            {i > 0 ? " · " : null}
+            {[...byTerm].map(([term, words], j) => (
+              <span key={term}>
+                {j > 0 ? "; " : null}
+                {words.map((w) => `“${w}”`).join(", ")} found as <span className="text-ink">“{term}”</span>
+              </span>
+            ))}{" "}
+            <span>({SOURCE_LABELS[source]})</span>
+          </span>
+        );
+      })}
     </p>
   );
 }

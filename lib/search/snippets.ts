@@ -5,7 +5,7 @@
  * words that matched.
  */
 import type { Alternative, QueryPlan } from "./query";
-import { isThesaurusKind } from "./scoring";
+import { isThesaurusKind, isWordNetKind } from "./scoring";
 import type { SearchDocument, SearchField, SearchMatch, SearchVia } from "./types";
 import { tokenize, type Token } from "./text";
 
@@ -115,6 +115,11 @@ export function matchesFor(doc: SearchDocument, m: MatchedWords): { matches: Sea
   return { matches, snippet: cut.text };
 }
 
+function sourceOf(kind: Alternative["kind"]): SearchVia["source"] {
+  if (kind === "related") return "lexicon";
+  return isWordNetKind(kind) ? "wordnet" : "thesaurus";
+}
+
 /**
  * Query words this document answers only through the thesaurus, with the term that matched:
  * "tracker" → "marker". A word that also matched directly (itself, its family, a correction) is not
@@ -128,7 +133,7 @@ export function thesaurusMatches(plan: QueryPlan, has: (stemId: number, inShortF
   plan.units.forEach((u) => {
     if (u.alternatives.some((a) => direct(a.kind) && found(a))) return;
     const via = u.alternatives.find((a) => !direct(a.kind) && found(a));
-    if (via) out.push({ word: query.slice(u.start, u.end), term: via.surface, kind: via.kind === "synonym" || via.kind === "wordnet" ? "synonym" : "broader" });
+    if (via) out.push({ word: query.slice(u.start, u.end), term: via.surface, kind: via.kind === "synonym" || via.kind === "wordnet" ? "synonym" : "broader", source: sourceOf(via.kind) });
   });
   for (const s of plan.spans) {
     const units = plan.units.slice(s.first, s.first + s.count);
@@ -136,7 +141,7 @@ export function thesaurusMatches(plan: QueryPlan, has: (stemId: number, inShortF
     const via = s.alternatives.find((a) => !direct(a.kind) && found(a));
     const first = units[0];
     const last = units[units.length - 1];
-    if (via && first && last) out.push({ word: query.slice(first.start, last.end), term: via.surface, kind: via.kind === "synonym" ? "synonym" : "broader" });
+    if (via && first && last) out.push({ word: query.slice(first.start, last.end), term: via.surface, kind: via.kind === "synonym" ? "synonym" : "broader", source: sourceOf(via.kind) });
   }
   return out;
 }

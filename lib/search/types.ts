@@ -47,8 +47,13 @@ export type SearchField = "title" | "aliases" | "tags" | "summary" | "parameters
  */
 export type SearchMatch = { field: SearchField; value: string; ranges: [number, number][] };
 
-/** A query word that matched this result only through the thesaurus, and the term it matched. */
-export type SearchVia = { word: string; term: string; kind: "synonym" | "broader" };
+/**
+ * A query word that matched this result only through a word of related meaning, the term it matched,
+ * and where the link came from: the leads' thesaurus, the built-in symptom words (lexicon.ts) or
+ * WordNet's everyday English (wordnet.ts).
+ */
+export type SearchVia = { word: string; term: string; kind: "synonym" | "broader"; source: SearchViaSource };
+export type SearchViaSource = "thesaurus" | "lexicon" | "wordnet";
 
 export type SearchResult = {
   slug: string;

@@ -98,7 +98,7 @@ describe("/api/thesaurus", () => {
     const edited = await put(lead, id, { kind: "synonyms", terms: ["kzorp", "seam", "join"] });
     expect(edited.status).toBe(200);
     expect(edited.body).toMatchObject({ kind: "synonyms", broader: null, terms: ["kzorp", "seam", "join"] });
-    expect((await search(artist, "kzorp")).results[0]?.via).toEqual([{ word: "kzorp", term: "seam", kind: "synonym" }]);
+    expect((await search(artist, "kzorp")).results[0]?.via).toEqual([{ word: "kzorp", term: "seam", kind: "synonym", source: "thesaurus" }]);
 
     expect((await del(lead, id)).status).toBe(204);
     expect((await search(artist, "kzorp")).results).toEqual([]);

@@ -272,7 +272,7 @@ describe("graded matching, the department's method and the thesaurus", () => {
     // The exact word outranks the thesaurus term.
     const tracker = idx.search("tracker cleanup", { audience: "published" }).results;
     expect(tracker.map((r) => r.slug)).toEqual(["trackers", "markers"]);
-    expect(tracker[1]?.via).toEqual([{ word: "tracker", term: "marker", kind: "broader" }]);
+    expect(tracker[1]?.via).toEqual([{ word: "tracker", term: "marker", kind: "broader", source: "thesaurus" }]);
     // One way only: "marker" does not reach pages that only say "tracker".
     expect(slugs(idx, "marker")).toEqual(["markers"]);
   });

@@ -167,6 +167,9 @@ describe("query parsing", () => {
     const s = scorer.score(plan, 0b1111111, docs.length);
     expect([...s.ids].sort()).toEqual([0, 1]);
     expect(s.scores[s.ids.indexOf(1)]).toBeGreaterThan(s.scores[s.ids.indexOf(0)] as number);
+    // The reader is told the link is the built-in symptom words', not a lead's entry.
+    const unevenStem = ctx.vocab.stemIdOf(ctx.vocab.stemOf("uneven"));
+    expect(thesaurusMatches(plan, (sid) => sid === unevenStem, "blotchy")).toEqual([{ word: "blotchy", term: "uneven", kind: "broader", source: "lexicon" }]);
   });
 
   it("weighs filler words little", () => {
@@ -285,6 +288,6 @@ describe("snippets", () => {
     const markerStem = vocab.stemIdOf(vocab.stemOf("marker"));
     const removalStem = vocab.stemIdOf(vocab.stemOf("removal"));
     const via = thesaurusMatches(plan, (sid) => sid === markerStem || sid === removalStem, "tracker removal");
-    expect(via).toEqual([{ word: "tracker", term: "marker", kind: "broader" }]);
+    expect(via).toEqual([{ word: "tracker", term: "marker", kind: "broader", source: "thesaurus" }]);
   });
 });

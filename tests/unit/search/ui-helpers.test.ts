@@ -39,7 +39,7 @@ describe("weak-match detection (offers a write-up request)", () => {
     expect(queryWords("how do i get rid of the c-stand")).toEqual(["cstand"]);
   });
   it("counts a word answered through the thesaurus as covered", () => {
-    const viaOnly = [{ matches: [{ field: "title" as const, value: "Marker cleanup", ranges: [[0, 6]] as [number, number][] }], via: [{ word: "tracker", term: "marker", kind: "broader" as const }] }];
+    const viaOnly = [{ matches: [{ field: "title" as const, value: "Marker cleanup", ranges: [[0, 6]] as [number, number][] }], via: [{ word: "tracker", term: "marker", kind: "broader" as const, source: "thesaurus" as const }] }];
     expect(isWeakMatch("tracker cleanup", viaOnly)).toBe(false);
   });
   it("flags results that match one word of three, not results that match them all", () => {
@@ -126,7 +126,7 @@ describe("a result as rendered", () => {
     tags: [{ slug: "tracking-markers", name: "Tracking markers", kind: "problem" }],
     isHouseMethod: true,
     houseMethodFor: ["tracking-markers"],
-    via: [{ word: "tracker", term: "marker", kind: "broader" }],
+    via: [{ word: "tracker", term: "marker", kind: "broader", source: "thesaurus" }],
     updatedAt: "2025-01-02T00:00:00.000Z",
   };
   it("marks the matched words and never turns text into markup", () => {
@@ -139,6 +139,18 @@ describe("a result as rendered", () => {
     expect(html).toContain("Department method · Tracking markers");
     // Issue 16: which query word matched through which thesaurus term.
     expect(html).toContain("“tracker” found as");
-    expect(html).toMatch(/“tracker” found as <span[^>]*>“marker”<\/span>.*\(thesaurus\)/);
+    expect(html).toMatch(/“tracker” found as <span[^>]*>“marker”<\/span>.*\(department thesaurus\)/);
+  });
+
+  it("says where each related word came from, so WordNet's links are not taken for a lead's entries", () => {
+    const via: SearchResultDto["via"] = [
+      { word: "tracker", term: "marker", kind: "broader", source: "thesaurus" },
+      { word: "blotchy", term: "uneven", kind: "broader", source: "lexicon" },
+      { word: "tourists", term: "people", kind: "broader", source: "wordnet" },
+    ];
+    const text = renderToStaticMarkup(createElement(ResultItem, { result: { ...result, via } })).replace(/<[^>]+>/g, "");
+    expect(text).toContain("“tracker” found as “marker” (department thesaurus)");
+    expect(text).toContain("“blotchy” found as “uneven” (built-in symptom words)");
+    expect(text).toContain("“tourists” found as “people” (everyday English, WordNet)");
   });
 });

@@ -108,7 +108,7 @@ describe("WordNet in the engine", () => {
     index.load([doc("Crash pads on the ground"), doc("Blue screen falloff")].map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
     const res = index.search("mattresses", { audience: "published" });
     expect(res.results.map((r) => r.slug)).toEqual(["crash-pads-on-the-ground"]);
-    expect(res.results[0]?.via).toEqual([{ word: "mattresses", term: "pad", kind: "broader" }]);
+    expect(res.results[0]?.via).toEqual([{ word: "mattresses", term: "pad", kind: "broader", source: "wordnet" }]);
     expect(res.corrected).toBeUndefined();
   });
 
@@ -125,7 +125,7 @@ describe("WordNet in the engine", () => {
     index.load([doc("Crash pads on the ground"), doc("Landing mats for stunts")].map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
     const res = index.search("mattresses", { audience: "published" });
     expect(res.results.map((r) => r.slug)).toEqual(["landing-mats-for-stunts"]);
-    expect(res.results[0]?.via).toEqual([{ word: "mattresses", term: "landing mat", kind: "broader" }]);
+    expect(res.results[0]?.via).toEqual([{ word: "mattresses", term: "landing mat", kind: "broader", source: "thesaurus" }]);
   });
 
   it("weighs a mostly-adverb word like a generic one, so the problem word decides", () => {
