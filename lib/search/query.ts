@@ -146,8 +146,9 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   if (!exact && !isKnown && !isSplit && !vocab.isEnglishWord(word)) {
     const maxDistance = word.length <= 3 ? 0 : word.length <= 5 ? 1 : 2;
     const found = vocab.corrections(word, maxDistance);
-    // Prefer the correction with the most pages (the word the person most likely meant).
-    found.sort((a, b) => ctx.docFreq(vocab.surfaceStem[b.surfaceId] as number) - ctx.docFreq(vocab.surfaceStem[a.surfaceId] as number));
+    // Prefer the word closest to what was typed ("markrs" → "markers", not "mark", though their stems
+    // are equally near), then the one with the most pages (the word the person most likely meant).
+    found.sort((a, b) => a.surfaceDistance - b.surfaceDistance || ctx.docFreq(vocab.surfaceStem[b.surfaceId] as number) - ctx.docFreq(vocab.surfaceStem[a.surfaceId] as number));
     for (const c of found) {
       const w = vocab.surfaceWords[c.surfaceId] as string;
       const sid = vocab.surfaceStem[c.surfaceId] as number;

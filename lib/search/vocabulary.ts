@@ -8,7 +8,8 @@ import type { WordNetLink } from "./wordnet";
 import { familyCandidates, snowballStem } from "./stemming";
 import { editDistance, trigrams } from "./text";
 
-export type Candidate = { surfaceId: number; distance: number };
+/** `distance`: the closer of word-to-word and stem-to-stem edits; `surfaceDistance`: word-to-word alone. */
+export type Candidate = { surfaceId: number; distance: number; surfaceDistance: number };
 
 /** Stems remembered for words that are not surfaces; ~4 MB at most. */
 const STEM_CACHE_SIZE = 50_000;
@@ -169,15 +170,16 @@ export class Vocabulary {
     const found: Candidate[] = [];
     for (const [id, c] of counts) {
       if (c < need || !this.isLive(id)) continue;
-      const d = Math.min(within(word, this.surfaceWords[id] as string), within(queryStem, this.stemWords[this.surfaceStem[id] as number] as string));
-      if (d <= maxDistance) found.push({ surfaceId: id, distance: d });
+      const surfaceDistance = within(word, this.surfaceWords[id] as string);
+      const d = Math.min(surfaceDistance, within(queryStem, this.stemWords[this.surfaceStem[id] as number] as string));
+      if (d <= maxDistance) found.push({ surfaceId: id, distance: d, surfaceDistance });
     }
     // A transposition in a short word can leave no trigram in common ("fcae"/"face"): try those directly.
     if (word.length <= 5) {
       for (let i = 0; i + 1 < word.length; i++) {
         const swapped = word.slice(0, i) + word[i + 1] + word[i] + word.slice(i + 2);
         const id = this.surfaceIds.get(swapped);
-        if (id !== undefined && swapped !== word && this.isLive(id) && !found.some((f) => f.surfaceId === id)) found.push({ surfaceId: id, distance: 1 });
+        if (id !== undefined && swapped !== word && this.isLive(id) && !found.some((f) => f.surfaceId === id)) found.push({ surfaceId: id, distance: 1, surfaceDistance: 1 });
       }
     }
     const best = Math.min(...found.map((f) => f.distance));

@@ -296,6 +296,15 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(idx.search("roling shutter", { audience: "published", exact: true }).corrected).toBeUndefined();
   });
 
+  it("corrects to the word nearest what was typed, not to a commoner word whose stem is as near", () => {
+    const idx = createSearchIndex();
+    // "mark" is on three pages, "markers" on one; "markrs" is one edit from "markers" and two from "mark"
+    // (their stems "marker" and "mark" are both one edit from "markr").
+    ["a", "b", "c"].forEach((id) => idx.upsert(id, pub(doc({ slug: `page-${id}`, title: `Mark the frame ${id}` }))));
+    idx.upsert("m", pub(doc({ slug: "markers", title: "Markers on green screen" })));
+    expect(idx.search("markrs on green screen", { audience: "published" }).corrected).toBe("markers on green screen");
+  });
+
   it("reaches related word forms through stems and word families ('dark' → darkening, 'blurry' → blur)", () => {
     const idx = createSearchIndex();
     idx.upsert("d", pub(doc({ slug: "darkening", title: "Corner darkening" })));
