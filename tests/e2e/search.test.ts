@@ -70,11 +70,16 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
     await context.close();
   });
 
-  it("a search that finds nothing becomes a request that seniors see on their home page", async () => {
+  it("a search that finds only part of what was asked offers a request that seniors see on their home page", async () => {
     const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
     await page.goto("/search?q=zebra+crossing+flicker");
     const offer = page.getByTestId("request-offer");
     expect(await isShown(offer)).toBe(true);
+    // Only "flicker" matches: the partial results come first and the request, in full, after them.
+    expect(await offer.textContent()).toContain("match only some of its words");
+    const firstResult = await page.getByTestId("search-result").first().boundingBox();
+    const offerBox = await offer.boundingBox();
+    expect(firstResult && offerBox && firstResult.y < offerBox.y).toBe(true);
     expect(await offer.getByLabel("What do you need a method for?").inputValue()).toBe("zebra crossing flicker");
     await offer.getByLabel("Note (optional)").fill("SLM_040_0120: stripes strobe against the LED wall.");
     await screenshot(page, "search-request-offer");

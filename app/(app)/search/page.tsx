@@ -24,15 +24,17 @@ export default async function SearchPage({ searchParams }: { searchParams: Promi
   const tagInfo = Object.fromEntries(tags.map((t) => [t.slug, { name: t.name, kind: t.kind }]));
   const asked = response.corrected ?? state.q;
   const approvedCount = response.facets.status.find((s) => s.status === "approved")?.count ?? 0;
-  const reason = !state.q
+  // Nothing usable found: the request comes first. Only partly matching results: they come first (the
+  // right page is often among them) and the request follows them, still in full.
+  const missingReason = !state.q
     ? null
     : response.total === 0
       ? `No technique matches “${state.q}”${state.tag.length || state.status.length ? " with these filters" : ""}.`
       : approvedCount === 0
         ? `Nothing approved matches “${state.q}” — only drafts or retired techniques.`
-        : isWeakMatch(asked, response.results)
-          ? `Nothing here matches all of “${state.q}”; the closest results match only some of its words.`
-          : null;
+        : null;
+  const weakReason =
+    state.q && !missingReason && isWeakMatch(asked, response.results) ? `Nothing here matches all of “${state.q}”; the results above match only some of its words.` : null;
   return (
     <SearchNavProvider>
       <div className="space-y-5">
@@ -55,11 +57,12 @@ export default async function SearchPage({ searchParams }: { searchParams: Promi
                 <SortControl state={state} />
               </div>
             </div>
-            {reason ? <RequestOffer key={`offer-${state.q}`} query={state.q} prominent reason={reason} /> : null}
+            {missingReason ? <RequestOffer key={`offer-${state.q}`} query={state.q} prominent reason={missingReason} /> : null}
             <PendingRegion>
               <ResultList state={state} response={response} />
             </PendingRegion>
-            {state.q && !reason ? <RequestOffer key={`more-${state.q}`} query={state.q} prominent={false} /> : null}
+            {weakReason ? <RequestOffer key={`weak-${state.q}`} query={state.q} prominent reason={weakReason} /> : null}
+            {state.q && !missingReason && !weakReason ? <RequestOffer key={`more-${state.q}`} query={state.q} prominent={false} /> : null}
           </section>
         </div>
       </div>
