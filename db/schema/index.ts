@@ -7,3 +7,4 @@ export * from "./mail";
 export * from "./changes";
 export * from "./thesaurus";
 export * from "./plate-checks";
+export * from "./search";

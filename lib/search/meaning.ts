@@ -62,12 +62,26 @@ export function rerankByMeaning<R extends Pick<SearchResult, "score">>(results: 
 }
 
 /**
+ * Where page vectors outlive the process (lib/search/meaning-store.ts keeps them in the database), so
+ * a restart reads them instead of encoding every page again. A cache: a store that fails costs time,
+ * never results.
+ */
+export type MeaningVectorStore = {
+  load(texts: readonly string[]): Promise<Map<string, Float32Array>>;
+  save(entries: ReadonlyArray<readonly [text: string, vector: Float32Array]>): Promise<void>;
+  /** Drop the vectors of every text but these (after a rebuild: texts no page uses any more). */
+  keepOnly(texts: readonly string[]): Promise<void>;
+};
+
+/**
  * Page vectors, remembered by the text they were made from: a page is encoded again only when its
  * title, summary, aliases or tags change. Holds about two texts a page (approved and working) plus
  * the earlier texts of pages edited since the last rebuild, which `keepOnly` then drops.
  */
 export class MeaningVectors {
   private readonly byText = new Map<string, Float32Array>();
+  /** Set by the search holder when the process has a database (lib/search/index.ts). */
+  store: MeaningVectorStore | undefined;
   constructor(private readonly encode: MeaningEncoder) {}
 
   get(text: string): Float32Array | undefined {
@@ -84,20 +98,34 @@ export class MeaningVectors {
    * a server answering while it encodes all its pages at start: a search waits for one batch at most.
    */
   async ensure(texts: Iterable<string>, batch = 4): Promise<void> {
-    const missing = [...new Set(texts)].filter((t) => !this.byText.has(t));
+    let missing = [...new Set(texts)].filter((t) => !this.byText.has(t));
+    if (missing.length && this.store) {
+      const stored = await this.store.load(missing).catch((err: unknown) => storeFailed("reading", err));
+      if (stored?.size) {
+        for (const [t, v] of stored) this.byText.set(t, v);
+        missing = missing.filter((t) => !this.byText.has(t));
+      }
+    }
     for (let i = 0; i < missing.length; i += batch) {
       const slice = missing.slice(i, i + batch);
       const vectors = await this.encode(slice);
       slice.forEach((t, j) => this.byText.set(t, vectors[j] as Float32Array));
+      await this.store?.save(slice.map((t, j) => [t, vectors[j] as Float32Array] as const)).catch((err: unknown) => storeFailed("saving", err));
       if (i + batch < missing.length) await new Promise<void>((resolve) => setImmediate(resolve));
     }
   }
 
-  /** Forget texts no page uses any more (after a rebuild), so edits do not grow the map forever. */
-  keepOnly(texts: Iterable<string>): void {
+  /** Forget texts no page uses any more (after a rebuild), so edits do not grow the map or the store forever. */
+  async keepOnly(texts: Iterable<string>): Promise<void> {
     const keep = new Set(texts);
     for (const t of this.byText.keys()) if (!keep.has(t)) this.byText.delete(t);
+    await this.store?.keepOnly([...keep]).catch((err: unknown) => storeFailed("pruning", err));
   }
+}
+
+function storeFailed(doing: string, err: unknown): undefined {
+  console.error(`search: ${doing} stored page vectors failed (a cache: pages are encoded when needed)`, err);
+  return undefined;
 }
 
 /** What ranking by meaning needs: the encoder and the page vectors made with it. */

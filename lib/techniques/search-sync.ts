@@ -3,6 +3,8 @@ import { eq, gt, inArray } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { houseMethods, revisions, shots, tags, techniques, uses, type Revision, type Technique } from "@/db/schema";
 import { applySearchChange, rebuildSearchIndex, type SearchDocument, type SearchIndexEntry, type SearchTag } from "@/lib/search";
+import { databaseMeaningStore } from "@/lib/search/meaning-store";
+import { MEANING_MODEL_ID } from "@/lib/search/meaning-model";
 import { loadThesaurusForSearch } from "@/lib/thesaurus/queries";
 import { RECIPE_PARAMETER_LABELS } from "@/lib/techniques/recipe-labels";
 
@@ -92,7 +94,7 @@ export async function reindexTechnique(techniqueId: string): Promise<void> {
 
 /** Rebuilds the whole index and its thesaurus from the database (start-up, and after tag renames or merges). */
 export function rebuildSearchFromDb(): Promise<number> {
-  return rebuildSearchIndex(() => loadSearchEntries(), loadThesaurusForSearch);
+  return rebuildSearchIndex(() => loadSearchEntries(), loadThesaurusForSearch, databaseMeaningStore(MEANING_MODEL_ID));
 }
 
 /** The index applies the thesaurus at query time: after a change it takes the whole (small) list again. */

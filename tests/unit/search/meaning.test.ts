@@ -1,8 +1,8 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 import { createSearchIndex } from "@/lib/search/engine";
 import { createLanguage } from "@/lib/search/language";
-import { createMeaning, dot, type Meaning, MeaningVectors, meaningText, RERANK_WINDOW, rerankByMeaning, searchWithMeaning } from "@/lib/search/meaning";
+import { createMeaning, dot, type Meaning, MeaningVectors, type MeaningVectorStore, meaningText, RERANK_WINDOW, rerankByMeaning, searchWithMeaning } from "@/lib/search/meaning";
 import { sentenceEncoder } from "@/lib/search/meaning-model";
 import { searchDoc } from "@/tests/unit/search/search-doc";
 
@@ -60,9 +60,69 @@ describe("MeaningVectors", () => {
     await vectors.ensure(["bb", "dddd"], 2);
     expect(calls).toEqual([["a", "bb"], ["ccc"], ["dddd"]]);
     expect(vectors.get("bb")).toEqual(unit(2, 1));
-    vectors.keepOnly(["a"]);
+    await vectors.keepOnly(["a"]);
     expect(vectors.size).toBe(1);
     expect(vectors.get("bb")).toBeUndefined();
+  });
+
+  /** A store in memory, counting what it was asked; `failing` makes every call reject. */
+  function memoryStore(failing = false) {
+    const rows = new Map<string, Float32Array>();
+    const asked: string[][] = [];
+    const store: MeaningVectorStore = {
+      load: (texts) => {
+        asked.push([...texts]);
+        if (failing) return Promise.reject(new Error("store down"));
+        return Promise.resolve(new Map(texts.flatMap((t) => (rows.has(t) ? [[t, rows.get(t) as Float32Array] as const] : []))));
+      },
+      save: (entries) => {
+        if (failing) return Promise.reject(new Error("store down"));
+        for (const [t, v] of entries) rows.set(t, v);
+        return Promise.resolve();
+      },
+      keepOnly: (texts) => {
+        if (failing) return Promise.reject(new Error("store down"));
+        for (const t of [...rows.keys()]) if (!texts.includes(t)) rows.delete(t);
+        return Promise.resolve();
+      },
+    };
+    return { store, rows, asked };
+  }
+
+  it("reads stored vectors instead of encoding again, and stores what it encodes", async () => {
+    const { store, rows, asked } = memoryStore();
+    rows.set("kept", unit(3, 4));
+    const encoded: string[] = [];
+    const vectors = new MeaningVectors((texts) => {
+      encoded.push(...texts);
+      return Promise.resolve(texts.map((t) => unit(t.length, 1)));
+    });
+    vectors.store = store;
+    await vectors.ensure(["kept", "new"]);
+    expect(encoded).toEqual(["new"]);
+    expect(vectors.get("kept")).toEqual(unit(3, 4));
+    expect(rows.get("new")).toEqual(unit(3, 1));
+    // Texts already in memory are not asked of the store again.
+    await vectors.ensure(["kept", "new"]);
+    expect(asked).toEqual([["kept", "new"]]);
+    await vectors.keepOnly(["new"]);
+    expect([...rows.keys()]).toEqual(["new"]);
+  });
+
+  it("encodes as before when the store fails, and says so once per failure", async () => {
+    const { store } = memoryStore(true);
+    const errors = vi.spyOn(console, "error").mockImplementation(() => undefined);
+    const vectors = new MeaningVectors((texts) => Promise.resolve(texts.map(() => unit(1, 0))));
+    vectors.store = store;
+    await vectors.ensure(["a"]);
+    await vectors.keepOnly(["a"]);
+    expect(vectors.get("a")).toEqual(unit(1, 0));
+    expect(errors.mock.calls.map((c) => String(c[0]))).toEqual([
+      "search: reading stored page vectors failed (a cache: pages are encoded when needed)",
+      "search: saving stored page vectors failed (a cache: pages are encoded when needed)",
+      "search: pruning stored page vectors failed (a cache: pages are encoded when needed)",
+    ]);
+    errors.mockRestore();
   });
 });
 
