@@ -147,8 +147,10 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
     const maxDistance = word.length <= 3 ? 0 : word.length <= 5 ? 1 : 2;
     const found = vocab.corrections(word, maxDistance);
     // Prefer the word closest to what was typed ("markrs" → "markers", not "mark", though their stems
-    // are equally near), then the one with the most pages (the word the person most likely meant).
-    found.sort((a, b) => a.surfaceDistance - b.surfaceDistance || ctx.docFreq(vocab.surfaceStem[b.surfaceId] as number) - ctx.docFreq(vocab.surfaceStem[a.surfaceId] as number));
+    // are equally near), then the exact word on most pages (the word the person most likely meant:
+    // "markers" over "marks", both one edit away), then the word family on most pages.
+    const stemDocs = (c: (typeof found)[number]) => ctx.docFreq(vocab.surfaceStem[c.surfaceId] as number);
+    found.sort((a, b) => a.surfaceDistance - b.surfaceDistance || vocab.surfaceUses(b.surfaceId) - vocab.surfaceUses(a.surfaceId) || stemDocs(b) - stemDocs(a));
     for (const c of found) {
       const w = vocab.surfaceWords[c.surfaceId] as string;
       const sid = vocab.surfaceStem[c.surfaceId] as number;

@@ -104,6 +104,11 @@ export class Vocabulary {
     return (this.surfaceRefs[surfaceId] as number) > 0;
   }
 
+  /** How many documents use this exact word (plus thesaurus pins). */
+  surfaceUses(surfaceId: number): number {
+    return this.surfaceRefs[surfaceId] ?? 0;
+  }
+
   /** A word that pages or the thesaurus use right now. */
   isKnownWord(word: string): boolean {
     const id = this.surfaceIds.get(word);

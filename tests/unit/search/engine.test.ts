@@ -303,6 +303,10 @@ describe("graded matching, the department's method and the thesaurus", () => {
     ["a", "b", "c"].forEach((id) => idx.upsert(id, pub(doc({ slug: `page-${id}`, title: `Mark the frame ${id}` }))));
     idx.upsert("m", pub(doc({ slug: "markers", title: "Markers on green screen" })));
     expect(idx.search("markrs on green screen", { audience: "published" }).corrected).toBe("markers on green screen");
+    // Both one edit away: the exact word more pages use wins, though "marks" shares its stem with three.
+    ["d", "e"].forEach((id) => idx.upsert(id, pub(doc({ slug: `markers-${id}`, title: `Markers and more ${id}` }))));
+    idx.upsert("k", pub(doc({ slug: "marks", title: "Marks on film" })));
+    expect(idx.search("markrs on green screen", { audience: "published" }).corrected).toBe("markers on green screen");
   });
 
   it("reaches related word forms through stems and word families ('dark' → darkening, 'blurry' → blur)", () => {
