@@ -51,8 +51,9 @@ describe("the change stamp and the change watch", () => {
     const rows = (result as { rows: { table: string; trigger: string | null }[] }).rows;
     const triggers = new Map<string, string[]>();
     for (const { table, trigger } of rows) triggers.set(table, [...(triggers.get(table) ?? []), ...(trigger ? [trigger] : [])]);
-    // Mail, sign-in bookkeeping and the audit trail never appear on a page; tokens only notify.
-    const unwatched = new Set(["outbox", "digest_items", "one_time_tokens", "sign_in_failures", "password_reset_requests", "audit_log", "change_stamp"]);
+    // Mail, sign-in bookkeeping, the audit trail and search's stored page vectors (a cache) never appear
+    // on a page; tokens only notify.
+    const unwatched = new Set(["outbox", "digest_items", "one_time_tokens", "sign_in_failures", "password_reset_requests", "audit_log", "change_stamp", "search_meaning_vectors"]);
     // Search documents' sources also say which technique changed (migration 0003, lib/techniques/search-follow.ts);
     // a thesaurus edit says so too (migration 0009_thesaurus_starter).
     const search: Record<string, string> = {
