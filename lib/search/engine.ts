@@ -229,7 +229,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
   // ---- query side ----------------------------------------------------------------------------
 
   function plan(query: string, options: ParseOptions): QueryPlan {
-    return parseQuery(query, { vocab, thesaurus, docFreq: (s) => store.docFreq(s) }, options);
+    return parseQuery(query, { vocab, thesaurus, docFreq: (s) => store.docFreq(s), shareADocument: (a, b) => store.shareADocument(a, b) }, options);
   }
 
   /** Ids visible to the audience, carrying every filter tag, retired ones only when asked. */

@@ -167,6 +167,16 @@ export class PostingStore {
     return (this.lists[stemId] as Postings).n;
   }
 
+  /** Whether some document contains both stems (walks the shorter list, looks each id up in the other). */
+  shareADocument(a: number, b: number): boolean {
+    const la = this.lists[a];
+    const lb = this.lists[b];
+    if (!la || !lb) return false;
+    const [small, big] = la.n <= lb.n ? [la, lb] : [lb, la];
+    for (let i = 0; i < small.n; i++) if (big.countsOf(small.data[i * 2] as number) !== 0) return true;
+    return false;
+  }
+
   add(id: number, a: AnalysedDocument): void {
     if ((id + 1) * FIELD_COUNT > this.lengths.length) {
       let size = this.lengths.length;

@@ -36,6 +36,11 @@ export type QueryUnit = {
   alternatives: Alternative[];
   correction?: string;
   /**
+   * Corrections as near to what was typed as `correction`, in the same order of preference: the one
+   * that shares a page with the query's other words is taken instead ("kite strng" → string, not strong).
+   */
+  correctionChoices?: string[];
+  /**
    * A filler word ("get", "out", "way"): not looked up on its own — it is on most pages and would
    * only cost time — but it still spells thesaurus phrases ("get rid of", "put grain back").
    */
@@ -51,7 +56,13 @@ export type ParseOptions = {
   exact: boolean;
 };
 
-export type QueryContext = { vocab: Vocabulary; thesaurus: CompiledThesaurus; docFreq: (stemId: number) => number };
+export type QueryContext = {
+  vocab: Vocabulary;
+  thesaurus: CompiledThesaurus;
+  docFreq: (stemId: number) => number;
+  /** Whether some document contains both stems; without it corrections ignore the other words. */
+  shareADocument?: (a: number, b: number) => boolean;
+};
 
 const MAX_ALTERNATIVES = 8;
 
@@ -62,6 +73,7 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
   // A query of filler words only ("take out") is looked up word by word after all.
   const onlyFiller = tokens.every((t) => queryWordWeight(t.word) <= FILLER_WEIGHT);
   const units = tokens.map((tok, i) => parseWord(tok, ctx, options.prefix === "all" || (options.prefix === "last" && i === tokens.length - 1), options.exact, onlyFiller));
+  chooseCorrectionsByContext(units, ctx);
   const spans: QuerySpan[] = [];
   const taken = new Uint8Array(units.length);
 
@@ -141,6 +153,7 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   }
   // Spelling: a word the pages or the thesaurus use, or any English word, is never changed.
   let correction: string | undefined;
+  const correctionChoices: string[] = [];
   // A run-together word whose halves are words ("infront", "deadpixel") is read as those words first.
   const isSplit = !hasExact && !isKnown && word.length >= 5 && !vocab.isEnglishWord(word) && splitCompound(word, ctx, out);
   if (!exact && !isKnown && !isSplit && !vocab.isEnglishWord(word)) {
@@ -156,6 +169,7 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
       const sid = vocab.surfaceStem[c.surfaceId] as number;
       // A thesaurus-only word has no pages but still counts as the correction (the thesaurus maps it).
       correction ??= w;
+      if (c.surfaceDistance === found[0]?.surfaceDistance && live(sid)) correctionChoices.push(w);
       if (live(sid)) out.push({ stems: [sid], weight: c.distance === 1 ? ALTERNATIVE_WEIGHTS.typo : ALTERNATIVE_WEIGHTS.typo2, kind: "typo", surface: w });
     }
   } else if (!exact && !isKnown && !hasExact && !isSplit && word.length >= 4) {
@@ -171,7 +185,41 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   if (!hasExact && !isSplit && (isKnown || vocab.isEnglishWord(word))) addWordNet(word, stem, ctx, out);
   // A word that mostly says where or how ("behind", "through", "away") weighs like a generic action word.
   const weight = vocab.isMostlyAdverb(word) ? Math.min(GENERIC_WEIGHT, queryWordWeight(word)) : undefined;
-  return unit(tok, out, hasExact ? undefined : correction, weight);
+  const u = unit(tok, out, hasExact ? undefined : correction, weight);
+  if (u.correction && correctionChoices.length > 1) u.correctionChoices = correctionChoices;
+  return u;
+}
+
+/**
+ * Where a misspelt word has several equally near corrections, take the one found on a page with most
+ * of the query's other words: the words around a typo say which word was meant. Only the correction
+ * shown (and searched by meaning) changes: every candidate stays an alternative of the word.
+ */
+function chooseCorrectionsByContext(units: QueryUnit[], ctx: QueryContext): void {
+  const share = ctx.shareADocument;
+  if (!share || units.length < 2) return;
+  const stemId = (word: string) => ctx.vocab.stemIdOf(ctx.vocab.stemOf(word));
+  // What the other words certainly mean: themselves (or their stem), or their own correction.
+  const meant = units.map((u) => {
+    const own = u.alternatives.filter((a) => (a.kind === "exact" || a.kind === "stem") && a.stems.length === 1).map((a) => a.stems[0] as number);
+    const corrected = u.correction === undefined ? undefined : stemId(u.correction);
+    return corrected === undefined ? own : [...own, corrected];
+  });
+  units.forEach((u, i) => {
+    if (!u.correctionChoices || u.correctionChoices.length < 2) return;
+    let best = u.correction;
+    let bestCount = -1;
+    for (const choice of u.correctionChoices) {
+      const sid = stemId(choice);
+      if (sid === undefined) continue;
+      const count = meant.filter((stems, j) => j !== i && stems.some((s) => share(sid, s))).length;
+      if (count > bestCount) {
+        best = choice;
+        bestCount = count;
+      }
+    }
+    if (best !== undefined) u.correction = best;
+  });
 }
 
 /**

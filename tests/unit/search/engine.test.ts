@@ -309,6 +309,18 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(idx.search("markrs on green screen", { audience: "published" }).corrected).toBe("markers on green screen");
   });
 
+  it("among equally near corrections, takes the one found with the query's other words", () => {
+    const idx = createSearchIndex();
+    ["a", "b", "c"].forEach((id) => idx.upsert(id, pub(doc({ slug: `key-${id}`, title: `A strong key ${id}` }))));
+    idx.upsert("k", pub(doc({ slug: "kite", title: "Kite string over the sky" })));
+    // Alone, the commoner word; beside "kite", the word that shares a page with it.
+    expect(idx.search("strng", { audience: "published" }).corrected).toBe("strong");
+    expect(idx.search("kite strng", { audience: "published" }).corrected).toBe("kite string");
+    expect(idx.search("strng kite", { audience: "published" }).corrected).toBe("string kite");
+    // Every candidate still finds its pages.
+    expect(slugs(idx, "kite strng")[0]).toBe("kite");
+  });
+
   it("reaches related word forms through stems and word families ('dark' → darkening, 'blurry' → blur)", () => {
     const idx = createSearchIndex();
     idx.upsert("d", pub(doc({ slug: "darkening", title: "Corner darkening" })));
