@@ -7,7 +7,7 @@
  */
 import type { SearchDocument, SearchTag } from "@/lib/search/types";
 
-const tag = (slug: string, name: string, kind: SearchTag["kind"], aliases: string[] = []): SearchTag => ({ slug, name, kind, aliases });
+export const tag = (slug: string, name: string, kind: SearchTag["kind"], aliases: string[] = []): SearchTag => ({ slug, name, kind, aliases });
 
 export const TAGS = {
   markers: tag("tracking-markers", "Tracking markers", "problem", ["tracker dots", "tape crosses", "markers"]),
@@ -45,7 +45,7 @@ export const TAGS = {
   car: tag("car", "Cars", "plate", ["vehicle"]),
 };
 
-type PageInput = {
+export type PageInput = {
   title: string;
   summary: string;
   tags: SearchTag[];
@@ -56,24 +56,29 @@ type PageInput = {
   houseMethodFor?: string[];
 };
 
-let counter = 0;
-function page(slug: string, p: PageInput): SearchDocument {
-  counter++;
-  return {
-    techniqueId: `qp-${String(counter).padStart(3, "0")}`,
-    slug,
-    title: p.title,
-    summary: p.summary,
-    aliases: p.aliases ?? [],
-    tags: p.tags,
-    parameterNames: p.parameterNames ?? [],
-    shotCodes: p.shotCodes ?? [],
-    bodyText: p.body,
-    status: "approved",
-    houseMethodFor: p.houseMethodFor ?? [],
-    updatedAt: `2026-0${1 + (counter % 9)}-1${counter % 10}T10:00:00.000Z`,
+/** A page maker whose technique ids are `<idPrefix>-001`, `-002`, … in the order pages are made. */
+export function pageMaker(idPrefix: string): (slug: string, p: PageInput) => SearchDocument {
+  let counter = 0;
+  return (slug, p) => {
+    counter++;
+    return {
+      techniqueId: `${idPrefix}-${String(counter).padStart(3, "0")}`,
+      slug,
+      title: p.title,
+      summary: p.summary,
+      aliases: p.aliases ?? [],
+      tags: p.tags,
+      parameterNames: p.parameterNames ?? [],
+      shotCodes: p.shotCodes ?? [],
+      bodyText: p.body,
+      status: "approved",
+      houseMethodFor: p.houseMethodFor ?? [],
+      updatedAt: `2026-0${1 + (counter % 9)}-1${counter % 10}T10:00:00.000Z`,
+    };
   };
 }
+
+const page = pageMaker("qp");
 
 const T = TAGS;
 

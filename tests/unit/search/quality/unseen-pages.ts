@@ -5,43 +5,13 @@
  * reflections, flicker, lens problems, screens, logos and devices, skin, sky and water, camera
  * motion, compression). Never tune on it. Trade content is common practice, no published source.
  */
-import type { SearchDocument, SearchTag } from "@/lib/search/types";
-import { TAGS } from "./pages";
-
-const tag = (slug: string, name: string, kind: SearchTag["kind"], aliases: string[] = []): SearchTag => ({ slug, name, kind, aliases });
+import type { SearchDocument } from "@/lib/search/types";
+import { pageMaker, tag, TAGS } from "./pages";
 
 /** One problem tag the shared TAGS list does not have: fixed objects that are not people or crew. */
 const UNWANTED = tag("unwanted-objects", "Unwanted objects", "problem", ["object removal", "vehicle removal"]);
 
-type PageInput = {
-  title: string;
-  summary: string;
-  tags: SearchTag[];
-  body: string;
-  aliases?: string[];
-  parameterNames?: string[];
-  shotCodes?: string[];
-  houseMethodFor?: string[];
-};
-
-let counter = 0;
-function page(slug: string, p: PageInput): SearchDocument {
-  counter++;
-  return {
-    techniqueId: `up-${String(counter).padStart(3, "0")}`,
-    slug,
-    title: p.title,
-    summary: p.summary,
-    aliases: p.aliases ?? [],
-    tags: p.tags,
-    parameterNames: p.parameterNames ?? [],
-    shotCodes: p.shotCodes ?? [],
-    bodyText: p.body,
-    status: "approved",
-    houseMethodFor: p.houseMethodFor ?? [],
-    updatedAt: `2026-0${1 + (counter % 9)}-1${counter % 10}T10:00:00.000Z`,
-  };
-}
+const page = pageMaker("up");
 
 const T = TAGS;
 
