@@ -13,6 +13,7 @@ import { QUALITY_PAGES } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
 import { UNSEEN_PAGES } from "@/tests/unit/search/quality/unseen-pages";
 import { UNSEEN_QUERIES } from "@/tests/unit/search/quality/unseen-queries";
+import { UNSEEN_QUERIES_SECOND } from "@/tests/unit/search/quality/unseen-queries-second";
 
 import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge } from "./lib/quality";
 
@@ -52,8 +53,14 @@ if (process.argv.includes("--unseen")) {
   unseenIndex.load(UNSEEN_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
   const unseenJudge = await hunspellJudge(UNSEEN_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
   const unseenMeaning = encode && createMeaning(encode);
-  const unseenReport = await evaluateQuality(unseenMeaning ? byWordsThenMeaning(unseenIndex, unseenMeaning) : byWords(unseenIndex), UNSEEN_QUERIES, unseenJudge, () => true);
-  console.log("unseen pages (held out whole)");
-  console.table(unseenReport.all);
-  console.log("real words corrected", unseenReport.realWordsCorrected);
+  const unseenSearch = unseenMeaning ? byWordsThenMeaning(unseenIndex, unseenMeaning) : byWords(unseenIndex);
+  for (const [label, queries] of [
+    ["the pages' writer", UNSEEN_QUERIES],
+    ["a second writer, from titles and summaries only", UNSEEN_QUERIES_SECOND],
+  ] as const) {
+    const unseenReport = await evaluateQuality(unseenSearch, queries, unseenJudge, () => true);
+    console.log(`unseen pages (held out whole), queries by ${label}`);
+    console.table(unseenReport.all);
+    console.log("real words corrected", unseenReport.realWordsCorrected);
+  }
 }
