@@ -1,17 +1,28 @@
 import { describe, expect, it } from "vitest";
 
-import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge, type QualityReport } from "@/bench/lib/quality";
+import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge, type QualityReport, type SpellJudge } from "@/bench/lib/quality";
 import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
 import { createMeaning } from "@/lib/search/meaning";
 import { sentenceEncoder } from "@/lib/search/meaning-model";
+import type { SearchIndex } from "@/lib/search/types";
 
 import { QUALITY_PAGES } from "./quality/pages";
-import { isHeldOut, QUALITY_QUERIES, QUERY_KINDS } from "./quality/queries";
+import { isHeldOut, QUALITY_QUERIES, type QualityQuery, QUERY_KINDS } from "./quality/queries";
 import { UNSEEN_PAGES } from "./quality/unseen-pages";
 import { UNSEEN_QUERIES } from "./quality/unseen-queries";
 import { UNSEEN_QUERIES_SECOND } from "./quality/unseen-queries-second";
+
+/** The report of ranking by words then meaning with the real encoder, computed once, when first asked. */
+function lazyMeaningReport(index: SearchIndex, queries: readonly QualityQuery[], judge: SpellJudge, isHeldOutQuery?: (q: QualityQuery) => boolean): () => Promise<QualityReport> {
+  let report: Promise<QualityReport> | undefined;
+  return () =>
+    (report ??= sentenceEncoder().then((encode) => {
+      if (!encode) throw new Error("the sentence encoder did not load");
+      return evaluateQuality(byWordsThenMeaning(index, createMeaning(encode)), queries, judge, isHeldOutQuery);
+    }));
+}
 
 // Issue 16 "Quality": junior queries over look-alike pages. The query → page pairs and their reasons
 // are trade judgement (common practice, no published source). The targets (top-1 ≥ 95 %, top-3 ≥ 99 %)
@@ -74,12 +85,7 @@ describe("search quality set", async () => {
     describe: { top1: 77, top3: 90 },
     filler: { top1: 91, top3: 97 },
   };
-  let rankedByMeaning: Promise<QualityReport> | undefined;
-  const withMeaning = (): Promise<QualityReport> =>
-    (rankedByMeaning ??= sentenceEncoder().then((encode) => {
-      if (!encode) throw new Error("the sentence encoder did not load");
-      return evaluateQuality(byWordsThenMeaning(index, createMeaning(encode)), QUALITY_QUERIES, judge);
-    }));
+  const withMeaning = lazyMeaningReport(index, QUALITY_QUERIES, judge);
   it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor and the engine alone", async (kind) => {
     const row = (await withMeaning()).all.find((r) => r.kind === kind);
     const alone = report.all.find((r) => r.kind === kind);
@@ -136,12 +142,7 @@ describe("search quality on pages no tuning saw", async () => {
     describe: { top1: 77, top3: 92 },
     filler: { top1: 90, top3: 97 },
   };
-  let rankedByMeaning: Promise<QualityReport> | undefined;
-  const withMeaning = (): Promise<QualityReport> =>
-    (rankedByMeaning ??= sentenceEncoder().then((encode) => {
-      if (!encode) throw new Error("the sentence encoder did not load");
-      return evaluateQuality(byWordsThenMeaning(index, createMeaning(encode)), UNSEEN_QUERIES, judge, allHeldOut);
-    }));
+  const withMeaning = lazyMeaningReport(index, UNSEEN_QUERIES, judge, allHeldOut);
   it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor and the engine alone", async (kind) => {
     const row = (await withMeaning()).all.find((r) => r.kind === kind);
     const alone = byWordsReport.all.find((r) => r.kind === kind);
@@ -159,12 +160,7 @@ describe("search quality on pages no tuning saw", async () => {
     describe: { top1: 77, top3: 95 },
     filler: { top1: 88, top3: 97 },
   };
-  let secondByMeaning: Promise<QualityReport> | undefined;
-  const secondWithMeaning = (): Promise<QualityReport> =>
-    (secondByMeaning ??= sentenceEncoder().then((encode) => {
-      if (!encode) throw new Error("the sentence encoder did not load");
-      return evaluateQuality(byWordsThenMeaning(index, createMeaning(encode)), UNSEEN_QUERIES_SECOND, judge, allHeldOut);
-    }));
+  const secondWithMeaning = lazyMeaningReport(index, UNSEEN_QUERIES_SECOND, judge, allHeldOut);
   it("has a second writer's 30 distinct queries of each kind over the same pages, and corrects no real word", async () => {
     const slugs = new Set(UNSEEN_PAGES.map((p) => p.slug));
     for (const kind of QUERY_KINDS) expect(UNSEEN_QUERIES_SECOND.filter((q) => q.kind === kind).length, kind).toBe(30);
