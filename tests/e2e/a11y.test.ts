@@ -19,6 +19,8 @@ const EVERYONE = [
   "/problems/tracking-markers",
   "/search?q=marker",
   "/search?q=zzzz+nothing+like+this",
+  // Partial matches (the request after the results) and notes naming where a related word came from.
+  "/search?q=someone+walking+in+the+back+of+the+shot",
   "/shows",
   "/shows/SLM",
   "/shots/SLM_040_0120",
