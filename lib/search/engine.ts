@@ -149,7 +149,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const stored: SearchDocument = { ...doc, tags: internTags(doc.tags) };
     const analysed = analyser.analyse(stored);
     store.add(id, analysed);
-    for (const s of analysed.surfaces) vocab.addRef(s, 1);
+    analysed.surfaces.forEach((s, i) => vocab.addRef(s, 1, analysed.surfaceCounts[i]));
     const parsed = Date.parse(doc.updatedAt);
     flags[id] = mask | (doc.status === "retired" ? FL_RETIRED : 0) | (isRankApproved ? FL_APPROVED : 0) | (doc.houseMethodFor.length > 0 ? FL_HOUSE : 0);
     updatedAt[id] = Number.isNaN(parsed) ? 0 : parsed;
@@ -173,7 +173,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     if (!entry) return;
     const analysed = analyser.analyse(entry.doc);
     store.remove(id, analysed);
-    for (const s of analysed.surfaces) vocab.addRef(s, -1);
+    analysed.surfaces.forEach((s, i) => vocab.addRef(s, -1, -(analysed.surfaceCounts[i] as number)));
     entries[id] = undefined;
     flags[id] = 0;
   }

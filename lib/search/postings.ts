@@ -80,7 +80,8 @@ export class Postings {
   }
 }
 
-export type AnalysedDocument = { terms: number[]; packed: number[]; surfaces: number[]; fieldLengths: number[] };
+/** `surfaceCounts[i]`: how often `surfaces[i]` occurs in the document (for spelling's tie-breaks). */
+export type AnalysedDocument = { terms: number[]; packed: number[]; surfaces: number[]; surfaceCounts: number[]; fieldLengths: number[] };
 
 /**
  * Counts per stem and field. Besides each word, hyphenated compounds count whole and in parts
@@ -90,7 +91,7 @@ export type AnalysedDocument = { terms: number[]; packed: number[]; surfaces: nu
 export class DocumentAnalyser {
   // Scratch by stem id / surface id, reset after each document: no Map per document, far less GC.
   private tf = new Uint32Array(4096);
-  private seen = new Uint8Array(4096);
+  private seen = new Uint32Array(4096);
 
   constructor(private readonly vocab: Vocabulary) {}
 
@@ -108,10 +109,8 @@ export class DocumentAnalyser {
     const word = (w: string, field: number): void => {
       const sf = this.vocab.internSurface(w);
       if (sf >= this.seen.length) this.seen = grow(this.seen, sf);
-      if (this.seen[sf] === 0) {
-        this.seen[sf] = 1;
-        surfaces.push(sf);
-      }
+      if (this.seen[sf] === 0) surfaces.push(sf);
+      this.seen[sf] = (this.seen[sf] as number) + 1;
       count(this.vocab.surfaceStem[sf] as number, field);
     };
     for (let f = 0; f < FIELD_COUNT; f++) {
@@ -137,8 +136,9 @@ export class DocumentAnalyser {
     }
     const packed = terms.map((sid) => this.tf[sid] as number);
     for (const sid of terms) this.tf[sid] = 0;
+    const surfaceCounts = surfaces.map((sf) => this.seen[sf] as number);
     for (const sf of surfaces) this.seen[sf] = 0;
-    return { terms, packed, surfaces, fieldLengths };
+    return { terms, packed, surfaces, surfaceCounts, fieldLengths };
   }
 }
 

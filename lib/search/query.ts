@@ -161,9 +161,16 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
     const found = vocab.corrections(word, maxDistance);
     // Prefer the word closest to what was typed ("markrs" → "markers", not "mark", though their stems
     // are equally near), then the exact word on most pages (the word the person most likely meant:
-    // "markers" over "marks", both one edit away), then the word family on most pages.
+    // "markers" over "marks", both one edit away), then the one written most often (a corrector's
+    // usual prior: among equally near words, the commoner in the text), then the family on most pages.
     const stemDocs = (c: (typeof found)[number]) => ctx.docFreq(vocab.surfaceStem[c.surfaceId] as number);
-    found.sort((a, b) => a.surfaceDistance - b.surfaceDistance || vocab.surfaceUses(b.surfaceId) - vocab.surfaceUses(a.surfaceId) || stemDocs(b) - stemDocs(a));
+    found.sort(
+      (a, b) =>
+        a.surfaceDistance - b.surfaceDistance ||
+        vocab.surfaceUses(b.surfaceId) - vocab.surfaceUses(a.surfaceId) ||
+        vocab.surfaceOccurrences(b.surfaceId) - vocab.surfaceOccurrences(a.surfaceId) ||
+        stemDocs(b) - stemDocs(a),
+    );
     for (const c of found) {
       const w = vocab.surfaceWords[c.surfaceId] as string;
       const sid = vocab.surfaceStem[c.surfaceId] as number;

@@ -20,6 +20,8 @@ export class Vocabulary {
   readonly surfaceStem: number[] = [];
   /** Documents using each surface, plus thesaurus pins: a word with none is not offered as a correction. */
   private readonly surfaceRefs: number[] = [];
+  /** How often each surface occurs in all documents (a thesaurus pin counts once). */
+  private readonly surfaceCounts: number[] = [];
   private readonly trigramIndex = new Map<string, number[]>();
   private sorted: string[] = [];
   private unsorted: string[] = [];
@@ -77,6 +79,7 @@ export class Vocabulary {
       this.surfaceStem.push(stemId);
       (this.stemSurfaces[stemId] as number[]).push(id);
       this.surfaceRefs.push(0);
+      this.surfaceCounts.push(0);
       this.unsorted.push(word);
       for (const g of trigrams(word)) {
         const list = this.trigramIndex.get(g);
@@ -96,8 +99,10 @@ export class Vocabulary {
     return this.surfaceIds.get(word);
   }
 
-  addRef(surfaceId: number, delta: number): void {
+  /** `delta` documents (or thesaurus pins) now use the word, `occurrences` times in all (default: once each). */
+  addRef(surfaceId: number, delta: number, occurrences = delta): void {
     this.surfaceRefs[surfaceId] = (this.surfaceRefs[surfaceId] as number) + delta;
+    this.surfaceCounts[surfaceId] = (this.surfaceCounts[surfaceId] as number) + occurrences;
   }
 
   isLive(surfaceId: number): boolean {
@@ -107,6 +112,11 @@ export class Vocabulary {
   /** How many documents use this exact word (plus thesaurus pins). */
   surfaceUses(surfaceId: number): number {
     return this.surfaceRefs[surfaceId] ?? 0;
+  }
+
+  /** How often this exact word occurs in all documents (plus thesaurus pins). */
+  surfaceOccurrences(surfaceId: number): number {
+    return this.surfaceCounts[surfaceId] ?? 0;
   }
 
   /** A word that pages or the thesaurus use right now. */

@@ -309,6 +309,22 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(idx.search("markrs on green screen", { audience: "published" }).corrected).toBe("markers on green screen");
   });
 
+  it("between words equally near and on as many pages, corrects to the one written more often", () => {
+    const idx = createSearchIndex();
+    // "markers" and "marks" are each on two pages and each one edit from "markrs"; the pages say
+    // "markers" five times and "marks" twice. Among equally likely edits a corrector takes the
+    // commoner word (P. Norvig, "How to Write a Spelling Corrector": counts of each word in a corpus).
+    idx.upsert("a", pub(doc({ slug: "a", title: "Markers on a backing", summary: "Paint out markers; markers move with the camera." })));
+    idx.upsert("b", pub(doc({ slug: "b", title: "Markers off skin", summary: "Small markers." })));
+    idx.upsert("c", pub(doc({ slug: "c", title: "Marks on film", summary: "Scratch marks." })));
+    idx.upsert("d", pub(doc({ slug: "d", title: "Pen marks" })));
+    expect(idx.search("markrs", { audience: "published" }).corrected).toBe("markers");
+    // Counts follow edits (still two pages each): now "markers" is written twice and "marks" four times.
+    idx.upsert("a", pub(doc({ slug: "a", title: "Markers on a backing" })));
+    idx.upsert("c", pub(doc({ slug: "c", title: "Marks on film", summary: "Marks left by tape, marks left by pens." })));
+    expect(idx.search("markrs", { audience: "published" }).corrected).toBe("marks");
+  });
+
   it("among equally near corrections, takes the one found with the query's other words", () => {
     const idx = createSearchIndex();
     ["a", "b", "c"].forEach((id) => idx.upsert(id, pub(doc({ slug: `key-${id}`, title: `A strong key ${id}` }))));
