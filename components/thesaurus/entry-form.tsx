@@ -59,7 +59,10 @@ export function ThesaurusEntryForm({ entry, onSaved, onCancel }: { entry?: Thesa
           id={`${id}-terms`}
           label={draft.kind === "narrower" ? "Narrower terms" : "Terms that mean the same"}
           error={errors.terms}
-          hint={draft.kind === "narrower" ? "Comma-separated, e.g. tracker, tape cross, dot." : "Comma-separated, e.g. regrain, grain restore, put grain back."}
+          hint={
+            (draft.kind === "narrower" ? "Comma-separated, e.g. tracker, tape cross, dot." : "Comma-separated, e.g. regrain, grain restore, put grain back.") +
+            ' A term also meets its other forms (markers, marking); in quotes ("backing") only its exact words and their plurals, so "back" does not reach it.'
+          }
         >
           <TextInput id={`${id}-terms`} value={draft.terms} onChange={(e) => setDraft({ ...draft, terms: e.target.value })} aria-describedby={describedBy(`${id}-terms`, errors.terms, "hint")} />
         </Field>

@@ -85,7 +85,11 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
     for (const a of u.alternatives) if ((a.kind === "typo" || a.kind === "exact" || a.kind === "stem") && a.stems.length === 1) out.push(ctx.vocab.stemWords[a.stems[0] as number] as string);
     return out;
   };
-  for (const match of findPhrases(units.length, stemsAt, ctx.thesaurus)) {
+  const wordsAt = (i: number): string[] => {
+    const u = units[i] as QueryUnit;
+    return u.correction ? [(tokens[i] as Token).word, u.correction] : [(tokens[i] as Token).word];
+  };
+  for (const match of findPhrases(units.length, stemsAt, ctx.thesaurus, wordsAt)) {
     const targets: Alternative[] = [];
     for (const t of match.rule.targets) {
       const stems = t.stems.map((s) => ctx.vocab.stemIdOf(s));

@@ -6,6 +6,11 @@
  * Terms may be phrases. Compiled once per change into rules keyed by the stems of each source term;
  * the query parser finds the longest rules that its words spell and adds their targets as weaker
  * alternatives (see scoring.ts for the weights).
+ *
+ * A term in double quotes ("\"backing\"") is met only by its words as written or their plurals: the stemmer makes
+ * "backing" (a screen) and "back" (of the shot) one word, and only a lead knows which terms that
+ * must not happen to. Quotes decide what a query must say; the pages a term finds are still found by
+ * its word family.
  */
 import type { LexiconEntry } from "./lexicon";
 import { isStopWord, tokenize } from "./text";
@@ -16,7 +21,14 @@ export type ThesaurusEntry =
 
 /** "related": from the built-in symptom lexicon (lexicon.ts), weaker than any lead's entry. */
 export type ThesaurusTarget = { stems: string[]; text: string; kind: "synonym" | "broader" | "related" };
-export type ThesaurusRule = { source: string[]; text: string; targets: ThesaurusTarget[] };
+/** `exact`: the source's words as written, each of which the query must say exactly (a quoted term). */
+export type ThesaurusRule = { source: string[]; exact?: string[]; text: string; targets: ThesaurusTarget[] };
+
+/** A term written in double quotes: the text inside them, else null. */
+export function quotedTerm(term: string): string | null {
+  const m = /^"([^"]+)"$/.exec(term.trim());
+  return m ? (m[1] as string).trim() : null;
+}
 
 export type CompiledThesaurus = {
   /** Rules by the first stem of their source, longest source first. */
@@ -44,18 +56,22 @@ const STRENGTH: Record<ThesaurusTarget["kind"], number> = { synonym: 3, broader:
 export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (word: string) => string, lexicon: readonly LexiconEntry[] = []): CompiledThesaurus {
   const rules = new Map<string, ThesaurusRule>();
   const words = new Set<string>();
-  const term = (text: string): { stems: string[]; text: string } | null => {
-    const clean = text.trim().toLowerCase();
-    for (const t of tokenize(clean)) if (!isStopWord(t.word)) words.add(t.word);
-    const stems = phraseStems(clean, stemOf);
-    return stems.length > 0 ? { stems, text: clean } : null;
+  type Term = { stems: string[]; text: string; exact?: string[] };
+  const term = (written: string): Term | null => {
+    const quoted = quotedTerm(written);
+    const clean = (quoted ?? written).trim().toLowerCase();
+    const content = tokenize(clean).filter((t) => !isStopWord(t.word));
+    for (const t of content) words.add(t.word);
+    const stems = content.map((t) => stemOf(t.word));
+    if (stems.length === 0) return null;
+    return quoted === null ? { stems, text: clean } : { stems, text: clean, exact: content.map((t) => t.word) };
   };
-  const addRule = (source: { stems: string[]; text: string }, target: { stems: string[]; text: string }, kind: ThesaurusTarget["kind"]): void => {
+  const addRule = (source: Term, target: Term, kind: ThesaurusTarget["kind"]): void => {
     if (source.stems.join(" ") === target.stems.join(" ")) return;
-    const key = source.stems.join(" ");
+    const key = (source.exact ? `"${source.exact.join(" ")}"` : "") + source.stems.join(" ");
     let rule = rules.get(key);
     if (!rule) {
-      rule = { source: source.stems, text: source.text, targets: [] };
+      rule = source.exact ? { source: source.stems, exact: source.exact, text: source.text, targets: [] } : { source: source.stems, text: source.text, targets: [] };
       rules.set(key, rule);
     }
     const existing = rule.targets.find((t) => t.stems.join(" ") === target.stems.join(" "));
@@ -89,20 +105,27 @@ export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (wo
   return { rulesByFirstStem, words, entryCount: entries.length };
 }
 
+/** A quoted term's word as typed, or its plural ("crosses" for "cross"): never another form of it. */
+function isWordOrPlural(typed: string, word: string): boolean {
+  return typed === word || typed === `${word}s` || typed === `${word}es`;
+}
+
 export type PhraseMatch = { first: number; count: number; rule: ThesaurusRule };
 
 /**
  * The thesaurus rules a sequence of query stems spells, longest first and without overlap, left to
- * right. `stemsAt(i)` gives the stems position i may stand for (its own and any spelling correction).
+ * right. `stemsAt(i)` gives the stems position i may stand for (its own and any spelling correction),
+ * `wordsAt(i)` the words (as typed and corrected) that a quoted term must meet.
  */
-export function findPhrases(length: number, stemsAt: (i: number) => readonly string[], thesaurus: CompiledThesaurus): PhraseMatch[] {
+export function findPhrases(length: number, stemsAt: (i: number) => readonly string[], thesaurus: CompiledThesaurus, wordsAt: (i: number) => readonly string[] = stemsAt): PhraseMatch[] {
   const out: PhraseMatch[] = [];
   for (let i = 0; i < length; ) {
     let found: PhraseMatch | undefined;
     for (const first of stemsAt(i)) {
       for (const rule of thesaurus.rulesByFirstStem.get(first) ?? []) {
         if (i + rule.source.length > length || (found && found.count >= rule.source.length)) continue;
-        if (rule.source.every((s, k) => stemsAt(i + k).includes(s))) found = { first: i, count: rule.source.length, rule };
+        const spelt = rule.source.every((s, k) => stemsAt(i + k).includes(s) && (!rule.exact || wordsAt(i + k).some((w) => isWordOrPlural(w, rule.exact?.[k] as string))));
+        if (spelt) found = { first: i, count: rule.source.length, rule };
       }
     }
     if (found) {

@@ -3,7 +3,9 @@
  * (synonyms, searched both ways) and narrower words that should also find the broader one
  * (one way: "tracker" finds marker write-ups, "marker" does not pull in every page that says
  * "dot"). Written for Kestrel Yard from common practice of the trade, no published source; leads
- * keep it up to date on the thesaurus page. Terms are lower case; multi-word terms are phrases.
+ * keep it up to date on the thesaurus page. Terms are lower case; multi-word terms are phrases; a
+ * term in quotes is met only by its words as written or their plurals ("cross" is a tape mark, but
+ * "crossing the frame" is not; "backing" is a screen, "the back of the shot" is not).
  */
 
 export type StarterThesaurusEntry =
@@ -15,7 +17,7 @@ const under = (broader: string, terms: string[], note?: string): StarterThesauru
 
 export const STARTER_THESAURUS: readonly StarterThesaurusEntry[] = [
   // ---- tracking markers ----
-  under("marker", ["tracker", "tracking dot", "tracking point", "tape cross", "tape mark", "x mark", "cross", "dot", "ping pong ball", "witness mark"], "What gets stuck on screens and sets for the camera track."),
+  under("marker", ["tracker", "tracking dot", "tracking point", "tape cross", "tape mark", "x mark", '"cross"', "dot", "ping pong ball", "witness mark"], "What gets stuck on screens and sets for the camera track."),
   same(["marker removal", "marker cleanup", "marker paint out", "tracker removal", "demarking"]),
   same(["tracking marker", "track marker", "tracking target"]),
 
@@ -54,7 +56,7 @@ export const STARTER_THESAURUS: readonly StarterThesaurusEntry[] = [
   // ---- screens ----
   same(["green screen", "greenscreen", "green backing", "green wall", "chroma green"]),
   same(["blue screen", "bluescreen", "blue backing", "blue wall", "chroma blue"]),
-  under("screen", ["backing", "backdrop", "cyc", "cyclorama"]),
+  under("screen", ['"backing"', "backdrop", "cyc", "cyclorama"]),
   same(["uneven screen", "patchy screen", "blotchy screen", "screen falloff", "uneven backing", "uneven lighting on the screen"]),
   same(["screen flattening", "screen normalising", "screen equalising", "even out the screen"]),
   same(["hot spot", "hotspot", "bright patch"]),

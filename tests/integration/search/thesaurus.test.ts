@@ -83,6 +83,27 @@ describe("/api/thesaurus", () => {
     expect(loop.body?.error?.fields?.broader).toMatch(/cannot also be/);
     const twice = await create(lead, { kind: "synonyms", terms: ["Seam", "seam "] });
     expect(twice.status).toBe(400);
+    const quotedTwice = await create(lead, { kind: "synonyms", terms: ['"seam"', "seam"] });
+    expect(quotedTwice.body?.error?.fields?.terms).toMatch(/listed twice/);
+    const stray = await create(lead, { kind: "synonyms", terms: ['seam"s', "join"] });
+    expect(stray.status).toBe(400);
+    expect(stray.body?.error?.fields?.["terms.0"] ?? stray.body?.error?.fields?.terms).toMatch(/Quotes go around a whole term/);
+    const quotedBroader = await create(lead, { kind: "narrower", broader: '"seam"', terms: ["join"] });
+    expect(quotedBroader.body?.error?.fields?.broader).toMatch(/takes no quotes/);
+  });
+
+  it("meets a quoted term only with its words as written or their plurals", async () => {
+    // Snowball stems "shimming" to "shim", an English word (so never corrected): unquoted, "shim" would meet the term.
+    const created = await create(lead, { kind: "narrower", broader: "seam", terms: ['"Shimming"'] });
+    expect(created.status).toBe(201);
+    try {
+      expect(created.body?.terms).toEqual(['"shimming"']);
+      expect((await search(artist, "shim")).results).toEqual([]);
+      expect((await search(artist, "shimming")).results[0]).toMatchObject({ slug: "seam-fill-on-cloth-backings", via: [{ word: "shimming", term: "seam", kind: "broader" }] });
+      expect((await search(artist, "shimmings")).results[0]?.slug).toBe("seam-fill-on-cloth-backings");
+    } finally {
+      expect((await del(lead, created.body!.id)).status).toBe(204);
+    }
   });
 
   it("creates, edits and deletes an entry, each audited, and search uses it at once", async () => {

@@ -309,6 +309,21 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(idx.search("markrs on green screen", { audience: "published" }).corrected).toBe("markers on green screen");
   });
 
+  it("keeps a quoted thesaurus term from meeting other forms of its stem ('back' is not a 'backing')", () => {
+    const idx = createSearchIndex();
+    idx.upsert("s", pub(doc({ slug: "screen", title: "Even out an uneven screen" })));
+    idx.upsert("c", pub(doc({ slug: "crew", title: "Crew in the rear of frame" })));
+    idx.setThesaurus([{ kind: "narrower", broader: "screen", terms: ["backing"] }]);
+    // Snowball stems "backing" to "back", so the plain term answers "back" with the screen page.
+    expect(slugs(idx, "back of the shot")).toContain("screen");
+    idx.setThesaurus([{ kind: "narrower", broader: "screen", terms: ['"backing"'] }]);
+    expect(slugs(idx, "back of the shot")).not.toContain("screen");
+    expect(slugs(idx, "patchy backing")).toEqual(["screen"]);
+    expect(slugs(idx, "two backings")).toEqual(["screen"]);
+    const via = idx.search("patchy backing", { audience: "published" }).results[0]?.via ?? [];
+    expect(via.map((v) => [v.term, v.source])).toContainEqual(["screen", "thesaurus"]);
+  });
+
   it("between words equally near and on as many pages, corrects to the one written more often", () => {
     const idx = createSearchIndex();
     // "markers" and "marks" are each on two pages and each one edit from "markrs"; the pages say

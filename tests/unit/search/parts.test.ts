@@ -110,6 +110,21 @@ describe("thesaurus", () => {
     expect(withLexicon.rulesByFirstStem.get("uneven")).toBeUndefined();
   });
 
+  it("meets a quoted term only with its words as written or their plurals, though the stems agree", () => {
+    // A Snowball-like stemmer for this test: "backing" and "back" share the stem "back".
+    const ingStem = (w: string) => w.replace(/s$/, "").replace(/ing$/, "");
+    const quoted = compileThesaurus([{ kind: "narrower", broader: "screen", terms: ['"backing"', "backdrop"] }], ingStem);
+    const loose = compileThesaurus([{ kind: "narrower", broader: "screen", terms: ["backing", "backdrop"] }], ingStem);
+    const meets = (th: typeof quoted, word: string) => findPhrases(1, () => [ingStem(word)], th, () => [word]).map((f) => f.rule.text);
+    expect(meets(loose, "back")).toEqual(["backing"]);
+    expect(meets(quoted, "back")).toEqual([]);
+    expect(meets(quoted, "backing")).toEqual(["backing"]);
+    expect(meets(quoted, "backings")).toEqual(["backing"]);
+    // The words inside the quotes still join spelling's vocabulary, without the quotes.
+    expect(quoted.words.has("backing")).toBe(true);
+    expect([...quoted.words].some((w) => w.includes('"'))).toBe(false);
+  });
+
   it("finds the longest phrase a query spells, left to right without overlap", () => {
     const q = ["put", "grain", "back", "tape", "cros"];
     const found = findPhrases(q.length, (i) => [q[i] as string], t);
