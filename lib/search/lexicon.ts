@@ -7,6 +7,8 @@
  *
  * Written by the team from the trade's everyday vocabulary (common practice, no published source),
  * not from any query set: each row is a family of symptoms and the problem names it points at.
+ * A word in quotes is met only as written or in its plural, as in the thesaurus: "crosses" are tape
+ * marks, but the stemmer would also give them "crossing".
  */
 export type LexiconEntry = { means: readonly string[]; seen: readonly string[] };
 
@@ -50,7 +52,7 @@ export const SYMPTOM_LEXICON: readonly LexiconEntry[] = [
   row(["crew", "people"], ["man", "woman", "kid", "child", "figure", "extra", "extras", "crowd", "public", "member of the public", "jogger", "cyclist", "dog walker", "spectator", "spectators", "visitor", "visitors", "walker", "stranger", "strangers"]),
   row(["shadow"], ["shade", "shaded", "dark shape", "dark patch", "shadowy"]),
   row(["reflection"], ["reflected", "reflects", "reflecting", "mirror", "glass", "shiny surface", "polished", "gloss", "sheen on the car"]),
-  row(["marker"], ["sticker", "stickers", "target", "targets", "crosses", "tape", "ping pong balls", "golf balls", "reference points"]),
+  row(["marker"], ["sticker", "stickers", "target", "targets", '"crosses"', "tape", "ping pong balls", "golf balls", "reference points"]),
   row(["shine", "sweat"], ["sheen", "oily", "greasy", "glistening", "glossy skin", "hotspot on skin", "perspiration"]),
   row(["beauty work", "blemish"], ["zit", "zits", "acne", "pimples", "mole", "moles", "freckle", "spots on skin", "redness", "eye bags", "veins", "stubble rash"]),
   row(["earpiece", "radio mic"], ["earbud", "earphone", "earpiece wire", "mic pack", "lav", "lavalier", "lapel mic", "transmitter", "battery pack"]),

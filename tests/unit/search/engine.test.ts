@@ -322,6 +322,10 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(slugs(idx, "two backings")).toEqual(["screen"]);
     const via = idx.search("patchy backing", { audience: "published" }).results[0]?.via ?? [];
     expect(via.map((v) => [v.term, v.source])).toContainEqual(["screen", "thesaurus"]);
+    // The built-in symptom words quote theirs too: "crosses" (tape marks) is not "crossing".
+    idx.upsert("m", pub(doc({ slug: "markers", title: "Marker paint-out" })));
+    expect(slugs(idx, "crosses")).toEqual(["markers"]);
+    expect(slugs(idx, "crossing")).toEqual([]);
   });
 
   it("between words equally near and on as many pages, corrects to the one written more often", () => {
