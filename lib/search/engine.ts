@@ -19,12 +19,12 @@
  */
 import type { Language } from "./language";
 import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore } from "./postings";
-import { parseQuery, type ParseOptions, type QueryPlan } from "./query";
+import { parseQuery, type Alternative, type ParseOptions, type QueryPlan } from "./query";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
 import { isThesaurusKind, isWordNetKind, Scorer } from "./scoring";
 import { SYMPTOM_LEXICON } from "./lexicon";
 import { excerpt, matchesFor, SNIPPET_CHARS, thesaurusMatches, type MatchedWords } from "./snippets";
-import { compileThesaurus, EMPTY_THESAURUS, phraseStems, type CompiledThesaurus, type ThesaurusEntry } from "./thesaurus";
+import { compileThesaurus, EMPTY_THESAURUS, isWordOrPlural, phraseStems, type CompiledThesaurus, type ThesaurusEntry } from "./thesaurus";
 import type {
   SearchAudience,
   SearchDocument,
@@ -244,8 +244,20 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
 
   function matchedWords(p: QueryPlan): MatchedWords {
     const ids = new Set<number>();
-    for (const u of p.units) for (const a of u.alternatives) for (const s of a.stems) ids.add(s);
-    for (const sp of p.spans) for (const a of sp.alternatives) for (const s of a.stems) ids.add(s);
+    // A quoted thesaurus term highlights only its own words: "backing", not every "back" on the page.
+    const exactOnly = new Map<number, string[]>();
+    const add = (a: Alternative): void => {
+      a.stems.forEach((s, k) => {
+        if (a.exactWords) {
+          if (!ids.has(s)) exactOnly.set(s, [...(exactOnly.get(s) ?? []), a.exactWords[k] as string]);
+        } else {
+          ids.add(s);
+          exactOnly.delete(s);
+        }
+      });
+    };
+    for (const u of p.units) u.alternatives.forEach(add);
+    for (const sp of p.spans) sp.alternatives.forEach(add);
     const words = new Set<string>();
     let hasPairs = false;
     for (const id of ids) {
@@ -253,7 +265,9 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       if (surfaces.length === 0) hasPairs = true;
       for (const w of surfaces) words.add(w);
     }
-    return { stems: new Set([...ids].map((id) => vocab.stemWords[id] as string)), words, hasPairs, stemOf };
+    for (const [id, exact] of exactOnly) for (const w of vocab.surfacesOf(id)) if (exact.some((e) => isWordOrPlural(w, e))) words.add(w);
+    const stems = new Set([...ids, ...exactOnly.keys()].map((id) => vocab.stemWords[id] as string));
+    return { stems, words, hasPairs, stemOf };
   }
 
   function matchedStems(p: QueryPlan): Set<string> {

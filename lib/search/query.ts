@@ -25,8 +25,11 @@ export type AlternativeKind =
   | "wordnet"
   | "wordnetBroader";
 
-/** One way a page can answer a unit or span: all `stems` present (one stem for most kinds). */
-export type Alternative = { stems: number[]; weight: number; kind: AlternativeKind; surface: string };
+/**
+ * One way a page can answer a unit or span: all `stems` present (one stem for most kinds).
+ * `exactWords`: for a quoted thesaurus term, the page words highlighting may mark (per stem).
+ */
+export type Alternative = { stems: number[]; weight: number; kind: AlternativeKind; surface: string; exactWords?: string[] };
 
 export type QueryUnit = {
   text: string;
@@ -94,7 +97,9 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
     for (const t of match.rule.targets) {
       const stems = t.stems.map((s) => ctx.vocab.stemIdOf(s));
       if (stems.some((s) => s === undefined || ctx.docFreq(s) === 0)) continue;
-      targets.push({ stems: stems as number[], weight: ALTERNATIVE_WEIGHTS[t.kind], kind: t.kind, surface: t.text });
+      const alt: Alternative = { stems: stems as number[], weight: ALTERNATIVE_WEIGHTS[t.kind], kind: t.kind, surface: t.text };
+      if (t.exact) alt.exactWords = t.exact;
+      targets.push(alt);
     }
     if (targets.length === 0) continue;
     // The leads' thesaurus decides what its words mean: WordNet's guesses for them are dropped.

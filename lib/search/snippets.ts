@@ -71,10 +71,10 @@ function bodyHits(body: string, m: MatchedWords): { tokens: Token[]; stems: stri
     return { tokens, stems };
   }
   for (const t of tokenize(body)) {
-    const s = m.stemOf(t.word);
-    if (!m.stems.has(s)) continue;
+    // By word, not stem: a quoted thesaurus term's stem is matched but only its own words are marked.
+    if (!m.words.has(t.word)) continue;
     tokens.push(t);
-    stems.push(s);
+    stems.push(m.stemOf(t.word));
   }
   return { tokens, stems };
 }

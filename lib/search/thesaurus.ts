@@ -9,8 +9,8 @@
  *
  * A term in double quotes ("\"backing\"") is met only by its words as written or their plurals: the stemmer makes
  * "backing" (a screen) and "back" (of the shot) one word, and only a lead knows which terms that
- * must not happen to. Quotes decide what a query must say; the pages a term finds are still found by
- * its word family.
+ * must not happen to. Quotes decide what a query must say and which page words a result highlights
+ * for the term; the pages a term finds are still found by its word family.
  */
 import type { LexiconEntry } from "./lexicon";
 import { isStopWord, tokenize } from "./text";
@@ -20,7 +20,8 @@ export type ThesaurusEntry =
   | { id?: string; kind: "narrower"; broader: string; terms: readonly string[] };
 
 /** "related": from the built-in symptom lexicon (lexicon.ts), weaker than any lead's entry. */
-export type ThesaurusTarget = { stems: string[]; text: string; kind: "synonym" | "broader" | "related" };
+/** `exact`: a quoted term's words, the only page words a result highlights for it. */
+export type ThesaurusTarget = { stems: string[]; text: string; kind: "synonym" | "broader" | "related"; exact?: string[] };
 /** `exact`: the source's words as written, each of which the query must say exactly (a quoted term). */
 export type ThesaurusRule = { source: string[]; exact?: string[]; text: string; targets: ThesaurusTarget[] };
 
@@ -78,7 +79,9 @@ export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (wo
     // A synonym link is stronger than a narrower one, and both than a lexicon one; keep the stronger.
     if (existing) {
       if (STRENGTH[kind] > STRENGTH[existing.kind]) existing.kind = kind;
-    } else rule.targets.push({ stems: target.stems, text: target.text, kind });
+      // The same words unquoted somewhere: every form of them may be highlighted.
+      if (!target.exact) delete existing.exact;
+    } else rule.targets.push(target.exact ? { stems: target.stems, text: target.text, kind, exact: target.exact } : { stems: target.stems, text: target.text, kind });
   };
   for (const entry of entries) {
     const terms = entry.terms.map(term).filter((t): t is NonNullable<typeof t> => t !== null);
@@ -106,7 +109,7 @@ export function compileThesaurus(entries: readonly ThesaurusEntry[], stemOf: (wo
 }
 
 /** A quoted term's word as typed, or its plural ("crosses" for "cross"): never another form of it. */
-function isWordOrPlural(typed: string, word: string): boolean {
+export function isWordOrPlural(typed: string, word: string): boolean {
   return typed === word || typed === `${word}s` || typed === `${word}es`;
 }
 

@@ -13,8 +13,10 @@ const termText = z
   .max(60, "Keep a term under 60 characters.")
   .regex(/[a-z0-9]/, "A term needs a letter or a digit.")
   .transform((t) => t.replace(/\s+/g, " "));
-const term = termText.refine((t) => !t.includes('"') || /^"[^"]*[a-z0-9][^"]*"$/.test(t), {
-  message: 'Quotes go around a whole term ("backing") to match only its exact words; a term has no other quotes.',
+const term = termText.superRefine((t, ctx) => {
+  if (t.includes('"') && !/^"[^"]*[a-z0-9][^"]*"$/.test(t)) {
+    ctx.addIssue({ code: "custom", message: `“${t}”: quotes go around a whole term ("backing") to match only its exact words; a term has no other quotes.` });
+  }
 });
 /** What the broader term of a narrower entry finds: pages, by word family, so quotes would mean nothing. */
 const broaderTerm = termText.refine((t) => !t.includes('"'), { message: "The broader term takes no quotes: quotes only limit which typed words meet a term." });

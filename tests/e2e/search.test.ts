@@ -112,6 +112,10 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
     await form.getByLabel("Terms that mean the same").fill("lonely");
     await form.getByRole("button", { name: "Add entry" }).click();
     expect(await isShown(lead.page.locator("#new-terms-error"))).toBe(true);
+    // A stray quote in one term: the message names the term.
+    await form.getByLabel("Terms that mean the same").fill('lonely", alone');
+    await form.getByRole("button", { name: "Add entry" }).click();
+    expect(await isShown(lead.page.getByText("“lonely\"”: quotes go around a whole term", { exact: false }))).toBe(true);
     await screenshot(lead.page, "thesaurus-lead");
     await lead.context.close();
 

@@ -54,10 +54,10 @@ export const STARTER_THESAURUS: readonly StarterThesaurusEntry[] = [
   same(["vehicle", "van", "truck", "lorry", "trailer"]),
 
   // ---- screens ----
-  same(["green screen", "greenscreen", "green backing", "green wall", "chroma green"]),
-  same(["blue screen", "bluescreen", "blue backing", "blue wall", "chroma blue"]),
+  same(["green screen", "greenscreen", '"green backing"', "green wall", "chroma green"]),
+  same(["blue screen", "bluescreen", '"blue backing"', "blue wall", "chroma blue"]),
   under("screen", ['"backing"', "backdrop", "cyc", "cyclorama"]),
-  same(["uneven screen", "patchy screen", "blotchy screen", "screen falloff", "uneven backing", "uneven lighting on the screen"]),
+  same(["uneven screen", "patchy screen", "blotchy screen", "screen falloff", '"uneven backing"', "uneven lighting on the screen"]),
   same(["screen flattening", "screen normalising", "screen equalising", "even out the screen"]),
   same(["hot spot", "hotspot", "bright patch"]),
   same(["crease", "wrinkle", "fold"]),

@@ -87,7 +87,7 @@ describe("/api/thesaurus", () => {
     expect(quotedTwice.body?.error?.fields?.terms).toMatch(/listed twice/);
     const stray = await create(lead, { kind: "synonyms", terms: ['seam"s', "join"] });
     expect(stray.status).toBe(400);
-    expect(stray.body?.error?.fields?.["terms.0"] ?? stray.body?.error?.fields?.terms).toMatch(/Quotes go around a whole term/);
+    expect(stray.body?.error?.fields?.["terms.0"] ?? stray.body?.error?.fields?.terms).toMatch(/“seam"s”: quotes go around a whole term/);
     const quotedBroader = await create(lead, { kind: "narrower", broader: '"seam"', terms: ["join"] });
     expect(quotedBroader.body?.error?.fields?.broader).toMatch(/takes no quotes/);
   });

@@ -322,6 +322,16 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(slugs(idx, "two backings")).toEqual(["screen"]);
     const via = idx.search("patchy backing", { audience: "published" }).results[0]?.via ?? [];
     expect(via.map((v) => [v.term, v.source])).toContainEqual(["screen", "thesaurus"]);
+    // A quoted term found through another word highlights its own words only, not every "back".
+    const bodyMarks = (terms: string[]): string[] => {
+      const one = createSearchIndex();
+      one.upsert("g", pub(doc({ slug: "keyed", title: "Keyed plates", bodyText: "Shot on green backing; mix the result back over it." })));
+      one.setThesaurus([{ kind: "synonyms", terms }]);
+      const body = one.search("green screen", { audience: "published" }).results[0]?.matches.find((m) => m.field === "body");
+      return body ? body.ranges.map(([from, to]) => body.value.slice(from, to).toLowerCase()) : [];
+    };
+    expect(bodyMarks(["green screen", '"green backing"'])).toEqual(["green", "backing"]);
+    expect(bodyMarks(["green screen", "green backing"])).toEqual(["green", "backing", "back"]);
     // The built-in symptom words quote theirs too: "crosses" (tape marks) is not "crossing".
     idx.upsert("m", pub(doc({ slug: "markers", title: "Marker paint-out" })));
     expect(slugs(idx, "crosses")).toEqual(["markers"]);
