@@ -7,10 +7,11 @@
  * the query parser finds the longest rules that its words spell and adds their targets as weaker
  * alternatives (see scoring.ts for the weights).
  *
- * A term in double quotes ("\"backing\"") is met only by its words as written or their plurals: the stemmer makes
- * "backing" (a screen) and "back" (of the shot) one word, and only a lead knows which terms that
- * must not happen to. Quotes decide what a query must say and which page words a result highlights
- * for the term; the pages a term finds are still found by its word family.
+ * A term written in double quotes ("backing", quotes included) is met only by its words as written
+ * or their plurals: the stemmer makes "backing" (a screen) and "back" (of the shot) one word, and
+ * only a lead knows which terms that must not happen to. Quotes decide what a query must say and
+ * which page words a result highlights for the term; the pages a term finds are still found by its
+ * word family.
  */
 import type { LexiconEntry } from "./lexicon";
 import { isStopWord, tokenize } from "./text";
@@ -19,8 +20,10 @@ export type ThesaurusEntry =
   | { id?: string; kind: "synonyms"; terms: readonly string[] }
   | { id?: string; kind: "narrower"; broader: string; terms: readonly string[] };
 
-/** "related": from the built-in symptom lexicon (lexicon.ts), weaker than any lead's entry. */
-/** `exact`: a quoted term's words, the only page words a result highlights for it. */
+/**
+ * "related": from the built-in symptom lexicon (lexicon.ts), weaker than any lead's entry.
+ * `exact`: a quoted term's words, the only page words a result highlights for it.
+ */
 export type ThesaurusTarget = { stems: string[]; text: string; kind: "synonym" | "broader" | "related"; exact?: string[] };
 /** `exact`: the source's words as written, each of which the query must say exactly (a quoted term). */
 export type ThesaurusRule = { source: string[]; exact?: string[]; text: string; targets: ThesaurusTarget[] };

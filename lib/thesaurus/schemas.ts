@@ -3,7 +3,8 @@ import { z } from "zod";
 /**
  * The trade thesaurus as the API and the thesaurus page see it. Client-safe. Terms are lower-case
  * words or short phrases; a synonym group needs two or more, a narrower entry names its broader term.
- * A term in double quotes ("\"backing\"") is met only by its words exactly as written (lib/search/thesaurus.ts).
+ * A term written in double quotes ("backing", quotes included) is met only by its words as written or
+ * their plurals (lib/search/thesaurus.ts).
  */
 const termText = z
   .string()
