@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { quotedTerm } from "@/lib/search/thesaurus";
 
 /**
  * The trade thesaurus as the API and the thesaurus page see it. Client-safe. Terms are lower-case
@@ -15,7 +16,8 @@ const termText = z
   .regex(/[a-z0-9]/, "A term needs a letter or a digit.")
   .transform((t) => t.replace(/\s+/g, " "));
 const term = termText.superRefine((t, ctx) => {
-  if (t.includes('"') && !/^"[^"]*[a-z0-9][^"]*"$/.test(t)) {
+  // termText already asks for a letter or digit; a well-formed quoted term has it inside the quotes.
+  if (t.includes('"') && quotedTerm(t) === null) {
     ctx.addIssue({ code: "custom", message: `“${t}”: quotes go around a whole term ("backing") to match only its exact words; a term has no other quotes.` });
   }
 });
@@ -26,7 +28,7 @@ const note = z.string().trim().max(300, "Keep the note under 300 characters.").d
 const terms = z.array(term).max(30, "At most 30 terms in one entry.");
 
 /** A term without its quotes: "backing" and backing are the same term. */
-const unquoted = (t: string): string => t.replace(/^"(.*)"$/, "$1").trim();
+const unquoted = (t: string): string => quotedTerm(t) ?? t;
 
 function noRepeats(values: readonly string[], ctx: z.RefinementCtx): void {
   const seen = new Set<string>();
