@@ -452,8 +452,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const matched = isEmptyQuery ? null : matchedWords(p);
     const results = page.map((it) => toResult(it, isEmptyQuery ? null : p, matched, query));
 
-    let corrected = query;
-    for (const u of [...p.units].reverse()) if (u.correction) corrected = corrected.slice(0, u.start) + u.correction + corrected.slice(u.end);
+    const corrected = correctedText(query, p);
     return {
       results,
       total: selected.length,
@@ -461,6 +460,11 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       ...(corrected !== query ? { corrected } : {}),
       tookMs: Math.round((performance.now() - t0) * 100) / 100,
     };
+  }
+
+  function correctedQuery(query: string, options: Pick<SearchOptions, "exact">): string | undefined {
+    const corrected = correctedText(query, plan(query, { prefix: "last", exact: options.exact === true }));
+    return corrected !== query ? corrected : undefined;
   }
 
   function suggestTitles(query: string, audience: SearchAudience, limit = 8): TitleSuggestion[] {
@@ -491,12 +495,20 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     remove,
     setThesaurus,
     search,
+    correctedQuery,
     suggestTitles,
     size: () => techniques.size,
     version: () => contentVersion,
     load,
     compact,
   };
+}
+
+/** The query with each corrected word replaced by its correction. */
+function correctedText(query: string, p: QueryPlan): string {
+  let corrected = query;
+  for (const u of [...p.units].reverse()) if (u.correction) corrected = corrected.slice(0, u.start) + u.correction + corrected.slice(u.end);
+  return corrected;
 }
 
 /** The `k` best items by `compare` without sorting them all. */

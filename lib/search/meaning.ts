@@ -14,8 +14,10 @@
  */
 import type { SearchDocument, SearchIndex, SearchOptions, SearchResponse, SearchResult } from "./types";
 
+/** A search's query goes before pages waiting to be encoded in the background. */
+export type EncodePriority = "query" | "pages";
 /** Turns texts into unit-length vectors (cosine similarity = dot product). */
-export type MeaningEncoder = (texts: readonly string[]) => Promise<Float32Array[]>;
+export type MeaningEncoder = (texts: readonly string[], priority?: EncodePriority) => Promise<Float32Array[]>;
 
 /** How many of the engine's first results may change places. */
 export const RERANK_WINDOW = 10;
@@ -93,11 +95,11 @@ export class MeaningVectors {
   }
 
   /**
-   * Encode the texts not seen yet, `batch` at a time, yielding to the event loop between batches.
-   * Encoding runs on this thread (~22 ms a page, no faster in larger batches), so a small batch keeps
-   * a server answering while it encodes all its pages at start: a search waits for one batch at most.
+   * Encode the texts not seen yet. Each text is its own call, so in the background ("pages") a
+   * search's query waits for one page at most (meaning-model.ts); `chunk` calls are in flight at a
+   * time, and each chunk is stored as it completes, so a stopped server keeps what it encoded.
    */
-  async ensure(texts: Iterable<string>, batch = 4): Promise<void> {
+  async ensure(texts: Iterable<string>, priority: EncodePriority = "pages", chunk = 16): Promise<void> {
     let missing = [...new Set(texts)].filter((t) => !this.byText.has(t));
     if (missing.length && this.store) {
       const stored = await this.store.load(missing).catch((err: unknown) => storeFailed("reading", err));
@@ -106,12 +108,11 @@ export class MeaningVectors {
         missing = missing.filter((t) => !this.byText.has(t));
       }
     }
-    for (let i = 0; i < missing.length; i += batch) {
-      const slice = missing.slice(i, i + batch);
-      const vectors = await this.encode(slice);
+    for (let i = 0; i < missing.length; i += chunk) {
+      const slice = missing.slice(i, i + chunk);
+      const vectors = await Promise.all(slice.map(async (t) => (await this.encode([t], priority))[0] as Float32Array));
       slice.forEach((t, j) => this.byText.set(t, vectors[j] as Float32Array));
       await this.store?.save(slice.map((t, j) => [t, vectors[j] as Float32Array] as const)).catch((err: unknown) => storeFailed("saving", err));
-      if (i + batch < missing.length) await new Promise<void>((resolve) => setImmediate(resolve));
     }
   }
 
@@ -138,18 +139,33 @@ export function createMeaning(encode: MeaningEncoder): Meaning {
 
 /**
  * `index.search`, with the first RERANK_WINDOW results re-ordered by meaning when the search is by
- * relevance for some words. The query is encoded as the engine understood it (spelling corrected),
- * since the encoder does not know "markrs". Without `meaning` it is the engine's answer unchanged.
+ * relevance for some words. The query is encoded as the engine understands it (spelling corrected),
+ * since the encoder does not know "markrs"; its encoding starts before the engine scores pages, so
+ * with the worker encoder the two run side by side. Without `meaning`, or when the encoder fails,
+ * it is the engine's answer unchanged.
  */
-export async function searchWithMeaning(index: Pick<SearchIndex, "search">, query: string, options: SearchOptions, meaning: Meaning | null): Promise<SearchResponse> {
+export async function searchWithMeaning(index: Pick<SearchIndex, "search" | "correctedQuery">, query: string, options: SearchOptions, meaning: Meaning | null): Promise<SearchResponse> {
   const t0 = performance.now();
   const offset = Math.max(0, Math.floor(options.offset ?? 0));
   const limit = Math.max(0, Math.floor(options.limit ?? 20));
   if (!meaning || options.sort === "recent" || !query.trim() || offset >= RERANK_WINDOW) return index.search(query, options);
+  const encodedText = index.correctedQuery(query, options) ?? query;
+  const queryVector = meaning.encode([encodedText], "query");
+  // Settled here too, so a search that ends before reading it leaves no unhandled rejection.
+  queryVector.catch(() => undefined);
   const res = index.search(query, { ...options, offset: 0, limit: Math.max(RERANK_WINDOW, offset + limit) });
-  if (res.results.length < 2) return { ...res, results: res.results.slice(offset, offset + limit) };
+  const byWords = (): SearchResponse => ({ ...res, results: res.results.slice(offset, offset + limit) });
+  if (res.results.length < 2) return byWords();
   const textOf = new Map(res.results.slice(0, RERANK_WINDOW).map((r) => [r, meaningText(r)]));
-  const [[queryVector]] = await Promise.all([meaning.encode([res.corrected ?? query]), meaning.vectors.ensure(textOf.values())]);
-  const reranked = rerankByMeaning(res.results, queryVector as Float32Array, (r) => meaning.vectors.get(textOf.get(r) as string));
+  let vector: Float32Array;
+  try {
+    // Pages of the top not encoded yet (new since start-up) are encoded now, at the query's priority.
+    const [vectors] = await Promise.all([queryVector, meaning.vectors.ensure(textOf.values(), "query")]);
+    vector = vectors[0] as Float32Array;
+  } catch (err) {
+    console.error("search: ranking by meaning failed; this search keeps the engine's order", err);
+    return byWords();
+  }
+  const reranked = rerankByMeaning(res.results, vector, (r) => meaning.vectors.get(textOf.get(r) as string));
   return { ...res, results: reranked.slice(offset, offset + limit), tookMs: Math.round((performance.now() - t0) * 100) / 100 };
 }

@@ -132,6 +132,8 @@ export type SearchIndex = {
   /** Replace the thesaurus (applied at query time, so no page is re-indexed). */
   setThesaurus(entries: readonly ThesaurusEntry[]): void;
   search(query: string, options: SearchOptions): SearchResponse;
+  /** What `search` would give as `corrected` for this query, without searching (a fraction of its time). */
+  correctedQuery(query: string, options: Pick<SearchOptions, "exact">): string | undefined;
   suggestTitles(query: string, audience: SearchAudience, limit?: number): TitleSuggestion[];
   /** Number of techniques with at least one view. */
   size(): number;

@@ -296,6 +296,14 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(idx.search("roling shutter", { audience: "published", exact: true }).corrected).toBeUndefined();
   });
 
+  it("tells the correction of a query without searching, as search would give it", () => {
+    const idx = createSearchIndex();
+    idx.upsert("r", pub(doc({ slug: "rolling", title: "Rolling shutter skew" })));
+    for (const q of ["roling shutter", "rolling shuter skew", "gait", "rolling shutter", ""])
+      for (const exact of [false, true]) expect(idx.correctedQuery(q, { exact })).toBe(idx.search(q, { audience: "published", exact }).corrected);
+    expect(idx.correctedQuery("rolling shuter skew", {})).toBe("rolling shutter skew");
+  });
+
   it("corrects to the word nearest what was typed, not to a commoner word whose stem is as near", () => {
     const idx = createSearchIndex();
     // "mark" is on three pages, "markers" on one; "markrs" is one edit from "markers" and two from "mark"

@@ -50,15 +50,15 @@ describe("rerankByMeaning", () => {
 });
 
 describe("MeaningVectors", () => {
-  it("encodes each text once, in batches, and forgets texts no page uses", async () => {
-    const calls: string[][] = [];
-    const vectors = new MeaningVectors((texts) => {
-      calls.push([...texts]);
+  it("encodes each text once, one call a text, at page priority unless asked, and forgets texts no page uses", async () => {
+    const calls: string[] = [];
+    const vectors = new MeaningVectors((texts, priority) => {
+      calls.push(`${texts.join("+")}:${priority}`);
       return Promise.resolve(texts.map((t) => unit(t.length, 1)));
     });
-    await vectors.ensure(["a", "bb", "a", "ccc"], 2);
-    await vectors.ensure(["bb", "dddd"], 2);
-    expect(calls).toEqual([["a", "bb"], ["ccc"], ["dddd"]]);
+    await vectors.ensure(["a", "bb", "a", "ccc"], undefined, 2);
+    await vectors.ensure(["bb", "dddd"], "query");
+    expect(calls).toEqual(["a:pages", "bb:pages", "ccc:pages", "dddd:query"]);
     expect(vectors.get("bb")).toEqual(unit(2, 1));
     await vectors.keepOnly(["a"]);
     expect(vectors.size).toBe(1);
@@ -158,6 +158,36 @@ describe("searchWithMeaning", () => {
     expect(encoded[0]).toBe("lens drops");
   });
 
+  it("starts encoding the query, as corrected and ahead of waiting pages, before the engine scores pages", async () => {
+    const steps: string[] = [];
+    const watched = {
+      correctedQuery: index.correctedQuery,
+      search: (q: string, o: typeof opts) => {
+        steps.push("engine");
+        return index.search(q, o);
+      },
+    };
+    const m = createMeaning((texts, priority) => {
+      steps.push(`encode ${texts.join("+")} (${priority})`);
+      return encode(texts);
+    });
+    await searchWithMeaning(watched, "lesn drops", opts, m);
+    expect(steps[0]).toBe("encode lens drops (query)");
+    expect(steps[1]).toBe("engine");
+    // The top's pages, not encoded yet, go at the query's priority too.
+    expect(steps.slice(2).every((s) => s.endsWith("(query)"))).toBe(true);
+    expect(steps.length).toBeGreaterThan(2);
+  });
+
+  it("keeps the engine's order, and says why, when the encoder fails", async () => {
+    const errors = vi.spyOn(console, "error").mockImplementation(() => undefined);
+    const failing = createMeaning(() => Promise.reject(new Error("worker stopped")));
+    const res = await searchWithMeaning(index, "lens drops rain", opts, failing);
+    expect(res.results.map((r) => r.slug)).toEqual(index.search("lens drops rain", opts).results.map((r) => r.slug));
+    expect(String(errors.mock.calls[0]?.[0])).toMatch(/ranking by meaning failed/);
+    errors.mockRestore();
+  });
+
   it("applies limit and offset after re-ordering, so pages do not repeat or go missing", async () => {
     const m = meaning();
     const all = (await searchWithMeaning(index, "lens", opts, m)).results.map((r) => r.slug);
@@ -203,6 +233,17 @@ describe("the sentence encoder (Universal Sentence Encoder Lite)", async () => {
     const sim = (a?: Float32Array, b?: Float32Array) => dot(a as Float32Array, b as Float32Array);
     expect(sim(age1, age2)).toBeGreaterThan(sim(age1, weather) + 0.2);
     expect(sim(phone1, phone2)).toBeGreaterThan(sim(phone1, age2) + 0.2);
+  });
+
+  it("answers a search's query before pages that were waiting to be encoded", async () => {
+    const enc = encode as NonNullable<typeof encode>;
+    const order: string[] = [];
+    const pages = Array.from({ length: 6 }, (_, i) => enc([`Page ${i}: dust spots on the lens, removed frame by frame.`], "pages").then(() => order.push(`page ${i}`)));
+    const query = enc(["tracking markers on a green screen"], "query").then(() => order.push("query"));
+    await Promise.all([...pages, query]);
+    // The worker had started at most the first page when the query came.
+    expect(order.indexOf("query")).toBeLessThanOrEqual(1);
+    expect(order.filter((o) => o !== "query")).toEqual(pages.map((_, i) => `page ${i}`));
   });
 
   it("reads a page's title, summary, aliases and tag names", () => {
