@@ -47,7 +47,7 @@ export const STARTER_THESAURUS: readonly StarterThesaurusEntry[] = [
   under("reflection", ["shiny", "glossy", "chrome", "mirrored", "visor", "sunglasses", "camera reflection", "crew reflection", "reflected light", "glint"]),
 
   // ---- crew and people in shot ----
-  under("crew", ["person", "people", "someone", "somebody", "bystander", "passer-by", "pedestrian", "onlooker", "grip", "camera operator", "crew member", "spark"], "People the story does not want in frame."),
+  under("crew", ["person", "people", "someone", "somebody", "bystander", "passer-by", "pedestrian", "onlooker", "grip", "camera operator", "crew member"], "People the story does not want in frame."),
   same(["crew removal", "people removal", "person removal"]),
   same(["background", "bg"]),
   same(["foreground", "fg"]),

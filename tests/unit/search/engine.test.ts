@@ -4,6 +4,7 @@ import { createSearchIndex as createEngine } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
 import type { ThesaurusEntry } from "@/lib/search/thesaurus";
 import type { SearchDocument, SearchOptions } from "@/lib/search/types";
+import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 
 import { searchDoc } from "@/tests/unit/search/search-doc";
 
@@ -315,6 +316,15 @@ describe("graded matching, the department's method and the thesaurus", () => {
     ["d", "e"].forEach((id) => idx.upsert(id, pub(doc({ slug: `markers-${id}`, title: `Markers and more ${id}` }))));
     idx.upsert("k", pub(doc({ slug: "marks", title: "Marks on film" })));
     expect(idx.search("markrs on green screen", { audience: "published" }).corrected).toBe("markers on green screen");
+  });
+
+  it("keeps sparks from a fire away from crew removal in the starter thesaurus", () => {
+    // "spark" (set slang for an electrician) left the crew entry (migration 0017): its stem is that of "sparks".
+    const idx = createSearchIndex([...STARTER_THESAURUS]);
+    idx.upsert("c", pub(doc({ slug: "crew", title: "Removing crew from the background" })));
+    idx.upsert("s", pub(doc({ slug: "sparks", title: "Painting out sparks from a grinder" })));
+    expect(slugs(idx, "sparks flying past the lens")).toEqual(["sparks"]);
+    expect(slugs(idx, "someone walking past")).toEqual(["crew"]);
   });
 
   it("keeps a quoted thesaurus term from meeting other forms of its stem ('back' is not a 'backing')", () => {
