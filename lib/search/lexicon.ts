@@ -49,7 +49,7 @@ export const SYMPTOM_LEXICON: readonly LexiconEntry[] = [
   row(["rig", "crane"], ["tripod", "ladder", "scaffold", "scaffolding", "bracket", "jib", "technocrane", "gantry", "bar", "brace", "support arm", "lighting stand", "sandbags", "flag", "frame rig"]),
   row(["crash mat", "pad"], ["cushion", "cushions", "padding", "airbag", "crash pad", "stunt box", "boxes", "landing pad"]),
   // People and their things.
-  row(["crew", "people"], ["man", "woman", "kid", "child", "figure", "extra", "extras", "crowd", "public", "member of the public", "jogger", "cyclist", "dog walker", "spectator", "spectators", "visitor", "visitors", "walker", "stranger", "strangers"]),
+  row(["crew", "people"], ["man", "woman", "guy", "guys", "bloke", "lady", "girl", "boy", "kid", "child", "figure", "extra", "extras", "crowd", "public", "member of the public", "jogger", "cyclist", "dog walker", "spectator", "spectators", "visitor", "visitors", "walker", "stranger", "strangers"]),
   row(["shadow"], ["shade", "shaded", "dark shape", "dark patch", "shadowy"]),
   row(["reflection"], ["reflected", "reflects", "reflecting", "mirror", "glass", "shiny surface", "polished", "gloss", "sheen on the car"]),
   row(["marker"], ["sticker", "stickers", "target", "targets", '"crosses"', "tape", "ping pong balls", "golf balls", "reference points"]),

@@ -318,6 +318,16 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(idx.search("markrs on green screen", { audience: "published" }).corrected).toBe("markers on green screen");
   });
 
+  it("reaches crew removal from everyday words for a person through the symptom lexicon", () => {
+    const idx = createSearchIndex();
+    idx.upsert("c", pub(doc({ slug: "crew", title: "Crew in the background" })));
+    idx.upsert("w", pub(doc({ slug: "guy-wire", title: "Guy wire paint-out" })));
+    for (const q of ["a guy strolling past", "some bloke at the back", "a girl on a bike"]) {
+      const crew = idx.search(q, { audience: "published" }).results.find((r) => r.slug === "crew");
+      expect(crew?.via?.map((v) => [v.term, v.source]), q).toContainEqual(["crew", "lexicon"]);
+    }
+  });
+
   it("keeps sparks from a fire away from crew removal in the starter thesaurus", () => {
     // "spark" (set slang for an electrician) left the crew entry (migration 0017): its stem is that of "sparks".
     const idx = createSearchIndex([...STARTER_THESAURUS]);
