@@ -9,7 +9,8 @@
  * query there while the engine scores pages here (meaning.ts), and pages are encoded in the
  * background without delaying requests. The backend is single-threaded, so the worker encodes one
  * call at a time; a query's call goes before any waiting page's, so a search waits for at most the
- * page being encoded (~22 ms), not the whole backlog.
+ * page being encoded (~15–22 ms), not the whole backlog. A worker that stops is not restarted: every
+ * later call fails with the same error, and search keeps the engine's order (meaning.ts).
  */
 import { Worker } from "node:worker_threads";
 import path from "node:path";
@@ -116,14 +117,17 @@ export function startEncoderWorker(resolveFrom: string): Promise<MeaningEncoder 
       return answer;
     };
     worker.on("message", (m: FromWorker) => {
-      if (m.kind === "ready") resolveStart(encode);
-      else if (m.kind === "failed") {
+      if (m.kind === "ready") {
+        resolveStart(encode);
+      } else if (m.kind === "failed") {
         dead = new Error(m.message);
         void worker.terminate();
         resolveStart(notLoaded(m.message));
+      } else if (m.kind === "vectors") {
+        settle(m.id)?.resolve(m.vectors);
+      } else {
+        settle(m.id)?.reject(new Error(`search: the sentence encoder failed: ${m.message}`));
       }
-      else if (m.kind === "vectors") settle(m.id)?.resolve(m.vectors);
-      else settle(m.id)?.reject(new Error(`search: the sentence encoder failed: ${m.message}`));
     });
     const fail = (err: unknown): void => {
       dead = err instanceof Error ? err : new Error(String(err));

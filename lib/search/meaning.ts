@@ -137,6 +137,8 @@ export function createMeaning(encode: MeaningEncoder): Meaning {
   return { encode, vectors: new MeaningVectors(encode) };
 }
 
+const reportedFailures = new WeakSet<Error>();
+
 /**
  * `index.search`, with the first RERANK_WINDOW results re-ordered by meaning when the search is by
  * relevance for some words. The query is encoded as the engine understands it (spelling corrected),
@@ -163,7 +165,9 @@ export async function searchWithMeaning(index: Pick<SearchIndex, "search" | "cor
     const [vectors] = await Promise.all([queryVector, meaning.vectors.ensure(textOf.values(), "query")]);
     vector = vectors[0] as Float32Array;
   } catch (err) {
-    console.error("search: ranking by meaning failed; this search keeps the engine's order", err);
+    // A stopped encoder fails every call with one error: say so once, not on every search.
+    if (!(err instanceof Error && reportedFailures.has(err))) console.error("search: ranking by meaning failed; searches keep the engine's order while it fails", err);
+    if (err instanceof Error) reportedFailures.add(err);
     return byWords();
   }
   const reranked = rerankByMeaning(res.results, vector, (r) => meaning.vectors.get(textOf.get(r) as string));
