@@ -5,7 +5,7 @@
  * nothing is fetched at run time). It runs on TensorFlow.js's WebAssembly backend.
  *
  * The model lives in a worker thread of its own (one per process, started on first use: ~200 ms,
- * ~100 MB resident), so encoding never holds up the server's main thread: a search encodes its
+ * ~150 MB resident), so encoding never holds up the server's main thread: a search encodes its
  * query there while the engine scores pages here (meaning.ts), and pages are encoded in the
  * background without delaying requests. The backend is single-threaded, so the worker encodes one
  * call at a time; a query's call goes before any waiting page's, so a search waits for at most the
