@@ -399,7 +399,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     };
   }
 
-  function search(query: string, options: SearchOptions): SearchResponse {
+  function search(query: string, options: SearchOptions, onPlanned?: (corrected: string | undefined) => void): SearchResponse {
     const t0 = performance.now();
     const filters: Filters = {
       audience: options.audience,
@@ -410,6 +410,8 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const limit = Math.max(0, Math.min(MAX_LIMIT, Math.floor(options.limit ?? DEFAULT_LIMIT)));
     const offset = Math.max(0, Math.floor(options.offset ?? 0));
     const p = plan(query, { prefix: "last", exact: options.exact === true });
+    const corrected = correctedText(query, p);
+    onPlanned?.(corrected !== query ? corrected : undefined);
     const isEmptyQuery = p.units.length === 0;
 
     let c: Candidates;
@@ -452,7 +454,6 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const matched = isEmptyQuery ? null : matchedWords(p);
     const results = page.map((it) => toResult(it, isEmptyQuery ? null : p, matched, query));
 
-    const corrected = correctedText(query, p);
     return {
       results,
       total: selected.length,
@@ -460,11 +461,6 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       ...(corrected !== query ? { corrected } : {}),
       tookMs: Math.round((performance.now() - t0) * 100) / 100,
     };
-  }
-
-  function correctedQuery(query: string, options: Pick<SearchOptions, "exact">): string | undefined {
-    const corrected = correctedText(query, plan(query, { prefix: "last", exact: options.exact === true }));
-    return corrected !== query ? corrected : undefined;
   }
 
   function suggestTitles(query: string, audience: SearchAudience, limit = 8): TitleSuggestion[] {
@@ -495,7 +491,6 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     remove,
     setThesaurus,
     search,
-    correctedQuery,
     suggestTitles,
     size: () => techniques.size,
     version: () => contentVersion,

@@ -142,26 +142,28 @@ const reportedFailures = new WeakSet<Error>();
 /**
  * `index.search`, with the first RERANK_WINDOW results re-ordered by meaning when the search is by
  * relevance for some words. The query is encoded as the engine understands it (spelling corrected),
- * since the encoder does not know "markrs"; its encoding starts before the engine scores pages, so
- * with the worker encoder the two run side by side. Without `meaning`, or when the encoder fails,
- * it is the engine's answer unchanged.
+ * since the encoder does not know "markrs"; its encoding starts as soon as the engine has read the
+ * query (`onPlanned`), before it scores pages, so with the worker encoder the two run side by side.
+ * Without `meaning`, or when the encoder fails, it is the engine's answer unchanged.
  */
-export async function searchWithMeaning(index: Pick<SearchIndex, "search" | "correctedQuery">, query: string, options: SearchOptions, meaning: Meaning | null): Promise<SearchResponse> {
+export async function searchWithMeaning(index: Pick<SearchIndex, "search">, query: string, options: SearchOptions, meaning: Meaning | null): Promise<SearchResponse> {
   const t0 = performance.now();
   const offset = Math.max(0, Math.floor(options.offset ?? 0));
   const limit = Math.max(0, Math.floor(options.limit ?? 20));
   if (!meaning || options.sort === "recent" || !query.trim() || offset >= RERANK_WINDOW) return index.search(query, options);
-  const encodedText = index.correctedQuery(query, options) ?? query;
-  const queryVector = meaning.encode([encodedText], "query");
-  // Settled here too, so a search that ends before reading it leaves no unhandled rejection.
-  queryVector.catch(() => undefined);
-  const res = index.search(query, { ...options, offset: 0, limit: Math.max(RERANK_WINDOW, offset + limit) });
+  const encoding: { queryVector?: Promise<Float32Array[]> } = {};
+  const res = index.search(query, { ...options, offset: 0, limit: Math.max(RERANK_WINDOW, offset + limit) }, (corrected) => {
+    encoding.queryVector = meaning.encode([corrected ?? query], "query");
+    // Settled here too, so a search that ends before reading it leaves no unhandled rejection.
+    encoding.queryVector.catch(() => undefined);
+  });
   const byWords = (): SearchResponse => ({ ...res, results: res.results.slice(offset, offset + limit) });
   if (res.results.length < 2) return byWords();
   const textOf = new Map(res.results.slice(0, RERANK_WINDOW).map((r) => [r, meaningText(r)]));
   let vector: Float32Array;
   try {
     // Pages of the top not encoded yet (new since start-up) are encoded now, at the query's priority.
+    const queryVector = encoding.queryVector ?? meaning.encode([res.corrected ?? query], "query");
     const [vectors] = await Promise.all([queryVector, meaning.vectors.ensure(textOf.values(), "query")]);
     vector = vectors[0] as Float32Array;
   } catch (err) {

@@ -131,9 +131,11 @@ export type SearchIndex = {
   remove(techniqueId: string): void;
   /** Replace the thesaurus (applied at query time, so no page is re-indexed). */
   setThesaurus(entries: readonly ThesaurusEntry[]): void;
-  search(query: string, options: SearchOptions): SearchResponse;
-  /** What `search` would give as `corrected` for this query, without searching (a fraction of its time). */
-  correctedQuery(query: string, options: Pick<SearchOptions, "exact">): string | undefined;
+  /**
+   * `onPlanned` hears the query's `corrected` text (undefined when no word was corrected) as soon as the
+   * query is read, before any page is scored: ranking by meaning starts encoding it then (meaning.ts).
+   */
+  search(query: string, options: SearchOptions, onPlanned?: (corrected: string | undefined) => void): SearchResponse;
   suggestTitles(query: string, audience: SearchAudience, limit?: number): TitleSuggestion[];
   /** Number of techniques with at least one view. */
   size(): number;

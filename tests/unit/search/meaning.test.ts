@@ -160,11 +160,12 @@ describe("searchWithMeaning", () => {
 
   it("starts encoding the query, as corrected and ahead of waiting pages, before the engine scores pages", async () => {
     const steps: string[] = [];
-    const watched = {
-      correctedQuery: index.correctedQuery,
-      search: (q: string, o: typeof opts) => {
-        steps.push("engine");
-        return index.search(q, o);
+    const watched: Pick<typeof index, "search"> = {
+      search: (q, o, onPlanned) => {
+        steps.push("engine starts");
+        const res = index.search(q, o, onPlanned);
+        steps.push("engine ends");
+        return res;
       },
     };
     const m = createMeaning((texts, priority) => {
@@ -172,11 +173,10 @@ describe("searchWithMeaning", () => {
       return encode(texts);
     });
     await searchWithMeaning(watched, "lesn drops", opts, m);
-    expect(steps[0]).toBe("encode lens drops (query)");
-    expect(steps[1]).toBe("engine");
+    expect(steps.slice(0, 3)).toEqual(["engine starts", "encode lens drops (query)", "engine ends"]);
     // The top's pages, not encoded yet, go at the query's priority too.
-    expect(steps.slice(2).every((s) => s.endsWith("(query)"))).toBe(true);
-    expect(steps.length).toBeGreaterThan(2);
+    expect(steps.slice(3).every((s) => s.endsWith("(query)"))).toBe(true);
+    expect(steps.length).toBeGreaterThan(3);
   });
 
   it("keeps the engine's order, and says why once, when the encoder fails", async () => {
