@@ -20,11 +20,13 @@
 import type { Language } from "./language";
 import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore } from "./postings";
 import { parseQuery, type Alternative, type ParseOptions, type QueryPlan } from "./query";
+import { negatedWords, negationFactor } from "./negation";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
 import { isThesaurusKind, isWordNetKind, Scorer } from "./scoring";
 import { SYMPTOM_LEXICON } from "./lexicon";
 import { excerpt, matchesFor, SNIPPET_CHARS, thesaurusMatches, type MatchedWords } from "./snippets";
 import { compileThesaurus, EMPTY_THESAURUS, isWordOrPlural, phraseStems, type CompiledThesaurus, type ThesaurusEntry } from "./thesaurus";
+import { tokenize } from "./text";
 import type {
   SearchAudience,
   SearchDocument,
@@ -56,7 +58,9 @@ const NAME_FIELDS = (1 << F_TITLE) | (1 << F_ALIASES) | (1 << F_TAGS);
 /** Ordering rules look a little past the page asked for, so a promotion from just below is not missed. */
 const RANK_LOOKAHEAD = 32;
 
-type Entry = { doc: SearchDocument; tagIds: Int32Array; houseFor: readonly string[] };
+/** `denies`: stems the page's title, summary or aliases say are not there (negation.ts). */
+type Entry = { doc: SearchDocument; tagIds: Int32Array; houseFor: readonly string[]; denies: ReadonlySet<string> };
+const NO_STEMS: ReadonlySet<string> = new Set();
 type Technique = { published?: number; working?: number };
 type Filters = { audience: SearchAudience; tags: readonly string[]; status: readonly SearchStatus[] | undefined; includeRetired: boolean };
 
@@ -164,7 +168,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       return ti;
     });
     // The analysis is not kept (≈5 KB a page): removal analyses the stored text again.
-    entries[id] = { doc: stored, tagIds, houseFor: doc.houseMethodFor };
+    entries[id] = { doc: stored, tagIds, houseFor: doc.houseMethodFor, denies: deniedStems([doc.title, doc.summary, ...doc.aliases]) };
     return id;
   }
 
@@ -284,7 +288,34 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
   type Candidates = { ids: number[]; score: Float64Array; naming: Float64Array; coverage: Float64Array; house: Uint8Array };
   const NO_CANDIDATES: Candidates = { ids: [], score: new Float64Array(0), naming: new Float64Array(0), coverage: new Float64Array(0), house: new Uint8Array(0) };
 
-  function rank(p: QueryPlan, fieldMask: number, f: Filters): Candidates {
+  /** Stems the texts say are not there (each text on its own, so a denial never reaches into the next). */
+  function deniedStems(texts: readonly string[]): ReadonlySet<string> {
+    const out = new Set<string>();
+    for (const t of texts) for (const n of negatedWords(t)) out.add(stemOf(n.word));
+    return out.size ? out : NO_STEMS;
+  }
+
+  /** What the query denies, by stem; true when some denial of it is more than a circumstance. */
+  function queryDenials(query: string): Map<string, boolean> {
+    const out = new Map<string, boolean>();
+    for (const n of negatedWords(query)) {
+      const stem = stemOf(n.word);
+      out.set(stem, (out.get(stem) ?? true) && n.isCircumstance);
+    }
+    return out;
+  }
+
+  const titleStemCache = new WeakMap<Entry, ReadonlySet<string>>();
+  function titleStems(entry: Entry): ReadonlySet<string> {
+    let stems = titleStemCache.get(entry);
+    if (!stems) {
+      stems = new Set(tokenize(entry.doc.title).map((t) => stemOf(t.word)));
+      titleStemCache.set(entry, stems);
+    }
+    return stems;
+  }
+
+  function rank(p: QueryPlan, fieldMask: number, f: Filters, denied: ReadonlyMap<string, boolean> = new Map()): Candidates {
     const wanted = f.tags.map((slug) => tagIndex.get(slug) ?? -1);
     if (wanted.includes(-1)) return NO_CANDIDATES;
     const scored = scorer.score(p, fieldMask, nextId);
@@ -298,7 +329,11 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       const id = scored.ids[i] as number;
       if (!visible(id, f, wanted)) continue;
       keep[i] = 1;
-      const g = gradedScore(scored.scores[i] as number, scored.coverage[i] as number);
+      let g = gradedScore(scored.scores[i] as number, scored.coverage[i] as number);
+      if (denied.size > 0) {
+        const entry = entries[id] as Entry;
+        g *= negationFactor(denied, entry.denies, titleStems(entry));
+      }
       graded[i] = g;
       if (g > topAny) topAny = g;
       if (g > top && ((flags[id] as number) & FL_RETIRED) === 0) top = g;
@@ -421,7 +456,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       if (!wanted.includes(-1)) for (let id = 0; id < nextId; id++) if (entries[id] && visible(id, filters, wanted)) ids.push(id);
       c = { ids, score: new Float64Array(ids.length), naming: new Float64Array(ids.length), coverage: new Float64Array(ids.length).fill(1), house: new Uint8Array(ids.length) };
     } else {
-      c = rank(p, ALL_FIELDS, filters);
+      c = rank(p, ALL_FIELDS, filters, queryDenials(query));
     }
     // Status facet counts ignore the status filter itself, so the UI can show what switching it would give.
     const perStatus = new Int32Array(STATUS_ORDER.length);

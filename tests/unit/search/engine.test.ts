@@ -333,6 +333,14 @@ describe("graded matching, the department's method and the thesaurus", () => {
     }
   });
 
+  it("reads what a query denies: 'didn't shoot a clean plate' puts the page for that case before the one that needs a clean plate", () => {
+    const idx = createSearchIndex();
+    idx.upsert("a", pub(doc({ slug: "with-plate", title: "Rig removal with a clean plate", summary: "Line up the clean pass and mix it in over the rig." })));
+    idx.upsert("b", pub(doc({ slug: "no-plate", title: "Rebuilding the background", summary: "When no clean plate was shot, build one from frames of the take and paint the rig out." })));
+    expect(slugs(idx, "remove the rig, they shot a clean plate")[0]).toBe("with-plate");
+    expect(slugs(idx, "remove the rig, they didn't shoot a clean plate")[0]).toBe("no-plate");
+  });
+
   it("keeps sparks from a fire away from crew removal in the starter thesaurus", () => {
     // "spark" (set slang for an electrician) left the crew entry (migration 0017): its stem is that of "sparks".
     const idx = createSearchIndex([...STARTER_THESAURUS]);

@@ -1,0 +1,67 @@
+import { describe, expect, it } from "vitest";
+
+import { NEGATION_WEIGHTS, negatedWords, negationFactor } from "@/lib/search/negation";
+
+// How far a negation reaches is Plateroom's own rule (issue 16), written from plain English usage:
+// a negator covers the words after it up to the end of its clause. Not from a published source.
+const words = (text: string) => negatedWords(text).map((n) => n.word);
+
+describe("negatedWords", () => {
+  it("covers the content words after a negator, with or without the apostrophe", () => {
+    expect(words("they didn't shoot a clean plate")).toEqual(["shoot", "clean", "plate"]);
+    expect(words("they didnt shoot a clean plate")).toEqual(["shoot", "clean", "plate"]);
+    expect(words("the camera doesnt move")).toEqual(["move"]);
+    expect(words("there is no tracking data on this one")).toEqual(["tracking", "data"]);
+  });
+
+  it("stops at a clause mark, a conjunction, a question word, an infinitive or a preposition", () => {
+    expect(words("no clean plate, the rig is in every frame")).toEqual(["clean", "plate"]);
+    expect(words("no markers but the screen has creases")).toEqual(["markers"]);
+    expect(words("can't figure out how to paint the wire")).toEqual(["figure"]);
+    expect(words("we can't track it")).toEqual(["track"]);
+    expect(words("we are not able to track it")).toEqual([]);
+    expect(words("no clean plate of the empty street")).toEqual(["clean", "plate"]);
+  });
+
+  it("covers at most three content words and skips filler words", () => {
+    expect(words("didn't get any big heavy metal crane arm")).toEqual(["big", "heavy", "metal"]);
+  });
+
+  it("treats a negated hedge as being about the asker, not the plate", () => {
+    expect(words("not sure the grain matches")).toEqual([]);
+    expect(words("i don't know the right wire fix")).toEqual([]);
+    expect(words("no idea, white specks everywhere")).toEqual([]);
+    expect(words("not sure how to remove wires")).toEqual([]);
+  });
+
+  it("marks what 'without' covers as a circumstance", () => {
+    expect(negatedWords("a clean pass without the rig")).toEqual([{ word: "rig", isCircumstance: true }]);
+    expect(negatedWords("no rig")).toEqual([{ word: "rig", isCircumstance: false }]);
+  });
+
+  it("finds nothing in text that denies nothing", () => {
+    expect(negatedWords("remove the tracking markers from the green screen")).toEqual([]);
+    expect(negatedWords("")).toEqual([]);
+  });
+});
+
+describe("negationFactor", () => {
+  const denies = (...stems: [string, boolean][]) => new Map(stems);
+  const set = (...s: string[]) => new Set(s);
+
+  it("lifts a page that denies what the query denies", () => {
+    expect(negationFactor(denies(["plate", false]), set("plate"), set("rebuild", "background"))).toBe(NEGATION_WEIGHTS.sharedDenial);
+    expect(NEGATION_WEIGHTS.sharedDenial).toBeGreaterThan(1);
+  });
+
+  it("lowers a page whose title names plainly what the query denies", () => {
+    expect(negationFactor(denies(["plate", false]), set(), set("rig", "clean", "plate"))).toBe(NEGATION_WEIGHTS.namedInTitle);
+    expect(NEGATION_WEIGHTS.namedInTitle).toBeLessThan(1);
+  });
+
+  it("lowers no page for a circumstance ('without'), and leaves unrelated pages alone", () => {
+    expect(negationFactor(denies(["rig", true]), set(), set("rig", "removal"))).toBe(1);
+    expect(negationFactor(denies(["plate", false]), set(), set("grain", "match"))).toBe(1);
+    expect(negationFactor(new Map(), set("plate"), set("plate"))).toBe(1);
+  });
+});
