@@ -67,6 +67,8 @@ export type SearchApiResponse = {
   total: number;
   facets: { problem: SearchFacetTag[]; plate: SearchFacetTag[]; status: { status: SearchStatus; count: number }[] };
   corrected?: string;
+  /** What the query says the plate lacks, as typed: such pages rank higher, pages built on it lower. */
+  denials?: string[];
   tookMs: number;
 };
 

@@ -64,6 +64,7 @@ export async function runSearch(user: SessionUser, query: Omit<SearchQuery, "lim
     total: res.total,
     facets: res.facets,
     ...(res.corrected ? { corrected: res.corrected } : {}),
+    ...(res.denials?.length ? { denials: res.denials } : {}),
     tookMs: res.tookMs,
   };
   rememberedSearches.set(key, { index, version, response });

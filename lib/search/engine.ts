@@ -20,7 +20,7 @@
 import type { Language } from "./language";
 import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore } from "./postings";
 import { parseQuery, type Alternative, type ParseOptions, type QueryPlan } from "./query";
-import { negatedWords, negationFactor } from "./negation";
+import { denialPhrases, negatedWords, negationFactor } from "./negation";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
 import { isThesaurusKind, isWordNetKind, Scorer } from "./scoring";
 import { SYMPTOM_LEXICON } from "./lexicon";
@@ -449,6 +449,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     onPlanned?.(corrected !== query ? corrected : undefined);
     const isEmptyQuery = p.units.length === 0;
 
+    const denied = isEmptyQuery ? new Map<string, boolean>() : queryDenials(query);
     let c: Candidates;
     if (isEmptyQuery) {
       const wanted = filters.tags.map((slug) => tagIndex.get(slug) ?? -1);
@@ -456,7 +457,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       if (!wanted.includes(-1)) for (let id = 0; id < nextId; id++) if (entries[id] && visible(id, filters, wanted)) ids.push(id);
       c = { ids, score: new Float64Array(ids.length), naming: new Float64Array(ids.length), coverage: new Float64Array(ids.length).fill(1), house: new Uint8Array(ids.length) };
     } else {
-      c = rank(p, ALL_FIELDS, filters, queryDenials(query));
+      c = rank(p, ALL_FIELDS, filters, denied);
     }
     // Status facet counts ignore the status filter itself, so the UI can show what switching it would give.
     const perStatus = new Int32Array(STATUS_ORDER.length);
@@ -494,6 +495,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       total: selected.length,
       facets: facetsOf(selectedIds, statusCounts),
       ...(corrected !== query ? { corrected } : {}),
+      ...(denied.size > 0 && options.sort !== "recent" ? { denials: denialPhrases(query) } : {}),
       tookMs: Math.round((performance.now() - t0) * 100) / 100,
     };
   }

@@ -42,26 +42,39 @@ export type NegatedWord = {
   isCircumstance: boolean;
 };
 
-/** The content words that `text` says are not there, in order. */
-export function negatedWords(text: string): NegatedWord[] {
+/** One negator and what it covers: `start`–`end` spans the text from the negator to its last word. */
+type Denial = { words: NegatedWord[]; start: number; end: number };
+
+function denials(text: string): Denial[] {
   const tokens = tokenize(text);
-  const out: NegatedWord[] = [];
+  const out: Denial[] = [];
   for (let i = 0; i < tokens.length; i++) {
-    const negator = (tokens[i] as (typeof tokens)[number]).word;
-    if (!NEGATORS.has(negator)) continue;
-    let taken = 0;
-    for (let j = i + 1; j < tokens.length && taken < NEGATION_REACH; j++) {
+    const negator = tokens[i] as (typeof tokens)[number];
+    if (!NEGATORS.has(negator.word)) continue;
+    const denial: Denial = { words: [], start: negator.start, end: negator.end };
+    for (let j = i + 1; j < tokens.length && denial.words.length < NEGATION_REACH; j++) {
       const prev = tokens[j - 1] as (typeof tokens)[number];
       const tok = tokens[j] as (typeof tokens)[number];
       if (CLAUSE_MARK.test(text.slice(prev.end, tok.start))) break;
       const w = tok.word;
-      if (SCOPE_ENDS.has(w) || NEGATORS.has(w) || (taken === 0 && HEDGES.has(w))) break;
+      if (SCOPE_ENDS.has(w) || NEGATORS.has(w) || (denial.words.length === 0 && HEDGES.has(w))) break;
       if (isStopWord(w) || queryWordWeight(w) <= FILLER_WEIGHT) continue;
-      out.push({ word: w, isCircumstance: negator === "without" });
-      taken++;
+      denial.words.push({ word: w, isCircumstance: negator.word === "without" });
+      denial.end = tok.end;
     }
+    if (denial.words.length > 0) out.push(denial);
   }
   return out;
+}
+
+/** The content words that `text` says are not there, in order. */
+export function negatedWords(text: string): NegatedWord[] {
+  return denials(text).flatMap((d) => d.words);
+}
+
+/** Each denial as written, from its negator to its last word ("didn't shoot a clean plate"), for people to read. */
+export function denialPhrases(text: string): string[] {
+  return denials(text).map((d) => text.slice(d.start, d.end));
 }
 
 /** How much a page's score changes when the query denies something: see `negationFactor`. */

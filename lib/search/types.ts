@@ -93,6 +93,11 @@ export type SearchResponse = {
    * of the English word list or of the pages and thesaurus are never replaced.
    */
   corrected?: string;
+  /**
+   * What the query says the plate lacks, as typed ("didn't shoot a clean plate"): pages that deny it
+   * too rank higher, pages whose title names it lower (negation.ts). Absent when it denies nothing.
+   */
+  denials?: string[];
   tookMs: number;
 };
 

@@ -63,10 +63,20 @@ describe.skipIf(!hasChromium())("search in Chromium", () => {
     expect(await first.locator("mark").count()).toBeGreaterThan(0);
     expect(await isShown(first.getByText(/Department method/))).toBe(true);
     expect(await isShown(page.getByTestId("search-corrected"))).toBe(true);
+    expect(await isShown(page.getByTestId("search-denials"))).toBe(false);
     // A problem facet narrows the search and lands in the address.
     await page.getByRole("group", { name: "Problem" }).getByLabel(/Tracking markers/).check();
     await page.waitForURL((u) => u.searchParams.getAll("tag").includes("tracking-markers"));
     await screenshot(page, "search-page-results");
+    await context.close();
+  });
+
+  it("says what it read as missing from the plate ('no tracking data')", async () => {
+    const { context, page } = await signIn(running.browser, running.app.baseUrl, "artist@kestrel.test");
+    await page.goto("/search?q=" + encodeURIComponent("markers on a moving shot but no tracking data"));
+    const note = page.getByTestId("search-denials");
+    expect(await isShown(note)).toBe(true);
+    expect(await note.textContent()).toContain("“no tracking data”");
     await context.close();
   });
 

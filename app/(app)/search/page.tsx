@@ -52,7 +52,7 @@ export default async function SearchPage({ searchParams }: { searchParams: Promi
           </aside>
           <section aria-labelledby="results-title" className="space-y-4">
             <div className="flex flex-wrap items-center gap-3">
-              <SearchSummary state={state} total={response.total} corrected={response.corrected} tookMs={response.tookMs} />
+              <SearchSummary state={state} total={response.total} corrected={response.corrected} denials={response.denials} tookMs={response.tookMs} />
               <div className="ml-auto">
                 <SortControl state={state} />
               </div>

@@ -339,6 +339,9 @@ describe("graded matching, the department's method and the thesaurus", () => {
     idx.upsert("b", pub(doc({ slug: "no-plate", title: "Rebuilding the background", summary: "When no clean plate was shot, build one from frames of the take and paint the rig out." })));
     expect(slugs(idx, "remove the rig, they shot a clean plate")[0]).toBe("with-plate");
     expect(slugs(idx, "remove the rig, they didn't shoot a clean plate")[0]).toBe("no-plate");
+    // The response says how it read the query, for the search page to show.
+    expect(idx.search("remove the rig, they didn't shoot a clean plate", { audience: "published" }).denials).toEqual(["didn't shoot a clean plate"]);
+    expect(idx.search("remove the rig, they shot a clean plate", { audience: "published" }).denials).toBeUndefined();
   });
 
   it("keeps sparks from a fire away from crew removal in the starter thesaurus", () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 
-import { NEGATION_WEIGHTS, negatedWords, negationFactor } from "@/lib/search/negation";
+import { denialPhrases, NEGATION_WEIGHTS, negatedWords, negationFactor } from "@/lib/search/negation";
 
 // How far a negation reaches is Plateroom's own rule (issue 16), written from plain English usage:
 // a negator covers the words after it up to the end of its clause. Not from a published source.
@@ -42,6 +42,14 @@ describe("negatedWords", () => {
   it("finds nothing in text that denies nothing", () => {
     expect(negatedWords("remove the tracking markers from the green screen")).toEqual([]);
     expect(negatedWords("")).toEqual([]);
+  });
+});
+
+describe("denialPhrases", () => {
+  it("gives each denial as typed, from its negator to its last word", () => {
+    expect(denialPhrases("they didn't shoot a clean plate, the rig is in every frame")).toEqual(["didn't shoot a clean plate"]);
+    expect(denialPhrases("No markers and the camera doesnt move")).toEqual(["No markers", "doesnt move"]);
+    expect(denialPhrases("not sure how to remove wires")).toEqual([]);
   });
 });
 
