@@ -7,27 +7,46 @@ import { denialPhrases, NEGATION_WEIGHTS, negatedWords, negationFactor } from "@
 const words = (text: string) => negatedWords(text).map((n) => n.word);
 
 describe("negatedWords", () => {
-  it("covers the content words after a negator, with or without the apostrophe", () => {
-    expect(words("they didn't shoot a clean plate")).toEqual(["shoot", "clean", "plate"]);
-    expect(words("they didnt shoot a clean plate")).toEqual(["shoot", "clean", "plate"]);
-    expect(words("the camera doesnt move")).toEqual(["move"]);
+  it("covers what follows 'no', 'without', 'none', with or without the apostrophe in contractions", () => {
     expect(words("there is no tracking data on this one")).toEqual(["tracking", "data"]);
+    expect(words("they didn't shoot a clean plate")).toEqual(["clean", "plate"]);
+    expect(words("they didnt shoot a clean plate")).toEqual(["clean", "plate"]);
+  });
+
+  it("after 'not' and 'didn't', denies the object of a verb of having, or what a determiner introduces", () => {
+    expect(words("we didn't get a clean plate")).toEqual(["clean", "plate"]);
+    expect(words("we don't have any reference frames")).toEqual(["reference", "frames"]);
+    expect(words("there isn't any tracking data")).toEqual(["tracking", "data"]);
+    expect(words("not a clean plate in sight")).toEqual(["clean", "plate"]);
+  });
+
+  it("denies a verb of motion itself: whether the camera moves splits methods", () => {
+    expect(words("the camera doesnt move")).toEqual(["move"]);
+    expect(words("the camera does not move at all")).toEqual(["move"]);
+  });
+
+  it("denies nothing for what is wrong rather than missing, or for what the asker cannot do", () => {
+    expect(words("the grain doesn't match the plate")).toEqual([]);
+    expect(words("the edge isn't sharp")).toEqual([]);
+    expect(words("didn't remove the wire")).toEqual([]);
+    expect(words("can't get rid of the shimmer")).toEqual([]);
+    expect(words("can't remove the wire")).toEqual([]);
+    expect(words("we are not able to track it")).toEqual([]);
   });
 
   it("stops at a clause mark, a conjunction, a question word, an infinitive or a preposition", () => {
     expect(words("no clean plate, the rig is in every frame")).toEqual(["clean", "plate"]);
     expect(words("no markers but the screen has creases")).toEqual(["markers"]);
-    expect(words("can't figure out how to paint the wire")).toEqual(["figure"]);
-    expect(words("we can't track it")).toEqual(["track"]);
-    expect(words("we are not able to track it")).toEqual([]);
     expect(words("no clean plate of the empty street")).toEqual(["clean", "plate"]);
+    // "way" is a filler word, then the infinitive ends the reach.
+    expect(words("no way to know which frame is clean")).toEqual([]);
   });
 
   it("covers at most three content words and skips filler words", () => {
     expect(words("didn't get any big heavy metal crane arm")).toEqual(["big", "heavy", "metal"]);
   });
 
-  it("treats a negated hedge as being about the asker, not the plate", () => {
+  it("treats a hedge as being about the asker, not the plate", () => {
     expect(words("not sure the grain matches")).toEqual([]);
     expect(words("i don't know the right wire fix")).toEqual([]);
     expect(words("no idea, white specks everywhere")).toEqual([]);
@@ -49,6 +68,7 @@ describe("denialPhrases", () => {
   it("gives each denial as typed, from its negator to its last word", () => {
     expect(denialPhrases("they didn't shoot a clean plate, the rig is in every frame")).toEqual(["didn't shoot a clean plate"]);
     expect(denialPhrases("No markers and the camera doesnt move")).toEqual(["No markers", "doesnt move"]);
+    expect(denialPhrases("the camera does not move")).toEqual(["does not move"]);
     expect(denialPhrases("not sure how to remove wires")).toEqual([]);
   });
 });
