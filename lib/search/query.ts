@@ -7,7 +7,7 @@
  */
 import { ALTERNATIVE_WEIGHTS, completionWeight, isWordNetKind, MAX_UNITS } from "./scoring";
 import { findPhrases, type CompiledThesaurus } from "./thesaurus";
-import { FILLER_WEIGHT, GENERIC_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
+import { FILLER_WEIGHT, GENERIC_WEIGHT, isAddressee, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
 import type { Vocabulary } from "./vocabulary";
 
 export type AlternativeKind =
@@ -71,7 +71,7 @@ const MAX_ALTERNATIVES = 8;
 
 export function parseQuery(query: string, ctx: QueryContext, options: ParseOptions): QueryPlan {
   const raw = tokenize(query);
-  const content = raw.filter((t) => !isStopWord(t.word));
+  const content = raw.filter((t, i) => !isStopWord(t.word) && !isAddressee(raw, i));
   const tokens = (content.length > 0 ? content : raw).slice(0, MAX_UNITS);
   // A query of filler words only ("take out") is looked up word by word after all.
   const onlyFiller = tokens.every((t) => queryWordWeight(t.word) <= FILLER_WEIGHT);

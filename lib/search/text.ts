@@ -32,6 +32,15 @@ export function isStopWord(word: string): boolean {
   return STOP_WORDS.has(word);
 }
 
+// "can someone tell me…", "does anybody know…": a question put to colleagues, not a person in the plate.
+const ASKING_AUXILIARIES = new Set("can could would will do does did has have may might".split(" "));
+const ADDRESSEES = new Set("someone somebody anyone anybody everyone everybody".split(" "));
+
+/** Whether `tokens[i]` is whom a question is put to ("can someone …"), a word to leave out like a stop word. */
+export function isAddressee(tokens: readonly Token[], i: number): boolean {
+  return i > 0 && ADDRESSEES.has((tokens[i] as Token).word) && ASKING_AUXILIARIES.has((tokens[i - 1] as Token).word);
+}
+
 // Words that carry no problem: asking ("need", "help", "best way"), doing in general ("get", "take",
 // "make", "deal") and the particles of phrasal verbs. They stay in the query at a small weight, so a
 // question full of them is judged by its few content words.

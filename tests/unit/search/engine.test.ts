@@ -344,6 +344,14 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(idx.search("remove the rig, they shot a clean plate", { audience: "published" }).denials).toBeUndefined();
   });
 
+  it("reads 'can someone tell me…' as a question to colleagues, not as a person in the plate", () => {
+    const idx = createSearchIndex([...STARTER_THESAURUS]);
+    idx.upsert("c", pub(doc({ slug: "crew", title: "Removing crew from the background" })));
+    idx.upsert("w", pub(doc({ slug: "wire", title: "Wire removal over sky" })));
+    expect(slugs(idx, "can someone tell me how to paint out a wire")).toEqual(["wire"]);
+    expect(slugs(idx, "someone in the back of the shot")).toEqual(["crew"]);
+  });
+
   it("keeps sparks from a fire away from crew removal in the starter thesaurus", () => {
     // "spark" (set slang for an electrician) left the crew entry (migration 0017): its stem is that of "sparks".
     const idx = createSearchIndex([...STARTER_THESAURUS]);

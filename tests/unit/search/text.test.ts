@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 
-import { editDistance, FILLER_WEIGHT, GENERIC_WEIGHT, isStopWord, queryWordWeight, tokenize, trigrams } from "@/lib/search/text";
+import { editDistance, FILLER_WEIGHT, GENERIC_WEIGHT, isAddressee, isStopWord, queryWordWeight, tokenize, trigrams } from "@/lib/search/text";
 
 describe("editDistance (optimal string alignment)", () => {
   it("matches the classic Levenshtein example", () => {
@@ -75,6 +75,17 @@ describe("the one stop-word list and query word weights", () => {
     expect(queryWordWeight("remove")).toBe(GENERIC_WEIGHT);
     for (const w of ["marker", "wire", "flicker", "shiny"]) expect(queryWordWeight(w), w).toBe(1);
     expect(FILLER_WEIGHT).toBeLessThan(GENERIC_WEIGHT);
+  });
+
+  it("leaves out whom a question is put to ('can someone tell me'), not a person in the plate", () => {
+    const addressees = (text: string) => {
+      const tokens = tokenize(text);
+      return tokens.filter((_, i) => isAddressee(tokens, i)).map((t) => t.word);
+    };
+    expect(addressees("can someone tell me how to paint out a wire")).toEqual(["someone"]);
+    expect(addressees("does anybody know a fix for flicker")).toEqual(["anybody"]);
+    expect(addressees("someone walks through the back of the frame")).toEqual([]);
+    expect(addressees("i can see someone in the window")).toEqual([]);
   });
 });
 
