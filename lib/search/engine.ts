@@ -10,6 +10,7 @@
  * - thesaurus.ts — leads' synonyms and narrower terms, compiled for query time;
  * - query.ts — a typed query becomes weighted units with alternatives;
  * - scoring.ts — BM25 per field over those alternatives, graded by coverage;
+ * - negation.ts — what a query or a page says is missing ("no clean plate"), which moves pages;
  * - ranking.ts — the ordering rules (status, the department's method, retired last);
  * - snippets.ts — highlight ranges, the body excerpt, thesaurus notes per result.
  *
@@ -449,7 +450,8 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     onPlanned?.(corrected !== query ? corrected : undefined);
     const isEmptyQuery = p.units.length === 0;
 
-    const denied = isEmptyQuery ? new Map<string, boolean>() : queryDenials(query);
+    // Read from the corrected text, so "no claen plate" denies the plate pages call clean.
+    const denied = isEmptyQuery ? new Map<string, boolean>() : queryDenials(corrected);
     let c: Candidates;
     if (isEmptyQuery) {
       const wanted = filters.tags.map((slug) => tagIndex.get(slug) ?? -1);
@@ -495,7 +497,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       total: selected.length,
       facets: facetsOf(selectedIds, statusCounts),
       ...(corrected !== query ? { corrected } : {}),
-      ...(denied.size > 0 && options.sort !== "recent" ? { denials: denialPhrases(query) } : {}),
+      ...(denied.size > 0 && options.sort !== "recent" ? { denials: denialPhrases(corrected) } : {}),
       tookMs: Math.round((performance.now() - t0) * 100) / 100,
     };
   }

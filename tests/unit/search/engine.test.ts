@@ -342,6 +342,10 @@ describe("graded matching, the department's method and the thesaurus", () => {
     // The response says how it read the query, for the search page to show.
     expect(idx.search("remove the rig, they didn't shoot a clean plate", { audience: "published" }).denials).toEqual(["didn't shoot a clean plate"]);
     expect(idx.search("remove the rig, they shot a clean plate", { audience: "published" }).denials).toBeUndefined();
+    // Read after spelling correction.
+    const misspelt = idx.search("remove the rig, they didn't shoot a claen plate", { audience: "published" });
+    expect(misspelt.results[0]?.slug).toBe("no-plate");
+    expect(misspelt.denials).toEqual(["didn't shoot a clean plate"]);
   });
 
   it("reads 'can someone tell me…' as a question to colleagues, not as a person in the plate", () => {
