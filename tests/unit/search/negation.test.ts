@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 
 import { denialPhrases, NEGATION_WEIGHTS, negatedWords, negationFactor } from "@/lib/search/negation";
@@ -91,5 +92,24 @@ describe("negationFactor", () => {
     expect(negationFactor(denies(["rig", true]), set(), set("rig", "removal"))).toBe(1);
     expect(negationFactor(denies(["plate", false]), set(), set("grain", "match"))).toBe(1);
     expect(negationFactor(new Map(), set("plate"), set("plate"))).toBe(1);
+  });
+});
+
+describe("negation on any text", () => {
+  // Words a query might hold, negators among them, with punctuation, so scopes start and end anywhere.
+  const word = fc.constantFrom("no", "not", "didn't", "doesnt", "without", "isn't", "can't", "a", "the", "clean", "plate", "shoot", "move", "marker", "of", "and", ",", ".", "grain", "get", "any", "é", "'s", "c-stand", "16-bit");
+  it("never throws, gives each denial as a piece of the text that starts at a negator or its auxiliary, and covers at most three words a denial", () => {
+    fc.assert(
+      fc.property(fc.array(word, { maxLength: 14 }), fc.constantFrom(" ", "  ", " - "), (words, gap) => {
+        const text = words.join(gap);
+        const phrases = denialPhrases(text);
+        for (const p of phrases) {
+          expect(text.includes(p)).toBe(true);
+          expect(p.toLowerCase()).toMatch(/^(no|not|didn't|doesnt|without|isn't|do|does|did|is|are|was|were|has|have|had)\b/);
+        }
+        expect(negatedWords(text).length).toBeLessThanOrEqual(phrases.length * 3);
+      }),
+      { numRuns: 500 },
+    );
   });
 });
