@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 
 import { createSearchIndex as createEngine } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
+import { NEGATION_WEIGHTS } from "@/lib/search/negation";
 import type { ThesaurusEntry } from "@/lib/search/thesaurus";
 import type { SearchDocument, SearchOptions } from "@/lib/search/types";
 import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
@@ -346,6 +347,18 @@ describe("graded matching, the department's method and the thesaurus", () => {
     const misspelt = idx.search("remove the rig, they didn't shoot a claen plate", { audience: "published" });
     expect(misspelt.results[0]?.slug).toBe("no-plate");
     expect(misspelt.denials).toEqual(["didn't shoot a clean plate"]);
+  });
+
+  it("reads 'the camera doesn't move' as counting against the method for a moving camera", () => {
+    const idx = createSearchIndex();
+    idx.upsert("l", pub(doc({ slug: "locked", title: "People walking through a locked-off shot", summary: "A median of the frames removes them." })));
+    idx.upsert("m", pub(doc({ slug: "moving", title: "People walking through a moving shot", summary: "Project a clean background onto the solved track." })));
+    const scores = (q: string) => new Map(idx.search(q, { audience: "published" }).results.map((r) => [r.slug, r.score]));
+    // The same words either way ("doesn't" is a stop word; "moves" and "move" share a stem).
+    const affirmed = scores("people walking through and the camera moves");
+    const denied = scores("people walking through and the camera doesn't move");
+    expect(denied.get("moving")).toBeCloseTo((affirmed.get("moving") ?? 0) * NEGATION_WEIGHTS.namedInTitle, 2);
+    expect(denied.get("locked")).toBeCloseTo(affirmed.get("locked") ?? -1, 2);
   });
 
   it("reads 'can someone tell me…' as a question to colleagues, not as a person in the plate", () => {
