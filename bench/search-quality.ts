@@ -14,6 +14,7 @@ import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
 import { UNSEEN_PAGES } from "@/tests/unit/search/quality/unseen-pages";
 import { UNSEEN_QUERIES } from "@/tests/unit/search/quality/unseen-queries";
 import { UNSEEN_QUERIES_SECOND } from "@/tests/unit/search/quality/unseen-queries-second";
+import { UNSEEN_QUERIES_THIRD } from "@/tests/unit/search/quality/unseen-queries-third";
 
 import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge } from "./lib/quality";
 
@@ -57,6 +58,7 @@ if (process.argv.includes("--unseen")) {
   for (const [label, queries] of [
     ["the pages' writer", UNSEEN_QUERIES],
     ["a second writer, from titles and summaries only", UNSEEN_QUERIES_SECOND],
+    ["a third writer, from titles and summaries only", UNSEEN_QUERIES_THIRD],
   ] as const) {
     const unseenReport = await evaluateQuality(unseenSearch, queries, unseenJudge, () => true);
     console.log(`unseen pages (held out whole), queries by ${label}`);

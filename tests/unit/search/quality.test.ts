@@ -13,6 +13,7 @@ import { isHeldOut, QUALITY_QUERIES, type QualityQuery, QUERY_KINDS } from "./qu
 import { UNSEEN_PAGES } from "./quality/unseen-pages";
 import { UNSEEN_QUERIES } from "./quality/unseen-queries";
 import { UNSEEN_QUERIES_SECOND } from "./quality/unseen-queries-second";
+import { UNSEEN_QUERIES_THIRD } from "./quality/unseen-queries-third";
 
 /** The report of ranking by words then meaning with the real encoder, computed once, when first asked. */
 function lazyMeaningReport(index: SearchIndex, queries: readonly QualityQuery[], judge: SpellJudge, isHeldOutQuery?: (q: QualityQuery) => boolean): () => Promise<QualityReport> {
@@ -173,6 +174,29 @@ describe("search quality on pages no tuning saw", async () => {
     expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(SECOND_FLOORS[kind].top3);
     expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(SECOND_FLOORS[kind].top1);
   });
+  // A third writer's 120, written the same way on 2026-12-05 (first measurement, words then meaning:
+  // plain 93.3/100, typo 100/100, describe 96.7/100, filler 93.3/100; words alone plain 96.7, describe
+  // 93.3, filler 96.7/96.7 — meaning moves single queries both ways here, so no "not below" rule).
+  const THIRD_FLOORS: typeof UNSEEN_FLOORS = {
+    plain: { top1: 90, top3: 97 },
+    typo: { top1: 95, top3: 97 },
+    describe: { top1: 90, top3: 97 },
+    filler: { top1: 90, top3: 97 },
+  };
+  const thirdWithMeaning = lazyMeaningReport(index, UNSEEN_QUERIES_THIRD, judge, allHeldOut);
+  it("has a third writer's 30 distinct queries of each kind over the same pages, and corrects no real word", async () => {
+    const slugs = new Set(UNSEEN_PAGES.map((p) => p.slug));
+    for (const kind of QUERY_KINDS) expect(UNSEEN_QUERIES_THIRD.filter((q) => q.kind === kind).length, kind).toBe(30);
+    for (const q of UNSEEN_QUERIES_THIRD) expect(slugs.has(q.expected), q.expected).toBe(true);
+    expect(new Set(UNSEEN_QUERIES_THIRD.map((q) => q.query)).size).toBe(UNSEEN_QUERIES_THIRD.length);
+    expect((await thirdWithMeaning()).realWordsCorrected.examples).toEqual([]);
+  });
+  it.each(QUERY_KINDS)("%s queries of the third writer stay at or above their floor", async (kind) => {
+    const row = (await thirdWithMeaning()).all.find((r) => r.kind === kind);
+    expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(THIRD_FLOORS[kind].top3);
+    expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(THIRD_FLOORS[kind].top1);
+  });
+
   it("ranks the second writer's queries, taken together, no worse with meaning than by words alone", async () => {
     const alone = (await evaluateQuality(byWords(index), UNSEEN_QUERIES_SECOND, judge, allHeldOut)).all.find((r) => r.kind === "all");
     const withIt = (await secondWithMeaning()).all.find((r) => r.kind === "all");
