@@ -67,7 +67,7 @@ export type SearchApiResponse = {
   total: number;
   facets: { problem: SearchFacetTag[]; plate: SearchFacetTag[]; status: { status: SearchStatus; count: number }[] };
   corrected?: string;
-  /** What the query says the plate lacks, as typed: such pages rank higher, pages built on it lower. */
+  /** What the query says the plate lacks, as read (spelling corrected): pages denying it too rank higher, pages whose title names it lower. */
   denials?: string[];
   tookMs: number;
 };
