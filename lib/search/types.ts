@@ -94,8 +94,9 @@ export type SearchResponse = {
    */
   corrected?: string;
   /**
-   * What the query says the plate lacks, as read after spelling correction ("didn't shoot a clean plate"): pages that deny it
-   * too rank higher, pages whose title names it lower (negation.ts). Absent when it denies nothing.
+   * What the query says the plate lacks, as read after spelling correction ("didn't shoot a clean
+   * plate"): pages that deny it too rank higher, pages whose title names it lower (negation.ts).
+   * Absent when it denies nothing.
    */
   denials?: string[];
   tookMs: number;
