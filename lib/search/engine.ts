@@ -27,7 +27,6 @@ import { isThesaurusKind, isWordNetKind, Scorer } from "./scoring";
 import { SYMPTOM_LEXICON } from "./lexicon";
 import { excerpt, matchesFor, SNIPPET_CHARS, thesaurusMatches, type MatchedWords } from "./snippets";
 import { compileThesaurus, EMPTY_THESAURUS, isWordOrPlural, phraseStems, type CompiledThesaurus, type ThesaurusEntry } from "./thesaurus";
-import { tokenize } from "./text";
 import type {
   SearchAudience,
   SearchDocument,
@@ -296,7 +295,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     return out.size ? out : NO_STEMS;
   }
 
-  /** What the query denies, by stem; true when some denial of it is more than a circumstance. */
+  /** What the query denies, by stem; true when every denial of it is only a circumstance ("without"). */
   function queryDenials(query: string): Map<string, boolean> {
     const out = new Map<string, boolean>();
     for (const n of negatedWords(query)) {
@@ -306,14 +305,10 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     return out;
   }
 
-  const titleStemCache = new WeakMap<Entry, ReadonlySet<string>>();
-  function titleStems(entry: Entry): ReadonlySet<string> {
-    let stems = titleStemCache.get(entry);
-    if (!stems) {
-      stems = new Set(tokenize(entry.doc.title).map((t) => stemOf(t.word)));
-      titleStemCache.set(entry, stems);
-    }
-    return stems;
+  /** Whether page `id`'s title has the stem: its title count in the postings (4 bits a field). */
+  function titleHas(id: number, stem: string): boolean {
+    const sid = vocab.stemIdOf(stem);
+    return sid !== undefined && (((store.lists[sid]?.countsOf(id) ?? 0) >>> (F_TITLE * 4)) & 0xf) !== 0;
   }
 
   function rank(p: QueryPlan, fieldMask: number, f: Filters, denied: ReadonlyMap<string, boolean> = new Map()): Candidates {
@@ -332,8 +327,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       keep[i] = 1;
       let g = gradedScore(scored.scores[i] as number, scored.coverage[i] as number);
       if (denied.size > 0) {
-        const entry = entries[id] as Entry;
-        g *= negationFactor(denied, entry.denies, titleStems(entry));
+        g *= negationFactor(denied, (entries[id] as Entry).denies, (stem) => titleHas(id, stem));
       }
       graded[i] = g;
       if (g > topAny) topAny = g;

@@ -114,8 +114,8 @@ export const NEGATION_WEIGHTS = { sharedDenial: 1.5, namedInTitle: 0.5 } as cons
  * plate was shot"), else × namedInTitle when its title names one plainly ("Rig removal with a clean
  * plate"), else 1.
  */
-export function negationFactor(queryDenies: ReadonlyMap<string, boolean>, pageDenies: ReadonlySet<string>, titleNames: ReadonlySet<string>): number {
+export function negationFactor(queryDenies: ReadonlyMap<string, boolean>, pageDenies: ReadonlySet<string>, titleNames: (stem: string) => boolean): number {
   for (const stem of queryDenies.keys()) if (pageDenies.has(stem)) return NEGATION_WEIGHTS.sharedDenial;
-  for (const [stem, isCircumstance] of queryDenies) if (!isCircumstance && titleNames.has(stem) && !pageDenies.has(stem)) return NEGATION_WEIGHTS.namedInTitle;
+  for (const [stem, isCircumstance] of queryDenies) if (!isCircumstance && titleNames(stem) && !pageDenies.has(stem)) return NEGATION_WEIGHTS.namedInTitle;
   return 1;
 }

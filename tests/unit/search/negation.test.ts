@@ -77,21 +77,22 @@ describe("denialPhrases", () => {
 describe("negationFactor", () => {
   const denies = (...stems: [string, boolean][]) => new Map(stems);
   const set = (...s: string[]) => new Set(s);
+  const title = (...words: string[]) => (stem: string) => words.includes(stem);
 
   it("lifts a page that denies what the query denies", () => {
-    expect(negationFactor(denies(["plate", false]), set("plate"), set("rebuild", "background"))).toBe(NEGATION_WEIGHTS.sharedDenial);
+    expect(negationFactor(denies(["plate", false]), set("plate"), title("rebuild", "background"))).toBe(NEGATION_WEIGHTS.sharedDenial);
     expect(NEGATION_WEIGHTS.sharedDenial).toBeGreaterThan(1);
   });
 
   it("lowers a page whose title names plainly what the query denies", () => {
-    expect(negationFactor(denies(["plate", false]), set(), set("rig", "clean", "plate"))).toBe(NEGATION_WEIGHTS.namedInTitle);
+    expect(negationFactor(denies(["plate", false]), set(), title("rig", "clean", "plate"))).toBe(NEGATION_WEIGHTS.namedInTitle);
     expect(NEGATION_WEIGHTS.namedInTitle).toBeLessThan(1);
   });
 
   it("lowers no page for a circumstance ('without'), and leaves unrelated pages alone", () => {
-    expect(negationFactor(denies(["rig", true]), set(), set("rig", "removal"))).toBe(1);
-    expect(negationFactor(denies(["plate", false]), set(), set("grain", "match"))).toBe(1);
-    expect(negationFactor(new Map(), set("plate"), set("plate"))).toBe(1);
+    expect(negationFactor(denies(["rig", true]), set(), title("rig", "removal"))).toBe(1);
+    expect(negationFactor(denies(["plate", false]), set(), title("grain", "match"))).toBe(1);
+    expect(negationFactor(new Map(), set("plate"), title("plate"))).toBe(1);
   });
 });
 
