@@ -12,6 +12,9 @@
 export type QueryKind = "plain" | "typo" | "describe" | "filler";
 export type QualityQuery = { kind: QueryKind; query: string; expected: string; reason: string };
 
+/** One query of a set written query by query (the unseen sets). */
+export const qualityQuery = (kind: QueryKind, query: string, expected: string, reason: string): QualityQuery => ({ kind, query, expected, reason });
+
 type Row = [query: string, expected: string, reason: string];
 
 const plain: Row[] = [

@@ -4,9 +4,7 @@
  * queries, 40 of each kind, each with the one right page. Never tune on it. Trade content is
  * common practice, no published source.
  */
-import type { QualityQuery } from "./queries";
-
-const q = (kind: QualityQuery["kind"], query: string, expected: string, reason: string): QualityQuery => ({ kind, query, expected, reason });
+import { qualityQuery as q, type QualityQuery } from "./queries";
 
 export const UNSEEN_QUERIES: QualityQuery[] = [
   // ── plain ────────────────────────────────────────────────────────────────────
