@@ -266,23 +266,29 @@ unseenIndex.load(UNSEEN_PAGES.map((d) => ({ techniqueId: d.techniqueId, publishe
 const unseenJudge = await hunspellJudge(UNSEEN_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
 const allHeldOut = () => true;
 const unseenMeaning = createMeaning(encode);
-const unseen = await evaluateQuality(byWordsThenMeaning(unseenIndex, unseenMeaning), UNSEEN_QUERIES, unseenJudge, allHeldOut);
-const unseenByWords = await evaluateQuality(byWords(unseenIndex), UNSEEN_QUERIES, unseenJudge, allHeldOut);
-const unseenSecond = await evaluateQuality(byWordsThenMeaning(unseenIndex, unseenMeaning), UNSEEN_QUERIES_SECOND, unseenJudge, allHeldOut);
-const unseenSecondByWords = await evaluateQuality(byWords(unseenIndex), UNSEEN_QUERIES_SECOND, unseenJudge, allHeldOut);
-const unseenThird = await evaluateQuality(byWordsThenMeaning(unseenIndex, unseenMeaning), UNSEEN_QUERIES_THIRD, unseenJudge, allHeldOut);
-const unseenThirdByWords = await evaluateQuality(byWords(unseenIndex), UNSEEN_QUERIES_THIRD, unseenJudge, allHeldOut);
-console.log(`\nUnseen pages: ${UNSEEN_QUERIES.length} queries by the pages' writer over ${UNSEEN_PAGES.length} pages no tuning saw, ranked by words then meaning, then by words alone`);
-console.table(unseen.all);
-console.table(unseenByWords.all);
-console.log(`The same pages, ${UNSEEN_QUERIES_SECOND.length} queries by a second writer from titles and summaries only: words then meaning, then words alone`);
-console.table(unseenSecond.all);
-console.table(unseenSecondByWords.all);
-console.log(`The same pages, ${UNSEEN_QUERIES_THIRD.length} queries by a third writer from titles and summaries only: words then meaning, then words alone`);
-console.table(unseenThird.all);
-console.table(unseenThirdByWords.all);
-const unseenReports = [unseen, unseenSecond, unseenThird];
+const unseenWriters = [
+  { queries: UNSEEN_QUERIES, heading: `\nUnseen pages: ${UNSEEN_QUERIES.length} queries by the pages' writer over ${UNSEEN_PAGES.length} pages no tuning saw, ranked by words then meaning, then by words alone` },
+  { queries: UNSEEN_QUERIES_SECOND, heading: `The same pages, ${UNSEEN_QUERIES_SECOND.length} queries by a second writer from titles and summaries only: words then meaning, then words alone` },
+  { queries: UNSEEN_QUERIES_THIRD, heading: `The same pages, ${UNSEEN_QUERIES_THIRD.length} queries by a third writer from titles and summaries only: words then meaning, then words alone` },
+];
+type UnseenRun = { withMeaning: QualityReport; byWordsAlone: QualityReport };
+const unseenRuns: UnseenRun[] = [];
+for (const { queries, heading } of unseenWriters) {
+  const withMeaning = await evaluateQuality(byWordsThenMeaning(unseenIndex, unseenMeaning), queries, unseenJudge, allHeldOut);
+  const byWordsAlone = await evaluateQuality(byWords(unseenIndex), queries, unseenJudge, allHeldOut);
+  console.log(heading);
+  console.table(withMeaning.all);
+  console.table(byWordsAlone.all);
+  unseenRuns.push({ withMeaning, byWordsAlone });
+}
+const [unseen, unseenSecond, unseenThird] = unseenRuns as [UnseenRun, UnseenRun, UnseenRun];
+const unseenReports = unseenRuns.map((r) => r.withMeaning);
 console.log(`correctly spelt words "corrected": ${unseenReports.reduce((n, r) => n + r.realWordsCorrected.count, 0)} of ${unseenReports.reduce((n, r) => n + r.realWordsCorrected.wordsChecked, 0)}`);
+
+/** One unseen writer's numbers as results.json keeps them. */
+function writerResult(run: UnseenRun) {
+  return { all: run.withMeaning.all, byWordsAlone: run.byWordsAlone.all, realWordsCorrected: run.withMeaning.realWordsCorrected };
+}
 
 const rows: Row[] = [];
 for (const size of SIZES) rows.push(await runSize(size));
@@ -346,11 +352,9 @@ writeResultsKey("search", {
   qualityByWordsAlone: { all: qualityByWords.all, heldOut: qualityByWords.heldOut, tuned: qualityByWords.tuned, heldOutMissCount: qualityByWords.heldOutMissCount },
   unseenPages: {
     pages: UNSEEN_PAGES.length,
-    all: unseen.all,
-    byWordsAlone: unseenByWords.all,
-    realWordsCorrected: unseen.realWordsCorrected,
-    secondWriter: { all: unseenSecond.all, byWordsAlone: unseenSecondByWords.all, realWordsCorrected: unseenSecond.realWordsCorrected },
-    thirdWriter: { all: unseenThird.all, byWordsAlone: unseenThirdByWords.all, realWordsCorrected: unseenThird.realWordsCorrected },
+    ...writerResult(unseen),
+    secondWriter: writerResult(unseenSecond),
+    thirdWriter: writerResult(unseenThird),
   },
   rows,
   totalSeconds: Math.round((performance.now() - started) / 1000),
