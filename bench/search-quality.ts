@@ -15,6 +15,8 @@ import { UNSEEN_PAGES } from "@/tests/unit/search/quality/unseen-pages";
 import { UNSEEN_QUERIES } from "@/tests/unit/search/quality/unseen-queries";
 import { UNSEEN_QUERIES_SECOND } from "@/tests/unit/search/quality/unseen-queries-second";
 import { UNSEEN_QUERIES_THIRD } from "@/tests/unit/search/quality/unseen-queries-third";
+import { UNSEEN_PAGES_SECOND } from "@/tests/unit/search/quality/unseen-pages-second";
+import { UNSEEN_PAGES_SECOND_QUERIES } from "@/tests/unit/search/quality/unseen-pages-second-queries";
 
 import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge } from "./lib/quality";
 
@@ -50,19 +52,28 @@ if (process.argv.includes("--misses")) console.log(report.tunedMisses.join("\n")
 // over those pages alone — mixed into the quality pages its answers would be ambiguous (both sets
 // cover the same problems).
 if (process.argv.includes("--unseen")) {
-  const unseenIndex = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
-  unseenIndex.load(UNSEEN_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-  const unseenJudge = await hunspellJudge(UNSEEN_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
-  const unseenMeaning = encode && createMeaning(encode);
-  const unseenSearch = unseenMeaning ? byWordsThenMeaning(unseenIndex, unseenMeaning) : byWords(unseenIndex);
-  for (const [label, queries] of [
-    ["the pages' writer", UNSEEN_QUERIES],
-    ["a second writer, from titles and summaries only", UNSEEN_QUERIES_SECOND],
-    ["a third writer, from titles and summaries only", UNSEEN_QUERIES_THIRD],
-  ] as const) {
-    const unseenReport = await evaluateQuality(unseenSearch, queries, unseenJudge, () => true);
-    console.log(`unseen pages (held out whole), queries by ${label}`);
-    console.table(unseenReport.all);
-    console.log("real words corrected", unseenReport.realWordsCorrected);
+  const sets = [
+    {
+      pages: UNSEEN_PAGES,
+      writers: [
+        ["the pages' writer", UNSEEN_QUERIES],
+        ["a second writer, from titles and summaries only", UNSEEN_QUERIES_SECOND],
+        ["a third writer, from titles and summaries only", UNSEEN_QUERIES_THIRD],
+      ],
+    },
+    { pages: UNSEEN_PAGES_SECOND, writers: [["a writer of queries alone, from titles and summaries only (second page set)", UNSEEN_PAGES_SECOND_QUERIES]] },
+  ] as const;
+  for (const { pages, writers } of sets) {
+    const unseenIndex = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
+    unseenIndex.load(pages.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
+    const unseenJudge = await hunspellJudge(pages.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+    const unseenMeaning = encode && createMeaning(encode);
+    const unseenSearch = unseenMeaning ? byWordsThenMeaning(unseenIndex, unseenMeaning) : byWords(unseenIndex);
+    for (const [label, queries] of writers) {
+      const unseenReport = await evaluateQuality(unseenSearch, queries, unseenJudge, () => true);
+      console.log(`unseen pages (held out whole), queries by ${label}`);
+      console.table(unseenReport.all);
+      console.log("real words corrected", unseenReport.realWordsCorrected);
+    }
   }
 }
