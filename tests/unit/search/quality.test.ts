@@ -9,7 +9,7 @@ import { sentenceEncoder } from "@/lib/search/meaning-model";
 import type { SearchIndex } from "@/lib/search/types";
 
 import { QUALITY_PAGES } from "./quality/pages";
-import { isHeldOut, QUALITY_QUERIES, type QualityQuery, QUERY_KINDS } from "./quality/queries";
+import { isHeldOut, QUALITY_QUERIES, type QualityQuery, type QueryKind, QUERY_KINDS } from "./quality/queries";
 import { UNSEEN_PAGES } from "./quality/unseen-pages";
 import { UNSEEN_QUERIES } from "./quality/unseen-queries";
 import { UNSEEN_QUERIES_SECOND } from "./quality/unseen-queries-second";
@@ -25,6 +25,16 @@ function lazyMeaningReport(index: SearchIndex, queries: readonly QualityQuery[],
       if (!encode) throw new Error("the sentence encoder did not load");
       return evaluateQuality(byWordsThenMeaning(index, createMeaning(encode)), queries, judge, isHeldOutQuery);
     }));
+}
+
+type KindFloors = Record<QueryKind, { top1: number; top3: number }>;
+
+/** The kind's row of `report` is at or above its floor, and at or above `alsoAtLeast` (the engine alone) when given. */
+function expectAtFloor(report: QualityReport, kind: QueryKind, floors: KindFloors, alsoAtLeast?: QualityReport): void {
+  const row = report.all.find((r) => r.kind === kind);
+  const other = alsoAtLeast?.all.find((r) => r.kind === kind);
+  expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(Math.max(floors[kind].top3, other?.top3 ?? 0));
+  expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(Math.max(floors[kind].top1, other?.top1 ?? 0));
 }
 
 // Issue 16 "Quality": junior queries over look-alike pages. The query → page pairs and their reasons
@@ -67,16 +77,14 @@ describe("search quality set", async () => {
 
   // Floors under today's numbers (whole set, 2026-12-03). Describe-what-you-see is lower: 94 of its
   // 142 queries are held out, 68 of them from the third batch written before the WordNet layer.
-  const FLOORS: Record<(typeof QUERY_KINDS)[number], { top1: number; top3: number }> = {
+  const FLOORS: KindFloors = {
     plain: { top1: 85, top3: 95 },
     typo: { top1: 90, top3: 95 },
     describe: { top1: 70, top3: 84 },
     filler: { top1: 85, top3: 95 },
   };
   it.each(QUERY_KINDS)("%s queries stay at or above their floor for first place and the top 3 (whole set)", (kind) => {
-    const row = report.all.find((r) => r.kind === kind);
-    expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(FLOORS[kind].top3);
-    expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(FLOORS[kind].top1);
+    expectAtFloor(report, kind, FLOORS);
   });
 
   // What people get: the engine's order, then ranking by meaning (lib/search/meaning.ts) with the real
@@ -90,10 +98,7 @@ describe("search quality set", async () => {
   };
   const withMeaning = lazyMeaningReport(index, QUALITY_QUERIES, judge);
   it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor and the engine alone", async (kind) => {
-    const row = (await withMeaning()).all.find((r) => r.kind === kind);
-    const alone = report.all.find((r) => r.kind === kind);
-    expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(Math.max(MEANING_FLOORS[kind].top3, alone?.top3 ?? 0));
-    expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(Math.max(MEANING_FLOORS[kind].top1, alone?.top1 ?? 0));
+    expectAtFloor(await withMeaning(), kind, MEANING_FLOORS, report);
   });
 
   it("quick finder titles: misspelt partial input still finds the technique", () => {
@@ -139,7 +144,7 @@ describe("search quality on pages no tuning saw", async () => {
     expect(byWordsReport.realWordsCorrected.examples).toEqual([]);
   });
 
-  const UNSEEN_FLOORS: Record<(typeof QUERY_KINDS)[number], { top1: number; top3: number }> = {
+  const UNSEEN_FLOORS: KindFloors = {
     plain: { top1: 95, top3: 97 },
     typo: { top1: 95, top3: 97 },
     describe: { top1: 77, top3: 92 },
@@ -147,17 +152,14 @@ describe("search quality on pages no tuning saw", async () => {
   };
   const withMeaning = lazyMeaningReport(index, UNSEEN_QUERIES, judge, allHeldOut);
   it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor and the engine alone", async (kind) => {
-    const row = (await withMeaning()).all.find((r) => r.kind === kind);
-    const alone = byWordsReport.all.find((r) => r.kind === kind);
-    expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(Math.max(UNSEEN_FLOORS[kind].top3, alone?.top3 ?? 0));
-    expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(Math.max(UNSEEN_FLOORS[kind].top1, alone?.top1 ?? 0));
+    expectAtFloor(await withMeaning(), kind, UNSEEN_FLOORS, byWordsReport);
   });
 
   // A second writer's 120 queries over the same pages, from their titles and summaries only (first
   // measurement, words then meaning: plain 100/100, typo 96.7/100, describe 83.3/100, filler 93.3/100;
   // words alone typo 100/100 — meaning cost one typo query its first place, so only the whole set is
   // held to "not below words alone").
-  const SECOND_FLOORS: typeof UNSEEN_FLOORS = {
+  const SECOND_FLOORS: KindFloors = {
     plain: { top1: 95, top3: 97 },
     typo: { top1: 93, top3: 97 },
     describe: { top1: 77, top3: 95 },
@@ -172,14 +174,12 @@ describe("search quality on pages no tuning saw", async () => {
     expect((await secondWithMeaning()).realWordsCorrected.examples).toEqual([]);
   });
   it.each(QUERY_KINDS)("%s queries of the second writer stay at or above their floor", async (kind) => {
-    const row = (await secondWithMeaning()).all.find((r) => r.kind === kind);
-    expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(SECOND_FLOORS[kind].top3);
-    expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(SECOND_FLOORS[kind].top1);
+    expectAtFloor(await secondWithMeaning(), kind, SECOND_FLOORS);
   });
   // A third writer's 120, written the same way on 2026-12-05 (first measurement, words then meaning:
   // plain 93.3/100, typo 100/100, describe 96.7/100, filler 93.3/100; words alone plain 96.7, describe
   // 93.3, filler 96.7/96.7 — meaning moves single queries both ways here, so no "not below" rule).
-  const THIRD_FLOORS: typeof UNSEEN_FLOORS = {
+  const THIRD_FLOORS: KindFloors = {
     plain: { top1: 90, top3: 97 },
     typo: { top1: 95, top3: 97 },
     describe: { top1: 90, top3: 97 },
@@ -194,9 +194,7 @@ describe("search quality on pages no tuning saw", async () => {
     expect((await thirdWithMeaning()).realWordsCorrected.examples).toEqual([]);
   });
   it.each(QUERY_KINDS)("%s queries of the third writer stay at or above their floor", async (kind) => {
-    const row = (await thirdWithMeaning()).all.find((r) => r.kind === kind);
-    expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(THIRD_FLOORS[kind].top3);
-    expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(THIRD_FLOORS[kind].top1);
+    expectAtFloor(await thirdWithMeaning(), kind, THIRD_FLOORS);
   });
 
   it("ranks the second writer's queries, taken together, no worse with meaning than by words alone", async () => {
@@ -218,7 +216,7 @@ describe("search quality on a second set of pages no tuning saw", async () => {
   index.load(UNSEEN_PAGES_SECOND.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
   const judge = await hunspellJudge(UNSEEN_PAGES_SECOND.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
   const allHeldOut = () => true;
-  const FLOORS: Record<(typeof QUERY_KINDS)[number], { top1: number; top3: number }> = {
+  const FLOORS: KindFloors = {
     plain: { top1: 95, top3: 97 },
     typo: { top1: 95, top3: 97 },
     describe: { top1: 90, top3: 97 },
@@ -239,8 +237,6 @@ describe("search quality on a second set of pages no tuning saw", async () => {
     expect(report.realWordsCorrected.examples).toEqual([]);
   });
   it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor", async (kind) => {
-    const row = (await withMeaning()).all.find((r) => r.kind === kind);
-    expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(FLOORS[kind].top3);
-    expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(FLOORS[kind].top1);
+    expectAtFloor(await withMeaning(), kind, FLOORS);
   });
 });
