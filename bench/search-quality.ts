@@ -61,7 +61,7 @@ if (process.argv.includes("--unseen")) {
         ["a third writer, from titles and summaries only", UNSEEN_QUERIES_THIRD],
       ],
     },
-    { pages: UNSEEN_PAGES_SECOND, writers: [["a writer of queries alone, from titles and summaries only (second page set)", UNSEEN_PAGES_SECOND_QUERIES]] },
+    { pages: UNSEEN_PAGES_SECOND, writers: [["the second page set's query writer, from titles and summaries only", UNSEEN_PAGES_SECOND_QUERIES]] },
   ] as const;
   for (const { pages, writers } of sets) {
     const unseenIndex = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
