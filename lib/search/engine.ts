@@ -21,7 +21,7 @@
 import type { Language } from "./language";
 import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore } from "./postings";
 import { parseQuery, type Alternative, type ParseOptions, type QueryPlan } from "./query";
-import { denialPhrases, negatedWords, negationFactor } from "./negation";
+import { negatedWords, negationFactor, readDenials, type NegatedWord } from "./negation";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
 import { isThesaurusKind, isWordNetKind, Scorer } from "./scoring";
 import { SYMPTOM_LEXICON } from "./lexicon";
@@ -295,10 +295,10 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     return out.size ? out : NO_STEMS;
   }
 
-  /** What the query denies, by stem; true when every denial of it is only a circumstance ("without"). */
-  function queryDenials(query: string): Map<string, boolean> {
+  /** What the query's denials deny, by stem; true when every denial of it is only a circumstance ("without"). */
+  function deniedByQuery(found: readonly { words: readonly NegatedWord[] }[]): Map<string, boolean> {
     const out = new Map<string, boolean>();
-    for (const n of negatedWords(query)) {
+    for (const n of found.flatMap((d) => d.words)) {
       const stem = stemOf(n.word);
       out.set(stem, (out.get(stem) ?? true) && n.isCircumstance);
     }
@@ -445,7 +445,8 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const isEmptyQuery = p.units.length === 0;
 
     // Read from the corrected text, so "no claen plate" denies the plate pages call clean.
-    const denied = isEmptyQuery ? new Map<string, boolean>() : queryDenials(corrected);
+    const queryDenials = isEmptyQuery ? [] : readDenials(corrected);
+    const denied = deniedByQuery(queryDenials);
     let c: Candidates;
     if (isEmptyQuery) {
       const wanted = filters.tags.map((slug) => tagIndex.get(slug) ?? -1);
@@ -491,7 +492,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
       total: selected.length,
       facets: facetsOf(selectedIds, statusCounts),
       ...(corrected !== query ? { corrected } : {}),
-      ...(denied.size > 0 && options.sort !== "recent" ? { denials: denialPhrases(corrected) } : {}),
+      ...(denied.size > 0 && options.sort !== "recent" ? { denials: queryDenials.map((d) => d.phrase) } : {}),
       tookMs: Math.round((performance.now() - t0) * 100) / 100,
     };
   }

@@ -60,6 +60,11 @@ export type NegatedWord = {
 /** One negator and what it covers: `start`–`end` spans the text from the negator to its last word. */
 type Denial = { words: NegatedWord[]; start: number; end: number };
 
+/** Each denial in `text`: the words it covers, and the phrase as written ("didn't shoot a clean plate"). */
+export function readDenials(text: string): { words: NegatedWord[]; phrase: string }[] {
+  return denials(text).map((d) => ({ words: d.words, phrase: text.slice(d.start, d.end) }));
+}
+
 function denials(text: string): Denial[] {
   const tokens = tokenize(text);
   const isNewClause = (j: number): boolean => CLAUSE_MARK.test(text.slice((tokens[j - 1] as Token).end, (tokens[j] as Token).start));
@@ -100,11 +105,6 @@ export function negatedWords(text: string): NegatedWord[] {
   return denials(text).flatMap((d) => d.words);
 }
 
-/** Each denial as written, from its negator to its last word ("didn't shoot a clean plate"), for people to read. */
-export function denialPhrases(text: string): string[] {
-  return denials(text).map((d) => text.slice(d.start, d.end));
-}
-
 /** How much a page's score changes when the query denies something: see `negationFactor`. */
 export const NEGATION_WEIGHTS = { sharedDenial: 1.5, namedInTitle: 0.5 } as const;
 
@@ -116,6 +116,6 @@ export const NEGATION_WEIGHTS = { sharedDenial: 1.5, namedInTitle: 0.5 } as cons
  */
 export function negationFactor(queryDenies: ReadonlyMap<string, boolean>, pageDenies: ReadonlySet<string>, titleNames: (stem: string) => boolean): number {
   for (const stem of queryDenies.keys()) if (pageDenies.has(stem)) return NEGATION_WEIGHTS.sharedDenial;
-  for (const [stem, isCircumstance] of queryDenies) if (!isCircumstance && titleNames(stem) && !pageDenies.has(stem)) return NEGATION_WEIGHTS.namedInTitle;
+  for (const [stem, isCircumstance] of queryDenies) if (!isCircumstance && titleNames(stem)) return NEGATION_WEIGHTS.namedInTitle;
   return 1;
 }

@@ -1,11 +1,13 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 
-import { denialPhrases, NEGATION_WEIGHTS, negatedWords, negationFactor } from "@/lib/search/negation";
+import { NEGATION_WEIGHTS, negatedWords, negationFactor, readDenials } from "@/lib/search/negation";
 
 // How far a negation reaches is Plateroom's own rule (issue 16), written from plain English usage:
 // a negator covers the words after it up to the end of its clause. Not from a published source.
 const words = (text: string) => negatedWords(text).map((n) => n.word);
+/** Each denial as written, for people to read. */
+const denialPhrases = (text: string) => readDenials(text).map((d) => d.phrase);
 
 describe("negatedWords", () => {
   it("covers what follows 'no', 'without', 'none', with or without the apostrophe in contractions", () => {
@@ -65,7 +67,7 @@ describe("negatedWords", () => {
   });
 });
 
-describe("denialPhrases", () => {
+describe("readDenials", () => {
   it("gives each denial as typed, from its negator to its last word", () => {
     expect(denialPhrases("they didn't shoot a clean plate, the rig is in every frame")).toEqual(["didn't shoot a clean plate"]);
     expect(denialPhrases("No markers and the camera doesnt move")).toEqual(["No markers", "doesnt move"]);
