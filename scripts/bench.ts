@@ -1,5 +1,5 @@
 /*
- * `npm run bench`: the still lab, search, plate check, load, oversized-body, password-reset timing and soak
+ * `npm run bench`: the still lab, search (in-process, then through the running demo), plate check, load, oversized-body, password-reset timing and soak
  * benchmarks in turn, each in its own process (so one's heap, worker threads and server do not
  * weigh on the next), then one summary from bench/results.json. Names after `--` run only those
  * steps: `npm run bench -- technique-page` (the uncached technique-page row alone). `npm run bench -- --quick` passes
@@ -23,6 +23,7 @@ const steps: { name: string; script: string; args: string[]; env?: Record<string
   { name: "lab", script: "bench/lab.ts", args: quick ? ["--quick"] : [] },
   { name: "exr", script: "bench/exr.ts", args: quick ? ["--quick"] : [] },
   { name: "search", script: "bench/search.ts", args: quick ? ["--quick"] : [] },
+  { name: "search-live", script: "bench/search-live.ts", args: [] },
   { name: "technique-page", script: "bench/technique-page.ts", args: [], env: quick ? { PAGE_DURATION: process.env.PAGE_DURATION ?? "10" } : {} },
   { name: "plate-check", script: "bench/plate-check.ts", args: quick ? ["--quick"] : [] },
   { name: "load", script: "bench/load.ts", args: [], env: quick ? { LOAD_DURATION: process.env.LOAD_DURATION ?? "10", LOAD_CONNECTIONS: process.env.LOAD_CONNECTIONS ?? "20" } : {} },
@@ -87,6 +88,14 @@ if (search) {
   console.table(rows.map((r) => ({ techniques: r.size, "build ms": r.buildMs, "p50 ms": r.p50, "p95 ms": r.p95, "fuse p50 ms": r.fuseP50, "memory MB": r.memoryMB, quality: r.quality })));
   const targets = get(search, "targets");
   if (targets) console.log("Search targets:", targets);
+}
+
+const searchLive = results.searchLive;
+if (searchLive) {
+  console.log("Search through the running demo (unseen page sets added through the API; top-1 / top-3 %)");
+  const sets = (get(searchLive, "sets") ?? []) as Json[];
+  const kinds = (s: Json) => Object.fromEntries(((s.all ?? []) as Json[]).map((k) => [String(k.kind), `${fmt(k.top1)} / ${fmt(k.top3)}`]));
+  console.table(sets.map((s) => ({ set: s.name, ...kinds(s), "tookMs p50/p95": `${fmt(get(s, "tookMs", "p50"))} / ${fmt(get(s, "tookMs", "p95"))}` })));
 }
 
 const page = results.techniquePage;
