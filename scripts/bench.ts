@@ -92,7 +92,7 @@ if (search) {
 
 const searchLive = results.searchLive;
 if (searchLive) {
-  console.log("Search through the running demo (unseen page sets added through the API; top-1 / top-3 %)");
+  console.log(`Search through the running demo (unseen page sets added through the API, ranked ${fmt(get(searchLive, "ranking"))}; top-1 / top-3 %)`);
   const sets = (get(searchLive, "sets") ?? []) as Json[];
   const kinds = (s: Json) => Object.fromEntries(((s.all ?? []) as Json[]).map((k) => [String(k.kind), `${fmt(k.top1)} / ${fmt(k.top3)}`]));
   console.table(sets.map((s) => ({ set: s.name, ...kinds(s), "tookMs p50/p95": `${fmt(get(s, "tookMs", "p50"))} / ${fmt(get(s, "tookMs", "p95"))}` })));

@@ -337,7 +337,8 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const out: Candidates = { ids: [], score: new Float64Array(n), naming: new Float64Array(n), coverage: new Float64Array(n), house: new Uint8Array(n) };
     let k = 0;
     for (let i = 0; i < n; i++) {
-      const cov = scored.coverage[i] as number;
+      // The list's floor asks whether the page meets every word at all; the grade above, how well.
+      const cov = scored.answered[i] as number;
       if (!keep[i] || !staysInList(graded[i] as number, cov, best)) continue;
       const id = scored.ids[i] as number;
       out.ids.push(id);

@@ -1,8 +1,9 @@
 /**
  * Ranking rules: from scores to the order people see.
- * 1. A page's score is scaled by how much of the query it covers (a soft grade, not a gate).
+ * 1. A page's score is scaled by how much of the query it covers (a soft grade, not a gate); a word
+ *    met only in a long body covers its query word in part (scoring.ts, the coverage credit).
  * 2. Pages that answer only part of the query and score far below the best (under FLOOR of it)
- *    are left out, so the list stays short; a page that answers every word always stays.
+ *    are left out, so the list stays short; a page that meets every word, wherever, always stays.
  * 3. Among good matches (at least GOOD_MATCH of the best) approved techniques come before drafts
  *    and reviews; weaker unapproved ones count half; retired ones come last.
  * 4. The department's method for a problem the query is about moves up when its score is close to

@@ -88,11 +88,21 @@ export function bm25Idf(docCount: number, docFreq: number): number {
 }
 
 /** Candidates of one query: internal ids with their scores, title/alias ("naming") scores and coverage. */
-export type ScoredCandidates = { ids: number[]; scores: Float64Array; naming: Float64Array; coverage: Float64Array };
+export type ScoredCandidates = {
+  ids: number[];
+  scores: Float64Array;
+  naming: Float64Array;
+  /** Share of the query's content words the page covers, for the grade (a long body's words in part). */
+  coverage: Float64Array;
+  /** Share of them the page meets anywhere at all (WordNet relatives in part): 1 keeps it in the list. */
+  answered: Float64Array;
+};
 
 const MAX_COLUMNS = MAX_UNITS + Math.ceil(MAX_UNITS / 2);
-const ROW = 3 * MAX_COLUMNS;
+const ROW = 4 * MAX_COLUMNS;
 const CREDIT = 2 * MAX_COLUMNS;
+/** The coverage credit times the length credit (the pool's fourth slot). */
+const GRADED_CREDIT = 3 * MAX_COLUMNS;
 
 /**
  * How much of a query word a page answers when it matches it only by this kind of alternative (the
@@ -103,6 +113,9 @@ export function coverageCredit(kind: Alternative["kind"]): number {
   return isWordNetKind(kind) ? 0.5 : 1;
 }
 
+/** Per stem and page in the scorer's pool: field-weighted score, naming part, short-field part, coverage credit. */
+const SLOTS = 4;
+
 /** Reuses its scratch arrays across queries (single-threaded, so no sharing hazard). */
 export class Scorer {
   private rows = new Float64Array(1024 * ROW);
@@ -110,6 +123,7 @@ export class Scorer {
   private altSum = new Float64Array(1024);
   private altNaming = new Float64Array(1024);
   private altCount = new Uint8Array(1024);
+  private altCredit = new Float64Array(1024);
   private altStamp = new Int32Array(1024);
   private counter = 0;
 
@@ -124,6 +138,7 @@ export class Scorer {
     this.altSum = new Float64Array(size);
     this.altNaming = new Float64Array(size);
     this.altCount = new Uint8Array(size);
+    this.altCredit = new Float64Array(size);
     this.altStamp = new Int32Array(size);
   }
 
@@ -152,7 +167,7 @@ export class Scorer {
   }
 
   /** Per-stem scores of one query, side by side in one reusable buffer (no arrays made per stem). */
-  private pool = new Float64Array(3 * 4096);
+  private pool = new Float64Array(SLOTS * 4096);
 
   /**
    * Scores every document that answers some unit of the plan. `fieldMask` limits the fields read
@@ -174,7 +189,13 @@ export class Scorer {
      * BM25 of each posting of a stem, fields summed with weights (and the naming fields' part apart),
      * computed once per stem per query: several alternatives often share a stem ("lens distortion",
      * "barrel distortion", "pincushion distortion"). Kept in `pool` from `at`: the field-weighted
-     * sums, then the naming part, then the short-field part, `n` each.
+     * sums, then the naming part, then the short-field part, then the coverage credit, `n` each.
+     * Coverage credit (ranking.ts rule 1): a word in the title, aliases, tags or summary covers its
+     * query word fully; a word met only in the body, parameters or shots covers it by BM25's
+     * term-frequency part, (K1 + 1) · tf / (tf + K1 · (1 − b + b · length / average)), at most 1 —
+     * fully for one mention in a body of average length, about 0.7 for one mention in a body twice
+     * as long. A long page meets more of a long query's words by chance; without this its coverage
+     * grade rose with its length (the demo's 230–630-word pages over 90–150-word ones).
      */
     type StemScores = { data: Uint32Array; n: number; at: number };
     const byStem = new Map<number, StemScores | null>();
@@ -189,14 +210,14 @@ export class Scorer {
       }
       const n = list.n;
       const data = list.data;
-      if (poolUsed + 3 * n > this.pool.length) {
-        const next = new Float64Array(Math.max(this.pool.length * 2, poolUsed + 3 * n));
+      if (poolUsed + SLOTS * n > this.pool.length) {
+        const next = new Float64Array(Math.max(this.pool.length * 2, poolUsed + SLOTS * n));
         next.set(this.pool.subarray(0, poolUsed));
         this.pool = next;
       }
       const pool = this.pool;
       const at = poolUsed;
-      poolUsed += 3 * n;
+      poolUsed += SLOTS * n;
       for (let k = 0; k < n; k++) {
         const id = data[k * 2] as number;
         let packed = data[k * 2 + 1] as number;
@@ -204,17 +225,22 @@ export class Scorer {
         let total = 0;
         let named = 0;
         let inShort = 0;
+        let longCredit = 0;
         for (let f = 0; packed !== 0; f++, packed >>>= 4) {
           const tf = packed & 15;
           if (tf === 0) continue;
-          const v = ((weights[f] as number) * tf) / (tf + (norms[base + f] as number));
+          const saturation = tf / (tf + (norms[base + f] as number));
+          const v = (weights[f] as number) * saturation;
           total += v;
           if (f <= F_ALIASES) named += v;
           if (f <= F_SUMMARY) inShort += v;
+          // BM25's term-frequency part: 1 for one mention in a field of average length.
+          else if ((weights[f] as number) > 0) longCredit = Math.max(longCredit, (K1 + 1) * saturation);
         }
         pool[at + k] = total;
         pool[at + n + k] = named;
         pool[at + 2 * n + k] = inShort;
+        pool[at + 3 * n + k] = inShort > 0 ? 1 : Math.min(1, longCredit);
       }
       cached = { data, n, at };
       byStem.set(sid, cached);
@@ -228,11 +254,12 @@ export class Scorer {
       }
       return id * ROW;
     };
-    const keep = (id: number, column: number, s: number, naming: number, credit: number): void => {
+    const keep = (id: number, column: number, s: number, naming: number, credit: number, gradedCredit: number): void => {
       const at = touch(id);
       if (s > (rows[at + column] as number)) rows[at + column] = s;
       if (naming > (rows[at + MAX_COLUMNS + column] as number)) rows[at + MAX_COLUMNS + column] = naming;
       if (credit > (rows[at + CREDIT + column] as number)) rows[at + CREDIT + column] = credit;
+      if (gradedCredit > (rows[at + GRADED_CREDIT + column] as number)) rows[at + GRADED_CREDIT + column] = gradedCredit;
     };
 
     // Early cut-off: where the word itself (or a strong form of it) is on pages, a weak alternative
@@ -290,6 +317,8 @@ export class Scorer {
             const nm = (pool[from + n + k] as number) * nameScale;
             if (nm > (rows[at + MAX_COLUMNS] as number)) rows[at + MAX_COLUMNS] = nm;
             if (credit > (rows[at + CREDIT] as number)) rows[at + CREDIT] = credit;
+            const graded = credit * (pool[from + 3 * n + k] as number);
+            if (graded > (rows[at + GRADED_CREDIT] as number)) rows[at + GRADED_CREDIT] = graded;
           }
           continue;
         }
@@ -316,8 +345,10 @@ export class Scorer {
               this.altSum[id] = 0;
               this.altNaming[id] = 0;
               this.altCount[id] = 0;
+              this.altCredit[id] = 1;
               hits.push(id);
             }
+            this.altCredit[id] = Math.min(this.altCredit[id] as number, pool[sc.at + 3 * sc.n + k] as number);
             this.altSum[id] = (this.altSum[id] as number) + s * idf;
             this.altNaming[id] = (this.altNaming[id] as number) + naming * idf;
             this.altCount[id] = (this.altCount[id] as number) + 1;
@@ -326,7 +357,7 @@ export class Scorer {
         const n = alt.stems.length;
         for (const id of hits) {
           if (this.altCount[id] !== n || (joins && this.stamp[id] !== queryStamp)) continue;
-          keep(id, column, ((this.altSum[id] as number) / n) * alt.weight, ((this.altNaming[id] as number) / n) * alt.weight * namingShare, credit);
+          keep(id, column, ((this.altSum[id] as number) / n) * alt.weight, ((this.altNaming[id] as number) / n) * alt.weight * namingShare, credit, credit * (this.altCredit[id] as number));
         }
       }
     };
@@ -350,11 +381,13 @@ export class Scorer {
     const scores = new Float64Array(touched.length);
     const naming = new Float64Array(touched.length);
     const coverage = new Float64Array(touched.length);
+    const answered = new Float64Array(touched.length);
     for (let t = 0; t < touched.length; t++) {
       const at = (touched[t] as number) * ROW;
       let total = 0;
       let named = 0;
       let covered = 0;
+      let met = 0;
       for (let j = 0; j < looseUnits.length; j++) {
         const i = looseUnits[j] as number;
         const v = rows[at + i] as number;
@@ -362,13 +395,15 @@ export class Scorer {
         const w = unitWeight[i] as number;
         total += w * v;
         named += w * (rows[at + MAX_COLUMNS + i] as number);
-        covered += w * (rows[at + CREDIT + i] as number);
+        met += w * (rows[at + CREDIT + i] as number);
+        covered += w * (rows[at + GRADED_CREDIT + i] as number);
       }
       for (let si = 0; si < spans.length; si++) {
         const s = spans[si] as QuerySpan;
         let sum = 0;
         let sumNamed = 0;
         let sumCovered = 0;
+        let sumMet = 0;
         let spanWeight = 0;
         for (let k = s.first; k < s.first + s.count; k++) {
           const w = unitWeight[k] as number;
@@ -377,18 +412,21 @@ export class Scorer {
           if (v === 0) continue;
           sum += w * v;
           sumNamed += w * (rows[at + MAX_COLUMNS + k] as number);
-          sumCovered += w * (rows[at + CREDIT + k] as number);
+          sumMet += w * (rows[at + CREDIT + k] as number);
+          sumCovered += w * (rows[at + GRADED_CREDIT + k] as number);
         }
         const own = spanWeight * (rows[at + unitCount + si] as number);
         const ownNamed = spanWeight * (rows[at + MAX_COLUMNS + unitCount + si] as number);
         total += Math.max(sum, own);
         named += Math.max(sumNamed, ownNamed);
-        covered += own > 0 ? spanWeight * (rows[at + CREDIT + unitCount + si] as number) : sumCovered;
+        met += own > 0 ? spanWeight * (rows[at + CREDIT + unitCount + si] as number) : sumMet;
+        covered += own > 0 ? spanWeight * (rows[at + GRADED_CREDIT + unitCount + si] as number) : sumCovered;
       }
       scores[t] = total;
       naming[t] = named;
       coverage[t] = covered / totalWeight;
+      answered[t] = met / totalWeight;
     }
-    return { ids: touched, scores, naming, coverage };
+    return { ids: touched, scores, naming, coverage, answered };
   }
 }

@@ -184,8 +184,9 @@ describe("searchWithMeaning", () => {
     const stopped = new Error("worker stopped");
     const failing = createMeaning(() => Promise.reject(stopped));
     for (let i = 0; i < 3; i++) {
-      const res = await searchWithMeaning(index, "lens drops rain", opts, failing);
-      expect(res.results.map((r) => r.slug)).toEqual(index.search("lens drops rain", opts).results.map((r) => r.slug));
+      const res = await searchWithMeaning(index, "lens drops", opts, failing);
+      expect(res.results.length).toBeGreaterThan(1);
+      expect(res.results.map((r) => r.slug)).toEqual(index.search("lens drops", opts).results.map((r) => r.slug));
     }
     expect(errors).toHaveBeenCalledTimes(1);
     expect(String(errors.mock.calls[0]?.[0])).toMatch(/ranking by meaning failed/);

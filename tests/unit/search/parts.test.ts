@@ -220,6 +220,30 @@ describe("scoring", () => {
     expect(s.coverage[s.ids.indexOf(1)]).toBeCloseTo(2 / 3, 5);
   });
 
+  it("lets a word met only in a long body cover its query word in part, by BM25's term-frequency part", () => {
+    // BM25's term-frequency part (K1 + 1) · tf / (tf + K1 · (1 − b + b · length / average)), K1 1.2 and
+    // b 0.75 for the body (Robertson and Zaragoza, "The Probabilistic Relevance Framework: BM25 and
+    // Beyond", 2009 — formula from memory): 1 for one mention at average length, capped at 1.
+    const filler = (n: number, from = 0) => Array.from({ length: n }, (_, i) => `w${from + i}x`).join(" ");
+    const docs = [
+      doc({ title: "Alpha", bodyText: `crane ${filler(9)}` }),
+      doc({ title: "Beta", bodyText: `crane ${filler(59, 100)}` }),
+      doc({ title: "Gamma", summary: "A crane in shot.", bodyText: filler(59, 200) }),
+      doc({ title: "Delta", bodyText: `crane crane crane ${filler(57, 300)}` }),
+      ...Array.from({ length: 6 }, (_, i) => doc({ title: `Other ${i}`, bodyText: filler(10, 400 + 10 * i) })),
+    ];
+    const { ctx, scorer } = build(docs);
+    const s = scorer.score(parseQuery("crane", ctx, { prefix: "none", exact: false }), 0b1111111, docs.length);
+    const coverage = (id: number) => s.coverage[s.ids.indexOf(id)] as number;
+    const average = (10 + 60 + 59 + 60 + 6 * 10) / 10;
+    const tfPart = (tf: number, length: number) => (2.2 * tf) / (tf + 1.2 * (0.25 + (0.75 * length) / average));
+    expect(coverage(0)).toBe(1); // a short body: the part is over 1, capped
+    expect(coverage(1)).toBeCloseTo(tfPart(1, 60), 5); // ≈ 0.58: one mention in a body 2.4 times the average
+    expect(coverage(2)).toBe(1); // named in the summary: covered whatever the body's length
+    expect(coverage(3)).toBeCloseTo(Math.min(1, tfPart(3, 60)), 5); // three mentions count more than one
+    expect(coverage(3)).toBeGreaterThan(coverage(1));
+  });
+
   it("lets a thesaurus term on most of many pages add to pages the word found, but bring in none of its own", () => {
     const docs = [
       doc({ title: "Crash mats", bodyText: "pads" }),
