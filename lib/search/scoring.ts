@@ -101,7 +101,7 @@ export type ScoredCandidates = {
 const MAX_COLUMNS = MAX_UNITS + Math.ceil(MAX_UNITS / 2);
 const ROW = 4 * MAX_COLUMNS;
 const CREDIT = 2 * MAX_COLUMNS;
-/** The coverage credit times the length credit (the pool's fourth slot). */
+/** The coverage credit times the length credit (the pool's fourth slot): what the grade counts. */
 const GRADED_CREDIT = 3 * MAX_COLUMNS;
 
 /**
@@ -113,7 +113,7 @@ export function coverageCredit(kind: Alternative["kind"]): number {
   return isWordNetKind(kind) ? 0.5 : 1;
 }
 
-/** Per stem and page in the scorer's pool: field-weighted score, naming part, short-field part, coverage credit. */
+/** Per stem and page in the scorer's pool: field-weighted score, naming part, short-field part, length credit. */
 const SLOTS = 4;
 
 /** Reuses its scratch arrays across queries (single-threaded, so no sharing hazard). */
@@ -189,8 +189,8 @@ export class Scorer {
      * BM25 of each posting of a stem, fields summed with weights (and the naming fields' part apart),
      * computed once per stem per query: several alternatives often share a stem ("lens distortion",
      * "barrel distortion", "pincushion distortion"). Kept in `pool` from `at`: the field-weighted
-     * sums, then the naming part, then the short-field part, then the coverage credit, `n` each.
-     * Coverage credit (ranking.ts rule 1): a word in the title, aliases, tags or summary covers its
+     * sums, then the naming part, then the short-field part, then the length credit, `n` each.
+     * Length credit (the coverage grade, ranking.ts rule 1): a word in the title, aliases, tags or summary covers its
      * query word fully; a word met only in the body, parameters or shots covers it by BM25's
      * term-frequency part, (K1 + 1) · tf / (tf + K1 · (1 − b + b · length / average)), at most 1 —
      * fully for one mention in a body of average length, about 0.7 for one mention in a body twice
