@@ -20,17 +20,14 @@ import { percentile, writeResultsKey } from "@/bench/lib/results";
 import type { SearchDocument, SearchResponse } from "@/lib/search/types";
 import { DEMO_PASSWORD, startApp } from "@/tests/e2e/harness";
 import type { QualityQuery } from "@/tests/unit/search/quality/queries";
-import { UNSEEN_PAGES } from "@/tests/unit/search/quality/unseen-pages";
-import { UNSEEN_PAGES_SECOND } from "@/tests/unit/search/quality/unseen-pages-second";
-import { UNSEEN_PAGES_SECOND_QUERIES } from "@/tests/unit/search/quality/unseen-pages-second-queries";
-import { UNSEEN_QUERIES } from "@/tests/unit/search/quality/unseen-queries";
-import { UNSEEN_QUERIES_SECOND } from "@/tests/unit/search/quality/unseen-queries-second";
-import { UNSEEN_QUERIES_THIRD } from "@/tests/unit/search/quality/unseen-queries-third";
+import { UNSEEN_SETS } from "@/tests/unit/search/quality/unseen-sets";
 
-const SETS: { name: string; pages: SearchDocument[]; queries: QualityQuery[] }[] = [
-  { name: "unseen pages, three writers", pages: UNSEEN_PAGES, queries: [...UNSEEN_QUERIES, ...UNSEEN_QUERIES_SECOND, ...UNSEEN_QUERIES_THIRD] },
-  { name: "second unseen pages", pages: UNSEEN_PAGES_SECOND, queries: UNSEEN_PAGES_SECOND_QUERIES },
-];
+// Each set's writers together: the set is added to the demo once and all its queries run over it.
+const SETS: { name: string; pages: SearchDocument[]; queries: QualityQuery[] }[] = UNSEEN_SETS.map((set) => ({
+  name: set.name,
+  pages: set.pages,
+  queries: set.writers.flatMap((w) => w.queries),
+}));
 
 type SetResult = {
   name: string;

@@ -11,12 +11,7 @@ import { sentenceEncoder } from "@/lib/search/meaning-model";
 import { STARTER_THESAURUS } from "@/scripts/seed/data/thesaurus";
 import { QUALITY_PAGES } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
-import { UNSEEN_PAGES } from "@/tests/unit/search/quality/unseen-pages";
-import { UNSEEN_QUERIES } from "@/tests/unit/search/quality/unseen-queries";
-import { UNSEEN_QUERIES_SECOND } from "@/tests/unit/search/quality/unseen-queries-second";
-import { UNSEEN_QUERIES_THIRD } from "@/tests/unit/search/quality/unseen-queries-third";
-import { UNSEEN_PAGES_SECOND } from "@/tests/unit/search/quality/unseen-pages-second";
-import { UNSEEN_PAGES_SECOND_QUERIES } from "@/tests/unit/search/quality/unseen-pages-second-queries";
+import { UNSEEN_SETS } from "@/tests/unit/search/quality/unseen-sets";
 
 import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge } from "./lib/quality";
 
@@ -52,26 +47,15 @@ if (process.argv.includes("--misses")) console.log(report.tunedMisses.join("\n")
 // over those pages alone — mixed into the quality pages its answers would be ambiguous (both sets
 // cover the same problems).
 if (process.argv.includes("--unseen")) {
-  const sets = [
-    {
-      pages: UNSEEN_PAGES,
-      writers: [
-        ["the pages' writer", UNSEEN_QUERIES],
-        ["a second writer, from titles and summaries only", UNSEEN_QUERIES_SECOND],
-        ["a third writer, from titles and summaries only", UNSEEN_QUERIES_THIRD],
-      ],
-    },
-    { pages: UNSEEN_PAGES_SECOND, writers: [["the second page set's query writer, from titles and summaries only", UNSEEN_PAGES_SECOND_QUERIES]] },
-  ] as const;
-  for (const { pages, writers } of sets) {
+  for (const { name, pages, writers } of UNSEEN_SETS) {
     const unseenIndex = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
     unseenIndex.load(pages.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
     const unseenJudge = await hunspellJudge(pages.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
     const unseenMeaning = encode && createMeaning(encode);
     const unseenSearch = unseenMeaning ? byWordsThenMeaning(unseenIndex, unseenMeaning) : byWords(unseenIndex);
-    for (const [label, queries] of writers) {
+    for (const { writer, queries } of writers) {
       const unseenReport = await evaluateQuality(unseenSearch, queries, unseenJudge, () => true);
-      console.log(`unseen pages (held out whole), queries by ${label}`);
+      console.log(`${name} (held out whole), queries by ${writer}`);
       console.table(unseenReport.all);
       console.log("real words corrected", unseenReport.realWordsCorrected);
     }

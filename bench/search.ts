@@ -25,12 +25,7 @@ import { sentenceEncoder } from "@/lib/search/meaning-model";
 import type { SearchDocument } from "@/lib/search/types";
 import { QUALITY_PAGES as FIXTURE_DOCS } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
-import { UNSEEN_PAGES } from "@/tests/unit/search/quality/unseen-pages";
-import { UNSEEN_QUERIES } from "@/tests/unit/search/quality/unseen-queries";
-import { UNSEEN_QUERIES_SECOND } from "@/tests/unit/search/quality/unseen-queries-second";
-import { UNSEEN_QUERIES_THIRD } from "@/tests/unit/search/quality/unseen-queries-third";
-import { UNSEEN_PAGES_SECOND } from "@/tests/unit/search/quality/unseen-pages-second";
-import { UNSEEN_PAGES_SECOND_QUERIES } from "@/tests/unit/search/quality/unseen-pages-second-queries";
+import { UNSEEN_SETS, type UnseenSet } from "@/tests/unit/search/quality/unseen-sets";
 
 import { syntheticCorpus, syntheticQueries } from "./lib/corpus";
 import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge, type KindScore, type QualityReport } from "./lib/quality";
@@ -264,42 +259,26 @@ console.log(`correctly spelt words "corrected": ${quality.realWordsCorrected.cou
 
 // The sets written apart on pages no tuning saw, each over its own pages alone: held out whole.
 const allHeldOut = () => true;
-const unseenSets = [
-  {
-    pages: UNSEEN_PAGES,
-    writers: [
-      { queries: UNSEEN_QUERIES, heading: `\nUnseen pages: ${UNSEEN_QUERIES.length} queries by the pages' writer over ${UNSEEN_PAGES.length} pages no tuning saw, ranked by words then meaning, then by words alone` },
-      { queries: UNSEEN_QUERIES_SECOND, heading: `The same pages, ${UNSEEN_QUERIES_SECOND.length} queries by a second writer from titles and summaries only: words then meaning, then words alone` },
-      { queries: UNSEEN_QUERIES_THIRD, heading: `The same pages, ${UNSEEN_QUERIES_THIRD.length} queries by a third writer from titles and summaries only: words then meaning, then words alone` },
-    ],
-  },
-  {
-    pages: UNSEEN_PAGES_SECOND,
-    writers: [
-      {
-        queries: UNSEEN_PAGES_SECOND_QUERIES,
-        heading: `\nSecond unseen pages: ${UNSEEN_PAGES_SECOND_QUERIES.length} queries over ${UNSEEN_PAGES_SECOND.length} more pages no tuning saw, by a writer who saw only their titles and summaries: words then meaning, then words alone`,
-      },
-    ],
-  },
-];
 type UnseenRun = { withMeaning: QualityReport; byWordsAlone: QualityReport };
 const unseenRuns: UnseenRun[] = [];
-for (const { pages, writers } of unseenSets) {
+for (const { name, pages, writers } of UNSEEN_SETS) {
   const unseenIndex = newIndex();
   unseenIndex.load(pages.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
   const unseenJudge = await hunspellJudge(pages.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
   const unseenMeaning = createMeaning(encode);
-  for (const { queries, heading } of writers) {
+  for (const { writer, queries } of writers) {
     const withMeaning = await evaluateQuality(byWordsThenMeaning(unseenIndex, unseenMeaning), queries, unseenJudge, allHeldOut);
     const byWordsAlone = await evaluateQuality(byWords(unseenIndex), queries, unseenJudge, allHeldOut);
-    console.log(heading);
+    console.log(`\n${name}: ${queries.length} queries by ${writer}, over its ${pages.length} pages alone: words then meaning, then words alone`);
     console.table(withMeaning.all);
     console.table(byWordsAlone.all);
     unseenRuns.push({ withMeaning, byWordsAlone });
   }
 }
+// results.json keeps the runs in the order of UNSEEN_SETS: three writers on the first set, one on the second.
 const [unseen, unseenSecond, unseenThird, secondPages] = unseenRuns as [UnseenRun, UnseenRun, UnseenRun, UnseenRun];
+const [firstSet, secondSet] = UNSEEN_SETS as [UnseenSet, UnseenSet];
+const writerQueries = (set: UnseenSet, i: number): number => (set.writers[i] as UnseenSet["writers"][number]).queries.length;
 const unseenReports = unseenRuns.map((r) => r.withMeaning);
 console.log(`correctly spelt words "corrected": ${unseenReports.reduce((n, r) => n + r.realWordsCorrected.count, 0)} of ${unseenReports.reduce((n, r) => n + r.realWordsCorrected.wordsChecked, 0)}`);
 
@@ -356,7 +335,7 @@ writeResultsKey("search", {
   measuredAt: new Date().toISOString(),
   machine: { cpus: os.cpus().length, node: process.version, loadAverageAtStart, loadAverageAtEnd: os.loadavg().map((v) => Math.round(v * 10) / 10) },
   notes: [
-    `unseenPages: ${UNSEEN_QUERIES.length} junior queries (40 a kind) over ${UNSEEN_PAGES.length} pages written apart from the engine on 2026-12-04 and never tuned on, searched over those pages alone; secondWriter: ${UNSEEN_QUERIES_SECOND.length} more (30 a kind) by another writer who saw only the pages' titles and summaries; thirdWriter: ${UNSEEN_QUERIES_THIRD.length} (30 a kind) by a third writer, the same way (2026-12-05). unseenPagesSecond: ${UNSEEN_PAGES_SECOND_QUERIES.length} queries (30 a kind) over ${UNSEEN_PAGES_SECOND.length} more pages written apart on 2026-12-05, by a writer who saw only their titles and summaries (another wrote the pages).`,
+    `unseenPages: ${writerQueries(firstSet, 0)} junior queries (40 a kind) over ${firstSet.pages.length} pages written apart from the engine on 2026-12-04 and never tuned on, searched over those pages alone; secondWriter: ${writerQueries(firstSet, 1)} more (30 a kind) by another writer who saw only the pages' titles and summaries; thirdWriter: ${writerQueries(firstSet, 2)} (30 a kind) by a third writer, the same way (2026-12-05). unseenPagesSecond: ${writerQueries(secondSet, 0)} queries (30 a kind) over ${secondSet.pages.length} more pages written apart on 2026-12-05, by a writer who saw only their titles and summaries (another wrote the pages).`,
     `quality: ${QUALITY_QUERIES.length} junior queries in four kinds over ${FIXTURE_DOCS.length} look-alike pages with the starter thesaurus; rank of the expected page in the first 20 (published audience). Every fourth query of each kind was held out of tuning (heldOut). Correctly spelt = Hunspell en-US or en-GB (nspell) or a word of the pages.`,
     "ranking by meaning (lib/search/meaning.ts): the engine's first 10 results re-ordered with Universal Sentence Encoder Lite vectors of the query and of each page's title, summary, aliases and tags. quality, meaningP50/P95 and meaningSpeedup are that; p50/p95 and speedup are the engine alone. meaningColdPassMs: the first pass over the queries, which also encodes each page on its first time in a top 10 (meaningPagesEncoded pages).",
     `p50/p95/max wall ms over every query of the fixed set (${QUALITY_QUERIES.length} junior quality queries + 40 misspelt synthetic title queries), run ${REPEATS} times after a warm-up; audience published, limit 20. cpuP50/cpuP95: process CPU ms for the same calls.`,
@@ -369,12 +348,12 @@ writeResultsKey("search", {
   quality: { all: quality.all, heldOut: quality.heldOut, tuned: quality.tuned, realWordsCorrected: quality.realWordsCorrected, heldOutMissCount: quality.heldOutMissCount },
   qualityByWordsAlone: { all: qualityByWords.all, heldOut: qualityByWords.heldOut, tuned: qualityByWords.tuned, heldOutMissCount: qualityByWords.heldOutMissCount },
   unseenPages: {
-    pages: UNSEEN_PAGES.length,
+    pages: firstSet.pages.length,
     ...writerResult(unseen),
     secondWriter: writerResult(unseenSecond),
     thirdWriter: writerResult(unseenThird),
   },
-  unseenPagesSecond: { pages: UNSEEN_PAGES_SECOND.length, ...writerResult(secondPages) },
+  unseenPagesSecond: { pages: secondSet.pages.length, ...writerResult(secondPages) },
   rows,
   totalSeconds: Math.round((performance.now() - started) / 1000),
 });
