@@ -1,12 +1,14 @@
 /**
  * Scoring: BM25 per field (Robertson & Zaragoza 2009, "The Probabilistic Relevance Framework: BM25
  * and Beyond") — length-normalised term frequency saturated by k1 in each field, fields summed with
- * weights, times IDF — summed over the query's units with graded matching: every page that matches
+ * weights, times IDF (but a word in several of the title, aliases and tags counts once, by the best:
+ * they are names of one thing, not separate votes — what BM25F, which pools a document's fields
+ * before saturating, also avoids) — summed over the query's units with graded matching: every page that matches
  * any unit is a candidate, a unit counts by its weight (filler words little), and an alternative by
  * its kind (a synonym less than the word typed). Nothing is dropped here for matching too few words:
  * how much of the query a page covers scales its score (ranking.ts decides the order).
  */
-import { FIELD_COUNT, F_ALIASES, F_SUMMARY, type PostingStore } from "./postings";
+import { FIELD_COUNT, F_ALIASES, F_SUMMARY, F_TAGS, type PostingStore } from "./postings";
 import type { Alternative, QueryPlan, QuerySpan } from "./query";
 
 /** Query words past this are ignored (a 200-character query has far fewer content words). */
@@ -230,7 +232,10 @@ export class Scorer {
           const tf = packed & 15;
           if (tf === 0) continue;
           const saturation = tf / (tf + (norms[base + f] as number));
-          const v = (weights[f] as number) * saturation;
+          let v = (weights[f] as number) * saturation;
+          // One name said twice is one piece of evidence: among the title, aliases and tags only the
+          // best counts (the fields come in that order, so `inShort` holds the best so far).
+          if (f === F_ALIASES || f === F_TAGS) v = Math.max(0, v - inShort);
           total += v;
           if (f <= F_ALIASES) named += v;
           if (f <= F_SUMMARY) inShort += v;

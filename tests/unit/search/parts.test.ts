@@ -220,6 +220,33 @@ describe("scoring", () => {
     expect(s.coverage[s.ids.indexOf(1)]).toBeCloseTo(2 / 3, 5);
   });
 
+  it("counts a word once among the title, aliases and tags, by the best of them; the summary and body still add", () => {
+    // Per-field BM25 weights (title 6, aliases 4, tags 4, summary 4, body 1) and the saturation
+    // tf / (tf + K1 · (1 − b + b · length / average)) are scoring.ts's own; the test compares pages
+    // whose fields have equal lengths, so only which fields hold the word differs.
+    const tag = (name: string) => ({ slug: name, name, kind: "problem" as const, aliases: [] });
+    const docs = [
+      doc({ title: "Shutter lean", aliases: ["skew fix"], tags: [tag("camera")] }),
+      doc({ title: "Shutter lean", aliases: ["shutter fix"], tags: [tag("shutter")] }),
+      doc({ title: "Other lean", aliases: ["shutter fix"], tags: [tag("camera")] }),
+      doc({ title: "Other lean", aliases: ["skew fix"], tags: [tag("shutter")] }),
+      doc({ title: "Shutter lean", aliases: ["skew fix"], tags: [tag("camera")], summary: "The shutter leans." }),
+      ...Array.from({ length: 5 }, (_, i) => doc({ title: `Page ${i}`, aliases: ["skew fix"], tags: [tag("camera")] })),
+    ];
+    const { ctx, scorer } = build(docs);
+    const s = scorer.score(parseQuery("shutter", ctx, { prefix: "none", exact: false }), 0b1111111, docs.length);
+    const score = (id: number) => s.scores[s.ids.indexOf(id)] as number;
+    // The title alone, or the title with an alias and a tag saying it again: the same.
+    expect(score(1)).toBeCloseTo(score(0), 10);
+    // An alias or a tag alone counts less than the title (weight 4 against 6).
+    expect(score(2)).toBeLessThan(score(0));
+    expect(score(3)).toBeLessThan(score(0));
+    // The summary is a sentence about the problem, not another name: it adds.
+    expect(score(4)).toBeGreaterThan(score(0));
+    // The naming part (ranking's rule 4) is the title's, not title plus alias.
+    expect(s.naming[s.ids.indexOf(1)]).toBeCloseTo(s.naming[s.ids.indexOf(0)] as number, 10);
+  });
+
   it("lets a word met only in a long body cover its query word in part, by BM25's term-frequency part", () => {
     // BM25's term-frequency part (K1 + 1) · tf / (tf + K1 · (1 − b + b · length / average)), K1 1.2 and
     // b 0.75 for the body (Robertson and Zaragoza, "The Probabilistic Relevance Framework: BM25 and

@@ -104,7 +104,10 @@ describe("search quality set", async () => {
   it("quick finder titles: misspelt partial input still finds the technique", () => {
     expect(index.suggestTitles("dust bus", "published", 3).map((s) => s.slug)).toContain("dust-busting-film-scans");
     expect(index.suggestTitles("wire remov", "published", 3).map((s) => s.slug)).toContain("wire-over-sky");
-    expect(index.suggestTitles("trakcing mark", "published", 5).map((s) => s.slug)).toContain("markers-green-matrix");
+    // Ten pages are about tracking markers; any of them answers, but only they.
+    const markerPages = index.suggestTitles("trakcing mark", "published", 5).map((s) => s.slug);
+    expect(markerPages).toHaveLength(5);
+    for (const slug of markerPages) expect(slug).toMatch(/^markers-/);
   });
 
   it("reports the corrected query in the user's own word order and spacing", () => {
