@@ -29,6 +29,9 @@ type LiveSet = { name: string; pages: SearchDocument[]; queries: QualityQuery[];
 // misses listed — where the demo's own pages get in the way, for tuning general rules; the unseen
 // sets then say whether a rule holds. Printed only, not written to results.json.
 const TUNING = process.argv.includes("--tuned");
+// `--no-methods`: the set's pages go in approved but none is made a department method, so the demo's
+// methods stay (an outside checker adding pages may well not set any).
+const SET_METHODS = !process.argv.includes("--no-methods");
 // Each set's writers together: the set is added to the demo once and all its queries run over it.
 const SETS: LiveSet[] = TUNING
   ? [{ name: "quality pages, tuned queries", pages: QUALITY_PAGES, queries: QUALITY_QUERIES.filter((q) => !isHeldOut(q)), listMisses: true }]
@@ -76,7 +79,7 @@ async function runSet(set: LiveSet): Promise<SetResult> {
       const made = await call<{ slug: string; revision: number }>(senior, "POST", "/api/techniques", { title: page.title, summary: page.summary, aliases: page.aliases, tags, body });
       const submitted = await call<{ revision?: number }>(senior, "POST", `/api/techniques/${made.slug}/submit`);
       await call(lead, "POST", `/api/techniques/${made.slug}/review`, { revision: submitted.revision ?? made.revision, decision: "approve" });
-      for (const key of page.houseMethodFor) {
+      for (const key of SET_METHODS ? page.houseMethodFor : []) {
         const tag = page.tags.find((t) => t.slug === key);
         if (tag) await call(lead, "PUT", `/api/tags/${tagSlug.get(tag.name.toLowerCase())}/house-method`, { technique: made.slug });
       }
