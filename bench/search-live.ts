@@ -144,6 +144,6 @@ for (const set of SETS) {
 if (!TUNING) writeResultsKey("searchLive", {
   date: new Date().toISOString(),
   ranking,
-  method: "each unseen page set added to a fresh copy of the seeded demo through the HTTP API (tags by the lead, pages by the senior, approved and made department methods by the lead), then every query once as the artist through GET /api/search",
+  method: `each unseen page set added to a fresh copy of the seeded demo through the HTTP API (tags by the lead, pages by the senior, approved${SET_METHODS ? " and made department methods" : " (none made a department method: --no-methods)"} by the lead), then every query once as the artist through GET /api/search`,
   sets: results,
 });
