@@ -6,7 +6,7 @@ import { createSearchIndex } from "@/lib/search/engine";
 import { loadLanguage } from "@/lib/search/language";
 import { createMeaning } from "@/lib/search/meaning";
 import { sentenceEncoder } from "@/lib/search/meaning-model";
-import type { SearchIndex } from "@/lib/search/types";
+import type { SearchDocument, SearchIndex } from "@/lib/search/types";
 
 import { QUALITY_PAGES } from "./quality/pages";
 import { isHeldOut, QUALITY_QUERIES, type QualityQuery, type QueryKind, QUERY_KINDS } from "./quality/queries";
@@ -37,6 +37,38 @@ function expectAtFloor(report: QualityReport, kind: QueryKind, floors: KindFloor
   const other = alsoAtLeast?.all.find((r) => r.kind === kind);
   expect(row?.top3, JSON.stringify(row)).toBeGreaterThanOrEqual(Math.max(floors[kind].top3, other?.top3 ?? 0));
   expect(row?.top1, JSON.stringify(row)).toBeGreaterThanOrEqual(Math.max(floors[kind].top1, other?.top1 ?? 0));
+}
+
+/**
+ * The checks of an unseen page set written by one writer and queried by another (30 queries a kind):
+ * its shape, no real word corrected, and each kind at or above its floor, searched over its pages alone.
+ */
+function unseenPageSetSuite(pages: SearchDocument[], queries: QualityQuery[], otherSets: SearchDocument[], floors: KindFloors): void {
+  // Built when a test first asks, so collecting the tests loads nothing.
+  let report: Promise<QualityReport> | undefined;
+  const withMeaning = (): Promise<QualityReport> =>
+    (report ??= (async () => {
+      const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
+      index.load(pages.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
+      const judge = await hunspellJudge(pages.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+      return lazyMeaningReport(index, queries, judge, () => true)();
+    })());
+
+  it("has 40 pages of its own and 30 distinct queries of each kind on them, and corrects no real word", async () => {
+    const slugs = new Set(pages.map((p) => p.slug));
+    expect(slugs.size).toBe(40);
+    const others = new Set(otherSets.map((p) => p.slug));
+    expect([...slugs].filter((s) => others.has(s))).toEqual([]);
+    for (const kind of QUERY_KINDS) expect(queries.filter((q) => q.kind === kind).length, kind).toBe(30);
+    for (const q of queries) expect(slugs.has(q.expected), q.expected).toBe(true);
+    expect(new Set(queries.map((q) => q.query)).size).toBe(queries.length);
+    const { realWordsCorrected } = await withMeaning();
+    expect(realWordsCorrected.wordsChecked).toBeGreaterThan(500);
+    expect(realWordsCorrected.examples).toEqual([]);
+  });
+  it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor", async (kind) => {
+    expectAtFloor(await withMeaning(), kind, floors);
+  });
 }
 
 // Issue 16 "Quality": junior queries over look-alike pages. The query → page pairs and their reasons
@@ -216,33 +248,12 @@ describe("search quality on pages no tuning saw", async () => {
 // another who saw only those pages' titles and summaries. Held out whole. Floors under the first
 // measurement (words then meaning: plain 100/100, typo 100/100, describe 96.7/100, filler 100/100;
 // words alone 100/100 in every kind — meaning moved one describe query to second place).
-describe("search quality on a second set of pages no tuning saw", async () => {
-  const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
-  index.load(UNSEEN_PAGES_SECOND.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-  const judge = await hunspellJudge(UNSEEN_PAGES_SECOND.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
-  const allHeldOut = () => true;
-  const FLOORS: KindFloors = {
+describe("search quality on a second set of pages no tuning saw", () => {
+  unseenPageSetSuite(UNSEEN_PAGES_SECOND, UNSEEN_PAGES_SECOND_QUERIES, [...QUALITY_PAGES, ...UNSEEN_PAGES], {
     plain: { top1: 95, top3: 97 },
     typo: { top1: 95, top3: 97 },
     describe: { top1: 90, top3: 97 },
     filler: { top1: 95, top3: 97 },
-  };
-  const withMeaning = lazyMeaningReport(index, UNSEEN_PAGES_SECOND_QUERIES, judge, allHeldOut);
-
-  it("has 40 pages of its own and 30 distinct queries of each kind on them, and corrects no real word", async () => {
-    const slugs = new Set(UNSEEN_PAGES_SECOND.map((p) => p.slug));
-    expect(slugs.size).toBe(40);
-    const others = new Set([...QUALITY_PAGES, ...UNSEEN_PAGES].map((p) => p.slug));
-    expect([...slugs].filter((s) => others.has(s))).toEqual([]);
-    for (const kind of QUERY_KINDS) expect(UNSEEN_PAGES_SECOND_QUERIES.filter((q) => q.kind === kind).length, kind).toBe(30);
-    for (const q of UNSEEN_PAGES_SECOND_QUERIES) expect(slugs.has(q.expected), q.expected).toBe(true);
-    expect(new Set(UNSEEN_PAGES_SECOND_QUERIES.map((q) => q.query)).size).toBe(UNSEEN_PAGES_SECOND_QUERIES.length);
-    const report = await withMeaning();
-    expect(report.realWordsCorrected.wordsChecked).toBeGreaterThan(500);
-    expect(report.realWordsCorrected.examples).toEqual([]);
-  });
-  it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor", async (kind) => {
-    expectAtFloor(await withMeaning(), kind, FLOORS);
   });
 });
 
@@ -253,31 +264,11 @@ describe("search quality on a second set of pages no tuning saw", async () => {
 // whole. Floors under the first measurement (words then meaning: plain 100/100, typo 100/100, describe
 // 86.7/96.7, filler 96.7/100; words alone describe 86.7/100 and filler 100/100 — here meaning cost a
 // describe query its top three and a filler query its first place, so no "meaning at least as good" check).
-describe("search quality on a third set of pages no tuning saw", async () => {
-  const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
-  index.load(UNSEEN_PAGES_THIRD.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-  const judge = await hunspellJudge(UNSEEN_PAGES_THIRD.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
-  const FLOORS: KindFloors = {
+describe("search quality on a third set of pages no tuning saw", () => {
+  unseenPageSetSuite(UNSEEN_PAGES_THIRD, UNSEEN_PAGES_THIRD_QUERIES, [...QUALITY_PAGES, ...UNSEEN_PAGES, ...UNSEEN_PAGES_SECOND], {
     plain: { top1: 95, top3: 97 },
     typo: { top1: 95, top3: 97 },
     describe: { top1: 83, top3: 93 },
     filler: { top1: 93, top3: 97 },
-  };
-  const withMeaning = lazyMeaningReport(index, UNSEEN_PAGES_THIRD_QUERIES, judge, () => true);
-
-  it("has 40 pages of its own and 30 distinct queries of each kind on them, and corrects no real word", async () => {
-    const slugs = new Set(UNSEEN_PAGES_THIRD.map((p) => p.slug));
-    expect(slugs.size).toBe(40);
-    const others = new Set([...QUALITY_PAGES, ...UNSEEN_PAGES, ...UNSEEN_PAGES_SECOND].map((p) => p.slug));
-    expect([...slugs].filter((s) => others.has(s))).toEqual([]);
-    for (const kind of QUERY_KINDS) expect(UNSEEN_PAGES_THIRD_QUERIES.filter((q) => q.kind === kind).length, kind).toBe(30);
-    for (const q of UNSEEN_PAGES_THIRD_QUERIES) expect(slugs.has(q.expected), q.expected).toBe(true);
-    expect(new Set(UNSEEN_PAGES_THIRD_QUERIES.map((q) => q.query)).size).toBe(UNSEEN_PAGES_THIRD_QUERIES.length);
-    const report = await withMeaning();
-    expect(report.realWordsCorrected.wordsChecked).toBeGreaterThan(500);
-    expect(report.realWordsCorrected.examples).toEqual([]);
-  });
-  it.each(QUERY_KINDS)("%s queries ranked by words then meaning stay at or above their floor", async (kind) => {
-    expectAtFloor(await withMeaning(), kind, FLOORS);
   });
 });
