@@ -4,8 +4,8 @@
  * Quality (issue 16): the quality set (tests/unit/search/quality) on its own pages with the starter
  * thesaurus — top-1, top-3 and MRR per query kind, the held-out quarter apart, and how many correctly
  * spelt words were "corrected" — and again with the pages embedded in each synthetic corpus; and the
- * unseen sets, each over its own pages (unseen-pages.ts with unseen-queries.ts, unseen-queries-second.ts and
- * -third.ts; unseen-pages-second.ts with unseen-pages-second-queries.ts; never tuned on).
+ * unseen page sets of quality/unseen-sets.ts with their writers' queries, each over its own pages
+ * (never tuned on).
  * Speed: for 1,000, 10,000 and 50,000 synthetic techniques (bench/lib/corpus.ts) with the quality
  * pages embedded: index build time, retained memory, query latency p50/p95 over the quality queries
  * and misspelt synthetic title queries, plain fuse.js over the same corpus in the same run, and
