@@ -87,15 +87,15 @@ async function runSet(set: LiveSet): Promise<SetResult> {
       slugOf.set(page.slug, made.slug);
     }
     const took: number[] = [];
-    const firstFor = new Map<string, string | undefined>();
-    const titlesFor = new Map<string, string[]>();
+    // Each query's first three results: which page came first, and for --tuned what the three were.
+    const topFor = new Map<string, SearchResponse["results"]>();
+    const firstFor = (query: string): string | undefined => topFor.get(query)?.[0]?.slug;
     const search: QualitySearch = async (query) => {
       const res = await artist.get(`/api/search?q=${encodeURIComponent(query)}`);
       if (!res.ok) throw new Error(`GET /api/search answered ${res.status} for "${query}": ${await res.text()}`);
       const answer = (await res.json()) as SearchResponse;
       took.push(answer.tookMs);
-      firstFor.set(query, answer.results[0]?.slug);
-      titlesFor.set(query, answer.results.slice(0, 3).map((r) => `${r.title} [${r.slug}] ${r.score.toFixed(2)}${r.isHouseMethod ? " H" : ""} ${r.matches.map((m) => m.field).join(",")}`));
+      topFor.set(query, answer.results.slice(0, 3));
       return answer;
     };
     const queries = set.queries.map((q) => ({ ...q, expected: slugOf.get(q.expected) ?? `(not added: ${q.expected})` }));
@@ -104,12 +104,15 @@ async function runSet(set: LiveSet): Promise<SetResult> {
     const report = await evaluateQuality(search, queries, judge, () => true);
     if (set.listMisses)
       for (const q of queries)
-        if (firstFor.get(q.query) !== q.expected) console.log(`[${q.kind}] ${q.query}\n  expected ${q.expected}; got ${(titlesFor.get(q.query) ?? []).join(" | ") || "nothing"}`);
+        if (firstFor(q.query) !== q.expected) {
+          const top = (topFor.get(q.query) ?? []).map((r) => `${r.title} [${r.slug}] ${r.score.toFixed(2)}${r.isHouseMethod ? " H" : ""} ${r.matches.map((m) => m.field).join(",")}`);
+          console.log(`[${q.kind}] ${q.query}\n  expected ${q.expected}; got ${top.join(" | ") || "nothing"}`);
+        }
     const round = (v: number) => Math.round(v * 100) / 100;
     const ofSet = new Set(slugOf.values());
     const notFirst = { toPageOfSet: 0, toDemoPage: 0, nothingFound: 0 };
     for (const q of queries) {
-      const first = firstFor.get(q.query);
+      const first = firstFor(q.query);
       if (first === q.expected) continue;
       if (first === undefined) notFirst.nothingFound++;
       else if (ofSet.has(first)) notFirst.toPageOfSet++;
