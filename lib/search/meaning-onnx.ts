@@ -107,19 +107,15 @@ export function encoderModel(weights: Map<string, Weight>): Uint8Array {
     return w;
   };
   const scalar = (name: string): number => weight(name).data[0] as number;
-  /** A float32 initializer, under a short name. */
-  const constant = (name: string, shape: number[], data: Float32Array): string => {
+  const initializer = (name: string, dims: number[], dataType: number, data: Float32Array | BigInt64Array): string => {
     if (taken.has(name)) throw new Error(`two initializers named ${name}`);
     taken.add(name);
-    initializers.push({ name, dims: shape, dataType: FLOAT, rawData: new Uint8Array(data.buffer, data.byteOffset, data.byteLength) });
+    initializers.push({ name, dims, dataType, rawData: new Uint8Array(data.buffer, data.byteOffset, data.byteLength) });
     return name;
   };
-  const int64s = (name: string, values: number[]): string => {
-    taken.add(name);
-    const data = BigInt64Array.from(values.map(BigInt));
-    initializers.push({ name, dims: [values.length], dataType: INT64, rawData: new Uint8Array(data.buffer) });
-    return name;
-  };
+  /** A float32 initializer, under a short name. */
+  const constant = (name: string, shape: number[], data: Float32Array): string => initializer(name, shape, FLOAT, data);
+  const int64s = (name: string, values: number[]): string => initializer(name, [values.length], INT64, BigInt64Array.from(values.map(BigInt)));
   const float = (name: string, graphName: string, shape?: number[]): string => {
     const w = weight(graphName);
     return constant(name, shape ?? w.shape, w.data as Float32Array);
