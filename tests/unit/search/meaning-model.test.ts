@@ -28,17 +28,25 @@ describe("the encoder worker when the model cannot load", () => {
     }
   });
 
-  it("answers null and says why once when the worker cannot load ONNX Runtime", async () => {
-    // The weights are there (the real package, linked), ONNX Runtime is not: the worker fails to start.
+  it("falls back to the package's TensorFlow.js graph, with the same vectors, when ONNX Runtime cannot load", { timeout: 120_000 }, async () => {
+    // The model's packages are there (the real ones, linked), ONNX Runtime is not.
     const root = await mkdtemp(path.join(tmpdir(), "plateroom-no-runtime-"));
     const errors = vi.spyOn(console, "error").mockImplementation(() => undefined);
     try {
       await mkdir(path.join(root, "node_modules", "@energetic-ai"), { recursive: true });
-      await symlink(path.join(process.cwd(), "node_modules", "@energetic-ai", "model-embeddings-en"), path.join(root, "node_modules", "@energetic-ai", "model-embeddings-en"));
-      expect(await startEncoderWorker(path.join(root, "package.json"))).toBeNull();
-      expect(errors).toHaveBeenCalledTimes(1);
-      expect(String(errors.mock.calls[0]?.[0])).toContain("sentence encoder did not load");
-      expect(String(errors.mock.calls[0]?.[1])).toContain("onnxruntime-node");
+      for (const name of ["model-embeddings-en", "embeddings", "core"]) {
+        await symlink(path.join(process.cwd(), "node_modules", "@energetic-ai", name), path.join(root, "node_modules", "@energetic-ai", name));
+      }
+      const fallback = await startEncoderWorker(path.join(root, "package.json"));
+      const said = errors.mock.calls.map((call) => `${String(call[0])} ${String(call[1])}`);
+      errors.mockRestore();
+      expect(fallback?.runtime).toBe("tensorflow");
+      expect(said).toEqual([expect.stringMatching(/ONNX Runtime did not load.*onnxruntime-node/s)]);
+      const onnx = await startEncoderWorker(path.join(process.cwd(), "package.json"));
+      expect(onnx?.runtime).toBe("onnx");
+      const texts = ["white crosses on the green wall behind the actor", "Wire removal over clear sky. Paint the wire out against an even sky."];
+      const [a, b] = [await fallback!(texts, "query"), await onnx!(texts, "query")];
+      for (const [i, v] of a.entries()) v.forEach((x, j) => expect(Math.abs(x - (b[i] as Float32Array)[j]!)).toBeLessThan(1e-5));
     } finally {
       errors.mockRestore();
       await rm(root, { recursive: true, force: true });
@@ -59,7 +67,7 @@ describe("the encoder worker on ONNX Runtime", () => {
     await core.ready();
     const graph = await embeddings.initModel(modelSource);
     const encode = await startEncoderWorker(path.join(process.cwd(), "package.json"));
-    expect(encode).not.toBeNull();
+    expect(encode?.runtime).toBe("onnx");
     const longer = "the wire crosses the sky and the markers on the green screen need removing while the grain stays ".repeat(10);
     const texts = [
       ...QUALITY_QUERIES.filter((_, i) => i % 8 === 0).map((q) => q.query),
