@@ -204,7 +204,7 @@ export function encoderModel(weights: Map<string, Weight>): Uint8Array {
       output: [{ name: "vector", type: tensorType(FLOAT, [1, 512]) }],
     },
   };
-  return ModelProto.encode(ModelProto.fromObject(model)).finish();
+  return ModelProto.encode(model).finish();
 }
 
 /** The ONNX model of the encoder whose package is installed beside `resolveFrom` (a file path). */
