@@ -117,9 +117,10 @@ export function encoderModel(weights: Map<string, Weight>): Uint8Array {
   /** A float32 initializer, under a short name. */
   const constant = (name: string, shape: number[], data: Float32Array): string => initializer(name, shape, FLOAT, data);
   const int64s = (name: string, values: number[]): string => initializer(name, [values.length], INT64, BigInt64Array.from(values.map(BigInt)));
-  const float = (name: string, graphName: string, shape?: number[]): string => {
+  /** A weight of the package's graph as it is, under a short name. */
+  const float = (name: string, graphName: string): string => {
     const w = weight(graphName);
-    return constant(name, shape ?? w.shape, w.data as Float32Array);
+    return constant(name, w.shape, w.data as Float32Array);
   };
   let counter = 0;
   const op = (opType: string, input: string[], attributes: Record<string, Attribute> = {}, outputs = 1): string[] => {
