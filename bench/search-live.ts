@@ -99,7 +99,7 @@ async function runSet(set: LiveSet): Promise<SetResult> {
       return answer;
     };
     const queries = set.queries.map((q) => ({ ...q, expected: slugOf.get(q.expected) ?? `(not added: ${q.expected})` }));
-    const judge = await hunspellJudge(set.pages.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+    const judge = await hunspellJudge(set.pages);
     // Unseen queries are held out: their misses are counted, never listed (nothing may be tuned on them).
     const report = await evaluateQuality(search, queries, judge, () => true);
     if (set.listMisses)

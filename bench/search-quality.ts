@@ -17,7 +17,7 @@ import { byWords, byWordsThenMeaning, evaluateQuality, hunspellJudge } from "./l
 
 const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
 index.load(QUALITY_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-const judge = await hunspellJudge(QUALITY_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+const judge = await hunspellJudge(QUALITY_PAGES);
 const encode = process.argv.includes("--words") ? null : await sentenceEncoder();
 const meaning = encode && createMeaning(encode);
 const search = meaning ? byWordsThenMeaning(index, meaning) : byWords(index);
@@ -50,7 +50,7 @@ if (process.argv.includes("--unseen")) {
   for (const { name, pages, writers } of UNSEEN_SETS) {
     const unseenIndex = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
     unseenIndex.load(pages.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-    const unseenJudge = await hunspellJudge(pages.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+    const unseenJudge = await hunspellJudge(pages);
     const unseenMeaning = encode && createMeaning(encode);
     const unseenSearch = unseenMeaning ? byWordsThenMeaning(unseenIndex, unseenMeaning) : byWords(unseenIndex);
     for (const { writer, queries } of writers) {

@@ -33,7 +33,7 @@ import { percentile, writeResultsKey } from "./lib/results";
 
 const language = await loadLanguage();
 const newIndex = () => createSearchIndex({ language, thesaurus: STARTER_THESAURUS });
-const judge = await hunspellJudge(FIXTURE_DOCS.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+const judge = await hunspellJudge(FIXTURE_DOCS);
 const loadedEncoder = await sentenceEncoder();
 if (!loadedEncoder) throw new Error("the sentence encoder did not load");
 const encode = loadedEncoder;
@@ -264,7 +264,7 @@ const unseenRuns: UnseenRun[] = [];
 for (const { name, pages, writers } of UNSEEN_SETS) {
   const unseenIndex = newIndex();
   unseenIndex.load(pages.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-  const unseenJudge = await hunspellJudge(pages.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+  const unseenJudge = await hunspellJudge(pages);
   const unseenMeaning = createMeaning(encode);
   for (const { writer, queries } of writers) {
     const withMeaning = await evaluateQuality(byWordsThenMeaning(unseenIndex, unseenMeaning), queries, unseenJudge, allHeldOut);

@@ -8,7 +8,7 @@
  * corpus itself (trade words such as "despill" are spelt right when the pages spell them so).
  */
 import { type Meaning, searchWithMeaning } from "@/lib/search/meaning";
-import type { SearchIndex, SearchResponse } from "@/lib/search/types";
+import type { SearchDocument, SearchIndex, SearchResponse } from "@/lib/search/types";
 import { tokenize } from "@/lib/search/text";
 import { heldOutBatch, isDevBatch, isHeldOut, QUERY_KINDS, type QualityQuery, type QueryKind } from "@/tests/unit/search/quality/queries";
 
@@ -114,12 +114,12 @@ export async function evaluateQuality(
   };
 }
 
-/** Hunspell en-US + en-GB, and the words of the given texts, as the judge of correct spelling. */
-export async function hunspellJudge(corpusTexts: Iterable<string>): Promise<SpellJudge> {
+/** Hunspell en-US + en-GB, and the words of the given pages (title, summary, body, aliases), as the judge of correct spelling. */
+export async function hunspellJudge(pages: readonly Pick<SearchDocument, "title" | "summary" | "bodyText" | "aliases">[]): Promise<SpellJudge> {
   const [{ default: nspell }, { default: en }, { default: gb }] = await Promise.all([import("nspell"), import("dictionary-en"), import("dictionary-en-gb")]);
   const us = nspell({ aff: Buffer.from(en.aff), dic: Buffer.from(en.dic) });
   const uk = nspell({ aff: Buffer.from(gb.aff), dic: Buffer.from(gb.dic) });
   const corpusWords = new Set<string>();
-  for (const text of corpusTexts) for (const t of tokenize(text)) corpusWords.add(t.word);
+  for (const p of pages) for (const t of tokenize([p.title, p.summary, p.bodyText, ...p.aliases].join(" "))) corpusWords.add(t.word);
   return (word) => corpusWords.has(word) || /^[0-9]/.test(word) || us.correct(word) || uk.correct(word);
 }

@@ -50,7 +50,7 @@ function unseenPageSetSuite(pages: SearchDocument[], queries: QualityQuery[], ot
     (report ??= (async () => {
       const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
       index.load(pages.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-      const judge = await hunspellJudge(pages.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+      const judge = await hunspellJudge(pages);
       return lazyMeaningReport(index, queries, judge, () => true)();
     })());
 
@@ -79,7 +79,7 @@ function unseenPageSetSuite(pages: SearchDocument[], queries: QualityQuery[], ot
 describe("search quality set", async () => {
   const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
   index.load(QUALITY_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-  const judge = await hunspellJudge(QUALITY_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+  const judge = await hunspellJudge(QUALITY_PAGES);
   const report = await evaluateQuality(byWords(index), QUALITY_QUERIES, judge);
 
   it("has at least 200 queries in four kinds over at least 100 pages, each with a reason and an existing page", () => {
@@ -160,7 +160,7 @@ describe("search quality set", async () => {
 describe("search quality on pages no tuning saw", async () => {
   const index = createSearchIndex({ language: await loadLanguage(), thesaurus: STARTER_THESAURUS });
   index.load(UNSEEN_PAGES.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
-  const judge = await hunspellJudge(UNSEEN_PAGES.map((p) => [p.title, p.summary, p.bodyText, ...p.aliases].join(" ")));
+  const judge = await hunspellJudge(UNSEEN_PAGES);
   const allHeldOut = () => true;
   const byWordsReport = await evaluateQuality(byWords(index), UNSEEN_QUERIES, judge, allHeldOut);
 
