@@ -243,11 +243,15 @@ describe("the sentence encoder (Universal Sentence Encoder Lite)", async () => {
   it("answers a search's query before pages that were waiting to be encoded", async () => {
     const enc = encode as NonNullable<typeof encode>;
     const order: string[] = [];
-    const pages = Array.from({ length: 6 }, (_, i) => enc([`Page ${i}: dust spots on the lens, removed frame by frame.`], "pages").then(() => order.push(`page ${i}`)));
+    // Pages near the encoder's 128-token limit (a few ms each), so the queue outlasts the posting.
+    const body = "Dust spots on the lens, removed frame by frame with a clean patch from a neighbouring frame. ".repeat(6);
+    const pages = Array.from({ length: 24 }, (_, i) => enc([`Page ${i}: ${body}`], "pages").then(() => order.push(`page ${i}`)));
     const query = enc(["tracking markers on a green screen"], "query").then(() => order.push("query"));
     await Promise.all([...pages, query]);
-    // The worker had started at most the first page when the query came.
-    expect(order.indexOf("query")).toBeLessThanOrEqual(1);
+    // The worker runs beside this thread and may finish a page or two while the messages are still
+    // being posted (seen on a loaded machine), so the check is that the query jumped the queue, not
+    // exactly where: in arrival order it would be last.
+    expect(order.indexOf("query")).toBeLessThan(pages.length / 2);
     expect(order.filter((o) => o !== "query")).toEqual(pages.map((_, i) => `page ${i}`));
   });
 
