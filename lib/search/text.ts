@@ -56,13 +56,19 @@ const FILLER_WORDS = new Set(
 // Generic action words: most write-ups remove or fix something, so these say little about which one.
 const GENERIC_WORDS = new Set("remove removal removing removed fix fixing fixed clean cleaning cleanup repair repairing".split(" "));
 
+// Prepositions that say where or when, not what: WordNet has no adverb sense for them, so the rule for
+// "behind" and "through" (query.ts) misses them, yet "wires against the sky" is about wires and sky.
+// Standard English stop lists drop such words (Snowball's has "against" and "during", from memory);
+// here they keep the generic weight, as "behind" does.
+const PLACE_WORDS = new Set("against beside toward towards onto upon among amongst amid via during despite".split(" "));
+
 export const FILLER_WEIGHT = 0.15;
 export const GENERIC_WEIGHT = 0.5;
 
 /** How much a query word counts toward a page's score (1 for words that name a problem or a plate). */
 export function queryWordWeight(word: string): number {
   if (FILLER_WORDS.has(word)) return FILLER_WEIGHT;
-  if (GENERIC_WORDS.has(word)) return GENERIC_WEIGHT;
+  if (GENERIC_WORDS.has(word) || PLACE_WORDS.has(word)) return GENERIC_WEIGHT;
   return 1;
 }
 

@@ -196,6 +196,14 @@ describe("query parsing", () => {
       ["markers", 1],
     ]);
   });
+
+  it("weighs a preposition like a generic word, so the words that name things decide", () => {
+    expect(parse("wire against the sky").units.map((u) => [u.text, u.weight])).toEqual([
+      ["wire", 1],
+      ["against", 0.5],
+      ["sky", 1],
+    ]);
+  });
 });
 
 describe("scoring", () => {

@@ -73,6 +73,8 @@ describe("the one stop-word list and query word weights", () => {
   it("weighs filler words little, generic action words half, problem words fully", () => {
     for (const w of ["need", "get", "rid", "take", "how", "best", "out"]) if (!isStopWord(w)) expect(queryWordWeight(w), w).toBe(FILLER_WEIGHT);
     expect(queryWordWeight("remove")).toBe(GENERIC_WEIGHT);
+    // Prepositions WordNet has no adverb sense for say where, not what ("wires against the sky").
+    for (const w of ["against", "during", "towards", "onto"]) expect(queryWordWeight(w), w).toBe(GENERIC_WEIGHT);
     for (const w of ["marker", "wire", "flicker", "shiny"]) expect(queryWordWeight(w), w).toBe(1);
     expect(FILLER_WEIGHT).toBeLessThan(GENERIC_WEIGHT);
   });
