@@ -23,6 +23,10 @@ const STOP_WORDS = new Set(
     "a an and are as at be but by can could do does did for from has have had how i if in into is it its my of on or " +
     "so than that the their them then there these they this those to was we were what when where which while who why " +
     "will would with you your our me am just any all no not very too also " +
+    // Pronouns and function words of Snowball's English stop list (from memory) that a plate
+    // description also uses ("our own shadows", "her face", "because it flickers").
+    "he him his himself she her hers herself itself theirs themselves myself ours ourselves yours yourself yourselves " +
+    "whom been being having ought because until again further both nor own such " +
     // Contractions, typed with or without the apostrophe.
     "dont doesnt didnt isnt arent wasnt cant couldnt wont wouldnt shouldnt im ive whats theres thats"
   ).split(" "),
