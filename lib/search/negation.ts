@@ -10,7 +10,7 @@
  * wrong, "didn't shoot a clean plate" what is missing. Ranking (engine.ts) then lifts pages whose
  * own short fields deny the same thing and lowers pages whose title names it plainly.
  */
-import { FILLER_WEIGHT, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
+import { FILLER_WEIGHT, isPlaceWord, isStopWord, queryWordWeight, tokenize, type Token } from "./text";
 
 // Contractions are typed with or without the apostrophe; tokenize drops it ("didn't" → "didnt").
 /** Negators of a noun phrase: what follows is what is missing ("no tracking data", "without markers"). */
@@ -90,7 +90,7 @@ function denials(text: string): Denial[] {
     for (let j = from; j < tokens.length && denial.words.length < NEGATION_REACH; j++) {
       if (isNewClause(j)) break;
       const w = (tokens[j] as Token).word;
-      if (SCOPE_ENDS.has(w) || PHRASE_NEGATORS.has(w) || VERB_NEGATORS.has(w) || (denial.words.length === 0 && HEDGES.has(w))) break;
+      if (SCOPE_ENDS.has(w) || isPlaceWord(w) || PHRASE_NEGATORS.has(w) || VERB_NEGATORS.has(w) || (denial.words.length === 0 && HEDGES.has(w))) break;
       if (isStopWord(w) || queryWordWeight(w) <= FILLER_WEIGHT) continue;
       denial.words.push({ word: w, isCircumstance: negator.word === "without" });
       denial.end = (tokens[j] as Token).end;

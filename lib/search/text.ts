@@ -66,6 +66,11 @@ const GENERIC_WORDS = new Set("remove removal removing removed fix fixing fixed 
 // here they keep the generic weight, as "behind" does.
 const PLACE_WORDS = new Set("against beside toward towards onto upon among amongst amid via during despite".split(" "));
 
+/** A preposition of place or time that WordNet has no adverb sense for; negation's reach ends there too. */
+export function isPlaceWord(word: string): boolean {
+  return PLACE_WORDS.has(word);
+}
+
 export const FILLER_WEIGHT = 0.15;
 export const GENERIC_WEIGHT = 0.5;
 

@@ -41,6 +41,9 @@ describe("negatedWords", () => {
     expect(words("no clean plate, the rig is in every frame")).toEqual(["clean", "plate"]);
     expect(words("no markers but the screen has creases")).toEqual(["markers"]);
     expect(words("no clean plate of the empty street")).toEqual(["clean", "plate"]);
+    // The prepositions WordNet has no adverb sense for end it too (text.ts's place words).
+    expect(words("no markers against the sky")).toEqual(["markers"]);
+    expect(words("without grain during the fade")).toEqual(["grain"]);
     // "way" is a filler word, then the infinitive ends the reach.
     expect(words("no way to know which frame is clean")).toEqual([]);
   });
