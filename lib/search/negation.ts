@@ -33,12 +33,13 @@ const DETERMINERS = new Set("an any the enough much many".split(" "));
 const AUXILIARIES = new Set("do does did is are was were has have had".split(" "));
 /**
  * Where a negation's reach ends: a new clause, a question word, an infinitive, a preposition ("no
- * tracking data on this shot" denies the data, not the shot).
+ * tracking data on this shot" denies the data, not the shot). The place words of text.ts ("against",
+ * "during", "onto"…) end it too (`isPlaceWord`), so they are not repeated here.
  */
 const SCOPE_ENDS = new Set(
   (
     "and but or so because if when while then though although until unless how what why where which who whom whose to " +
-    "on in at of for from with by into onto over under behind through across between during after before near"
+    "on in at of for from with by into over under behind through across between after before near"
   ).split(" "),
 );
 /** First after "no", these are about the asker: "no idea what the specks are" denies no speck. */
