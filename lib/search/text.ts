@@ -53,12 +53,16 @@ const FILLER_WORDS = new Set(
     "need needs needed help want wanted wants trying try tried way ways best good better easiest easy quick quickly " +
     "get gets getting got rid take takes taking took make makes making made do doing done deal dealing " +
     "thing things stuff bit bits lot lots kind sort really please anyone tell know able should " +
-    "out up off back down over around away about here some put go going use using"
+    "out up off back down over around away about here some put go going use using" +
+    // The same verbs' other forms: a filler word is filler in any inflection ("goes", "used", "tried").
+    " needing wanting helps helped helping tries puts putting goes went gone uses used deals dealt tells told telling knows knew known knowing"
   ).split(" "),
 );
 
 // Generic action words: most write-ups remove or fix something, so these say little about which one.
-const GENERIC_WORDS = new Set("remove removal removing removed fix fixing fixed clean cleaning cleanup repair repairing".split(" "));
+const GENERIC_WORDS = new Set(
+  "remove removes removal removals removing removed fix fixes fixing fixed clean cleans cleaned cleaning cleanup repair repairs repairing repaired".split(" "),
+);
 
 // Prepositions that say where or when, not what: WordNet has no adverb sense for them, so the rule for
 // "behind" and "through" (query.ts) misses them, yet "wires against the sky" is about wires and sky.

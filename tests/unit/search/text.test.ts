@@ -73,6 +73,10 @@ describe("the one stop-word list and query word weights", () => {
   it("weighs filler words little, generic action words half, problem words fully", () => {
     for (const w of ["need", "get", "rid", "take", "how", "best", "out"]) if (!isStopWord(w)) expect(queryWordWeight(w), w).toBe(FILLER_WEIGHT);
     expect(queryWordWeight("remove")).toBe(GENERIC_WEIGHT);
+    // In any inflection: "the image goes darker" is not about going; "backing" stays a trade word.
+    for (const w of ["goes", "went", "used", "tells", "knew", "helped", "puts"]) expect(queryWordWeight(w), w).toBe(FILLER_WEIGHT);
+    for (const w of ["removes", "fixes", "cleaned", "repaired"]) expect(queryWordWeight(w), w).toBe(GENERIC_WEIGHT);
+    expect(queryWordWeight("backing")).toBe(1);
     // Prepositions WordNet has no adverb sense for say where, not what ("wires against the sky").
     for (const w of ["against", "during", "towards", "onto"]) expect(queryWordWeight(w), w).toBe(GENERIC_WEIGHT);
     for (const w of ["marker", "wire", "flicker", "shiny"]) expect(queryWordWeight(w), w).toBe(1);
