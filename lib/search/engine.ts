@@ -20,7 +20,7 @@
  */
 import type { Language } from "./language";
 import { DocumentAnalyser, FIELD_COUNT, SHORT_FIELDS_MASK, F_ALIASES, F_TAGS, F_TITLE, PostingStore } from "./postings";
-import { parseQuery, type Alternative, type ParseOptions, type QueryPlan } from "./query";
+import { parseQuery, type Alternative, type ParseOptions, type QueryPlan, type QueryUnit } from "./query";
 import { negatedWords, negationFactor, readDenials, type NegatedWord } from "./negation";
 import { gradedScore, problemTagsHit, promoteHouseMethods, rankKey, staysInList, type RankItem } from "./ranking";
 import { isThesaurusKind, isWordNetKind, Scorer } from "./scoring";
@@ -213,11 +213,11 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
 
   function setThesaurus(list: readonly ThesaurusEntry[]): void {
     contentVersion++;
-    for (const sf of pinnedWords) vocab.addRef(sf, -1);
+    for (const sf of pinnedWords) vocab.pin(sf, -1);
     thesaurus = compileThesaurus(list, stemOf, SYMPTOM_LEXICON);
     // Thesaurus words join the spelling vocabulary, so "peple" can reach "people" before any page says it.
     pinnedWords = [...thesaurus.words].map((w) => vocab.internSurface(w));
-    for (const sf of pinnedWords) vocab.addRef(sf, 1);
+    for (const sf of pinnedWords) vocab.pin(sf, 1);
   }
 
   function load(list: Iterable<{ techniqueId: string } & SearchViews>): void {
@@ -430,7 +430,7 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     };
   }
 
-  function search(query: string, options: SearchOptions, onPlanned?: (corrected: string | undefined) => void): SearchResponse {
+  function search(query: string, options: SearchOptions, onPlanned?: (readAs: string | undefined) => void): SearchResponse {
     const t0 = performance.now();
     const filters: Filters = {
       audience: options.audience,
@@ -442,7 +442,8 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const offset = Math.max(0, Math.floor(options.offset ?? 0));
     const p = plan(query, { prefix: "last", exact: options.exact === true });
     const corrected = correctedText(query, p);
-    onPlanned?.(corrected !== query ? corrected : undefined);
+    const readAs = correctedText(query, p, (u) => vocab.pageSpelling(u.text));
+    onPlanned?.(readAs !== query ? readAs : undefined);
     const isEmptyQuery = p.units.length === 0;
 
     // Read from the corrected text, so "no claen plate" denies the plate pages call clean.
@@ -534,10 +535,13 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
   };
 }
 
-/** The query with each corrected word replaced by its correction. */
-function correctedText(query: string, p: QueryPlan): string {
+/** The query with each corrected word replaced by its correction (or, where `otherwise` gives one, by that). */
+function correctedText(query: string, p: QueryPlan, otherwise?: (u: QueryUnit) => string | undefined): string {
   let corrected = query;
-  for (const u of [...p.units].reverse()) if (u.correction) corrected = corrected.slice(0, u.start) + u.correction + corrected.slice(u.end);
+  for (const u of [...p.units].reverse()) {
+    const replacement = u.correction ?? otherwise?.(u);
+    if (replacement) corrected = corrected.slice(0, u.start) + replacement + corrected.slice(u.end);
+  }
   return corrected;
 }
 

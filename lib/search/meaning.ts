@@ -143,8 +143,9 @@ const reportedFailures = new WeakSet<Error>();
 
 /**
  * `index.search`, with the first RERANK_WINDOW results re-ordered by meaning when the search is by
- * relevance for some words. The query is encoded as the engine understands it (spelling corrected),
- * since the encoder does not know "markrs"; its encoding starts as soon as the engine has read the
+ * relevance for some words. The query is encoded as the engine understands it (spelling corrected,
+ * since the encoder does not know "markrs"; British or American words in the pages' spelling, since
+ * it tells "gray" from "grey" and the pages' word is the one it compares with); its encoding starts as soon as the engine has read the
  * query (`onPlanned`), before it scores pages, so with the worker encoder the two run side by side.
  * Without `meaning`, or when the encoder fails, it is the engine's answer unchanged.
  */
@@ -154,8 +155,8 @@ export async function searchWithMeaning(index: Pick<SearchIndex, "search">, quer
   const limit = Math.max(0, Math.floor(options.limit ?? 20));
   if (!meaning || options.sort === "recent" || !query.trim() || offset >= RERANK_WINDOW) return index.search(query, options);
   const encoding: { queryVector?: Promise<Float32Array[]> } = {};
-  const res = index.search(query, { ...options, offset: 0, limit: Math.max(RERANK_WINDOW, offset + limit) }, (corrected) => {
-    encoding.queryVector = meaning.encode([corrected ?? query], "query");
+  const res = index.search(query, { ...options, offset: 0, limit: Math.max(RERANK_WINDOW, offset + limit) }, (readAs) => {
+    encoding.queryVector = meaning.encode([readAs ?? query], "query");
     // Settled here too, so a search that ends before reading it leaves no unhandled rejection.
     encoding.queryVector.catch(() => undefined);
   });

@@ -138,10 +138,12 @@ export type SearchIndex = {
   /** Replace the thesaurus (applied at query time, so no page is re-indexed). */
   setThesaurus(entries: readonly ThesaurusEntry[]): void;
   /**
-   * `onPlanned` hears the query's `corrected` text (undefined when no word was corrected) as soon as the
-   * query is read, before any page is scored: ranking by meaning starts encoding it then (meaning.ts).
+   * `onPlanned` hears the query as the engine reads it (undefined when that is the text typed) as soon
+   * as the query is read, before any page is scored: ranking by meaning starts encoding it then
+   * (meaning.ts). That is the `corrected` text with, besides, a word the pages spell the other way,
+   * British or American, in the pages' spelling — the same word to the engine, not a correction to show.
    */
-  search(query: string, options: SearchOptions, onPlanned?: (corrected: string | undefined) => void): SearchResponse;
+  search(query: string, options: SearchOptions, onPlanned?: (readAs: string | undefined) => void): SearchResponse;
   suggestTitles(query: string, audience: SearchAudience, limit?: number): TitleSuggestion[];
   /** Number of techniques with at least one view. */
   size(): number;

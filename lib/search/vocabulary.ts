@@ -22,6 +22,8 @@ export class Vocabulary {
   private readonly surfaceRefs: number[] = [];
   /** How often each surface occurs in all documents (a thesaurus pin counts once). */
   private readonly surfaceCounts: number[] = [];
+  /** Thesaurus pins of each surface (also counted in surfaceRefs): what pages alone use is the difference. */
+  private readonly surfacePins: number[] = [];
   private readonly trigramIndex = new Map<string, number[]>();
   private sorted: string[] = [];
   private unsorted: string[] = [];
@@ -80,6 +82,7 @@ export class Vocabulary {
       (this.stemSurfaces[stemId] as number[]).push(id);
       this.surfaceRefs.push(0);
       this.surfaceCounts.push(0);
+      this.surfacePins.push(0);
       this.unsorted.push(word);
       for (const g of trigrams(word)) {
         const list = this.trigramIndex.get(g);
@@ -105,6 +108,17 @@ export class Vocabulary {
     this.surfaceCounts[surfaceId] = (this.surfaceCounts[surfaceId] as number) + occurrences;
   }
 
+  /** A thesaurus word pinned (`delta` 1) or let go (−1): it counts as a word in use, not as a page's. */
+  pin(surfaceId: number, delta: 1 | -1): void {
+    this.surfacePins[surfaceId] = (this.surfacePins[surfaceId] as number) + delta;
+    this.addRef(surfaceId, delta);
+  }
+
+  /** A word that some page uses right now (thesaurus pins aside). */
+  private onPages(surfaceId: number): boolean {
+    return (this.surfaceRefs[surfaceId] as number) > (this.surfacePins[surfaceId] as number);
+  }
+
   isLive(surfaceId: number): boolean {
     return (this.surfaceRefs[surfaceId] as number) > 0;
   }
@@ -123,6 +137,32 @@ export class Vocabulary {
   isKnownWord(word: string): boolean {
     const id = this.surfaceIds.get(word);
     return id !== undefined && this.isLive(id);
+  }
+
+  /**
+   * The pages' spelling of a word they spell the other way, British or American ("gray" where pages
+   * say "grey", "colors" → "colours"): a live page word with the same normalised stem whose own
+   * Snowball stem differs (so only the spelling rule made them one stem, not an inflection), the
+   * nearest in letters. Undefined when the pages use the word as typed, or no other spelling of it
+   * (thesaurus words do not count: the encoder compares the query with pages, not with the thesaurus).
+   */
+  pageSpelling(word: string): string | undefined {
+    const typed = this.surfaceIds.get(word);
+    if (typed !== undefined && this.onPages(typed)) return undefined;
+    const stemId = this.stemIds.get(this.stemOf(word));
+    if (stemId === undefined) return undefined;
+    const ownStem = snowballStem(word);
+    let best: string | undefined;
+    let bestDistance = Infinity;
+    for (const id of this.stemSurfaces[stemId] as number[]) {
+      const page = this.surfaceWords[id] as string;
+      if (!this.onPages(id)) continue;
+      // Pages that spell it the query's way too ("color" beside "colour") need no other spelling.
+      if (snowballStem(page) === ownStem) return undefined;
+      const d = editDistance(word, page, bestDistance);
+      if (d < bestDistance) [best, bestDistance] = [page, d];
+    }
+    return best;
   }
 
   /** WordNet's related everyday words of a query word (language.ts). */

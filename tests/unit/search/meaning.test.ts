@@ -158,6 +158,24 @@ describe("searchWithMeaning", () => {
     expect(encoded[0]).toBe("lens drops");
   });
 
+  it("encodes a word the pages spell the other way, British or American, in the pages' spelling, and shows no correction", async () => {
+    // Pairs as the British and American Hunspell dictionaries give them (language.ts).
+    const spelt = createSearchIndex({ language: createLanguage(["grey", "gray", "sky", "colour", "color", "colours", "colors", "marker", "markers"], [["grey", "gray"], ["colour", "color"]]) });
+    const docs = [
+      searchDoc({ title: "Grey sky lift", summary: "Colours of a grey sky.", bodyText: "marker" }),
+      searchDoc({ title: "Sky replacement", summary: "A new sky.", bodyText: "sky" }),
+    ];
+    spelt.load(docs.map((d) => ({ techniqueId: d.techniqueId, published: d, working: null })));
+    encoded.length = 0;
+    const res = await searchWithMeaning(spelt, "gray sky colors markers", opts, meaning());
+    // "markers" is an inflection of the pages' "marker", not another spelling: it stays as typed.
+    expect(encoded[0]).toBe("grey sky colours markers");
+    expect(res.corrected).toBeUndefined();
+    encoded.length = 0;
+    await searchWithMeaning(spelt, "grey sky", opts, meaning());
+    expect(encoded[0]).toBe("grey sky");
+  });
+
   it("starts encoding the query, as corrected and ahead of waiting pages, before the engine scores pages", async () => {
     const steps: string[] = [];
     const watched: Pick<typeof index, "search"> = {
