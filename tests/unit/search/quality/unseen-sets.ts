@@ -10,6 +10,8 @@ import { UNSEEN_PAGES_SECOND } from "./unseen-pages-second";
 import { UNSEEN_PAGES_SECOND_QUERIES } from "./unseen-pages-second-queries";
 import { UNSEEN_PAGES_THIRD } from "./unseen-pages-third";
 import { UNSEEN_PAGES_THIRD_QUERIES } from "./unseen-pages-third-queries";
+import { UNSEEN_PAGES_FOURTH } from "./unseen-pages-fourth";
+import { UNSEEN_PAGES_FOURTH_QUERIES } from "./unseen-pages-fourth-queries";
 import { UNSEEN_QUERIES } from "./unseen-queries";
 import { UNSEEN_QUERIES_SECOND } from "./unseen-queries-second";
 import { UNSEEN_QUERIES_THIRD } from "./unseen-queries-third";
@@ -39,5 +41,12 @@ export const UNSEEN_SETS: readonly UnseenSet[] = [
     name: "third unseen pages (written apart on 2026-12-05)",
     pages: UNSEEN_PAGES_THIRD,
     writers: [{ writer: "a writer who saw only the pages' titles and summaries", queries: UNSEEN_PAGES_THIRD_QUERIES }],
+  },
+  {
+    // Written after the engine's last change of 2026-12-05 night, to measure it afresh; lens and camera
+    // problems (the areas issue 16 added to the demo), in look-alike groups.
+    name: "fourth unseen pages (written apart on 2026-12-06)",
+    pages: UNSEEN_PAGES_FOURTH,
+    writers: [{ writer: "a writer who saw only the pages' titles and summaries", queries: UNSEEN_PAGES_FOURTH_QUERIES }],
   },
 ];
