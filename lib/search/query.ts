@@ -164,8 +164,8 @@ function parseWord(tok: Token, ctx: QueryContext, allowPrefix: boolean, exact: b
   let correction: string | undefined;
   const correctionChoices: string[] = [];
   // A run-together word whose halves are words ("infront", "deadpixel") is read as those words first.
-  const isSplit = !hasExact && !isKnown && word.length >= 5 && !vocab.isEnglishWord(word) && splitCompound(word, ctx, out);
-  if (!exact && !isKnown && !isSplit && !vocab.isEnglishWord(word)) {
+  const isSplit = !hasExact && !isKnown && word.length >= 5 && !vocab.passesSpellCheck(word) && splitCompound(word, ctx, out);
+  if (!exact && !isKnown && !isSplit && !vocab.passesSpellCheck(word)) {
     const maxDistance = word.length <= 3 ? 0 : word.length <= 5 ? 1 : 2;
     const found = vocab.corrections(word, maxDistance);
     // Prefer the word closest to what was typed ("markrs" → "markers", not "mark", though their stems

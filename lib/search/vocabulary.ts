@@ -184,6 +184,11 @@ export class Vocabulary {
     return this.language.isEnglishWord(word);
   }
 
+  /** A word spelling correction leaves alone: in the word list or passed by Hunspell (language.ts). */
+  passesSpellCheck(word: string): boolean {
+    return this.language.passesSpellCheck(word);
+  }
+
   /** Live surface words that start with `prefix` (at most `limit`), shortest distance in the sort first. */
   completions(prefix: string, limit = 200): number[] {
     const vocab = this.sortedSurfaces();

@@ -11,6 +11,14 @@ describe("loadLanguage (word-list, dictionary-en, dictionary-en-gb)", async () =
     for (const w of ["roling", "trakcing", "markrs", "sensr"]) expect(language.isEnglishWord(w), w).toBe(false);
   });
 
+  it("passes for spelling what Hunspell's dictionaries pass by their affix rules, which the word list lacks (dept)", () => {
+    expect(language.isEnglishWord("dept")).toBe(false);
+    expect(language.passesSpellCheck("dept")).toBe(true);
+    for (const w of ["bent", "colour", "gray"]) expect(language.passesSpellCheck(w), w).toBe(true);
+    // …and still not a slip of a real word, nor a trade abbreviation neither source has (leads' thesaurus words are known to search).
+    for (const w of ["depts", "kpet", "markrs", "rgb"]) expect(language.passesSpellCheck(w), w).toBe(false);
+  });
+
   it("maps British spellings to American stems (colour/color, grey/gray, centre/center, stabilise/stabilize)", () => {
     const same = (gb: string, us: string) => expect(language.normaliseStem(snowballStem(gb)), `${gb}/${us}`).toBe(language.normaliseStem(snowballStem(us)));
     same("colour", "color");
