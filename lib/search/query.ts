@@ -84,6 +84,8 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
   const stemsAt = (i: number): string[] => {
     const u = units[i] as QueryUnit;
     const out = [ctx.vocab.stemOf((tokens[i] as Token).word)];
+    // Irregular and kept inflections meet the thesaurus by their base too ("men" as man, as "markers" does as marker).
+    for (const b of ctx.vocab.baseForms((tokens[i] as Token).word)) out.push(ctx.vocab.stemOf(b));
     if (u.correction) out.push(ctx.vocab.stemOf(u.correction));
     for (const a of u.alternatives) if ((a.kind === "typo" || a.kind === "exact" || a.kind === "stem") && a.stems.length === 1) out.push(ctx.vocab.stemWords[a.stems[0] as number] as string);
     return out;

