@@ -143,10 +143,11 @@ const reportedFailures = new WeakSet<Error>();
 
 /**
  * `index.search`, with the first RERANK_WINDOW results re-ordered by meaning when the search is by
- * relevance for some words. The query is encoded as the engine understands it (spelling corrected,
- * since the encoder does not know "markrs"; British or American words in the pages' spelling, since
- * it tells "gray" from "grey" and the pages' word is the one it compares with); its encoding starts as soon as the engine has read the
- * query (`onPlanned`), before it scores pages, so with the worker encoder the two run side by side.
+ * relevance for some words. The query is encoded as the engine understands it: spelling corrected,
+ * since the encoder does not know "markrs", and British or American words in the pages' spelling,
+ * since it tells "gray" from "grey" and the pages' word is the one it compares with. Its encoding
+ * starts as soon as the engine has read the query (`onPlanned`), before it scores pages, so with the
+ * worker encoder the two run side by side.
  * Without `meaning`, or when the encoder fails, it is the engine's answer unchanged.
  */
 export async function searchWithMeaning(index: Pick<SearchIndex, "search">, query: string, options: SearchOptions, meaning: Meaning | null): Promise<SearchResponse> {
