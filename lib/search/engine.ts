@@ -442,8 +442,11 @@ export function createSearchIndex(options: SearchEngineOptions): SearchEngine {
     const offset = Math.max(0, Math.floor(options.offset ?? 0));
     const p = plan(query, { prefix: "last", exact: options.exact === true });
     const corrected = correctedText(query, p);
-    const readAs = correctedText(query, p, (u) => vocab.pageSpelling(u.text));
-    onPlanned?.(readAs !== query ? readAs : undefined);
+    if (onPlanned) {
+      // Only the meaning layer reads this, so a search without it skips the spelling lookups.
+      const readAs = correctedText(query, p, (u) => vocab.pageSpelling(u.text));
+      onPlanned(readAs !== query ? readAs : undefined);
+    }
     const isEmptyQuery = p.units.length === 0;
 
     // Read from the corrected text, so "no claen plate" denies the plate pages call clean.

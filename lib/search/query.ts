@@ -80,16 +80,17 @@ export function parseQuery(query: string, ctx: QueryContext, options: ParseOptio
   const spans: QuerySpan[] = [];
   const taken = new Uint8Array(units.length);
 
-  // Thesaurus terms, longest first: each unit may stand for its own stem or its correction.
-  const stemsAt = (i: number): string[] => {
-    const u = units[i] as QueryUnit;
+  // Thesaurus terms, longest first: each unit may stand for its own stem or its correction. Worked out
+  // once per unit: the phrase finder asks for a unit's stems again for every rule that starts near it.
+  const unitStems = units.map((u, i) => {
     const out = [ctx.vocab.stemOf((tokens[i] as Token).word)];
     // Irregular and kept inflections meet the thesaurus by their base too ("men" as man, as "markers" does as marker).
     for (const b of ctx.vocab.baseForms((tokens[i] as Token).word)) out.push(ctx.vocab.stemOf(b));
     if (u.correction) out.push(ctx.vocab.stemOf(u.correction));
     for (const a of u.alternatives) if ((a.kind === "typo" || a.kind === "exact" || a.kind === "stem") && a.stems.length === 1) out.push(ctx.vocab.stemWords[a.stems[0] as number] as string);
     return out;
-  };
+  });
+  const stemsAt = (i: number): string[] => unitStems[i] as string[];
   const wordsAt = (i: number): string[] => {
     const u = units[i] as QueryUnit;
     return u.correction ? [(tokens[i] as Token).word, u.correction] : [(tokens[i] as Token).word];
